@@ -1,0 +1,67 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { toNodeHandler } from 'better-auth/node';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { Auth } from './auth';
+import type { Database } from './db/client';
+import type { Logger } from './lib/logger';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requireActor } from './middleware/require-actor';
+import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
+import { meRouter } from './modules/me/me.routes';
+import { projectsRouter } from './modules/projects/projects.routes';
+
+export type AppDeps = {
+  database: Database;
+  auth: Auth;
+  logger: Logger;
+  /** Folder of the built client (dist/); served with a fallback to index.html when it exists. */
+  clientDir?: string;
+};
+
+export const JSON_BODY_LIMIT = '1mb';
+
+/** Builds the Express app without listening, so tests drive it in-process. */
+export function createApp({ database, auth, logger, clientDir }: AppDeps): Express {
+  const { db } = database;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ status: 'ok', database: database.kind });
+  });
+  // better-auth reads its own bodies: mount it before the JSON parser.
+  app.all('/api/auth/{*splat}', toNodeHandler(auth));
+
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', requireActor(auth, db));
+  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
+  app.use('/api', apiNotFound);
+
+  if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,10 @@
+import { timestamp } from 'drizzle-orm/pg-core';
+
+/** created_at / updated_at, shared by every table that changes. */
+export const timestamps = {
+  createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+    .notNull()
+    .defaultNow()
+    .$onUpdate(() => new Date()),
+};

@@ -1,0 +1,61 @@
+import { eq } from 'drizzle-orm';
+import type { CompanyKind } from '../../src/shared/constants';
+import type { Auth } from '../auth';
+import type { Db } from './client';
+import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from './demo/demo-data';
+import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
+import { recordAudit } from '../modules/audit/audit.repository';
+
+/**
+ * Seeds the demo scenario once. Returns false when the demo project is already there (idempotent: a marker is
+ * the general contractor's demo sign-in).
+ */
+export async function seedDemo(db: Db, auth: Auth): Promise<boolean> {
+  const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'gc@tallyard.test')).limit(1);
+  if (existing) return false;
+
+  const userIds = new Map<string, string>();
+  for (const person of DEMO_PEOPLE) {
+    const created = await auth.api.signUpEmail({
+      body: { email: person.email, password: DEMO_PASSWORD, name: person.name },
+    });
+    userIds.set(person.email, created.user.id);
+  }
+
+  await db.transaction(async (tx) => {
+    const companyIds = {} as Record<CompanyKind, string>;
+    for (const [kind, name] of Object.entries(DEMO_COMPANIES) as [CompanyKind, string][]) {
+      const [row] = await tx.insert(companies).values({ kind, name }).returning({ id: companies.id });
+      companyIds[kind] = row!.id;
+    }
+    for (const person of DEMO_PEOPLE) {
+      await tx
+        .insert(companyMembers)
+        .values({ userId: userIds.get(person.email)!, companyId: companyIds[person.company], isAdmin: person.isAdmin });
+    }
+    const [project] = await tx
+      .insert(projects)
+      .values({
+        ...DEMO_PROJECT,
+        subcontractorCompanyId: companyIds.subcontractor,
+        generalContractorCompanyId: companyIds.general_contractor,
+        ownerCompanyId: companyIds.owner,
+      })
+      .returning({ id: projects.id });
+    const projectId = project!.id;
+    for (const person of DEMO_PEOPLE) {
+      if (!person.projectRole) continue;
+      await tx.insert(projectMembers).values({ projectId, userId: userIds.get(person.email)!, role: person.projectRole });
+    }
+    await tx.insert(bidItems).values(DEMO_BID_ITEMS.map((i) => ({ ...i, projectId })));
+    await recordAudit(tx, {
+      projectId,
+      actorUserId: null,
+      objectType: 'project',
+      objectId: projectId,
+      action: 'demo.seeded',
+      after: { bidItems: DEMO_BID_ITEMS.length },
+    });
+  });
+  return true;
+}

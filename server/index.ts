@@ -1,0 +1,64 @@
+import { createServer } from 'node:http';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { createApp } from './app';
+import { createAuth } from './auth';
+import { openDatabase } from './db/client';
+import { runMigrations } from './db/migrate';
+import { seedDemo } from './db/seed-demo';
+import { loadEnv } from './env';
+import { authSecret, dataDirLayout, lockDataDir } from './lib/data-dir';
+import { createLogger } from './lib/logger';
+import { appOrigins } from './lib/origins';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+/** env -> lock -> db -> migrate -> seed -> createApp -> listen; SIGTERM and SIGINT close cleanly. */
+async function main() {
+  const env = loadEnv();
+  const logger = createLogger(env.LOG_LEVEL);
+  const layout = dataDirLayout(env.DATA_DIR);
+  const usePostgres = Boolean(env.DATABASE_URL);
+  const unlock = usePostgres ? async () => {} : await lockDataDir(layout);
+  const database = await openDatabase(
+    env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db },
+  );
+  await runMigrations(database);
+
+  const devOrigins = env.NODE_ENV === 'development' ? ['http://localhost:5173', 'http://127.0.0.1:5173'] : [];
+  const { baseURL, trustedOrigins } = appOrigins(env.PORT, env.APP_URL, devOrigins);
+  const auth = createAuth({
+    db: database.db,
+    secret: authSecret(layout, env.BETTER_AUTH_SECRET),
+    baseURL,
+    trustedOrigins,
+    production: env.NODE_ENV === 'production' && baseURL.startsWith('https:'),
+  });
+  const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
+  if (shouldSeed && (await seedDemo(database.db, auth))) logger.info('seeded the demo project');
+
+  const app = createApp({ database, auth, logger, clientDir: path.join(ROOT, 'dist') });
+  const server = createServer(app);
+  server.listen(env.PORT, env.HOST, () => {
+    logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
+  });
+
+  let closing = false;
+  const shutdown = async (signal: string) => {
+    if (closing) return;
+    closing = true;
+    logger.info({ signal }, 'shutting down');
+    server.close();
+    server.closeAllConnections();
+    await database.close();
+    await unlock();
+    process.exit(0);
+  };
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+}
+
+main().catch((err: unknown) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

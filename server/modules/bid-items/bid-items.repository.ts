@@ -1,0 +1,40 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import type { BidItemInput, UpdateBidItemInput } from '../../../src/shared/schemas/bid-item';
+import type { Executor } from '../../db/client';
+import { bidItems } from '../../db/schema';
+import type { BidItemRow } from './bid-items.presenter';
+
+export async function listBidItems(db: Executor, projectId: string): Promise<BidItemRow[]> {
+  return db.select().from(bidItems).where(eq(bidItems.projectId, projectId)).orderBy(bidItems.itemNumber);
+}
+
+export async function findBidItem(db: Executor, bidItemId: string): Promise<BidItemRow | undefined> {
+  const [row] = await db.select().from(bidItems).where(eq(bidItems.id, bidItemId)).limit(1);
+  return row;
+}
+
+export async function existingItemNumbers(db: Executor, projectId: string, itemNumbers: string[]): Promise<string[]> {
+  if (itemNumbers.length === 0) return [];
+  const rows = await db
+    .select({ itemNumber: bidItems.itemNumber })
+    .from(bidItems)
+    .where(and(eq(bidItems.projectId, projectId), inArray(bidItems.itemNumber, itemNumbers)));
+  return rows.map((r) => r.itemNumber);
+}
+
+export async function insertBidItems(db: Executor, projectId: string, items: BidItemInput[]): Promise<BidItemRow[]> {
+  if (items.length === 0) return [];
+  return db
+    .insert(bidItems)
+    .values(items.map((item) => ({ ...item, projectId })))
+    .returning();
+}
+
+export async function updateBidItem(db: Executor, bidItemId: string, input: UpdateBidItemInput): Promise<BidItemRow> {
+  const [row] = await db.update(bidItems).set(input).where(eq(bidItems.id, bidItemId)).returning();
+  return row!;
+}
+
+export async function deleteBidItem(db: Executor, bidItemId: string): Promise<void> {
+  await db.delete(bidItems).where(eq(bidItems.id, bidItemId));
+}

@@ -1,0 +1,124 @@
+/**
+ * Closed sets, declared once. Each tuple feeds the database enum, the zod schemas, the badges and the
+ * transition tables.
+ */
+
+export const COMPANY_KINDS = ['subcontractor', 'general_contractor', 'owner'] as const;
+export type CompanyKind = (typeof COMPANY_KINDS)[number];
+
+/** Roles a person holds on one project. Company admins act through their company, not a project role. */
+export const PROJECT_ROLES = ['subcontractor', 'general_contractor', 'owner'] as const;
+export type ProjectRole = (typeof PROJECT_ROLES)[number];
+
+/** Effective roles a policy checks: a project role, or `admin` for an admin of a party company. */
+export const ACCESS_ROLES = [...PROJECT_ROLES, 'admin'] as const;
+export type AccessRole = (typeof ACCESS_ROLES)[number];
+
+export const UNIT_SYSTEMS = ['us', 'metric'] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+
+/** Pay units: US customary first, then metric. */
+export const PAY_UNITS = ['CY', 'LF', 'SY', 'TON', 'EA', 'LS', 'm3', 'm', 'm2', 't'] as const;
+export type PayUnit = (typeof PAY_UNITS)[number];
+
+export const PAY_UNIT_LABELS: Record<PayUnit, string> = {
+  CY: 'cubic yards',
+  LF: 'linear feet',
+  SY: 'square yards',
+  TON: 'tons',
+  EA: 'each',
+  LS: 'lump sum',
+  m3: 'cubic metres',
+  m: 'metres',
+  m2: 'square metres',
+  t: 'tonnes',
+};
+
+/** Volume measure a quantity is paid in (common practice: cuts in bank, fills in compacted measure). */
+export const MEASUREMENT_BASES = ['bank', 'loose', 'compacted'] as const;
+export type MeasurementBasis = (typeof MEASUREMENT_BASES)[number];
+
+/** How a bid item is measured: one of the eight worksheets, or a manual quantity with a written basis. */
+export const MEASUREMENT_METHODS = [
+  'end-area',
+  'grid',
+  'pit',
+  'trench',
+  'load-count',
+  'spoil',
+  'surface',
+  'mass-haul',
+  'manual',
+] as const;
+export type MeasurementMethod = (typeof MEASUREMENT_METHODS)[number];
+
+export const MEASUREMENT_METHOD_LABELS: Record<MeasurementMethod, string> = {
+  'end-area': 'Cross sections (end areas)',
+  grid: 'Grid levels',
+  pit: 'Pit corners',
+  trench: 'Trench runs',
+  'load-count': 'Truck tickets',
+  spoil: 'Spoil planner',
+  surface: 'Surface to surface',
+  'mass-haul': 'Mass haul',
+  manual: 'Manual, with written basis',
+};
+
+/** Variation clause presets. Sources: FAR 52.211-18; 23 CFR 635.109(a)(3). */
+export const VARIATION_PRESETS = ['far-15', 'major-125-75', 'custom'] as const;
+export type VariationPreset = (typeof VARIATION_PRESETS)[number];
+
+export const MAX_CSV_UPLOAD_BYTES = 1024 * 1024;
+export const MAX_BID_ITEMS_PER_IMPORT = 5000;
+
+// ---------------------------------------------------------------------------------------------------------
+// Quantity engine and calculation API (issue 3). Owned by the engine; other sections above stay as they are.
+// ---------------------------------------------------------------------------------------------------------
+
+/** Methods of POST /api/calc/:method, each a pure function in src/shared/domain (see src/shared/domain/calc.ts). */
+export const CALC_METHODS = [
+  'section',
+  'end-area',
+  'grid',
+  'pit',
+  'trench',
+  'convert',
+  'load-count',
+  'spoil',
+  'mass-haul',
+  'surface',
+  'variance',
+  'pay-app',
+] as const;
+export type CalcMethod = (typeof CALC_METHODS)[number];
+
+/** `ft`: feet and square feet in, cubic yards out (cu ft / 27). `m`: metres in, cubic metres out. */
+export const LENGTH_UNITS = ['ft', 'm'] as const;
+export type LengthUnit = (typeof LENGTH_UNITS)[number];
+
+export const END_AREA_FORMULAS = ['average-end-area', 'prismoidal'] as const;
+export type EndAreaFormula = (typeof END_AREA_FORMULAS)[number];
+
+/** What to do where one end area of a segment is zero: keep averaging, or the pyramid rule V = A L / 3. */
+export const ZERO_AREA_END_RULES = ['average', 'pyramid'] as const;
+export type ZeroAreaEndRule = (typeof ZERO_AREA_END_RULES)[number];
+
+export const TRENCH_PROTECTIONS = ['box', 'slope', 'bench'] as const;
+export type TrenchProtection = (typeof TRENCH_PROTECTIONS)[number];
+
+/** OSHA 29 CFR 1926 Subpart P App. A classes; `A-short-term` is App. B's 24-hour, 12 ft exception. */
+export const SOIL_CLASSES = ['stable-rock', 'A', 'A-short-term', 'B', 'C'] as const;
+export type SoilClass = (typeof SOIL_CLASSES)[number];
+
+export const SPOIL_SHAPES = ['pile', 'bank'] as const;
+export type SpoilShape = (typeof SPOIL_SHAPES)[number];
+
+/** Mass haul: fill is turned into the bank volume it needs with a shrinkage (earth) or swell (rock) factor. */
+export const MASS_HAUL_FACTOR_KINDS = ['shrinkage', 'swell'] as const;
+export type MassHaulFactorKind = (typeof MASS_HAUL_FACTOR_KINDS)[number];
+
+export const VARIANCE_STATUSES = ['within', 'over', 'under'] as const;
+export type VarianceStatus = (typeof VARIANCE_STATUSES)[number];
+// ---------------------------------------------------------------------------------------------------------
+// End of the quantity engine section.
+// ---------------------------------------------------------------------------------------------------------

@@ -1,0 +1,35 @@
+import type { Express } from 'express';
+import request from 'supertest';
+import { createApp } from '../../server/app';
+import { createAuth, type Auth } from '../../server/auth';
+import type { Database } from '../../server/db/client';
+import { createLogger } from '../../server/lib/logger';
+import { createTestDatabase } from './test-db';
+
+export const TEST_ORIGIN = 'http://localhost:3000';
+export const TEST_PASSWORD = 'correct-horse-battery';
+
+export type TestApp = { app: Express; auth: Auth; database: Database; close: () => Promise<void> };
+
+/** The real app on a fresh test database, driven in-process by supertest. */
+export async function createTestApp(): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const auth = createAuth({
+    db: database.db,
+    secret: 'test-secret-test-secret-test-secret-0123',
+    baseURL: TEST_ORIGIN,
+    trustedOrigins: [TEST_ORIGIN],
+    production: false,
+  });
+  const app = createApp({ database, auth, logger: createLogger('silent') });
+  return { app, auth, database, close: () => database.close() };
+}
+
+/** A supertest agent signed in as this person: it keeps the session cookie and sends our Origin. */
+export async function signedInAgent(app: Express, email: string, password = TEST_PASSWORD) {
+  const agent = request.agent(app);
+  agent.set('Origin', TEST_ORIGIN);
+  const res = await agent.post('/api/auth/sign-in/email').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}
