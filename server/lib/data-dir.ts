@@ -30,6 +30,7 @@ export async function lockDataDir(layout: DataDirLayout): Promise<() => Promise<
       throw new Error(
         `Another Tallyard process is using the data folder ${layout.root}. Stop it first, or start this one with a ` +
           'different DATA_DIR. (Two processes on one embedded database would lose data.)',
+        { cause: err },
       );
     }
     throw err;
