@@ -122,3 +122,43 @@ export type VarianceStatus = (typeof VARIANCE_STATUSES)[number];
 // ---------------------------------------------------------------------------------------------------------
 // End of the quantity engine section.
 // ---------------------------------------------------------------------------------------------------------
+
+/** A tally (one measured quantity of one bid item for one period): being written, ready to bill, billed. */
+export const TALLY_STATUSES = ['draft', 'ready', 'billed'] as const;
+export type TallyStatus = (typeof TALLY_STATUSES)[number];
+
+/** Pay application life (status codes of the API; screen labels may read differently). */
+export const PAY_APP_STATUSES = [
+  'draft',
+  'submitted',
+  'in_review',
+  'returned',
+  'certified',
+  'payment_processing',
+  'partially_paid',
+  'paid',
+] as const;
+export type PayAppStatus = (typeof PAY_APP_STATUSES)[number];
+
+/** The general contractor's verdict on one line of a pay application. */
+export const LINE_REVIEW_STATUSES = ['pending', 'approved', 'disputed'] as const;
+export type LineReviewStatus = (typeof LINE_REVIEW_STATUSES)[number];
+
+export const DISPUTE_STATUSES = ['open', 'resolved'] as const;
+export type DisputeStatus = (typeof DISPUTE_STATUSES)[number];
+
+/** How a dispute ended: the counter quantity taken, an answer with more evidence, or withdrawn by the reviewer. */
+export const DISPUTE_RESOLUTIONS = ['counter_accepted', 'answered', 'withdrawn'] as const;
+export type DisputeResolution = (typeof DISPUTE_RESOLUTIONS)[number];
+
+export const CHANGE_ORDER_STATUSES = ['proposed', 'approved', 'rejected'] as const;
+export type ChangeOrderStatus = (typeof CHANGE_ORDER_STATUSES)[number];
+
+export const CHANGE_ORDER_ITEM_KINDS = ['add_item', 'change_quantity', 'change_price'] as const;
+export type ChangeOrderItemKind = (typeof CHANGE_ORDER_ITEM_KINDS)[number];
+
+export const EMAIL_STATUSES = ['pending', 'sent', 'failed'] as const;
+export type EmailStatus = (typeof EMAIL_STATUSES)[number];
+
+export const MAX_EVIDENCE_BYTES = 20 * 1024 * 1024;
+export const MAX_EVIDENCE_FILES_PER_TALLY = 20;

@@ -23,6 +23,8 @@ export const bidItems = pgTable(
     contractQuantity: numeric('contract_quantity', { precision: 16, scale: 4, mode: 'number' }).notNull(),
     isMajor: boolean('is_major').notNull().default(false),
     method: measurementMethod('method').notNull(),
+    /** Set when an approved change order added the item (its quantity then counts as a change, not original). */
+    addedByChangeOrderId: uuid('added_by_change_order_id'),
     ...timestamps,
   },
   (t) => [unique('bid_items_project_item_number').on(t.projectId, t.itemNumber), index().on(t.projectId)],

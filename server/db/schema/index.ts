@@ -3,3 +3,7 @@ export * from './companies';
 export * from './projects';
 export * from './bid-items';
 export * from './audit';
+export * from './tallies';
+export * from './pay-apps';
+export * from './change-orders';
+export * from './emails';
