@@ -162,3 +162,19 @@ export type EmailStatus = (typeof EMAIL_STATUSES)[number];
 
 export const MAX_EVIDENCE_BYTES = 20 * 1024 * 1024;
 export const MAX_EVIDENCE_FILES_PER_TALLY = 20;
+
+/** A payment's life; an application is paid only when its payments have succeeded. */
+export const PAYMENT_STATUSES = ['created', 'processing', 'succeeded', 'failed', 'canceled', 'refunded'] as const;
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+
+export const PAYMENT_METHODS = ['card', 'us_bank_account'] as const;
+export type PaymentMethod = (typeof PAYMENT_METHODS)[number];
+
+/** The four lien waiver forms: conditional or unconditional, on a progress or the final payment. */
+export const LIEN_WAIVER_KINDS = [
+  'conditional_progress',
+  'unconditional_progress',
+  'conditional_final',
+  'unconditional_final',
+] as const;
+export type LienWaiverKind = (typeof LIEN_WAIVER_KINDS)[number];

@@ -7,3 +7,4 @@ export * from './tallies';
 export * from './pay-apps';
 export * from './change-orders';
 export * from './emails';
+export * from './payments';
