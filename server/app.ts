@@ -5,6 +5,9 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Auth } from './auth';
 import type { Database } from './db/client';
+import type { Mailer } from './integrations/mailer/mailer';
+import type { SmtpSink } from './integrations/mailer/smtp-sink';
+import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requireActor } from './middleware/require-actor';
@@ -16,6 +19,12 @@ export type AppDeps = {
   database: Database;
   auth: Auth;
   logger: Logger;
+  mailer: Mailer;
+  storage: Storage;
+  /** The local SMTP sink when no SMTP_URL is set: the development Mailbox page lists what it caught. */
+  mailbox?: SmtpSink;
+  /** The app's public origin, for links in e-mails. */
+  appUrl: string;
   /** Folder of the built client (dist/); served with a fallback to index.html when it exists. */
   clientDir?: string;
 };
@@ -23,7 +32,8 @@ export type AppDeps = {
 export const JSON_BODY_LIMIT = '1mb';
 
 /** Builds the Express app without listening, so tests drive it in-process. */
-export function createApp({ database, auth, logger, clientDir }: AppDeps): Express {
+export function createApp(deps: AppDeps): Express {
+  const { database, auth, logger, clientDir } = deps;
   const { db } = database;
   const app = express();
   app.disable('x-powered-by');

@@ -6,6 +6,9 @@ import { createAuth } from './auth';
 import { openDatabase } from './db/client';
 import { runMigrations } from './db/migrate';
 import { seedDemo } from './db/seed-demo';
+import { smtpMailer } from './integrations/mailer/mailer';
+import { startSmtpSink } from './integrations/mailer/smtp-sink';
+import { localStorage } from './integrations/storage/storage';
 import { loadEnv } from './env';
 import { authSecret, dataDirLayout, lockDataDir } from './lib/data-dir';
 import { createLogger } from './lib/logger';
@@ -37,7 +40,20 @@ async function main() {
   const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
   if (shouldSeed && (await seedDemo(database.db, auth))) logger.info('seeded the demo project');
 
-  const app = createApp({ database, auth, logger, clientDir: path.join(ROOT, 'dist') });
+  const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
+  const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
+  if (mailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
+  const storage = localStorage(layout.uploads);
+  const app = createApp({
+    database,
+    auth,
+    logger,
+    mailer,
+    storage,
+    mailbox,
+    appUrl: baseURL,
+    clientDir: path.join(ROOT, 'dist'),
+  });
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
     logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
@@ -50,6 +66,7 @@ async function main() {
     logger.info({ signal }, 'shutting down');
     server.close();
     server.closeAllConnections();
+    await mailbox?.close();
     await database.close();
     await unlock();
     process.exit(0);

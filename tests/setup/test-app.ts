@@ -3,13 +3,23 @@ import request from 'supertest';
 import { createApp } from '../../server/app';
 import { createAuth, type Auth } from '../../server/auth';
 import type { Database } from '../../server/db/client';
+import { smtpMailer } from '../../server/integrations/mailer/mailer';
+import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
+import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
 import { createLogger } from '../../server/lib/logger';
 import { createTestDatabase } from './test-db';
 
 export const TEST_ORIGIN = 'http://localhost:3000';
 export const TEST_PASSWORD = 'correct-horse-battery';
 
-export type TestApp = { app: Express; auth: Auth; database: Database; close: () => Promise<void> };
+export type TestApp = {
+  app: Express;
+  auth: Auth;
+  database: Database;
+  mailbox: SmtpSink;
+  storage: Storage;
+  close: () => Promise<void>;
+};
 
 /** The real app on a fresh test database, driven in-process by supertest. */
 export async function createTestApp(): Promise<TestApp> {
@@ -21,8 +31,22 @@ export async function createTestApp(): Promise<TestApp> {
     trustedOrigins: [TEST_ORIGIN],
     production: false,
   });
-  const app = createApp({ database, auth, logger: createLogger('silent') });
-  return { app, auth, database, close: () => database.close() };
+  const mailbox = await startSmtpSink();
+  const storage = memoryStorage();
+  const app = createApp({
+    database,
+    auth,
+    logger: createLogger('silent'),
+    mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
+    storage,
+    mailbox,
+    appUrl: TEST_ORIGIN,
+  });
+  const close = async () => {
+    await mailbox.close();
+    await database.close();
+  };
+  return { app, auth, database, mailbox, storage, close };
 }
 
 /** A supertest agent signed in as this person: it keeps the session cookie and sends our Origin. */

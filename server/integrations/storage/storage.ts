@@ -1,0 +1,54 @@
+import { createHash, randomUUID } from 'node:crypto';
+import { mkdirSync } from 'node:fs';
+import { readFile, rm, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+
+/** Where uploaded files live. The local folder today; object storage can take its place behind this interface. */
+export interface Storage {
+  /** Stores bytes under a new key and returns it with the SHA-256 of the content. */
+  put(bytes: Buffer, hint: string): Promise<{ key: string; sha256: string }>;
+  get(key: string): Promise<Buffer>;
+  remove(key: string): Promise<void>;
+}
+
+const KEY = /^[a-z0-9-]+\/[0-9a-f-]{36}$/;
+
+/** Files under DATA_DIR/uploads (outside any static folder), named by random keys, never by the upload's name. */
+export function localStorage(root: string): Storage {
+  mkdirSync(root, { recursive: true });
+  const fileOf = (key: string) => {
+    if (!KEY.test(key)) throw new Error(`Bad storage key: ${key}`);
+    return path.join(root, key);
+  };
+  return {
+    async put(bytes, hint) {
+      const folder = hint.toLowerCase().replace(/[^a-z0-9-]/g, '-').slice(0, 40) || 'file';
+      const key = `${folder}/${randomUUID()}`;
+      mkdirSync(path.join(root, folder), { recursive: true });
+      await writeFile(fileOf(key), bytes, { flag: 'wx' });
+      return { key, sha256: createHash('sha256').update(bytes).digest('hex') };
+    },
+    get: (key) => readFile(fileOf(key)),
+    remove: (key) => rm(fileOf(key), { force: true }),
+  };
+}
+
+/** In memory, for tests. */
+export function memoryStorage(): Storage {
+  const files = new Map<string, Buffer>();
+  return {
+    async put(bytes, hint) {
+      const key = `${hint.toLowerCase().replace(/[^a-z0-9-]/g, '-') || 'file'}/${randomUUID()}`;
+      files.set(key, Buffer.from(bytes));
+      return { key, sha256: createHash('sha256').update(bytes).digest('hex') };
+    },
+    async get(key) {
+      const bytes = files.get(key);
+      if (!bytes) throw new Error(`No stored file ${key}`);
+      return bytes;
+    },
+    async remove(key) {
+      files.delete(key);
+    },
+  };
+}
