@@ -13,7 +13,9 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requireActor } from './middleware/require-actor';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { meRouter } from './modules/me/me.routes';
+import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
+import type { AppContext } from './app-context';
 
 export type AppDeps = {
   database: Database;
@@ -35,6 +37,14 @@ export const JSON_BODY_LIMIT = '1mb';
 export function createApp(deps: AppDeps): Express {
   const { database, auth, logger, clientDir } = deps;
   const { db } = database;
+  const ctx: AppContext = {
+    db,
+    storage: deps.storage,
+    outbox: createOutbox(db, deps.mailer, logger),
+    logger,
+    appUrl: deps.appUrl,
+    mailbox: deps.mailbox,
+  };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -64,6 +74,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
   app.use('/api', requireActor(auth, db));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
+  // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
+  void ctx;
   app.use('/api', apiNotFound);
 
   if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {

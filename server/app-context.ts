@@ -1,0 +1,16 @@
+import type { Db } from './db/client';
+import type { SmtpSink } from './integrations/mailer/smtp-sink';
+import type { Storage } from './integrations/storage/storage';
+import type { Logger } from './lib/logger';
+import type { Outbox } from './modules/notifications/outbox';
+
+/** What a module's routes and services need from the app, built once by createApp. */
+export type AppContext = {
+  db: Db;
+  storage: Storage;
+  outbox: Outbox;
+  logger: Logger;
+  /** The app's public origin, for links in e-mails. */
+  appUrl: string;
+  mailbox?: SmtpSink;
+};
