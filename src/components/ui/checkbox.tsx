@@ -1,0 +1,8 @@
+import type * as React from 'react';
+import { cn } from '@/lib/cn';
+
+export function Checkbox({ className, ...props }: React.ComponentProps<'input'>) {
+  return (
+    <input type="checkbox" className={cn('accent-spruce-700 size-4 rounded border-stone-400', className)} {...props} />
+  );
+}

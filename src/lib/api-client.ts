@@ -1,0 +1,80 @@
+import { apiErrorSchema, type ApiErrorDetail } from '@/shared/schemas/api-error';
+
+/** An API answer that was not 2xx, carrying the server's stable code and its field or row details. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly details: ApiErrorDetail[];
+
+  constructor(status: number, code: string, message: string, details: ApiErrorDetail[] = []) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.details = details;
+  }
+}
+
+/** Builds an ApiError from a status and whatever body came back, even when it is not our error shape. */
+export function toApiError(status: number, body: unknown): ApiError {
+  const parsed = apiErrorSchema.safeParse(body);
+  if (parsed.success) {
+    const { code, message, details } = parsed.data.error;
+    return new ApiError(status, code, message, details);
+  }
+  if (status === 0) return new ApiError(0, 'NETWORK_ERROR', 'The server could not be reached. Check the connection.');
+  return new ApiError(status, `HTTP_${status}`, `The server answered ${status}.`);
+}
+
+async function readBody(response: Response): Promise<unknown> {
+  if (response.status === 204) return undefined;
+  const text = await response.text();
+  if (!text) return undefined;
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    return text;
+  }
+}
+
+type RequestOptions = Omit<RequestInit, 'body'> & { body?: unknown };
+
+/** Same-origin JSON request with the session cookie; throws ApiError on any non-2xx answer. */
+export async function apiRequest<T>(path: string, { body, headers, ...init }: RequestOptions = {}): Promise<T> {
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      ...init,
+      credentials: 'include',
+      headers: {
+        Accept: 'application/json',
+        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...headers,
+      },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch {
+    throw toApiError(0, undefined);
+  }
+  const payload = await readBody(response);
+  if (!response.ok) throw toApiError(response.status, payload);
+  return payload as T;
+}
+
+export const api = {
+  get: <T>(path: string, init?: RequestOptions) => apiRequest<T>(path, { ...init, method: 'GET' }),
+  post: <T>(path: string, body?: unknown) => apiRequest<T>(path, { method: 'POST', body }),
+  patch: <T>(path: string, body?: unknown) => apiRequest<T>(path, { method: 'PATCH', body }),
+  delete: <T = void>(path: string) => apiRequest<T>(path, { method: 'DELETE' }),
+};
+
+export function isApiError(error: unknown, status?: number): error is ApiError {
+  return error instanceof ApiError && (status === undefined || error.status === status);
+}
+
+/** A sentence for people: the server's message, or a generic one for unexpected failures. */
+export function errorMessage(error: unknown): string {
+  if (error instanceof ApiError) return error.message;
+  if (error instanceof Error) return error.message;
+  return 'Something went wrong.';
+}
