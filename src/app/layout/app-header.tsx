@@ -1,0 +1,59 @@
+import { Link, NavLink, useNavigation } from 'react-router';
+import { UserMenu } from '@/features/auth/components/user-menu';
+import { cn } from '@/lib/cn';
+
+export function AppHeader() {
+  const navigation = useNavigation();
+  return (
+    <header className="bg-spruce-900 relative text-white">
+      <a
+        href="#main"
+        className="focus:text-spruce-900 sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:rounded focus:bg-white focus:px-3 focus:py-1"
+      >
+        Skip to content
+      </a>
+      <div className="mx-auto flex h-14 max-w-7xl items-center justify-between gap-4 px-4">
+        <div className="flex items-center gap-6">
+          <Link
+            to="/jobs"
+            className="flex items-center gap-2 rounded text-base font-semibold tracking-tight focus-visible:outline-white"
+          >
+            <Mark />
+            Tallyard
+          </Link>
+          <nav aria-label="Main">
+            <NavLink
+              to="/jobs"
+              className={({ isActive }) =>
+                cn(
+                  'text-spruce-100 rounded px-2 py-1 text-sm hover:text-white focus-visible:outline-white',
+                  isActive && 'bg-spruce-800 text-white',
+                )
+              }
+            >
+              Jobs
+            </NavLink>
+          </nav>
+        </div>
+        <UserMenu />
+      </div>
+      {navigation.state === 'loading' ? (
+        <div
+          role="progressbar"
+          aria-label="Loading"
+          className="bg-clay-300 absolute inset-x-0 bottom-0 h-0.5 animate-pulse"
+        />
+      ) : null}
+    </header>
+  );
+}
+
+/** Three tally strokes on a rounded square: the product mark. */
+function Mark() {
+  return (
+    <svg viewBox="0 0 16 16" aria-hidden className="size-6">
+      <rect width="16" height="16" rx="3" className="fill-spruce-700" />
+      <path d="M3 11h10M3 8h7M3 5h4" className="stroke-clay-200" strokeWidth="1.6" />
+    </svg>
+  );
+}

@@ -1,0 +1,61 @@
+import type { LazyRouteFunction, RouteObject } from 'react-router';
+
+export type ProjectTab = {
+  /** Path under /projects/:projectId; '' is the Overview. */
+  path: string;
+  label: string;
+  /** The screen module; tabs without one show the "arrives with a later release" state. */
+  screen?: LazyRouteFunction<RouteObject>;
+  /** What the tab will hold, shown until it arrives. */
+  summary: string;
+};
+
+/** The project tabs, in order. Adding a tab is one line here; the router and the nav read this list. */
+export const PROJECT_TABS: readonly ProjectTab[] = [
+  {
+    path: '',
+    label: 'Overview',
+    screen: () => import('./routes/project-overview'),
+    summary: 'Contract sum, companies and people.',
+  },
+  {
+    path: 'bid-items',
+    label: 'Bid schedule',
+    screen: () => import('./routes/project-bid-items'),
+    summary: 'The contract’s bid items.',
+  },
+  {
+    path: 'tallies',
+    label: 'Tallies',
+    summary: 'Measured quantities per bid item and pay period, each backed by its worksheet and evidence.',
+  },
+  {
+    path: 'worksheets',
+    label: 'Worksheets',
+    summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
+  },
+  {
+    path: 'pay-apps',
+    label: 'Pay apps',
+    summary: 'Monthly pay applications: submit, review line by line, certify, with retainage netted.',
+  },
+  {
+    path: 'change-orders',
+    label: 'Change orders',
+    summary: 'Added items and changed quantities or unit prices, proposed and approved.',
+  },
+  {
+    path: 'quantity-watch',
+    label: 'Quantity watch',
+    summary: 'Forecast at completion against the contract quantity and the variation band.',
+  },
+  { path: 'payments', label: 'Payments', summary: 'Card and ACH payments of certified pay applications.' },
+  { path: 'waivers', label: 'Waivers', summary: 'Conditional and unconditional lien waivers tied to payments.' },
+  {
+    path: 'people',
+    label: 'People',
+    screen: () => import('./routes/project-people'),
+    summary: 'Members and their roles.',
+  },
+  { path: 'trail', label: 'Trail', summary: 'Every change on this job: who, when, what, before and after.' },
+];

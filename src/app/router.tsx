@@ -1,0 +1,42 @@
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router';
+import { PROJECT_TABS, type ProjectTab } from './project-tabs';
+import { PageLoading } from './layout/page-loading';
+import { RouteError } from './layout/route-error';
+
+function tabRoute(tab: ProjectTab): RouteObject {
+  const lazy =
+    tab.screen ??
+    (async () => {
+      const { LaterRelease } = await import('./routes/later-release');
+      return { Component: () => <LaterRelease tab={tab} /> };
+    });
+  return tab.path === ''
+    ? { index: true, lazy, ErrorBoundary: RouteError }
+    : { path: tab.path, lazy, ErrorBoundary: RouteError };
+}
+
+/** Every screen is its own lazy chunk; loaders fetch through the same query options the screens read. */
+export const routes: RouteObject[] = [
+  { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  {
+    path: '/',
+    lazy: () => import('./routes/app-layout'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+    children: [
+      { index: true, loader: () => redirect('/jobs'), Component: () => null },
+      { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
+      {
+        path: 'projects/:projectId',
+        lazy: () => import('./routes/project-shell'),
+        ErrorBoundary: RouteError,
+        children: PROJECT_TABS.map(tabRoute),
+      },
+      { path: '*', lazy: () => import('./routes/not-found') },
+    ],
+  },
+];
+
+export function createRouter() {
+  return createBrowserRouter(routes);
+}

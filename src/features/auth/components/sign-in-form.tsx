@@ -1,0 +1,53 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Field } from '@/components/ui/field';
+import { Input } from '@/components/ui/input';
+import { errorMessage } from '@/lib/api-client';
+import { useSignIn } from '../api/sign-in';
+import { DemoSignIns } from './demo-sign-ins';
+import { DEMO_PASSWORD, signInSchema, type SignInValues } from './sign-in-schema';
+
+export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
+  const signIn = useSignIn();
+  const form = useForm<SignInValues>({
+    resolver: zodResolver(signInSchema),
+    mode: 'onTouched',
+    defaultValues: { email: '', password: '' },
+  });
+  const { errors } = form.formState;
+
+  const submit = form.handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }));
+
+  function fillDemo(email: string) {
+    form.setValue('email', email, { shouldValidate: true });
+    form.setValue('password', DEMO_PASSWORD, { shouldValidate: true });
+    form.setFocus('password');
+  }
+
+  return (
+    <div className="flex flex-col gap-6">
+      <form noValidate onSubmit={submit} className="flex flex-col gap-4" aria-label="Sign in">
+        <Field label="E-mail" error={errors.email?.message}>
+          {(control) => (
+            <Input type="email" autoComplete="username" autoFocus {...control} {...form.register('email')} />
+          )}
+        </Field>
+        <Field label="Password" error={errors.password?.message}>
+          {(control) => (
+            <Input type="password" autoComplete="current-password" {...control} {...form.register('password')} />
+          )}
+        </Field>
+        {signIn.isError ? (
+          <p role="alert" className="border-brick-200 bg-brick-50 text-brick-800 rounded-md border px-3 py-2 text-sm">
+            {errorMessage(signIn.error)}
+          </p>
+        ) : null}
+        <Button type="submit" disabled={signIn.isPending} className="w-full">
+          {signIn.isPending ? 'Signing in…' : 'Sign in'}
+        </Button>
+      </form>
+      <DemoSignIns onPick={fillDemo} />
+    </div>
+  );
+}
