@@ -1,0 +1,70 @@
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { EmptyState } from '@/components/ui/states';
+import { formatMoney, formatPercentBps } from '@/lib/format';
+import { COMPANY_KIND_LABELS, UNIT_SYSTEM_LABELS } from '@/lib/labels';
+import type { ProjectView } from '@/shared/schemas/project';
+import { PeopleTable } from './people-table';
+import { Stat } from './stat';
+
+/** The Overview tab: headline figures, the three companies, contract terms and the people. */
+export function ProjectOverview({ project }: { project: ProjectView }) {
+  const { subcontractor, generalContractor, owner } = project.companies;
+  return (
+    <div className="flex flex-col gap-5">
+      <dl className="grid grid-cols-2 gap-3 md:grid-cols-4">
+        <Stat label="Contract sum" value={formatMoney(project.contractSumCents)} note="Original bid schedule" />
+        <Stat label="Bid items" value={project.bidItemCount} />
+        <Stat label="Retainage" value={formatPercentBps(project.retainageBps)} note="Withheld per line" />
+        <Stat
+          label="Variation band"
+          value={`+${formatPercentBps(project.bandOverBps)} / −${formatPercentBps(project.bandUnderBps)}`}
+          note="Beyond it, unit prices may be renegotiated"
+        />
+      </dl>
+      <div className="grid gap-4 md:grid-cols-2">
+        <Card>
+          <CardHeader>
+            <CardTitle>Companies</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <dl className="grid grid-cols-[max-content_1fr] gap-x-6 gap-y-2">
+              {[generalContractor, subcontractor, owner].map((company) => (
+                <div key={company.id} className="contents">
+                  <dt className="text-stone-600">{COMPANY_KIND_LABELS[company.kind]}</dt>
+                  <dd className="font-medium">{company.name}</dd>
+                </div>
+              ))}
+            </dl>
+          </CardBody>
+        </Card>
+        <Card>
+          <CardHeader>
+            <CardTitle>Contract terms</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <dl className="grid grid-cols-[max-content_1fr] gap-x-6 gap-y-2">
+              <dt className="text-stone-600">Contract number</dt>
+              <dd className="tabular-nums">{project.contractNumber || '—'}</dd>
+              <dt className="text-stone-600">Location</dt>
+              <dd>{project.location || '—'}</dd>
+              <dt className="text-stone-600">Units</dt>
+              <dd>{UNIT_SYSTEM_LABELS[project.units]}</dd>
+              <dt className="text-stone-600">Payment terms</dt>
+              <dd className="tabular-nums">{project.paymentTermsDays} days</dd>
+            </dl>
+          </CardBody>
+        </Card>
+      </div>
+      <section aria-labelledby="overview-people" className="flex flex-col gap-2">
+        <h2 id="overview-people" className="text-sm font-semibold">
+          People and roles
+        </h2>
+        {project.members.length ? (
+          <PeopleTable members={project.members} />
+        ) : (
+          <EmptyState title="Nobody is on this job yet" />
+        )}
+      </section>
+    </div>
+  );
+}
