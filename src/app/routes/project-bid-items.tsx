@@ -1,0 +1,21 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { bidItemsQueryOptions } from '@/features/bid-items/api/get-bid-items';
+import { BidSchedule } from '@/features/bid-items/components/bid-schedule';
+import { canEditBidSchedule, useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(bidItemsQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  return (
+    <>
+      <title>{`${project.name} · Bid schedule · Tallyard`}</title>
+      <BidSchedule projectId={projectId} units={project.units} canEdit={canEditBidSchedule(project)} />
+    </>
+  );
+}

@@ -1,0 +1,17 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { BidItemView } from '@/shared/schemas/bid-item';
+import { bidItemKeys } from './keys';
+
+export type BidSchedule = { bidItems: BidItemView[]; totals: { contractSumCents: number } };
+
+export function getBidItems(projectId: string): Promise<BidSchedule> {
+  return api.get<BidSchedule>(`/api/projects/${encodeURIComponent(projectId)}/bid-items`);
+}
+
+export const bidItemsQueryOptions = (projectId: string) =>
+  queryOptions({ queryKey: bidItemKeys.list(projectId), queryFn: () => getBidItems(projectId) });
+
+export function useBidItems(projectId: string) {
+  return useQuery(bidItemsQueryOptions(projectId));
+}
