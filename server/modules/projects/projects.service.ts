@@ -51,11 +51,10 @@ export async function getProject(db: Db, actor: Actor, projectId: string): Promi
 
 async function viewOf(db: Executor, project: repo.ProjectRow, roles: ProjectView['myRoles']): Promise<ProjectView> {
   const companyIds = [project.subcontractorCompanyId, project.generalContractorCompanyId, project.ownerCompanyId];
-  const [companyRows, members, totals] = await Promise.all([
-    repo.findCompanies(db, companyIds),
-    repo.listMembers(db, project.id),
-    totalsFor(db, [project.id]),
-  ]);
+  // Sequential on purpose: inside a transaction the queries share one connection.
+  const companyRows = await repo.findCompanies(db, companyIds);
+  const members = await repo.listMembers(db, project.id);
+  const totals = await totalsFor(db, [project.id]);
   const company = (id: string) => presentCompany(companyRows.find((c) => c.id === id)!);
   return presentProject(
     project,

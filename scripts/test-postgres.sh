@@ -1,0 +1,23 @@
+#!/usr/bin/env bash
+# Runs the API tests a second time on a throwaway PostgreSQL cluster on 127.0.0.1 (Debian's postgresql package),
+# so both drivers pass the same tests. Installs postgresql when missing and running as root.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+if ! ls -d /usr/lib/postgresql/*/bin >/dev/null 2>&1; then
+  if [ "$(id -u)" = 0 ]; then
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends postgresql >/dev/null
+  else
+    echo "PostgreSQL is not installed: sudo apt-get install postgresql" >&2; exit 1
+  fi
+fi
+PGBIN=$(ls -d /usr/lib/postgresql/*/bin | sort -V | tail -n 1)
+PORT=${TEST_PG_PORT:-55432}
+PGDATA=$(mktemp -d /tmp/tallyard-pg-XXXXXX)
+run_pg() { if [ "$(id -u)" = 0 ]; then su postgres -s /bin/bash -c "$*"; else bash -c "$*"; fi; }
+[ "$(id -u)" = 0 ] && chown postgres "$PGDATA"
+run_pg "$PGBIN/initdb -D $PGDATA -A trust -U postgres >/dev/null"
+run_pg "$PGBIN/pg_ctl -D $PGDATA -l $PGDATA/server.log -o \"-p $PORT -k /tmp -c listen_addresses=127.0.0.1 -c fsync=off -c max_connections=200\" -w start >/dev/null"
+cleanup() { run_pg "$PGBIN/pg_ctl -D $PGDATA -m immediate stop >/dev/null" || true; rm -rf "$PGDATA"; }
+trap cleanup EXIT
+echo "== API tests on PostgreSQL ($("$PGBIN/postgres" --version))"
+TEST_DATABASE_URL="postgresql://postgres@127.0.0.1:$PORT/postgres" npx vitest run tests/api "$@"
