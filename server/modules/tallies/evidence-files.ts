@@ -1,0 +1,93 @@
+import multer from 'multer';
+import { MAX_EVIDENCE_BYTES, MAX_EVIDENCE_FILES_PER_TALLY } from '../../../src/shared/constants';
+import type { EvidenceKind } from '../../../src/shared/schemas/tally';
+import type { ApiErrorDetail } from '../../../src/shared/schemas/api-error';
+import { AppError } from '../../lib/app-error';
+
+/** Files in memory in the `files` field, each at most MAX_EVIDENCE_BYTES. */
+export const evidenceUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_EVIDENCE_BYTES, files: MAX_EVIDENCE_FILES_PER_TALLY, fields: 5 },
+}).array('files', MAX_EVIDENCE_FILES_PER_TALLY);
+
+type Rule = { kind: EvidenceKind; contentType: string; mimetypes: string[]; check: (b: Buffer) => string | null };
+
+const GENERIC = ['application/octet-stream', ''];
+const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+const JPEG = Buffer.from([0xff, 0xd8, 0xff]);
+
+function utf8(b: Buffer): string | null {
+  if (b.includes(0)) return null;
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(b);
+  } catch {
+    return null;
+  }
+}
+
+/** The first element of an XML text must be a LandXML root (after the declaration and any comments). */
+function isLandXml(text: string): boolean {
+  const body = text.replace(/^\uFEFF/, '').replace(/<\?xml[\s\S]*?\?>/, '').replace(/<!--[\s\S]*?-->/g, '').replace(/<!DOCTYPE[^>]*>/i, '');
+  return /^\s*<(?:[A-Za-z_][\w.-]*:)?LandXML[\s/>]/.test(body);
+}
+
+const RULES: Record<string, Rule> = {
+  csv: { kind: 'csv', contentType: 'text/csv', mimetypes: ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel'], check: (b) => (utf8(b) === null ? 'is not UTF-8 text, so it is not CSV' : null) },
+  pdf: { kind: 'pdf', contentType: 'application/pdf', mimetypes: ['application/pdf'], check: (b) => (b.subarray(0, 5).toString('latin1') === '%PDF-' ? null : 'does not start with %PDF-, so it is not a PDF') },
+  png: { kind: 'image', contentType: 'image/png', mimetypes: ['image/png'], check: (b) => (b.subarray(0, 8).equals(PNG) ? null : 'does not carry the PNG signature') },
+  jpg: { kind: 'image', contentType: 'image/jpeg', mimetypes: ['image/jpeg', 'image/jpg', 'image/pjpeg'], check: (b) => (b.subarray(0, 3).equals(JPEG) ? null : 'does not carry the JPEG signature') },
+  xml: {
+    kind: 'landxml',
+    contentType: 'application/xml',
+    mimetypes: ['application/xml', 'text/xml', 'application/landxml+xml'],
+    check: (b) => {
+      const text = utf8(b);
+      if (text === null) return 'is not UTF-8 text, so it is not XML';
+      return isLandXml(text) ? null : 'has no LandXML root element';
+    },
+  },
+};
+RULES.jpeg = RULES.jpg!;
+
+/**
+ * A name safe to show and to send in Content-Disposition: the last path segment, letters, digits, dot, dash,
+ * underscore and space only, at most 120 characters. It is never used as a path (storage picks random keys).
+ */
+export function safeFileName(original: string): string {
+  const base = original.split(/[\\/]/).pop() ?? '';
+  const cleaned = base
+    .normalize('NFKD')
+    .replace(/[^\w.\- ]+/g, '_')
+    .replace(/\s+/g, ' ')
+    .replace(/^[.\s_]+/, '')
+    .trim();
+  const ext = /\.[A-Za-z0-9]{1,5}$/.exec(cleaned)?.[0] ?? '';
+  const stem = cleaned.slice(0, cleaned.length - ext.length).slice(0, 120 - ext.length);
+  return `${stem || 'evidence'}${ext.toLowerCase()}`;
+}
+
+export type CheckedFile = { fileName: string; contentType: string; kind: EvidenceKind; bytes: Buffer };
+
+/** Checks every file of an upload against its declared type; reports every bad file by index and name. */
+export function checkEvidenceFiles(files: Express.Multer.File[] | undefined): CheckedFile[] {
+  if (!files || files.length === 0) {
+    throw new AppError(400, 'UPLOAD_MISSING', 'Attach at least one file in the "files" field.', [{ path: 'files', message: 'Required' }]);
+  }
+  const details: ApiErrorDetail[] = [];
+  const checked = files.map((file, i) => {
+    const fileName = safeFileName(file.originalname);
+    const ext = /\.([a-z0-9]+)$/.exec(fileName)?.[1] ?? '';
+    const rule = RULES[ext];
+    const say = (message: string) => details.push({ path: `files.${i}`, message: `${fileName}: ${message}` });
+    if (!rule) say('use CSV, PDF, PNG or JPEG images, or LandXML (.xml)');
+    else if (file.size === 0) say('the file is empty');
+    else if (!rule.mimetypes.includes(file.mimetype) && !GENERIC.includes(file.mimetype)) say(`declared as ${file.mimetype}, which does not match .${ext}`);
+    else {
+      const problem = rule.check(file.buffer);
+      if (problem) say(`the content ${problem}`);
+    }
+    return { fileName, contentType: rule?.contentType ?? '', kind: rule?.kind ?? 'csv', bytes: file.buffer };
+  });
+  if (details.length > 0) throw new AppError(400, 'EVIDENCE_REJECTED', `${details.length} file(s) were refused; nothing was saved.`, details);
+  return checked;
+}

@@ -1,0 +1,39 @@
+import type { EvidenceKind, EvidenceView, TallyResult, TallyView } from '../../../src/shared/schemas/tally';
+import type { EvidenceRow, TallyJoined } from './tallies.repository';
+
+export function presentTally(row: TallyJoined, evidenceCount: number): TallyView {
+  const { tally } = row;
+  return {
+    id: tally.id,
+    projectId: tally.projectId,
+    bidItem: row.bidItem,
+    measuredOn: tally.measuredOn,
+    title: tally.title,
+    method: tally.method,
+    inputs: (tally.inputs as Record<string, unknown> | null) ?? null,
+    result: (tally.result as TallyResult | null) ?? null,
+    quantity: tally.quantity,
+    manualBasis: tally.manualBasis,
+    status: tally.status,
+    payAppId: tally.payAppId,
+    author: { id: tally.authorUserId, name: row.authorName },
+    evidenceCount,
+    createdAt: tally.createdAt.toISOString(),
+    updatedAt: tally.updatedAt.toISOString(),
+  };
+}
+
+export function presentEvidence(row: EvidenceRow, uploadedBy: string): EvidenceView {
+  return {
+    id: row.id,
+    tallyId: row.tallyId,
+    fileName: row.fileName,
+    contentType: row.contentType,
+    kind: row.kind as EvidenceKind,
+    sizeBytes: row.sizeBytes,
+    sha256: row.sha256,
+    uploadedBy,
+    createdAt: row.createdAt.toISOString(),
+    downloadUrl: `/api/evidence/${row.id}/download`,
+  };
+}

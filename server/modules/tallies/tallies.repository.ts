@@ -1,0 +1,92 @@
+import { and, asc, count, desc, eq, gte, inArray, lte, type SQL } from 'drizzle-orm';
+import type { TallyListQuery } from '../../../src/shared/schemas/tally';
+import type { Executor } from '../../db/client';
+import { bidItems, payApps, tallies, tallyEvidence, user } from '../../db/schema';
+
+export type TallyRow = typeof tallies.$inferSelect;
+export type EvidenceRow = typeof tallyEvidence.$inferSelect;
+export type TallyJoined = {
+  tally: TallyRow;
+  bidItem: Pick<typeof bidItems.$inferSelect, 'id' | 'itemNumber' | 'description' | 'payUnit' | 'basis'>;
+  authorName: string;
+};
+
+const joinedColumns = {
+  tally: tallies,
+  bidItem: { id: bidItems.id, itemNumber: bidItems.itemNumber, description: bidItems.description, payUnit: bidItems.payUnit, basis: bidItems.basis },
+  authorName: user.name,
+};
+
+function joined(db: Executor) {
+  return db.select(joinedColumns).from(tallies).innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId)).innerJoin(user, eq(user.id, tallies.authorUserId));
+}
+
+export async function listTallies(db: Executor, projectId: string, q: TallyListQuery): Promise<TallyJoined[]> {
+  const where: SQL[] = [eq(tallies.projectId, projectId)];
+  if (q.status) where.push(eq(tallies.status, q.status));
+  if (q.bidItemId) where.push(eq(tallies.bidItemId, q.bidItemId));
+  if (q.from) where.push(gte(tallies.measuredOn, q.from));
+  if (q.to) where.push(lte(tallies.measuredOn, q.to));
+  return joined(db).where(and(...where)).orderBy(desc(tallies.measuredOn), asc(bidItems.itemNumber));
+}
+
+export async function findTally(db: Executor, tallyId: string): Promise<TallyJoined | undefined> {
+  const [row] = await joined(db).where(eq(tallies.id, tallyId)).limit(1);
+  return row;
+}
+
+export async function evidenceCounts(db: Executor, tallyIds: string[]): Promise<Map<string, number>> {
+  if (tallyIds.length === 0) return new Map();
+  const rows = await db.select({ tallyId: tallyEvidence.tallyId, n: count() }).from(tallyEvidence).where(inArray(tallyEvidence.tallyId, tallyIds)).groupBy(tallyEvidence.tallyId);
+  return new Map(rows.map((r) => [r.tallyId, r.n]));
+}
+
+export async function listEvidence(db: Executor, tallyId: string) {
+  return db
+    .select({ evidence: tallyEvidence, uploadedBy: user.name })
+    .from(tallyEvidence)
+    .innerJoin(user, eq(user.id, tallyEvidence.uploadedByUserId))
+    .where(eq(tallyEvidence.tallyId, tallyId))
+    .orderBy(asc(tallyEvidence.createdAt));
+}
+
+export async function findEvidence(db: Executor, evidenceId: string) {
+  const [row] = await db
+    .select({ evidence: tallyEvidence, projectId: tallies.projectId, tallyStatus: tallies.status, payAppId: tallies.payAppId })
+    .from(tallyEvidence)
+    .innerJoin(tallies, eq(tallies.id, tallyEvidence.tallyId))
+    .where(eq(tallyEvidence.id, evidenceId))
+    .limit(1);
+  return row;
+}
+
+export async function payAppStatusOf(db: Executor, payAppId: string | null): Promise<string | null> {
+  if (!payAppId) return null;
+  const [row] = await db.select({ status: payApps.status }).from(payApps).where(eq(payApps.id, payAppId)).limit(1);
+  return row?.status ?? null;
+}
+
+export async function insertTally(db: Executor, values: typeof tallies.$inferInsert): Promise<TallyRow> {
+  const [row] = await db.insert(tallies).values(values).returning();
+  return row!;
+}
+
+/** Updates a tally only while it still has the status the caller saw; undefined when it changed meanwhile. */
+export async function updateTallyIf(db: Executor, tallyId: string, status: TallyRow['status'], values: Partial<typeof tallies.$inferInsert>) {
+  const [row] = await db.update(tallies).set(values).where(and(eq(tallies.id, tallyId), eq(tallies.status, status))).returning();
+  return row;
+}
+
+export async function deleteTallyIfDraft(db: Executor, tallyId: string): Promise<boolean> {
+  const rows = await db.delete(tallies).where(and(eq(tallies.id, tallyId), eq(tallies.status, 'draft'))).returning({ id: tallies.id });
+  return rows.length > 0;
+}
+
+export async function insertEvidence(db: Executor, values: (typeof tallyEvidence.$inferInsert)[]): Promise<EvidenceRow[]> {
+  if (values.length === 0) return [];
+  return db.insert(tallyEvidence).values(values).returning();
+}
+
+export async function deleteEvidence(db: Executor, evidenceId: string): Promise<void> {
+  await db.delete(tallyEvidence).where(eq(tallyEvidence.id, evidenceId));
+}

@@ -1,0 +1,110 @@
+import { createTallySchema, type CreateTallyInput, type TallyListQuery, type UpdateTallyInput } from '../../../src/shared/schemas/tally';
+import type { Db, Executor } from '../../db/client';
+import type { Actor } from '../../lib/actor';
+import { validationFailed } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { findBidItem } from '../bid-items/bid-items.repository';
+import { loadProjectAccess } from '../projects/project-access';
+import type { ProjectRow } from '../projects/projects.repository';
+import { listEvidence } from './tallies.repository';
+import { canWriteTallies, isEditableTally } from './tallies.policy';
+import { presentEvidence, presentTally } from './tallies.presenter';
+import * as repo from './tallies.repository';
+import { computeTally } from './tally-quantity';
+import { loadTallyAccess, tallyNotDraft } from './tally-access';
+
+export async function listTallies(db: Db, actor: Actor, projectId: string, query: TallyListQuery) {
+  await loadProjectAccess(db, actor, projectId);
+  const rows = await repo.listTallies(db, projectId, query);
+  const counts = await repo.evidenceCounts(db, rows.map((r) => r.tally.id));
+  return rows.map((r) => presentTally(r, counts.get(r.tally.id) ?? 0));
+}
+
+export async function getTally(db: Db, actor: Actor, tallyId: string) {
+  const { row } = await loadTallyAccess(db, actor, tallyId);
+  const evidence = (await listEvidence(db, tallyId)).map((e) => presentEvidence(e.evidence, e.uploadedBy));
+  return { tally: presentTally(row, evidence.length), evidence };
+}
+
+async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: string) {
+  const item = await findBidItem(db, bidItemId);
+  if (!item || item.projectId !== project.id) {
+    throw validationFailed([{ path: 'bidItemId', message: 'No such bid item on this project' }]);
+  }
+  return item;
+}
+
+/** The stored columns for a tally: the server's own computation, never a number sent by the client. */
+async function computedColumns(db: Executor, project: ProjectRow, input: CreateTallyInput) {
+  const item = await itemOnProject(db, project, input.bidItemId);
+  const result = computeTally(input, item, project);
+  return {
+    bidItemId: item.id,
+    measuredOn: input.measuredOn,
+    title: input.title,
+    method: input.method,
+    inputs: input.method === 'manual' ? null : { ...(input.inputs ?? {}), ...(input.component ? { component: input.component } : {}), ...(input.measuredBasis ? { measuredBasis: input.measuredBasis } : {}) },
+    result,
+    quantity: result.quantity,
+    manualBasis: input.method === 'manual' ? (input.manualBasis ?? null) : null,
+  };
+}
+
+export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput) {
+  const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
+  const columns = await computedColumns(db, project, input);
+  const id = await db.transaction(async (tx) => {
+    const row = await repo.insertTally(tx, { ...columns, projectId, authorUserId: actor.userId });
+    await audit(tx, actor, projectId, row.id, 'tally.created', undefined, { ...columns, result: undefined });
+    return row.id;
+  });
+  return (await getTally(db, actor, id)).tally;
+}
+
+/** Worksheet fields stored in inputs that are tally options rather than engine inputs. */
+function splitInputs(inputs: Record<string, unknown> | null) {
+  if (!inputs) return { inputs: null };
+  const { component, measuredBasis, ...rest } = inputs as { component?: 'cut' | 'fill'; measuredBasis?: 'bank' | 'loose' | 'compacted' };
+  return { inputs: rest as Record<string, unknown>, component, measuredBasis };
+}
+
+export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput) {
+  const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
+  if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
+  const t = row.tally;
+  const merged = { bidItemId: t.bidItemId, measuredOn: t.measuredOn, title: t.title, method: t.method, ...splitInputs(t.inputs as Record<string, unknown> | null), quantity: t.method === 'manual' ? t.quantity : null, manualBasis: t.manualBasis, ...patch };
+  // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
+  const columns = await computedColumns(db, project, createTallySchema.parse(merged));
+  await db.transaction(async (tx) => {
+    const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
+    if (!updated) throw tallyNotDraft('no longer a draft');
+    await audit(tx, actor, t.projectId, tallyId, 'tally.updated', { quantity: t.quantity, measuredOn: t.measuredOn, method: t.method }, { quantity: updated.quantity, measuredOn: updated.measuredOn, method: updated.method });
+  });
+  return (await getTally(db, actor, tallyId)).tally;
+}
+
+export async function markReady(db: Db, actor: Actor, tallyId: string) {
+  const { row } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
+  if (row.tally.status !== 'draft') throw tallyNotDraft(row.tally.status);
+  await db.transaction(async (tx) => {
+    const updated = await repo.updateTallyIf(tx, tallyId, 'draft', { status: 'ready' });
+    if (!updated) throw tallyNotDraft('no longer a draft');
+    await audit(tx, actor, row.tally.projectId, tallyId, 'tally.ready', { status: 'draft' }, { status: 'ready', quantity: updated.quantity });
+  });
+  return (await getTally(db, actor, tallyId)).tally;
+}
+
+export async function deleteTally(db: Db, actor: Actor, tallyId: string, removeFile: (key: string) => Promise<void>) {
+  const { row } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
+  if (row.tally.status !== 'draft') throw tallyNotDraft(row.tally.status);
+  const files = await listEvidence(db, tallyId);
+  await db.transaction(async (tx) => {
+    if (!(await repo.deleteTallyIfDraft(tx, tallyId))) throw tallyNotDraft('no longer a draft');
+    await audit(tx, actor, row.tally.projectId, tallyId, 'tally.deleted', presentTally(row, files.length), undefined);
+  });
+  await Promise.all(files.map((f) => removeFile(f.evidence.storageKey).catch(() => undefined)));
+}
+
+export function audit(tx: Executor, actor: Actor, projectId: string, objectId: string, action: string, before: unknown, after: unknown) {
+  return recordAudit(tx, { projectId, actorUserId: actor.userId, objectType: 'tally', objectId, action, before, after });
+}

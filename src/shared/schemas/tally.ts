@@ -1,0 +1,102 @@
+import { z } from 'zod';
+import { MEASUREMENT_BASES, MEASUREMENT_METHODS, TALLY_STATUSES, type MeasurementBasis, type MeasurementMethod, type PayUnit, type TallyStatus } from '../constants';
+
+/** A calendar day, `YYYY-MM-DD`, that exists. */
+export const isoDateSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-10-31')
+  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a real date');
+
+/** Which part of a cut-and-fill worksheet a tally bills. */
+export const TALLY_COMPONENTS = ['cut', 'fill'] as const;
+export type TallyComponent = (typeof TALLY_COMPONENTS)[number];
+
+export const MAX_TALLY_QUANTITY = 1e9;
+
+const tallyFields = {
+  bidItemId: z.uuid('Choose a bid item'),
+  measuredOn: isoDateSchema,
+  title: z.string().trim().max(200).default(''),
+  method: z.enum(MEASUREMENT_METHODS),
+  /** The worksheet inputs: the calc API's request body for the method. */
+  inputs: z.record(z.string(), z.unknown()).nullish(),
+  /** Cut-and-fill worksheets: bill the cut (default) or the fill. */
+  component: z.enum(TALLY_COMPONENTS).optional(),
+  /** Measure the worksheet's volume is in; by default cut and truck tickets are bank, fill is compacted. */
+  measuredBasis: z.enum(MEASUREMENT_BASES).optional(),
+  /** Manual quantity, in the bid item's pay unit and basis. */
+  quantity: z.number().finite().min(0, 'A quantity cannot be negative').max(MAX_TALLY_QUANTITY).nullish(),
+  manualBasis: z.string().trim().max(4000).nullish(),
+};
+
+function checkMethod(v: { method?: MeasurementMethod; inputs?: unknown; quantity?: number | null; manualBasis?: string | null }, ctx: z.RefinementCtx) {
+  if (v.method === undefined) return;
+  if (v.method === 'manual') {
+    if (v.quantity === undefined || v.quantity === null) ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'A manual tally needs a quantity' });
+    if (!v.manualBasis || v.manualBasis.length < 10) {
+      ctx.addIssue({ code: 'custom', path: ['manualBasis'], message: 'Write the basis of a manual quantity (at least 10 characters)' });
+    }
+  } else if (!v.inputs) {
+    ctx.addIssue({ code: 'custom', path: ['inputs'], message: `The ${v.method} worksheet needs its inputs` });
+  }
+}
+
+export const createTallySchema = z.object(tallyFields).strict().superRefine(checkMethod);
+export type CreateTallyInput = z.infer<typeof createTallySchema>;
+
+/** A draft's changes; method, inputs and quantity are checked again as a whole after merging. */
+export const updateTallySchema = z.object(tallyFields).partial().strict();
+export type UpdateTallyInput = z.infer<typeof updateTallySchema>;
+export const checkTallyMethod = checkMethod;
+
+export const tallyListQuerySchema = z.object({
+  status: z.enum(TALLY_STATUSES).optional(),
+  bidItemId: z.uuid().optional(),
+  from: isoDateSchema.optional(),
+  to: isoDateSchema.optional(),
+});
+export type TallyListQuery = z.infer<typeof tallyListQuerySchema>;
+
+export type EvidenceKind = 'csv' | 'pdf' | 'image' | 'landxml';
+
+export type EvidenceView = {
+  id: string;
+  tallyId: string;
+  fileName: string;
+  contentType: string;
+  kind: EvidenceKind;
+  sizeBytes: number;
+  sha256: string;
+  uploadedBy: string;
+  createdAt: string;
+  downloadUrl: string;
+};
+
+/** The stored result: the engine's answer, the volume taken from it, and the conversion to the pay basis. */
+export type TallyResult = {
+  engine: Record<string, unknown> | null;
+  measured: { quantity: number; unit: string; basis: MeasurementBasis | null; component: TallyComponent | null } | null;
+  quantity: number;
+  unit: PayUnit;
+  basis: MeasurementBasis | null;
+  trail: string[];
+};
+
+export type TallyView = {
+  id: string;
+  projectId: string;
+  bidItem: { id: string; itemNumber: string; description: string; payUnit: PayUnit; basis: MeasurementBasis };
+  measuredOn: string;
+  title: string;
+  method: MeasurementMethod;
+  inputs: Record<string, unknown> | null;
+  result: TallyResult | null;
+  quantity: number;
+  manualBasis: string | null;
+  status: TallyStatus;
+  payAppId: string | null;
+  author: { id: string; name: string };
+  evidenceCount: number;
+  createdAt: string;
+  updatedAt: string;
+};
