@@ -15,6 +15,7 @@ import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { meRouter } from './modules/me/me.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
+import { talliesRouter } from './modules/tallies/tallies.routes';
 import type { AppContext } from './app-context';
 
 export type AppDeps = {
@@ -75,6 +76,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireActor(auth, db));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
+  app.use('/api', talliesRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 
