@@ -11,7 +11,9 @@ import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requireActor } from './middleware/require-actor';
+import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
+import { changeOrdersRouter } from './modules/change-orders/change-orders.routes';
 import { meRouter } from './modules/me/me.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
@@ -76,6 +78,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireActor(auth, db));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
+  app.use('/api', changeOrdersRouter(ctx), auditRouter(db));
   app.use('/api', talliesRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);

@@ -1,0 +1,76 @@
+import { and, count, desc, eq, or, sql, type SQL } from 'drizzle-orm';
+import type { Executor } from '../../db/client';
+import { auditEvents, user } from '../../db/schema';
+
+const columns = {
+  id: auditEvents.id,
+  createdAt: auditEvents.createdAt,
+  actorUserId: auditEvents.actorUserId,
+  actorName: user.name,
+  objectType: auditEvents.objectType,
+  objectId: auditEvents.objectId,
+  action: auditEvents.action,
+  before: auditEvents.before,
+  after: auditEvents.after,
+};
+
+export type AuditRow = {
+  id: number;
+  createdAt: Date;
+  actorUserId: string | null;
+  actorName: string | null;
+  objectType: string;
+  objectId: string;
+  action: string;
+  before: unknown;
+  after: unknown;
+};
+
+function select(db: Executor, where: SQL | undefined) {
+  return db.select(columns).from(auditEvents).leftJoin(user, eq(user.id, auditEvents.actorUserId)).where(where);
+}
+
+/** One page of a project's trail, newest first (id breaks ties within one transaction). */
+export async function listProjectAudit(
+  db: Executor,
+  projectId: string,
+  opts: { objectType?: string | undefined; limit: number; offset: number },
+): Promise<{ rows: AuditRow[]; total: number }> {
+  const where = and(
+    eq(auditEvents.projectId, projectId),
+    opts.objectType ? eq(auditEvents.objectType, opts.objectType) : undefined,
+  );
+  const rows = await select(db, where).orderBy(desc(auditEvents.createdAt), desc(auditEvents.id)).limit(opts.limit).offset(opts.offset);
+  const [total] = await db.select({ n: count() }).from(auditEvents).where(where);
+  return { rows, total: total?.n ?? 0 };
+}
+
+export async function projectObjectTypes(db: Executor, projectId: string): Promise<string[]> {
+  const rows = await db
+    .selectDistinct({ objectType: auditEvents.objectType })
+    .from(auditEvents)
+    .where(eq(auditEvents.projectId, projectId))
+    .orderBy(auditEvents.objectType);
+  return rows.map((r) => r.objectType);
+}
+
+/**
+ * Events about one object: its own rows, plus rows of its parts that name it in before or after under
+ * `parentKey` (a pay application's lines and disputes carry `payAppId`).
+ */
+export async function listObjectAudit(
+  db: Executor,
+  projectId: string,
+  objectType: string,
+  objectId: string,
+  parentKey?: string,
+): Promise<AuditRow[]> {
+  const own = and(eq(auditEvents.objectType, objectType), eq(auditEvents.objectId, objectId));
+  const parts = parentKey
+    ? or(sql`${auditEvents.after} ->> ${parentKey} = ${objectId}`, sql`${auditEvents.before} ->> ${parentKey} = ${objectId}`)
+    : undefined;
+  return select(db, and(eq(auditEvents.projectId, projectId), parts ? or(own, parts) : own)).orderBy(
+    desc(auditEvents.createdAt),
+    desc(auditEvents.id),
+  );
+}

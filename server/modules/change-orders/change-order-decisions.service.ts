@@ -1,0 +1,105 @@
+import { eq } from 'drizzle-orm';
+import type { BidItemInput } from '../../../src/shared/schemas/bid-item';
+import type { ChangeOrderView } from '../../../src/shared/schemas/change-order';
+import type { Db, Executor } from '../../db/client';
+import { bidItems } from '../../db/schema';
+import type { Actor } from '../../lib/actor';
+import { conflict, forbidden } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { checkChangeOrderItems } from './change-order-checks';
+import { decisionSides, isFullyApproved, type ApprovalSide } from './change-orders.policy';
+import * as repo from './change-orders.repository';
+import { loadChangeOrder, presentContext, viewOf } from './change-orders.service';
+
+const stale = () =>
+  conflict('CHANGE_ORDER_DECIDED', 'This change order was decided by someone else meanwhile; reload it to see its status.');
+
+async function loadForDecision(db: Db, actor: Actor, id: string) {
+  const loaded = await loadChangeOrder(db, actor, id);
+  const sides = decisionSides(loaded.roles, loaded.project.ownerApprovesChangeOrders);
+  if (sides.length === 0) {
+    throw forbidden(
+      loaded.project.ownerApprovesChangeOrders
+        ? 'Only the general contractor or the owner decides change orders on this project.'
+        : 'Only the general contractor decides change orders on this project.',
+    );
+  }
+  if (loaded.row.status !== 'proposed') throw stale();
+  return { ...loaded, sides };
+}
+
+/** Applies an approved change order to the bid schedule: adds items, changes unit prices. */
+async function applyChanges(tx: Executor, changeOrderId: string, projectId: string) {
+  const items = await repo.itemsOf(tx, [changeOrderId]);
+  const applied: unknown[] = [];
+  for (const item of items) {
+    if (item.kind === 'add_item') {
+      const input = item.newItem as BidItemInput;
+      const [created] = await tx.insert(bidItems).values({ ...input, projectId, addedByChangeOrderId: changeOrderId }).returning();
+      await repo.setItemBidItem(tx, item.id, created!.id);
+      applied.push({ kind: item.kind, bidItemId: created!.id, itemNumber: input.itemNumber });
+    } else if (item.kind === 'change_price' && item.bidItemId && item.newUnitPriceCents !== null) {
+      const [before] = await tx.select().from(bidItems).where(eq(bidItems.id, item.bidItemId));
+      await tx.update(bidItems).set({ unitPriceCents: item.newUnitPriceCents }).where(eq(bidItems.id, item.bidItemId));
+      applied.push({ kind: item.kind, bidItemId: item.bidItemId, from: before?.unitPriceCents, to: item.newUnitPriceCents });
+    } else {
+      applied.push({ kind: item.kind, bidItemId: item.bidItemId, quantityDelta: item.quantityDelta });
+    }
+  }
+  return applied;
+}
+
+/**
+ * Records the approval of the actor's side (general contractor, or owner where the project requires it). The
+ * change order is approved, and applied, once every required side has approved. A stale decision gets 409.
+ */
+export async function approveChangeOrder(db: Db, actor: Actor, id: string, note: string): Promise<ChangeOrderView> {
+  const { row, project, sides } = await loadForDecision(db, actor, id);
+  const side: ApprovalSide | undefined = sides.find((s) => (s === 'gc' ? !row.gcApprovedAt : !row.ownerApprovedAt));
+  if (!side) throw conflict('CHANGE_ORDER_ALREADY_APPROVED', 'Your side has already approved this change order.');
+  const now = new Date();
+  const mark = side === 'gc' ? { gcApprovedByUserId: actor.userId, gcApprovedAt: now } : { ownerApprovedByUserId: actor.userId, ownerApprovedAt: now };
+  return db.transaction(async (tx) => {
+    const marked = await repo.updateIfProposed(tx, id, mark, side);
+    if (!marked) throw stale();
+    let after = marked;
+    let applied: unknown[] = [];
+    const complete = isFullyApproved(marked, project.ownerApprovesChangeOrders);
+    if (complete) {
+      const ctx = await presentContext(tx, project, []);
+      const items = (await repo.itemsOf(tx, [id])).map((i) => ({ ...i, newItem: i.newItem as BidItemInput | null }));
+      checkChangeOrderItems(items, ctx.bidItems, ctx.quantities);
+      after = (await repo.updateIfProposed(tx, id, { status: 'approved', decidedAt: now, decisionNote: note }))!;
+      applied = await applyChanges(tx, id, project.id);
+    }
+    await recordAudit(tx, {
+      projectId: project.id,
+      actorUserId: actor.userId,
+      objectType: 'change_order',
+      objectId: id,
+      action: complete ? 'change_order.approved' : `change_order.${side}_approved`,
+      before: { status: row.status },
+      after: { status: after.status, side, note, ...(complete ? { applied } : {}) },
+    });
+    return viewOf(tx, project, after);
+  });
+}
+
+/** Rejects with a note; either deciding side may reject while the change order is proposed. */
+export async function rejectChangeOrder(db: Db, actor: Actor, id: string, note: string): Promise<ChangeOrderView> {
+  const { row, project, sides } = await loadForDecision(db, actor, id);
+  return db.transaction(async (tx) => {
+    const after = await repo.updateIfProposed(tx, id, { status: 'rejected', decidedAt: new Date(), decisionNote: note });
+    if (!after) throw stale();
+    await recordAudit(tx, {
+      projectId: project.id,
+      actorUserId: actor.userId,
+      objectType: 'change_order',
+      objectId: id,
+      action: 'change_order.rejected',
+      before: { status: row.status },
+      after: { status: after.status, side: sides[0], note },
+    });
+    return viewOf(tx, project, after);
+  });
+}

@@ -1,0 +1,26 @@
+import type { AccessRole } from '../../../src/shared/constants';
+
+/** Either contractor proposes a change order. */
+export const canProposeChangeOrder = (roles: AccessRole[]) =>
+  roles.includes('subcontractor') || roles.includes('general_contractor');
+
+export type ApprovalSide = 'gc' | 'owner';
+
+/**
+ * The side an actor decides for: the general contractor always, the owner only where the project asks for the
+ * owner's approval too. Null when the actor's roles decide nothing.
+ */
+export function decisionSides(roles: AccessRole[], ownerApproves: boolean): ApprovalSide[] {
+  const sides: ApprovalSide[] = [];
+  if (roles.includes('general_contractor')) sides.push('gc');
+  if (ownerApproves && roles.includes('owner')) sides.push('owner');
+  return sides;
+}
+
+export const canDecideChangeOrder = (ownerApproves: boolean) => (roles: AccessRole[]) =>
+  decisionSides(roles, ownerApproves).length > 0;
+
+/** Approved once the general contractor has approved, and the owner too where the project requires it. */
+export function isFullyApproved(o: { gcApprovedAt: Date | null; ownerApprovedAt: Date | null }, ownerApproves: boolean) {
+  return o.gcApprovedAt !== null && (!ownerApproves || o.ownerApprovedAt !== null);
+}

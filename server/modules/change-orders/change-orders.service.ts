@@ -1,0 +1,108 @@
+import type { ChangeOrderView, ContractQuantityView, CreateChangeOrderInput } from '../../../src/shared/schemas/change-order';
+import type { Db, Executor } from '../../db/client';
+import type { Actor } from '../../lib/actor';
+import { AppError, notFound } from '../../lib/app-error';
+import { listObjectAudit, listProjectAudit } from '../audit/audit-query.repository';
+import { recordAudit } from '../audit/audit.repository';
+import { listBidItems } from '../bid-items/bid-items.repository';
+import { isUuid, loadProjectAccess, type ProjectAccess } from '../projects/project-access';
+import type { ProjectRow } from '../projects/projects.repository';
+import { checkChangeOrderItems } from './change-order-checks';
+import { presentChangeOrder, type PresentContext } from './change-orders.presenter';
+import { canProposeChangeOrder } from './change-orders.policy';
+import * as repo from './change-orders.repository';
+import { contractQuantities } from './contract-quantities.repository';
+
+export async function presentContext(db: Executor, project: ProjectRow, userIds: string[]): Promise<PresentContext> {
+  const [items, quantities, names] = await Promise.all([
+    listBidItems(db, project.id),
+    contractQuantities(db, project.id),
+    repo.userNames(db, userIds),
+  ]);
+  return {
+    bidItems: new Map(items.map((i) => [i.id, i])),
+    quantities,
+    names,
+    ownerApprovalRequired: project.ownerApprovesChangeOrders,
+  };
+}
+
+const peopleOf = (rows: repo.ChangeOrderRow[]) =>
+  rows.flatMap((r) => [r.proposedByUserId, r.gcApprovedByUserId ?? '', r.ownerApprovedByUserId ?? '']).filter(Boolean);
+
+export async function viewOf(db: Executor, project: ProjectRow, row: repo.ChangeOrderRow): Promise<ChangeOrderView> {
+  const [items, history, ctx] = await Promise.all([
+    repo.itemsOf(db, [row.id]),
+    listObjectAudit(db, project.id, 'change_order', row.id),
+    presentContext(db, project, peopleOf([row])),
+  ]);
+  return presentChangeOrder(row, items, history, ctx);
+}
+
+export async function listChangeOrders(db: Db, actor: Actor, projectId: string): Promise<ChangeOrderView[]> {
+  const { project } = await loadProjectAccess(db, actor, projectId);
+  const rows = await repo.listChangeOrders(db, projectId);
+  const [items, history, ctx] = await Promise.all([
+    repo.itemsOf(db, rows.map((r) => r.id)),
+    listProjectAudit(db, projectId, { objectType: 'change_order', limit: 10_000, offset: 0 }),
+    presentContext(db, project, peopleOf(rows)),
+  ]);
+  return rows.map((row) =>
+    presentChangeOrder(
+      row,
+      items.filter((i) => i.changeOrderId === row.id),
+      history.rows.filter((h) => h.objectId === row.id),
+      ctx,
+    ),
+  );
+}
+
+/** Loads a change order with the actor's access to its project: 404 when either is out of reach. */
+export async function loadChangeOrder(
+  db: Executor,
+  actor: Actor,
+  id: string,
+): Promise<{ row: repo.ChangeOrderRow } & ProjectAccess> {
+  const row = isUuid(id) ? await repo.findChangeOrder(db, id) : undefined;
+  if (!row) throw notFound('The change order');
+  const access = await loadProjectAccess(db, actor, row.projectId).catch((err: unknown) => {
+    throw err instanceof AppError && err.status === 404 ? notFound('The change order') : err;
+  });
+  return { row, ...access };
+}
+
+export async function getChangeOrder(db: Db, actor: Actor, id: string): Promise<ChangeOrderView> {
+  const { row, project } = await loadChangeOrder(db, actor, id);
+  return viewOf(db, project, row);
+}
+
+/** Either contractor proposes; the change order gets the project's next number. */
+export async function proposeChangeOrder(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  input: CreateChangeOrderInput,
+  action = 'change_order.proposed',
+): Promise<ChangeOrderView> {
+  const { project } = await loadProjectAccess(db, actor, projectId, canProposeChangeOrder);
+  return db.transaction(async (tx) => {
+    const ctx = await presentContext(tx, project, []);
+    checkChangeOrderItems(input.items, ctx.bidItems, ctx.quantities);
+    const row = await repo.insertChangeOrder(tx, projectId, actor.userId, input);
+    await recordAudit(tx, {
+      projectId,
+      actorUserId: actor.userId,
+      objectType: 'change_order',
+      objectId: row.id,
+      action,
+      after: { number: row.number, title: row.title, reason: row.reason, status: row.status, items: input.items, note: row.reason },
+    });
+    return viewOf(tx, project, row);
+  });
+}
+
+/** Original, approved change and current contract quantity of every bid item; any member reads them. */
+export async function listContractQuantities(db: Db, actor: Actor, projectId: string): Promise<ContractQuantityView[]> {
+  await loadProjectAccess(db, actor, projectId);
+  return [...(await contractQuantities(db, projectId)).values()];
+}
