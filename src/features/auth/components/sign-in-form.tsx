@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
+import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
@@ -38,11 +39,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
             <Input type="password" autoComplete="current-password" {...control} {...form.register('password')} />
           )}
         </Field>
-        {signIn.isError ? (
-          <p role="alert" className="border-brick-200 bg-brick-50 text-brick-800 rounded-md border px-3 py-2 text-sm">
-            {errorMessage(signIn.error)}
-          </p>
-        ) : null}
+        {signIn.isError ? <Alert>{errorMessage(signIn.error)}</Alert> : null}
         <Button type="submit" disabled={signIn.isPending} className="w-full">
           {signIn.isPending ? 'Signing in…' : 'Sign in'}
         </Button>

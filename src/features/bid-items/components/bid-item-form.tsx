@@ -1,11 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
+import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox } from '@/components/ui/checkbox';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { Select } from '@/components/ui/select';
+import { optionsOf, Select } from '@/components/ui/select';
 import { errorMessage } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { BASIS_LABELS } from '@/lib/labels';
@@ -22,6 +23,10 @@ import {
   type BidItemFormInput,
   type BidItemFormOutput,
 } from './bid-item-form-schema';
+
+const PAY_UNIT_OPTIONS = optionsOf(PAY_UNITS, (unit) => `${unit} (${PAY_UNIT_LABELS[unit]})`);
+const BASIS_OPTIONS = optionsOf(MEASUREMENT_BASES, (basis) => BASIS_LABELS[basis]);
+const METHOD_OPTIONS = optionsOf(MEASUREMENT_METHODS, (method) => MEASUREMENT_METHOD_LABELS[method]);
 
 type BidItemFormProps = {
   defaultValues: BidItemFormInput;
@@ -60,13 +65,7 @@ export function BidItemForm({ defaultValues, submitLabel, onSubmit, onCancel }: 
         {(control) => <Input {...control} {...form.register('description')} />}
       </Field>
       <Field label="Pay unit" error={errors.payUnit?.message} className="col-span-2">
-        {(control) => (
-          <Select {...control} {...form.register('payUnit')}>
-            {PAY_UNITS.map((unit) => (
-              <option key={unit} value={unit}>{`${unit} (${PAY_UNIT_LABELS[unit]})`}</option>
-            ))}
-          </Select>
-        )}
+        {(control) => <Select {...control} {...form.register('payUnit')} options={PAY_UNIT_OPTIONS} />}
       </Field>
       <Field label={`Contract quantity (${payUnit})`} error={errors.contractQuantity?.message} className="col-span-2">
         {(control) => <Input inputMode="decimal" className="num" {...control} {...form.register('contractQuantity')} />}
@@ -77,26 +76,10 @@ export function BidItemForm({ defaultValues, submitLabel, onSubmit, onCancel }: 
         )}
       </Field>
       <Field label="Measurement basis" error={errors.basis?.message} hint="For volumes (CY, m3)" className="col-span-2">
-        {(control) => (
-          <Select {...control} {...form.register('basis')}>
-            {MEASUREMENT_BASES.map((basis) => (
-              <option key={basis} value={basis}>
-                {BASIS_LABELS[basis]}
-              </option>
-            ))}
-          </Select>
-        )}
+        {(control) => <Select {...control} {...form.register('basis')} options={BASIS_OPTIONS} />}
       </Field>
       <Field label="Measured by" error={errors.method?.message} className="col-span-4">
-        {(control) => (
-          <Select {...control} {...form.register('method')}>
-            {MEASUREMENT_METHODS.map((method) => (
-              <option key={method} value={method}>
-                {MEASUREMENT_METHOD_LABELS[method]}
-              </option>
-            ))}
-          </Select>
-        )}
+        {(control) => <Select {...control} {...form.register('method')} options={METHOD_OPTIONS} />}
       </Field>
       <label className="col-span-6 flex items-center gap-2 text-sm">
         <Checkbox {...form.register('isMajor')} />
@@ -104,11 +87,7 @@ export function BidItemForm({ defaultValues, submitLabel, onSubmit, onCancel }: 
           Major item <span className="text-stone-500">(the contract's major-item variation rule applies)</span>
         </span>
       </label>
-      {formError ? (
-        <p role="alert" className="border-brick-200 bg-brick-50 text-brick-800 col-span-6 rounded-md border px-3 py-2">
-          {formError}
-        </p>
-      ) : null}
+      {formError ? <Alert className="col-span-6">{formError}</Alert> : null}
       <div className="col-span-6 flex justify-end gap-2 border-t border-stone-200 pt-3">
         <Button variant="secondary" onClick={onCancel}>
           Cancel

@@ -1,3 +1,4 @@
+import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { errorMessage } from '@/lib/api-client';
@@ -29,11 +30,7 @@ export function DeleteBidItemDialog({ item, onClose, onDeleted }: DeleteBidItemD
             <span className="tabular-nums">{formatMoney(item.contractAmountCents)}</span>. It leaves the bid schedule
             and the contract sum.
           </p>
-          {remove.isError ? (
-            <p role="alert" className="border-brick-200 bg-brick-50 text-brick-800 rounded-md border px-3 py-2">
-              {errorMessage(remove.error)}
-            </p>
-          ) : null}
+          {remove.isError ? <Alert>{errorMessage(remove.error)}</Alert> : null}
           <div className="flex justify-end gap-2 border-t border-stone-200 pt-3">
             <Button variant="secondary" onClick={close}>
               Keep it

@@ -1,5 +1,6 @@
 import { Download, Upload } from 'lucide-react';
 import { useState } from 'react';
+import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { Field } from '@/components/ui/field';
@@ -77,17 +78,17 @@ export function ImportPanel({ projectId, open, onClose }: ImportPanelProps) {
         </form>
         {upload.isPending ? <UploadProgress fraction={upload.progress} /> : null}
         {upload.isSuccess ? (
-          <p role="status" className="border-spruce-200 bg-spruce-50 text-spruce-900 rounded-md border px-3 py-2">
+          <Alert tone="success">
             Imported {upload.data.imported} {upload.data.imported === 1 ? 'bid item' : 'bid items'}.
-          </p>
+          </Alert>
         ) : null}
         {upload.isError ? (
-          <div className="flex flex-col gap-2" role="alert">
-            <p className="border-brick-200 bg-brick-50 text-brick-800 rounded-md border px-3 py-2">
+          <div className="flex flex-col gap-2">
+            <Alert>
               {details.length
                 ? `Nothing was imported. Fix ${details.length === 1 ? 'this problem' : `these ${details.length} problems`} in the file and upload it again.`
                 : `Nothing was imported. ${errorMessage(upload.error)}`}
-            </p>
+            </Alert>
             {details.length ? <ImportErrorsTable details={details} /> : null}
           </div>
         ) : null}

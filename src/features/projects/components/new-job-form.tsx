@@ -1,17 +1,26 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { Select } from '@/components/ui/select';
+import { optionsOf, Select } from '@/components/ui/select';
 import { errorMessage } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { UNIT_SYSTEM_LABELS } from '@/lib/labels';
-import { UNIT_SYSTEMS } from '@/shared/constants';
+import { UNIT_SYSTEMS, type CompanyKind } from '@/shared/constants';
 import type { CompanyView, CreateProjectInput, ProjectView } from '@/shared/schemas/project';
 import { useCreateProject } from '../api/create-project';
 import { NEW_JOB_DEFAULTS, NEW_JOB_FIELDS, newJobFormSchema, type NewJobFormInput } from './new-job-schema';
+
+const UNIT_OPTIONS = optionsOf(UNIT_SYSTEMS, (units) => UNIT_SYSTEM_LABELS[units]);
+
+function companyOptions(companies: readonly CompanyView[], kind: CompanyKind) {
+  return companies
+    .filter((company) => company.kind === kind)
+    .map((company) => ({ value: company.id, label: company.name }));
+}
 
 type NewJobFormProps = {
   companies: readonly CompanyView[];
@@ -28,8 +37,8 @@ export function NewJobForm({ companies, onCreated, onCancel }: NewJobFormProps) 
     defaultValues: NEW_JOB_DEFAULTS,
   });
   const { errors } = form.formState;
-  const subcontractors = companies.filter((company) => company.kind === 'subcontractor');
-  const owners = companies.filter((company) => company.kind === 'owner');
+  const subcontractors = companyOptions(companies, 'subcontractor');
+  const owners = companyOptions(companies, 'owner');
 
   const submit = form.handleSubmit((input) => {
     setFormError(null);
@@ -55,38 +64,20 @@ export function NewJobForm({ companies, onCreated, onCancel }: NewJobFormProps) 
       </Field>
       <Field label="Subcontractor company" error={errors.subcontractorCompanyId?.message}>
         {(control) => (
-          <Select {...control} {...form.register('subcontractorCompanyId')}>
+          <Select {...control} {...form.register('subcontractorCompanyId')} options={subcontractors}>
             <option value="">Choose…</option>
-            {subcontractors.map((company) => (
-              <option key={company.id} value={company.id}>
-                {company.name}
-              </option>
-            ))}
           </Select>
         )}
       </Field>
       <Field label="Owner company" error={errors.ownerCompanyId?.message}>
         {(control) => (
-          <Select {...control} {...form.register('ownerCompanyId')}>
+          <Select {...control} {...form.register('ownerCompanyId')} options={owners}>
             <option value="">Choose…</option>
-            {owners.map((company) => (
-              <option key={company.id} value={company.id}>
-                {company.name}
-              </option>
-            ))}
           </Select>
         )}
       </Field>
       <Field label="Units" error={errors.units?.message}>
-        {(control) => (
-          <Select {...control} {...form.register('units')}>
-            {UNIT_SYSTEMS.map((units) => (
-              <option key={units} value={units}>
-                {UNIT_SYSTEM_LABELS[units]}
-              </option>
-            ))}
-          </Select>
-        )}
+        {(control) => <Select {...control} {...form.register('units')} options={UNIT_OPTIONS} />}
       </Field>
       <Field
         label="Retainage (%)"
@@ -95,11 +86,7 @@ export function NewJobForm({ companies, onCreated, onCancel }: NewJobFormProps) 
       >
         {(control) => <Input inputMode="decimal" className="num" {...control} {...form.register('retainagePercent')} />}
       </Field>
-      {formError ? (
-        <p role="alert" className="border-brick-200 bg-brick-50 text-brick-800 col-span-2 rounded-md border px-3 py-2">
-          {formError}
-        </p>
-      ) : null}
+      {formError ? <Alert className="col-span-2">{formError}</Alert> : null}
       <div className="col-span-2 flex justify-end gap-2 border-t border-stone-200 pt-3">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
