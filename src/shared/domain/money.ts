@@ -1,4 +1,4 @@
-import { add, dinero, halfAwayFromZero, multiply, toSnapshot, transformScale, type Dinero } from 'dinero.js';
+import { add, dinero, halfAwayFromZero, multiply, subtract, toSnapshot, transformScale, type Dinero } from 'dinero.js';
 import { USD } from 'dinero.js/currencies';
 
 /** Money is integer cents (USD, scale 2) everywhere; dinero.js does the arithmetic. */
@@ -38,4 +38,35 @@ export function lineAmountCents(quantity: number, unitPriceCents: Cents): Cents 
 /** Sum of integer-cent amounts through dinero.js. */
 export function sumCents(amounts: readonly Cents[]): Cents {
   return toCents(amounts.reduce((total, cents) => add(total, usd(cents)), usd(0)));
+}
+
+// --- Quantity engine helpers (issue 3): percentages and interest on integer cents, rounded once. ---
+
+/** `percent` % of an amount, rounded once to the cent (half away from zero): retainage on a line. */
+export function percentOfCents(amountCents: Cents, percent: number): Cents {
+  const { amount, scale } = toScaled(percent);
+  return toCents(multiply(usd(amountCents), { amount, scale: scale + 2 }));
+}
+
+/** a - b through dinero.js. */
+export function subtractCents(a: Cents, b: Cents): Cents {
+  return toCents(subtract(usd(a), usd(b)));
+}
+
+/**
+ * Simple interest on a late payment, FAR 52.232-27 style: amount x annual rate x days / 360, rounded once to the
+ * cent ($100,000 ten days late at 4.875 % gives $135.42).
+ */
+export function lateInterestCents(amountCents: Cents, annualRatePercent: number, daysLate: number): Cents {
+  const rate = toScaled(annualRatePercent);
+  const perYear = multiply(usd(amountCents), { amount: rate.amount * daysLate, scale: rate.scale + 2 });
+  // Divide by 360 exactly: multiply by 1/360 is not a finite decimal, so scale up, then divide the integer.
+  const snap = toSnapshot(perYear);
+  const exact = snap.amount / 360 / 10 ** (snap.scale - 2);
+  return roundHalfAwayFromZero(exact);
+}
+
+function roundHalfAwayFromZero(value: number): number {
+  const r = Math.round(Math.abs(value) + 1e-9);
+  return value < 0 ? -r : r;
 }

@@ -1,0 +1,99 @@
+import type Delaunator from 'delaunator';
+import { ClipPolygon, addTriangle, clipToHull, type ClipHull } from './surface-integrate';
+import type { TinLocator } from './surface-locate';
+
+/** One surface's mesh with its shifted coordinates and heights. */
+export interface Tin {
+  mesh: Delaunator<Float64Array>;
+  coords: Float64Array;
+  z: Float64Array;
+  locator: TinLocator;
+}
+
+export interface PassTotals {
+  /** Cubic and square coordinate units. */
+  cut: number;
+  fill: number;
+  area: number;
+  triangles: number;
+  clipped: number;
+}
+
+/** The convex hull of a mesh as a clip outline carrying that mesh's heights. */
+export function hullOf(tin: Tin): ClipHull {
+  const ids = tin.mesh.hull;
+  const n = ids.length;
+  const x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
+  let twice = 0;
+  for (let i = 0; i < n; i++) {
+    x[i] = tin.coords[2 * ids[i]!]!;
+    y[i] = tin.coords[2 * ids[i]! + 1]!;
+    z[i] = tin.z[ids[i]!]!;
+  }
+  for (let i = 0; i < n; i++) {
+    const j = (i + 1) % n;
+    twice += x[i]! * y[j]! - x[j]! * y[i]!;
+  }
+  return { x, y, z, orientation: twice >= 0 ? 1 : -1 };
+}
+
+/**
+ * Heights of `other` at every vertex of `own` (NaN outside other's hull); also marks own's triangles that hold
+ * one of other's points, which may overlap other's footprint though all their corners lie outside it.
+ */
+export function sampleOther(own: Tin, other: Tin, ownTriOfOther: Int32Array | null): Float64Array {
+  const n = own.z.length;
+  const at = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const x = own.coords[2 * i]!, y = own.coords[2 * i + 1]!;
+    const t = other.locator.locate(x, y);
+    at[i] = t < 0 ? NaN : other.locator.interpolate(t, x, y, other.z);
+    if (ownTriOfOther) ownTriOfOther[i] = t;
+  }
+  return at;
+}
+
+/**
+ * Integrates d = sign x (own z - other z) over own's triangles within other's hull. Triangles with all three
+ * corners inside are integrated directly (d is linear over own's triangle once other's heights are sampled at
+ * its corners); the rest are clipped to other's hull first.
+ */
+export function integratePass(own: Tin, otherAt: Float64Array, hull: ClipHull, marked: Uint8Array, sign: number): PassTotals {
+  const tri = own.mesh.triangles;
+  const c = own.coords;
+  const z = own.z;
+  const acc = new Float64Array(3);
+  const poly = new ClipPolygon(hull.x.length + 8);
+  const scratch = new ClipPolygon(hull.x.length + 8);
+  let clipped = 0;
+  for (let t = 0; t < tri.length; t += 3) {
+    const a = tri[t]!, b = tri[t + 1]!, d = tri[t + 2]!;
+    const oa = otherAt[a]!, ob = otherAt[b]!, od = otherAt[d]!;
+    const ax = c[2 * a]!, ay = c[2 * a + 1]!, bx = c[2 * b]!, by = c[2 * b + 1]!, dx = c[2 * d]!, dy = c[2 * d + 1]!;
+    if (oa === oa && ob === ob && od === od) {
+      const area = Math.abs((bx - ax) * (dy - ay) - (by - ay) * (dx - ax)) / 2;
+      addTriangle(area, sign * (z[a]! - oa), sign * (z[b]! - ob), sign * (z[d]! - od), acc);
+      continue;
+    }
+    if (!(oa === oa || ob === ob || od === od || marked[t / 3] === 1)) continue;
+    clipped++;
+    poly.n = 0;
+    poly.push(ax, ay, oa);
+    poly.push(bx, by, ob);
+    poly.push(dx, dy, od);
+    const out = clipToHull(poly, hull, scratch);
+    addPolygon(out, own, t / 3, sign, acc);
+  }
+  return { cut: acc[0]!, fill: acc[1]!, area: acc[2]!, triangles: tri.length / 3, clipped };
+}
+
+/** Fan over a clipped (convex) polygon; own z from own triangle's plane, other z carried by the clip. */
+function addPolygon(p: ClipPolygon, own: Tin, t: number, sign: number, acc: Float64Array): void {
+  if (p.n < 3) return;
+  const d = new Float64Array(p.n);
+  for (let i = 0; i < p.n; i++) d[i] = sign * (own.locator.interpolate(t, p.x[i]!, p.y[i]!, own.z) - p.z[i]!);
+  for (let i = 1; i + 1 < p.n; i++) {
+    const area = Math.abs((p.x[i]! - p.x[0]!) * (p.y[i + 1]! - p.y[0]!) - (p.y[i]! - p.y[0]!) * (p.x[i + 1]! - p.x[0]!)) / 2;
+    addTriangle(area, d[0]!, d[i]!, d[i + 1]!, acc);
+  }
+}
