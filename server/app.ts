@@ -17,6 +17,8 @@ import { changeOrdersRouter } from './modules/change-orders/change-orders.routes
 import { meRouter } from './modules/me/me.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
+import { varianceRouter } from './modules/variance/variance.routes';
+import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
 import type { AppContext } from './app-context';
 
@@ -78,8 +80,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireActor(auth, db));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
-  app.use('/api', changeOrdersRouter(ctx), auditRouter(db));
-  app.use('/api', talliesRouter(ctx));
+  app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), auditRouter(db));
+  app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 
