@@ -1,8 +1,13 @@
+import { readdirSync } from 'node:fs';
 import js from '@eslint/js';
 import pluginQuery from '@tanstack/eslint-plugin-query';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
+
+const features = readdirSync('src/features', { withFileTypes: true })
+  .filter((entry) => entry.isDirectory())
+  .map((entry) => entry.name);
 
 export default tseslint.config(
   { ignores: ['dist', 'node_modules', 'data', '.data-test', 'coverage', 'drizzle'] },
@@ -34,4 +39,19 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // Client direction: shared <- lib/components <- features <- app. Primitives and lib know no feature.
+    files: ['src/lib/**/*.{ts,tsx}', 'src/components/**/*.{ts,tsx}'],
+    rules: { 'no-restricted-imports': ['error', { patterns: ['@/features/*', '@/app/*'] }] },
+  },
+  // A feature never imports another feature (app/ composes them) nor app/.
+  ...features.map((name) => ({
+    files: [`src/features/${name}/**/*.{ts,tsx}`],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { patterns: ['@/app/*', ...features.filter((other) => other !== name).map((other) => `@/features/${other}/*`)] },
+      ],
+    },
+  })),
 );
