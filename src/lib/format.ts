@@ -1,23 +1,12 @@
-import { add, dinero, toDecimal, toSnapshot, type Dinero } from 'dinero.js';
-import { USD } from 'dinero.js/currencies';
+import { toDecimal } from 'dinero.js';
 import { PAY_UNIT_LABELS, type PayUnit } from '@/shared/constants';
+import { usd, type Cents } from '@/shared/domain/money';
 
 const moneyFormat = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
 
-/** A dinero.js amount from integer cents (USD). */
-export function money(cents: number): Dinero<number> {
-  return dinero({ amount: cents, currency: USD });
-}
-
 /** "$1,234.50" from integer cents; the decimal string comes from dinero.js, Intl only adds separators. */
-export function formatMoney(cents: number): string {
-  return toDecimal(money(cents), ({ value }) => moneyFormat.format(Number(value)));
-}
-
-/** Sum of integer-cent amounts through dinero.js, back in integer cents. */
-export function sumCents(amounts: readonly number[]): number {
-  const total = amounts.reduce<Dinero<number>>((sum, cents) => add(sum, money(cents)), money(0));
-  return toSnapshot(total).amount;
+export function formatMoney(cents: Cents): string {
+  return toDecimal(usd(cents), ({ value }) => moneyFormat.format(Number(value)));
 }
 
 const COUNT_UNITS: ReadonlySet<PayUnit> = new Set<PayUnit>(['EA', 'LS']);

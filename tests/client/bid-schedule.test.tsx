@@ -90,6 +90,8 @@ describe('bid item form', () => {
     await user.type(screen.getByLabelText('Description'), 'Basin keyway excavation');
     await user.type(screen.getByLabelText(/Contract quantity/), '1,250.5');
     await user.type(screen.getByLabelText(/Unit price/), '$1,012.07');
+    // 1,250.5 CY x $1,012.07 = $1,265,593.535, rounded once to the cent (worked by hand).
+    expect(screen.getByText('$1,265,593.54')).toBeTruthy();
     await user.click(screen.getByRole('checkbox'));
     await user.click(screen.getByRole('button', { name: 'Add bid item' }));
 

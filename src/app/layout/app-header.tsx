@@ -5,10 +5,10 @@ import { cn } from '@/lib/cn';
 export function AppHeader() {
   const navigation = useNavigation();
   return (
-    <header className="bg-spruce-900 relative text-white">
+    <header className="relative bg-spruce-900 text-white">
       <a
         href="#main"
-        className="focus:text-spruce-900 sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:rounded focus:bg-white focus:px-3 focus:py-1"
+        className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:rounded focus:bg-white focus:px-3 focus:py-1 focus:text-spruce-900"
       >
         Skip to content
       </a>
@@ -26,7 +26,7 @@ export function AppHeader() {
               to="/jobs"
               className={({ isActive }) =>
                 cn(
-                  'text-spruce-100 rounded px-2 py-1 text-sm hover:text-white focus-visible:outline-white',
+                  'rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white',
                   isActive && 'bg-spruce-800 text-white',
                 )
               }
@@ -41,7 +41,7 @@ export function AppHeader() {
         <div
           role="progressbar"
           aria-label="Loading"
-          className="bg-clay-300 absolute inset-x-0 bottom-0 h-0.5 animate-pulse"
+          className="absolute inset-x-0 bottom-0 h-0.5 animate-pulse bg-clay-300"
         />
       ) : null}
     </header>

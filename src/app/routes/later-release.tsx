@@ -6,7 +6,7 @@ export function LaterRelease({ tab }: { tab: ProjectTab }) {
   return (
     <div className="flex flex-col items-center gap-2 rounded-lg border border-dashed border-stone-300 bg-white px-6 py-12 text-center">
       <title>{`${tab.label} · Tallyard`}</title>
-      <Hourglass aria-hidden className="text-clay-500 size-6" />
+      <Hourglass aria-hidden className="size-6 text-clay-500" />
       <h2 className="font-semibold">{tab.label} arrives with a later release</h2>
       <p className="max-w-md text-stone-600">{tab.summary}</p>
     </div>

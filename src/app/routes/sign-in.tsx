@@ -26,7 +26,7 @@ export function Component() {
       <title>Sign in · Tallyard</title>
       <div className="w-full max-w-md">
         <div className="mb-6 text-center">
-          <p className="text-spruce-900 text-2xl font-semibold tracking-tight">Tallyard</p>
+          <p className="text-2xl font-semibold tracking-tight text-spruce-900">Tallyard</p>
           <p className="mt-1 text-stone-600">Measured quantities to paid pay applications, for unit-price earthwork.</p>
         </div>
         <div className="rounded-lg border border-stone-200 bg-white p-6 shadow-sm">

@@ -26,7 +26,7 @@ export function Field({ label, error, hint, className, children }: FieldProps) {
       </label>
       {children({ id, 'aria-invalid': Boolean(error), 'aria-describedby': noteId })}
       {error ? (
-        <p id={noteId} role="alert" className="text-brick-700 text-xs">
+        <p id={noteId} role="alert" className="text-xs text-brick-700">
           {error}
         </p>
       ) : hint ? (

@@ -49,7 +49,7 @@ export function ErrorState({
     <StatePanel
       role="alert"
       className={cn('border-brick-200 bg-brick-50/50', className)}
-      icon={<CircleAlert aria-hidden className="text-brick-600 size-6" />}
+      icon={<CircleAlert aria-hidden className="size-6 text-brick-600" />}
       title={title}
       action={
         onRetry ? (

@@ -18,7 +18,7 @@ export function DemoSignIns({ onPick }: { onPick: (email: string) => void }) {
               onClick={() => onPick(demo.email)}
               className="flex w-full flex-wrap items-baseline justify-between gap-x-3 rounded px-1 py-1.5 text-left hover:bg-white"
             >
-              <span className="text-spruce-800 font-mono text-xs">{demo.email}</span>
+              <span className="font-mono text-xs text-spruce-800">{demo.email}</span>
               <span className="text-xs text-stone-600">
                 {demo.role}: {demo.does}
               </span>

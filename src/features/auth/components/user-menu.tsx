@@ -12,7 +12,7 @@ export function UserMenu() {
     <div className="flex items-center gap-3">
       <div className="text-right leading-tight">
         <p className="text-sm font-medium text-white">{me.user.name}</p>
-        <p className="text-spruce-100 text-xs">
+        <p className="text-xs text-spruce-100">
           {me.company ? `${me.company.name} · ${COMPANY_KIND_LABELS[me.company.kind]}` : 'No company'}
           {me.isAdmin ? ' · admin' : ''}
         </p>

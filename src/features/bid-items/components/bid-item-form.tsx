@@ -17,6 +17,7 @@ import {
   PAY_UNIT_LABELS,
   PAY_UNITS,
 } from '@/shared/constants';
+import { AmountPreview } from './amount-preview';
 import {
   BID_ITEM_FORM_FIELDS,
   bidItemFormSchema,
@@ -81,12 +82,15 @@ export function BidItemForm({ defaultValues, submitLabel, onSubmit, onCancel }: 
       <Field label="Measured by" error={errors.method?.message} className="col-span-4">
         {(control) => <Select {...control} {...form.register('method')} options={METHOD_OPTIONS} />}
       </Field>
-      <label className="col-span-6 flex items-center gap-2 text-sm">
+      <label className="col-span-4 flex items-center gap-2 text-sm">
         <Checkbox {...form.register('isMajor')} />
         <span>
           Major item <span className="text-stone-500">(the contract's major-item variation rule applies)</span>
         </span>
       </label>
+      <div className="col-span-2 self-center text-right">
+        <AmountPreview control={form.control} />
+      </div>
       {formError ? <Alert className="col-span-6">{formError}</Alert> : null}
       <div className="col-span-6 flex justify-end gap-2 border-t border-stone-200 pt-3">
         <Button variant="secondary" onClick={onCancel}>

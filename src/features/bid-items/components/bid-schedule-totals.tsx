@@ -1,5 +1,6 @@
 import { TableCell, TableFoot } from '@/components/ui/table';
-import { formatMoney, sumCents } from '@/lib/format';
+import { formatMoney } from '@/lib/format';
+import { sumCents } from '@/shared/domain/money';
 import type { BidItemView } from '@/shared/schemas/bid-item';
 
 type BidScheduleTotalsProps = {

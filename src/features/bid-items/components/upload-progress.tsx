@@ -11,7 +11,7 @@ export function UploadProgress({ fraction }: { fraction: number }) {
         aria-valuenow={percent}
         className="h-2 flex-1 overflow-hidden rounded-full bg-stone-200"
       >
-        <div className="bg-spruce-600 h-full transition-[width]" style={{ width: `${percent}%` }} />
+        <div className="h-full bg-spruce-600 transition-[width]" style={{ width: `${percent}%` }} />
       </div>
       <span className="w-24 text-right text-xs text-stone-600 tabular-nums">
         {percent < 100 ? `${percent} % sent` : 'Checking rows…'}

@@ -24,7 +24,7 @@ export function ProjectList({ projects }: { projects: readonly ProjectSummaryVie
             <TableCell>
               <Link
                 to={`/projects/${project.id}`}
-                className="text-spruce-800 font-medium underline-offset-2 hover:underline"
+                className="font-medium text-spruce-800 underline-offset-2 hover:underline"
               >
                 {project.name}
               </Link>
