@@ -32,7 +32,6 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
   {
     path: 'worksheets',
     label: 'Worksheets',
-    screen: () => import('./routes/project-worksheets'),
     summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
   },
   {
