@@ -2,7 +2,6 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { toNodeHandler } from 'better-auth/node';
 import express, { type Express } from 'express';
-import helmet from 'helmet';
 import type { Auth } from './auth';
 import type { Database } from './db/client';
 import type { Mailer } from './integrations/mailer/mailer';
@@ -10,11 +9,17 @@ import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { clientIpForAuth } from './middleware/client-ip';
+import { csrfGuard } from './middleware/csrf-guard';
 import { requireActor } from './middleware/require-actor';
+import { securityHeaders } from './middleware/security-headers';
 import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { changeOrdersRouter } from './modules/change-orders/change-orders.routes';
+import { devMailboxRouter } from './modules/dev/mailbox.routes';
+import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
+import { calcRouter } from './modules/calc/calc.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { varianceRouter } from './modules/variance/variance.routes';
@@ -53,34 +58,24 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          defaultSrc: ["'self'"],
-          imgSrc: ["'self'", 'data:', 'blob:'],
-          styleSrc: ["'self'", "'unsafe-inline'"],
-          fontSrc: ["'self'", 'data:'],
-          connectSrc: ["'self'"],
-          formAction: ["'self'"],
-          frameAncestors: ["'none'"],
-          upgradeInsecureRequests: null,
-        },
-      },
-    }),
-  );
+  app.use(securityHeaders());
 
   app.get('/api/health', (_req, res) => {
     res.json({ status: 'ok', database: database.kind });
   });
+  // Public routes (no session): the invitation link's preview and accept.
+  app.use('/api', publicInvitationsRouter(ctx, auth));
   // better-auth reads its own bodies: mount it before the JSON parser.
-  app.all('/api/auth/{*splat}', toNodeHandler(auth));
+  app.all('/api/auth/{*splat}', clientIpForAuth, toNodeHandler(auth));
 
-  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
   app.use('/api', requireActor(auth, db));
+  // The calculation API parses its own (larger) bodies; everything else is limited to JSON_BODY_LIMIT.
+  app.use('/api', calcRouter());
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
-  app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), auditRouter(db));
+  app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);

@@ -1,0 +1,92 @@
+import { fromNodeHeaders } from 'better-auth/node';
+import type { IncomingHttpHeaders } from 'node:http';
+import type { ProjectRole } from '../../../src/shared/constants';
+import type { AcceptInvitationInput, InvitationPreview } from '../../../src/shared/schemas/invitation';
+import type { Auth } from '../../auth';
+import type { Db } from '../../db/client';
+import { companyMembers, projectMembers } from '../../db/schema';
+import { AppError, conflict, forbidden, validationFailed } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { hashToken, TOKEN_SHAPE } from './invitation-token';
+import * as repo from './invitations.repository';
+
+type Found = NonNullable<Awaited<ReturnType<typeof repo.findByTokenHash>>>;
+
+/** The invitation of a token: 404 unknown or revoked, 409 already used, 410 expired. */
+async function loadOpen(db: Db, token: string): Promise<Found> {
+  const found = TOKEN_SHAPE.test(token) ? await repo.findByTokenHash(db, hashToken(token)) : undefined;
+  if (!found) throw new AppError(404, 'INVITATION_NOT_FOUND', 'This invitation link is not valid. It may have been revoked.');
+  if (found.invitation.acceptedAt) throw conflict('INVITATION_USED', 'This invitation was already accepted. Sign in to open the job.');
+  if (found.invitation.expiresAt <= new Date()) {
+    throw new AppError(410, 'INVITATION_EXPIRED', 'This invitation has expired. Ask the person who invited you for a new one.');
+  }
+  return found;
+}
+
+export async function previewInvitation(db: Db, token: string): Promise<InvitationPreview> {
+  const { invitation, projectName, invitedBy } = await loadOpen(db, token);
+  return {
+    projectName,
+    role: invitation.role,
+    email: invitation.email,
+    invitedBy,
+    expiresAt: invitation.expiresAt.toISOString(),
+    hasAccount: Boolean(await repo.findUserByEmail(db, invitation.email)),
+  };
+}
+
+const partyCompany = (p: Found['project'], role: ProjectRole) =>
+  role === 'subcontractor' ? p.subcontractorCompanyId : role === 'general_contractor' ? p.generalContractorCompanyId : p.ownerCompanyId;
+
+/** A new person's account, through better-auth (it signs the person in: its cookies come back to forward). */
+async function signUp(auth: Auth, email: string, input: AcceptInvitationInput) {
+  const problems = [];
+  if (!input.name) problems.push({ path: 'name', message: 'Your name is required' });
+  if (!input.password) problems.push({ path: 'password', message: 'Choose a password of at least 12 characters' });
+  if (problems.length > 0) throw validationFailed(problems);
+  try {
+    const { headers, response } = await auth.api.signUpEmail({ body: { email, name: input.name!, password: input.password! }, returnHeaders: true });
+    return { userId: response.user.id, setCookie: headers.getSetCookie() };
+  } catch (err) {
+    const message = (err as { body?: { message?: string } }).body?.message ?? 'The account could not be created.';
+    throw validationFailed([{ path: 'password', message }], message);
+  }
+}
+
+/**
+ * Accepts an invitation: creates the account (name + password) or, when the e-mail already has one, requires
+ * being signed in as it. Adds the project role and, for a person without a company, the role's company.
+ */
+export async function acceptInvitation(db: Db, auth: Auth, token: string, input: AcceptInvitationInput, headers: IncomingHttpHeaders) {
+  const found = await loadOpen(db, token);
+  const { invitation, project } = found;
+  const existing = await repo.findUserByEmail(db, invitation.email);
+  let userId: string;
+  let setCookie: string[] = [];
+  if (existing) {
+    const session = await auth.api.getSession({ headers: fromNodeHeaders(headers) });
+    if (!session) throw new AppError(401, 'UNAUTHENTICATED', `Sign in as ${invitation.email} to accept this invitation.`);
+    if (session.user.id !== existing.id) throw forbidden(`This invitation is for ${invitation.email}; sign in as that person to accept it.`);
+    userId = existing.id;
+  } else {
+    ({ userId, setCookie } = await signUp(auth, invitation.email, input));
+  }
+  await db.transaction(async (tx) => {
+    if (!(await repo.markAccepted(tx, invitation.id))) throw conflict('INVITATION_USED', 'This invitation was already accepted.');
+    if (!(await repo.hasRole(tx, project.id, userId, invitation.role))) {
+      await tx.insert(projectMembers).values({ projectId: project.id, userId, role: invitation.role });
+    }
+    const company = await repo.companyOf(tx, userId);
+    const joinedCompany = company ? null : partyCompany(project, invitation.role);
+    if (joinedCompany) await tx.insert(companyMembers).values({ userId, companyId: joinedCompany, isAdmin: false });
+    await recordAudit(tx, {
+      projectId: project.id,
+      actorUserId: userId,
+      objectType: 'invitation',
+      objectId: invitation.id,
+      action: 'invitation.accepted',
+      after: { email: invitation.email, role: invitation.role, newAccount: !existing, joinedCompanyId: joinedCompany },
+    });
+  });
+  return { projectId: project.id, setCookie };
+}

@@ -1,0 +1,113 @@
+import { eq } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { auditEvents, companyMembers, invitations } from '../../server/db/schema';
+import { makeWorld } from '../setup/factories';
+import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
+
+let t: TestApp;
+let w: Awaited<ReturnType<typeof makeWorld>>;
+beforeAll(async () => {
+  t = await createTestApp();
+  w = await makeWorld(t.database.db, t.auth);
+});
+afterAll(() => t.close());
+
+const as = (who: keyof typeof w.people | 'outsider') =>
+  signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
+const anonymous = () => request.agent(t.app).set('Origin', TEST_ORIGIN);
+
+/** Invites and returns the token from the accept link of the caught e-mail. */
+async function invite(email: string, role = 'subcontractor', who: keyof typeof w.people = 'general_contractor') {
+  t.mailbox.clear();
+  const res = await (await as(who)).post(`/api/projects/${w.home.id}/invitations`).send({ email, role });
+  expect(res.status).toBe(201);
+  const mail = t.mailbox.messages().find((m) => m.to.includes(email));
+  expect(mail).toBeDefined();
+  const link = new RegExp(`${TEST_ORIGIN}/invitations/([A-Za-z0-9_-]+)`).exec(mail!.text);
+  expect(link).not.toBeNull();
+  expect(mail!.html).toContain(`href="${link![0]}"`);
+  return { token: link![1]!, invitation: res.body.invitation, mail: mail! };
+}
+
+describe('invitations: sending', () => {
+  it('e-mails an accept link (HTML and text) and stores only the SHA-256 of the token', async () => {
+    const { token, invitation, mail } = await invite('new.person@example.test');
+    expect(mail.subject).toContain(w.home.name);
+    expect(mail.text).toContain('Home');
+    const [row] = await t.database.db.select().from(invitations).where(eq(invitations.id, invitation.id));
+    expect(row!.tokenHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(row!.tokenHash).not.toContain(token);
+    // 7 days of validity (our product setting)
+    expect(Math.round((row!.expiresAt.getTime() - row!.createdAt.getTime()) / 86_400_000)).toBe(7);
+  });
+
+  it('lets the company admin invite and refuses the subcontractor (403) and an outsider (404)', async () => {
+    expect((await (await as('admin')).post(`/api/projects/${w.home.id}/invitations`).send({ email: 'a1@example.test', role: 'owner' })).status).toBe(201);
+    expect((await (await as('subcontractor')).post(`/api/projects/${w.home.id}/invitations`).send({ email: 'a2@example.test', role: 'owner' })).status).toBe(403);
+    expect((await (await as('outsider')).post(`/api/projects/${w.home.id}/invitations`).send({ email: 'a3@example.test', role: 'owner' })).status).toBe(404);
+    const bad = await (await as('admin')).post(`/api/projects/${w.home.id}/invitations`).send({ email: 'not-an-email', role: 'boss' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['email', 'role']);
+  });
+});
+
+describe('invitations: accepting', () => {
+  it('creates the account from the link, joins the project and the role’s company, and works once', async () => {
+    const { token } = await invite('fresh.hand@example.test', 'subcontractor');
+    const visitor = anonymous();
+    const preview = await visitor.get(`/api/invitations/${token}`);
+    expect(preview.status).toBe(200);
+    expect(preview.body.invitation).toMatchObject({ projectName: 'Home', role: 'subcontractor', email: 'fresh.hand@example.test', hasAccount: false });
+    const short = await visitor.post(`/api/invitations/${token}/accept`).send({ name: 'Fresh Hand', password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.details[0].path).toBe('password');
+    const accepted = await visitor.post(`/api/invitations/${token}/accept`).send({ name: 'Fresh Hand', password: 'gravel-and-loam-2026' });
+    expect(accepted.status).toBe(200);
+    expect((await visitor.get(`/api/projects/${w.home.id}`)).status).toBe(200);
+    const me = await visitor.get('/api/me');
+    const [company] = await t.database.db.select().from(companyMembers).where(eq(companyMembers.userId, me.body.user.id));
+    expect(company!.companyId).toBe(w.companies.sub.id);
+    expect((await anonymous().post(`/api/invitations/${token}/accept`).send({ name: 'X', password: 'gravel-and-loam-2026' })).status).toBe(409);
+    expect((await anonymous().get(`/api/invitations/${token}`)).status).toBe(409);
+    const actions = (await t.database.db.select().from(auditEvents).where(eq(auditEvents.objectType, 'invitation'))).map((e) => e.action);
+    expect(actions).toContain('invitation.accepted');
+  });
+
+  it('asks an existing account to sign in as itself: 401 without a session, 403 as someone else', async () => {
+    const { token } = await invite(w.outsider.email, 'owner');
+    expect((await anonymous().get(`/api/invitations/${token}`)).body.invitation.hasAccount).toBe(true);
+    expect((await anonymous().post(`/api/invitations/${token}/accept`).send({})).status).toBe(401);
+    expect((await (await as('owner')).post(`/api/invitations/${token}/accept`).send({})).status).toBe(403);
+    const outsider = await as('outsider');
+    expect((await outsider.get(`/api/projects/${w.home.id}`)).status).toBe(404);
+    expect((await outsider.post(`/api/invitations/${token}/accept`).send({})).status).toBe(200);
+    expect((await outsider.get(`/api/projects/${w.home.id}`)).status).toBe(200);
+    const [company] = await t.database.db.select().from(companyMembers).where(eq(companyMembers.userId, w.outsider.id));
+    expect(company!.companyId).toBe(w.companies.otherGc.id);
+  });
+
+  it('answers 410 after expiry and 404 for an unknown or revoked token', async () => {
+    const { token, invitation } = await invite('late@example.test');
+    await t.database.db.update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.id, invitation.id));
+    expect((await anonymous().get(`/api/invitations/${token}`)).status).toBe(410);
+    expect((await anonymous().post(`/api/invitations/${token}/accept`).send({ name: 'L', password: 'gravel-and-loam-2026' })).status).toBe(410);
+    expect((await anonymous().get('/api/invitations/not-a-real-token-at-all-000')).status).toBe(404);
+    const second = await invite('revoked@example.test');
+    const gc = await as('general_contractor');
+    const list = await gc.get(`/api/projects/${w.home.id}/invitations`);
+    expect(list.body.invitations.find((i: { id: string }) => i.id === invitation.id).state).toBe('expired');
+    expect((await gc.delete(`/api/invitations/${second.invitation.id}`)).status).toBe(204);
+    expect((await anonymous().get(`/api/invitations/${second.token}`)).status).toBe(404);
+  });
+});
+
+describe('development mailbox', () => {
+  it('lists caught messages newest first to a signed-in person, and 401 without a session', async () => {
+    await invite('mailbox.one@example.test');
+    const res = await (await as('owner')).get('/api/dev/mailbox');
+    expect(res.status).toBe(200);
+    expect(res.body.messages[0].to).toContain('mailbox.one@example.test');
+    expect((await anonymous().get('/api/dev/mailbox')).status).toBe(401);
+  });
+});
