@@ -1,0 +1,126 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import type { PayAppStatus } from '../../../src/shared/constants';
+import type { PayAppActionInput, ReviewPayAppInput, RevisePayAppInput } from '../../../src/shared/schemas/pay-app';
+import type { AppContext } from '../../app-context';
+import type { Executor } from '../../db/client';
+import { disputeComments, disputes, payAppLines } from '../../db/schema';
+import type { Actor } from '../../lib/actor';
+import { AppError, validationFailed } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { enqueueEmail } from '../notifications/outbox';
+import type { ProjectRow } from '../projects/projects.repository';
+import { loadPayAppAccess } from './pay-app-access';
+import { recomputeLines } from './pay-app-build';
+import { certifiedMail, returnedMail, submittedMail, type MailFacts } from './pay-app-emails';
+import { checkAction, moveStatus } from './pay-app-transition';
+import { payAppDetail } from './pay-apps.service';
+import * as repo from './pay-apps.repository';
+
+const facts = (ctx: AppContext, project: ProjectRow, app: repo.PayAppRow, actor: Actor): MailFacts => ({
+  appUrl: ctx.appUrl,
+  projectId: project.id,
+  projectName: project.name,
+  payAppId: app.id,
+  number: app.number,
+  revision: app.revision,
+  periodStart: app.periodStart,
+  periodEnd: app.periodEnd,
+  currentDueCents: app.currentDueCents,
+  actorName: actor.name,
+});
+
+const audit = (tx: Executor, actor: Actor, app: repo.PayAppRow, action: string, before: unknown, after: unknown) =>
+  recordAudit(tx, { projectId: app.projectId, actorUserId: actor.userId, objectType: 'pay_app', objectId: app.id, action, before, after });
+
+const state = (a: repo.PayAppRow) => ({ status: a.status, revision: a.revision, currentDueCents: a.currentDueCents });
+
+/** Runs the change in one transaction, then sends the mail it queued (never inside the transaction). */
+async function commit(ctx: AppContext, payAppId: string, work: (tx: Executor) => Promise<void>) {
+  await ctx.db.transaction(work);
+  await ctx.outbox.flush();
+  return payAppDetail(ctx.db, payAppId);
+}
+
+export async function submitPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: PayAppActionInput) {
+  const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const to = checkAction(app, 'submit', roles, input.expectedRevision);
+  return commit(ctx, app.id, async (tx) => {
+    const row = await moveStatus(tx, app, [{ from: app.status, to }], actor.userId, { submittedAt: new Date() }, input.note);
+    await audit(tx, actor, app, 'pay_app.submitted', state(app), state(row));
+    await enqueueEmail(tx, submittedMail(facts(ctx, project, row, actor), await repo.addressesOf(tx, project.id, 'general_contractor')));
+  });
+}
+
+export async function certifyPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: PayAppActionInput) {
+  const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const to = checkAction(app, 'certify', roles, input.expectedRevision);
+  const lines = await repo.listLines(ctx.db, app.id);
+  const unapproved = lines.filter((l) => l.reviewStatus !== 'approved');
+  if (unapproved.length > 0) {
+    throw new AppError(409, 'PAY_APP_LINES_NOT_APPROVED', `Every line must be approved before certifying; ${unapproved.length} is not.`, unapproved.map((l) => ({ path: `lines.${l.id}`, message: `Item ${l.itemNumber} is ${l.reviewStatus}` })));
+  }
+  return commit(ctx, app.id, async (tx) => {
+    const row = await moveStatus(tx, app, [{ from: app.status, to }], actor.userId, { certifiedAt: new Date(), certifiedByUserId: actor.userId }, input.note);
+    await audit(tx, actor, app, 'pay_app.certified', state(app), { ...state(row), certifiedAt: row.certifiedAt });
+    await enqueueEmail(tx, certifiedMail(facts(ctx, project, row, actor), await repo.addressesOf(tx, project.id, 'owner'), project.paymentTermsDays));
+  });
+}
+
+export async function reviewPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: ReviewPayAppInput) {
+  const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const disputed = input.lines.filter((l) => l.decision === 'dispute');
+  // First review: submitted -> in_review; any dispute then returns it.
+  const steps: { from: PayAppStatus; to: PayAppStatus }[] = app.status === 'submitted' ? [{ from: app.status, to: checkAction(app, 'start_review', roles, input.expectedRevision) }] : [];
+  const reviewFrom = steps.at(-1)?.to ?? app.status;
+  if (disputed.length > 0) steps.push({ from: reviewFrom, to: checkAction({ ...app, status: reviewFrom }, 'return', roles, input.expectedRevision) });
+  if (steps.length === 0) checkAction(app, 'return', roles, input.expectedRevision); // in_review, approvals only: same checks
+  const lines = new Map((await repo.listLines(ctx.db, app.id)).map((l) => [l.id, l]));
+  const seen = new Set<string>();
+  const bad = input.lines.flatMap((l, i) => {
+    if (!lines.has(l.lineId)) return [{ path: `lines.${i}.lineId`, message: 'Not a line of this pay application' }];
+    if (seen.has(l.lineId)) return [{ path: `lines.${i}.lineId`, message: 'This line is reviewed twice' }];
+    seen.add(l.lineId);
+    return [];
+  });
+  if (bad.length > 0) throw validationFailed(bad);
+  return commit(ctx, app.id, async (tx) => {
+    const row = await moveStatus(tx, app, steps, actor.userId);
+    for (const decision of ['approve', 'dispute'] as const) {
+      const ids = input.lines.filter((l) => l.decision === decision).map((l) => l.lineId);
+      if (ids.length) await tx.update(payAppLines).set({ reviewStatus: decision === 'approve' ? 'approved' : 'disputed' }).where(and(eq(payAppLines.payAppId, app.id), inArray(payAppLines.id, ids)));
+    }
+    if (disputed.length > 0) {
+      await tx.insert(disputes).values(disputed.map((d) => ({ payAppId: app.id, lineId: d.lineId, revision: app.revision, reason: d.reason!, counterQuantity: d.counterQuantity!, openedByUserId: actor.userId })));
+      const listed = disputed.map((d) => ({ ...d, itemNumber: lines.get(d.lineId)!.itemNumber, payUnit: lines.get(d.lineId)!.payUnit, reason: d.reason!, counterQuantity: d.counterQuantity! }));
+      await enqueueEmail(tx, returnedMail(facts(ctx, project, row, actor), await repo.addressesOf(tx, project.id, 'subcontractor'), listed));
+    }
+    await audit(tx, actor, app, 'pay_app.reviewed', state(app), { ...state(row), lines: input.lines });
+  });
+}
+
+export async function revisePayApp(ctx: AppContext, actor: Actor, payAppId: string, input: RevisePayAppInput) {
+  const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const to = checkAction(app, 'revise', roles, input.expectedRevision);
+  const open = await repo.openDisputes(ctx.db, app.id);
+  const answers = new Map(input.lines.map((l) => [l.lineId, l]));
+  const missing = open.filter((d) => !answers.has(d.lineId));
+  const strays = input.lines.flatMap((l, i) => (open.some((d) => d.lineId === l.lineId) ? [] : [{ path: `lines.${i}.lineId`, message: 'This line has no open dispute' }]));
+  if (missing.length > 0 || strays.length > 0) {
+    throw validationFailed([...missing.map((d) => ({ path: 'lines', message: `Answer the dispute on line ${d.lineId}: accept its counter quantity or reply` })), ...strays]);
+  }
+  return commit(ctx, app.id, async (tx) => {
+    const quantities = new Map(open.filter((d) => answers.get(d.lineId)!.action === 'accept').map((d) => [d.lineId, d.counterQuantity]));
+    const totals = await recomputeLines(tx, project, app, quantities);
+    const row = await moveStatus(tx, app, [{ from: app.status, to }], actor.userId, { ...totals, revision: app.revision + 1 });
+    for (const d of open) {
+      const a = answers.get(d.lineId)!;
+      await tx
+        .update(disputes)
+        .set({ status: 'resolved', resolution: a.action === 'accept' ? 'counter_accepted' : 'answered', resolutionNote: a.comment ?? null, resolvedByUserId: actor.userId, resolvedAt: new Date() })
+        .where(eq(disputes.id, d.id));
+      if (a.comment) await tx.insert(disputeComments).values({ disputeId: d.id, authorUserId: actor.userId, body: a.comment });
+      await tx.update(payAppLines).set({ reviewStatus: 'pending' }).where(eq(payAppLines.id, d.lineId));
+    }
+    await audit(tx, actor, app, 'pay_app.revised', { ...state(app), earnedToDateCents: app.earnedToDateCents }, { ...state(row), earnedToDateCents: row.earnedToDateCents, answers: input.lines });
+  });
+}

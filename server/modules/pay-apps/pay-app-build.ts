@@ -1,0 +1,134 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import { sumCents } from '../../../src/shared/domain/money';
+import { payApplication, type PayAppLineInput, type PayAppResult } from '../../../src/shared/domain/pay-app';
+import { addDecimals } from '../../../src/shared/domain/rounding';
+import type { Executor } from '../../db/client';
+import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
+import { AppError } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import type { ProjectRow } from '../projects/projects.repository';
+import * as repo from './pay-apps.repository';
+
+export type CreatePayAppArgs = { project: ProjectRow; userId: string; periodStart: string; periodEnd: string; isFinal?: boolean };
+
+/** "Less previous certified" and each bid item's line on the latest certified application. */
+async function previousOf(tx: Executor, projectId: string, number: number) {
+  const last = await repo.latestFrozen(tx, projectId);
+  const lines = last ? await repo.listLines(tx, last.id) : [];
+  return { byItem: new Map(lines.map((l) => [l.bidItemId, l])), certified: await repo.previousCertifiedCents(tx, projectId, number) };
+}
+
+/**
+ * Creates the project's next numbered pay application from its ready tallies measured within the period, inside
+ * the caller's transaction: one line per bid item, the tallies marked billed and linked, a status history row
+ * and the audit event. The route calls it, and so can the demo seeder. Returns the new application.
+ */
+export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppArgs) {
+  const { project, userId, periodStart, periodEnd } = args;
+  const open = await repo.openPayApps(tx, project.id);
+  if (open.length > 0) {
+    throw new AppError(409, 'PAY_APP_OPEN', `Pay application ${open[0]!.number} is still ${open[0]!.status.replace('_', ' ')}; it must be certified before the next period is billed.`);
+  }
+  const last = await repo.lastNumberAndPeriod(tx, project.id);
+  if (last.periodEnd && periodStart <= last.periodEnd) {
+    throw new AppError(409, 'PERIOD_OVERLAP', `The period must start after ${last.periodEnd}, the end of the previous pay application.`, [{ path: 'periodStart', message: `Start after ${last.periodEnd}` }]);
+  }
+  const number = last.number + 1;
+  const items = await repo.projectBidItems(tx, project.id);
+  const billed = await repo.readyTallies(tx, project.id, periodStart, periodEnd);
+  const thisPeriod = new Map<string, number>();
+  for (const t of billed) thisPeriod.set(t.bidItemId, addDecimals(thisPeriod.get(t.bidItemId) ?? 0, t.quantity));
+  const prev = await previousOf(tx, project.id, number);
+  const bases: PayAppLineInput[] = items.map((item) => ({
+    unitPriceCents: item.unitPriceCents,
+    contractQuantity: item.contractQuantity,
+    previousQuantity: prev.byItem.get(item.id)?.toDateQuantity ?? 0,
+    thisPeriodQuantity: thisPeriod.get(item.id) ?? 0,
+  }));
+  const computed = compute(bases, project, prev.certified);
+  const [app] = await tx
+    .insert(payApps)
+    .values({ projectId: project.id, number, periodStart, periodEnd, isFinal: args.isFinal ?? false, createdByUserId: userId, ...totalsOf(computed) })
+    .returning();
+  if (items.length > 0) {
+    await tx.insert(payAppLines).values(
+      items.map((item, i) => ({
+        payAppId: app!.id,
+        bidItemId: item.id,
+        sortOrder: i,
+        itemNumber: item.itemNumber,
+        description: item.description,
+        payUnit: item.payUnit,
+        unitPriceCents: item.unitPriceCents,
+        contractQuantity: item.contractQuantity,
+        previousQuantity: bases[i]!.previousQuantity,
+        thisPeriodQuantity: bases[i]!.thisPeriodQuantity,
+        ...lineColumns(computed.lines[i]!),
+      })),
+    );
+  }
+  if (billed.length > 0) {
+    const ids = billed.map((t) => t.id);
+    const marked = await tx.update(tallies).set({ status: 'billed', payAppId: app!.id }).where(and(inArray(tallies.id, ids), eq(tallies.status, 'ready'))).returning({ id: tallies.id });
+    if (marked.length !== ids.length) throw new AppError(409, 'TALLY_CHANGED', 'A tally of the period changed while the pay application was compiled; try again.');
+  }
+  await tx.insert(payAppStatusHistory).values({ payAppId: app!.id, fromStatus: null, toStatus: 'draft', revision: 0, note: `Compiled from ${billed.length} tally(ies)`, actorUserId: userId, createdAt: new Date() });
+  await recordAudit(tx, {
+    projectId: project.id,
+    actorUserId: userId,
+    objectType: 'pay_app',
+    objectId: app!.id,
+    action: 'pay_app.created',
+    after: { number, periodStart, periodEnd, tallyIds: billed.map((t) => t.id), ...totalsOf(computed) },
+  });
+  return app!;
+}
+
+/**
+ * The engine's pay application arithmetic (src/shared/domain/pay-app.ts) with the project's retainage terms:
+ * rates in basis points become percents; the reduced rate applies once earned to date reaches the reduction point.
+ */
+function compute(lines: PayAppLineInput[], project: ProjectRow, previousCertified: number[]) {
+  const reduction =
+    project.retainageReducedBps !== null && project.retainageReductionAtBps !== null
+      ? { afterPercentComplete: project.retainageReductionAtBps / 100, reducedPercent: project.retainageReducedBps / 100 }
+      : undefined;
+  const previousCertifiedCents = sumCents(previousCertified);
+  return { ...payApplication({ retainagePercent: project.retainageBps / 100, previousCertifiedCents, lines, retainageReduction: reduction }), previousCertifiedCents };
+}
+
+const lineColumns = (l: PayAppResult['lines'][number]) => ({
+  toDateQuantity: l.toDateQuantity,
+  previousAmountCents: l.previousAmountCents,
+  amountToDateCents: l.amountToDateCents,
+  thisPeriodAmountCents: l.thisPeriodAmountCents,
+  retainageCents: l.retainageCents,
+});
+
+export function totalsOf(c: PayAppResult & { previousCertifiedCents: number }) {
+  return {
+    retainageBps: Math.round(c.retainagePercentApplied * 100),
+    earnedToDateCents: c.earnedToDateCents,
+    thisPeriodCents: c.thisPeriodCents,
+    retainageCents: c.retainageCents,
+    previousCertifiedCents: c.previousCertifiedCents,
+    currentDueCents: c.currentDueCents,
+  };
+}
+
+/** Recomputes every line of an application from its quantities (after a revision took counter quantities). */
+export async function recomputeLines(tx: Executor, project: ProjectRow, app: { id: string; number: number }, quantities: Map<string, number>) {
+  const lines = await repo.listLines(tx, app.id);
+  const prev = await previousOf(tx, project.id, app.number);
+  const bases: PayAppLineInput[] = lines.map((l) => ({
+    unitPriceCents: l.unitPriceCents,
+    contractQuantity: l.contractQuantity,
+    previousQuantity: l.previousQuantity,
+    thisPeriodQuantity: quantities.get(l.id) ?? l.thisPeriodQuantity,
+  }));
+  const computed = compute(bases, project, prev.certified);
+  for (const [i, l] of lines.entries()) {
+    await tx.update(payAppLines).set({ thisPeriodQuantity: bases[i]!.thisPeriodQuantity, ...lineColumns(computed.lines[i]!) }).where(eq(payAppLines.id, l.id));
+  }
+  return totalsOf(computed);
+}

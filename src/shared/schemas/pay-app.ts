@@ -1,0 +1,113 @@
+import { z } from 'zod';
+import type { DisputeResolution, DisputeStatus, LineReviewStatus, PayAppStatus, PayUnit } from '../constants';
+import { isoDateSchema } from './tally';
+
+export const createPayAppSchema = z
+  .object({ periodStart: isoDateSchema, periodEnd: isoDateSchema, isFinal: z.boolean().default(false) })
+  .strict()
+  .refine((v) => v.periodEnd >= v.periodStart, { path: ['periodEnd'], message: 'The period ends before it starts' });
+export type CreatePayAppInput = z.infer<typeof createPayAppSchema>;
+
+const revision = z.number().int().min(0);
+
+/** Submit and certify: the revision the person looked at (optional; a stale one answers 409). */
+export const payAppActionSchema = z.object({ expectedRevision: revision.optional(), note: z.string().trim().max(2000).optional() }).strict();
+export type PayAppActionInput = z.infer<typeof payAppActionSchema>;
+
+export const reviewLineSchema = z
+  .object({
+    lineId: z.uuid(),
+    decision: z.enum(['approve', 'dispute']),
+    reason: z.string().trim().max(4000).optional(),
+    /** The this-period quantity the reviewer would accept, in the line's pay unit. */
+    counterQuantity: z.number().finite().min(0).max(1e9).optional(),
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.decision !== 'dispute') return;
+    if (!v.reason || v.reason.length < 3) ctx.addIssue({ code: 'custom', path: ['reason'], message: 'A dispute needs a reason' });
+    if (v.counterQuantity === undefined) ctx.addIssue({ code: 'custom', path: ['counterQuantity'], message: 'A dispute needs a counter quantity' });
+  });
+
+export const reviewPayAppSchema = z
+  .object({ expectedRevision: revision, lines: z.array(reviewLineSchema).min(1, 'Review at least one line').max(2000) })
+  .strict();
+export type ReviewPayAppInput = z.infer<typeof reviewPayAppSchema>;
+
+export const reviseLineSchema = z
+  .object({ lineId: z.uuid(), action: z.enum(['accept', 'answer']), comment: z.string().trim().max(4000).optional() })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.action === 'answer' && (!v.comment || v.comment.length < 3)) ctx.addIssue({ code: 'custom', path: ['comment'], message: 'Answer the dispute with a comment' });
+  });
+
+export const revisePayAppSchema = z.object({ expectedRevision: revision, lines: z.array(reviseLineSchema).max(2000) }).strict();
+export type RevisePayAppInput = z.infer<typeof revisePayAppSchema>;
+
+export const disputeCommentSchema = z.object({ body: z.string().trim().min(1, 'Write a comment').max(4000) }).strict();
+
+export type PayAppSummary = {
+  id: string;
+  projectId: string;
+  number: number;
+  revision: number;
+  status: PayAppStatus;
+  periodStart: string;
+  periodEnd: string;
+  isFinal: boolean;
+  retainageBps: number;
+  earnedToDateCents: number;
+  thisPeriodCents: number;
+  retainageCents: number;
+  previousCertifiedCents: number;
+  currentDueCents: number;
+  paidCents: number;
+  submittedAt: string | null;
+  certifiedAt: string | null;
+  certifiedBy: string | null;
+  createdAt: string;
+};
+
+export type PayAppLineView = {
+  id: string;
+  bidItemId: string;
+  itemNumber: string;
+  description: string;
+  payUnit: PayUnit;
+  unitPriceCents: number;
+  contractQuantity: number;
+  previousQuantity: number;
+  thisPeriodQuantity: number;
+  toDateQuantity: number;
+  previousAmountCents: number;
+  thisPeriodAmountCents: number;
+  amountToDateCents: number;
+  retainageCents: number;
+  reviewStatus: LineReviewStatus;
+};
+
+export type DisputeView = {
+  id: string;
+  lineId: string;
+  revision: number;
+  reason: string;
+  counterQuantity: number;
+  status: DisputeStatus;
+  resolution: DisputeResolution | null;
+  resolutionNote: string | null;
+  openedBy: string;
+  resolvedBy: string | null;
+  createdAt: string;
+  resolvedAt: string | null;
+  comments: { id: string; author: string; body: string; createdAt: string }[];
+};
+
+export type PayAppDetail = PayAppSummary & {
+  lines: PayAppLineView[];
+  history: { id: string; fromStatus: PayAppStatus | null; toStatus: PayAppStatus; revision: number; note: string; actor: string | null; createdAt: string }[];
+  disputes: DisputeView[];
+  tallies: { id: string; bidItemId: string; measuredOn: string; title: string; quantity: number }[];
+  contractSumCents: number;
+  /** Earned to date over the contract sum, basis points. */
+  percentCompleteBps: number;
+};
