@@ -32,6 +32,7 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
   {
     path: 'worksheets',
     label: 'Worksheets',
+    screen: () => import('./routes/project-worksheets'),
     summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
   },
   {

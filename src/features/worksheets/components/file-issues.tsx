@@ -1,0 +1,31 @@
+import type { FileIssue } from '../lib/csv';
+
+/** Row-level problems in an uploaded or pasted file: line, column, why. */
+export function FileIssues({ issues, fileLabel }: { issues: readonly FileIssue[]; fileLabel: string }) {
+  if (issues.length === 0) return null;
+  return (
+    <div role="alert" className="border-brick-200 bg-brick-50 rounded-md border text-sm">
+      <p className="text-brick-800 px-3 pt-2 font-medium">
+        {fileLabel}: {issues.length === 1 ? '1 problem' : `${issues.length} problems`}
+      </p>
+      <table className="mt-1 w-full text-xs">
+        <thead className="text-left text-stone-600">
+          <tr>
+            <th className="px-3 py-1 font-medium">Line</th>
+            <th className="px-3 py-1 font-medium">Where</th>
+            <th className="px-3 py-1 font-medium">Why</th>
+          </tr>
+        </thead>
+        <tbody className="text-brick-900">
+          {issues.slice(0, 50).map((i, k) => (
+            <tr key={k} className="border-brick-100 border-t">
+              <td className="num px-3 py-1">{i.line > 0 ? i.line : '–'}</td>
+              <td className="px-3 py-1">{i.column}</td>
+              <td className="px-3 py-1">{i.message}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,55 @@
+import { Upload } from 'lucide-react';
+import { useId, useRef } from 'react';
+import { buttonVariants } from '@/components/ui/button';
+import { cn } from '@/lib/cn';
+
+type FileSourceProps = {
+  label: string;
+  hint: string;
+  value: string;
+  onChange: (text: string, fileName: string | null) => void;
+  accept?: string;
+  rows?: number;
+  placeholder?: string;
+};
+
+/** Paste text, or upload a file (read in the browser; nothing leaves it until a tally is saved). */
+export function FileSource({ label, hint, value, onChange, accept = '.csv,.txt', rows = 6, placeholder }: FileSourceProps) {
+  const id = useId();
+  const input = useRef<HTMLInputElement>(null);
+  const big = value.length > 200_000;
+  return (
+    <div className="flex flex-col gap-1">
+      <div className="flex items-end justify-between gap-2">
+        <label htmlFor={id} className="text-xs font-medium text-stone-700">
+          {label}
+        </label>
+        <label className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }), 'cursor-pointer')}>
+          <Upload aria-hidden /> Upload file
+          <input
+            ref={input}
+            type="file"
+            accept={accept}
+            className="sr-only"
+            onChange={async (event) => {
+              const file = event.target.files?.[0];
+              if (file) onChange(await file.text(), file.name);
+              if (input.current) input.current.value = '';
+            }}
+          />
+        </label>
+      </div>
+      <textarea
+        id={id}
+        rows={rows}
+        spellCheck={false}
+        placeholder={placeholder}
+        className="focus-visible:border-spruce-600 focus-visible:outline-spruce-600 num w-full rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-xs shadow-xs"
+        value={big ? `${value.slice(0, 2000)}\n… (${value.length.toLocaleString('en-US')} characters; upload again to replace)` : value}
+        readOnly={big}
+        onChange={(event) => onChange(event.target.value, null)}
+      />
+      <p className="text-xs text-stone-500">{hint}</p>
+    </div>
+  );
+}

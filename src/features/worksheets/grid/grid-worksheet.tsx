@@ -1,0 +1,78 @@
+import { useMemo, useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import type { LengthUnit } from '@/shared/constants';
+import { FileIssues } from '../components/file-issues';
+import { FileSource } from '../components/file-source';
+import { NumberField } from '../components/number-field';
+import { ResultPanel } from '../components/result-panel';
+import { WorksheetColumns } from '../components/worksheet-columns';
+import { parseGridRows } from '../lib/csv';
+import { issueAt, useDebounced, useLiveCalc } from '../lib/live-calc';
+import { useJsonValue, useReportInputs } from '../lib/stable';
+import type { WorksheetProps } from '../lib/types';
+import { unitLabels } from '../lib/units';
+import { HeatMap } from './heat-map';
+
+type GridForm = { spacingX: number; spacingY: number };
+
+/** An invented building pad: cut on the high side, fill on the low, corners outside the outline. */
+const SAMPLE = ['-, 1.8, 2.4, 2.9, 3.1, -', '0.9, 1.2, 1.9, 2.2, 2.6, 2.8', '-0.4, 0.3, 0.8, 1.1, 1.5, 1.9', '-1.3, -0.8, -0.2, 0.2, 0.6, 0.9', '-, -1.6, -1.1, -0.7, -0.3, -'];
+
+function depthsText(depths: unknown): string {
+  return Array.isArray(depths) ? depths.map((row: unknown[]) => row.map((d) => (d === null ? '-' : String(d))).join(', ')).join('\n') : '';
+}
+
+export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
+  const start = (initial ?? {}) as { spacingX?: number; spacingY?: number; depths?: unknown };
+  const spacing = (u: LengthUnit) => (u === 'ft' ? 25 : 10);
+  const form = useForm<GridForm>({ defaultValues: { spacingX: start.spacingX ?? spacing(unit), spacingY: start.spacingY ?? spacing(unit) } });
+  const [text, setText] = useState(() => (initial ? depthsText(start.depths) : SAMPLE.join('\n')));
+  const heldText = useDebounced(text, text.length > 20_000 ? 400 : 0);
+  const parsed = useMemo(() => parseGridRows(heldText), [heldText]);
+  const values = useWatch({ control: form.control }) as GridForm;
+  const size = useJsonValue(values);
+  const input = useMemo(() => ({ unit, ...size, depths: parsed.depths }), [unit, size, parsed.depths]);
+  const { result, issues } = useLiveCalc('grid', parsed.issues.length ? null : input, parsed.depths.length > 10_000 ? 300 : 0);
+  useReportInputs(input, result !== null && parsed.issues.length === 0, onInputs);
+  const u = unitLabels(unit);
+  const n = { valueAsNumber: true } as const;
+
+  return (
+    <WorksheetColumns
+      inputs={
+        <form noValidate aria-label="Grid levels" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+          <div className="grid grid-cols-2 gap-3">
+            <NumberField label="Node spacing across (x)" unit={u.length} error={issueAt(issues, 'spacingX')} registration={form.register('spacingX', n)} />
+            <NumberField label="Node spacing down (y)" unit={u.length} error={issueAt(issues, 'spacingY')} registration={form.register('spacingY', n)} />
+          </div>
+          <FileSource
+            label={`Node depths (${u.length}), one grid row a line`}
+            hint="Cut positive, fill negative; an empty cell or - is outside the outline. Paste from a spreadsheet or upload CSV."
+            value={text}
+            onChange={(t) => setText(t)}
+            rows={8}
+          />
+          <FileIssues issues={parsed.issues} fileLabel="Node depths" />
+        </form>
+      }
+      result={
+        <ResultPanel
+          issues={parsed.issues.length ? [] : issues}
+          figures={result && !parsed.issues.length ? [
+            { label: 'Cut', value: result.cut, unit: u.volume, strong: true },
+            { label: 'Fill', value: result.fill, unit: u.volume, strong: true },
+            { label: 'Net (cut − fill)', value: result.net, unit: u.volume },
+            { label: 'Cells', whole: true, value: result.cells, unit: `of ${u.area === 'sq ft' ? fmtArea(result.cellArea, 'sq ft') : fmtArea(result.cellArea, 'm2')}` },
+            { label: 'Mixed cells', whole: true, value: result.mixedCells, unit: 'cut and fill' },
+          ] : undefined}
+          picture={result ? <HeatMap depths={parsed.depths} unit={unit} /> : null}
+          trail={result?.trail}
+        />
+      }
+    />
+  );
+}
+
+function fmtArea(area: number, label: string): string {
+  return `${area.toLocaleString('en-US', { maximumFractionDigits: 2 })} ${label} each`;
+}

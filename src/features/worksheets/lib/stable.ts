@@ -1,0 +1,17 @@
+import { useEffect, useMemo } from 'react';
+
+/**
+ * The value as plain JSON, with a new identity only when its content changes (form watchers hand out a new
+ * object on every render). NaN comes back as null, which the shared schemas report as "expected number".
+ */
+export function useJsonValue<T>(value: T): T {
+  const key = JSON.stringify(value);
+  return useMemo(() => JSON.parse(key) as T, [key]);
+}
+
+/** Tells the screen the inputs when they give a result, and null while they do not. */
+export function useReportInputs(input: unknown, ok: boolean, onInputs: (inputs: Record<string, unknown> | null) => void) {
+  useEffect(() => {
+    onInputs(ok ? (input as Record<string, unknown>) : null);
+  }, [input, ok, onInputs]);
+}

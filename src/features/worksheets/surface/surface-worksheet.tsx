@@ -1,0 +1,47 @@
+import { useState } from 'react';
+import { FileIssues } from '../components/file-issues';
+import { FileSource } from '../components/file-source';
+import { ResultPanel } from '../components/result-panel';
+import { WorksheetColumns } from '../components/worksheet-columns';
+import type { WorksheetProps } from '../lib/types';
+import { unitLabels } from '../lib/units';
+import { PlanChart } from './plan-chart';
+import { sampleSurfaces } from './surface-work';
+import { useSurfaceWork } from './use-surface-work';
+
+const HINT = 'CSV rows of x (east), y (north), z; or a LandXML <Surface> (its <P> points are northing easting elevation).';
+
+export function SurfaceWorksheet({ unit }: WorksheetProps) {
+  const [texts, setTexts] = useState(() => sampleSurfaces(unit));
+  const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design);
+  const u = unitLabels(unit);
+  const result = work?.result ?? null;
+  return (
+    <WorksheetColumns
+      inputs={
+        <form noValidate aria-label="Surface to surface" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+          <FileSource label={`Existing survey (${u.length})`} hint={HINT} value={texts.existing} onChange={(t) => setTexts((s) => ({ ...s, existing: t }))} accept=".csv,.txt,.xml,.landxml" />
+          <FileIssues issues={work?.fileIssues.existing ?? []} fileLabel="Existing survey" />
+          <FileSource label={`Design survey (${u.length})`} hint={HINT} value={texts.design} onChange={(t) => setTexts((s) => ({ ...s, design: t }))} accept=".csv,.txt,.xml,.landxml" />
+          <FileIssues issues={work?.fileIssues.design ?? []} fileLabel="Design survey" />
+          {busy ? <p role="status" className="text-xs text-stone-600">Triangulating in the background…</p> : null}
+        </form>
+      }
+      result={
+        <ResultPanel
+          issues={work?.issues ?? []}
+          figures={result ? [
+            { label: 'Cut', value: result.cut, unit: u.volume, strong: true },
+            { label: 'Fill', value: result.fill, unit: u.volume, strong: true },
+            { label: 'Net (cut − fill)', value: result.net, unit: u.volume },
+            { label: 'Shared footprint', value: result.footprintArea, unit: u.area },
+            { label: 'Existing points', whole: true, value: result.existingPoints, unit: 'points' },
+            { label: 'Design points', whole: true, value: result.designPoints, unit: 'points' },
+          ] : undefined}
+          picture={result && work ? <PlanChart preview={work.preview} unit={u.length} /> : null}
+          trail={result?.trail}
+        />
+      }
+    />
+  );
+}

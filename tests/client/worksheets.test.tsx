@@ -1,0 +1,44 @@
+// @vitest-environment jsdom
+import { cleanup, render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it } from 'vitest';
+import { TrenchWorksheet } from '@/features/worksheets/trench/trench-worksheet';
+
+afterEach(cleanup);
+
+const noop = () => {};
+
+async function typeInto(input: HTMLElement, text: string) {
+  await userEvent.clear(input);
+  await userEvent.type(input, text);
+}
+
+describe('Trench runs worksheet', () => {
+  it('shows the live volume of a typed run and the 5 ft caution', async () => {
+    render(<TrenchWorksheet unit="ft" initial={null} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} onInputs={noop} />);
+    // Vertical sides: the textbook's average width is the run's width top and bottom.
+    await userEvent.selectOptions(screen.getByLabelText('Protection'), 'box');
+    await userEvent.click(screen.getByRole('button', { name: 'Remove run 2' }));
+    await typeInto(screen.getByLabelText('Run 1 length'), '100');
+    await typeInto(screen.getByLabelText('Run 1 depth'), '6');
+    await typeInto(screen.getByLabelText('Run 1 bottom width'), '11');
+
+    // Published example ("Measuring Excavation and Sitework", ch. 3, reference.md section 1): 100 ft x 11.0 ft
+    // average width x 6.0 ft average depth = 6,600 cu ft = 244 CY (244.44 unrounded).
+    const result = screen.getByRole('region', { name: 'Result' });
+    expect(within(result).getByText('Excavation').nextElementSibling?.textContent).toBe('244.44 CY');
+
+    // OSHA 29 CFR 1926.652(a)(1): a protective system at 5 ft or more unless in stable rock.
+    const cautions = screen.getByRole('complementary', { name: 'Safety cautions' });
+    expect(cautions.textContent).toMatch(/5 ft \(1\.52 m\) deep or more: a protective system is required/);
+    expect(cautions.textContent).toMatch(/competent person/);
+  });
+
+  it('names the field of a bad entry instead of showing a volume', async () => {
+    render(<TrenchWorksheet unit="ft" initial={null} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} onInputs={noop} />);
+    await userEvent.clear(screen.getByLabelText('Run 1 depth'));
+    const result = screen.getByRole('region', { name: 'Result' });
+    expect(within(result).getByRole('alert').textContent).toMatch(/runs\.0\.depth.*Enter a number|Enter a number/);
+    expect(within(result).queryByText('Excavation')).toBeNull();
+  });
+});
