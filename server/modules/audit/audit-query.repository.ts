@@ -1,6 +1,6 @@
-import { and, count, desc, eq, or, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
-import { auditEvents, user } from '../../db/schema';
+import { auditEvents, disputes, payAppLines, user } from '../../db/schema';
 
 const columns = {
   id: auditEvents.id,
@@ -73,4 +73,18 @@ export async function listObjectAudit(
     desc(auditEvents.createdAt),
     desc(auditEvents.id),
   );
+}
+
+/** A pay application's trail: its own events, its lines' and disputes' events, and rows that name it as payAppId. */
+export async function listPayAppAudit(db: Executor, projectId: string, payAppId: string): Promise<AuditRow[]> {
+  const disputeIds = db.select({ id: sql<string>`${disputes.id}::text` }).from(disputes).where(eq(disputes.payAppId, payAppId));
+  const lineIds = db.select({ id: sql<string>`${payAppLines.id}::text` }).from(payAppLines).where(eq(payAppLines.payAppId, payAppId));
+  const where = or(
+    and(eq(auditEvents.objectType, 'pay_app'), eq(auditEvents.objectId, payAppId)),
+    and(eq(auditEvents.objectType, 'dispute'), inArray(auditEvents.objectId, disputeIds)),
+    and(eq(auditEvents.objectType, 'pay_app_line'), inArray(auditEvents.objectId, lineIds)),
+    sql`${auditEvents.after} ->> 'payAppId' = ${payAppId}`,
+    sql`${auditEvents.before} ->> 'payAppId' = ${payAppId}`,
+  );
+  return select(db, and(eq(auditEvents.projectId, projectId), where)).orderBy(desc(auditEvents.createdAt), desc(auditEvents.id));
 }

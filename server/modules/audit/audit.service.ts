@@ -28,6 +28,6 @@ export async function payAppTrail(db: Db, actor: Actor, payAppId: string): Promi
   await loadProjectAccess(db, actor, app.projectId).catch((err: unknown) => {
     throw err instanceof AppError && err.status === 404 ? notFound('The pay application') : err;
   });
-  const rows = await repo.listObjectAudit(db, app.projectId, 'pay_app', payAppId, 'payAppId');
+  const rows = await repo.listPayAppAudit(db, app.projectId, payAppId);
   return rows.map(presentAuditEvent);
 }
