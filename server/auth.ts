@@ -2,8 +2,23 @@ import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import type { Db } from './db/client';
 import { account, session, user, verification } from './db/schema';
+import { afterAuthHook, beforeAuthHook } from './lib/auth-hooks';
+import { MAX_PASSWORD_LENGTH, MIN_PASSWORD_LENGTH } from './lib/password-policy';
+import { createSignInGuard, type SignInGuard } from './lib/sign-in-guard';
 
-export const MIN_PASSWORD_LENGTH = 12;
+export { MIN_PASSWORD_LENGTH } from './lib/password-policy';
+
+/**
+ * Session lifetimes (OWASP ASVS 4.0.3 3.3.2, level 2: re-authenticate after 30 minutes idle or 12 hours).
+ * A session expires SESSION_IDLE_SECONDS after it was last refreshed; it is refreshed when used and older than
+ * SESSION_REFRESH_SECONDS, so the idle timeout is between 25 and 30 minutes. requireActor ends any session older
+ * than SESSION_ABSOLUTE_SECONDS however active it is.
+ */
+export const SESSION_IDLE_SECONDS = 30 * 60;
+export const SESSION_REFRESH_SECONDS = 5 * 60;
+export const SESSION_ABSOLUTE_SECONDS = 12 * 60 * 60;
+/** The header that carries the client address to better-auth's rate limit; app.ts sets it from req.ip. */
+export const CLIENT_IP_HEADER = 'x-tallyard-client-ip';
 
 export type AuthOptions = {
   db: Db;
@@ -11,9 +26,13 @@ export type AuthOptions = {
   baseURL: string;
   trustedOrigins: string[];
   production: boolean;
+  /** better-auth's per-IP rate limit; on unless NODE_ENV is test (the API tests sign in many times a second). */
+  rateLimit?: boolean;
+  signInGuard?: SignInGuard;
 };
 
-export function createAuth({ db, secret, baseURL, trustedOrigins, production }: AuthOptions) {
+export function createAuth({ db, secret, baseURL, trustedOrigins, production, ...opts }: AuthOptions) {
+  const signInGuard = opts.signInGuard ?? createSignInGuard();
   return betterAuth({
     appName: 'Tallyard',
     secret,
@@ -24,16 +43,26 @@ export function createAuth({ db, secret, baseURL, trustedOrigins, production }: 
     emailAndPassword: {
       enabled: true,
       minPasswordLength: MIN_PASSWORD_LENGTH,
-      maxPasswordLength: 128,
+      maxPasswordLength: MAX_PASSWORD_LENGTH,
       autoSignIn: true,
     },
     session: {
-      expiresIn: 60 * 60 * 24 * 7,
-      updateAge: 60 * 60 * 24,
+      expiresIn: SESSION_IDLE_SECONDS,
+      updateAge: SESSION_REFRESH_SECONDS,
+      freshAge: 10 * 60,
     },
+    rateLimit: {
+      enabled: opts.rateLimit ?? process.env.NODE_ENV !== 'test',
+      window: 60,
+      max: 100,
+      customRules: { '/sign-in/email': { window: 60, max: 10 }, '/sign-up/email': { window: 60, max: 5 } },
+    },
+    hooks: { before: beforeAuthHook(signInGuard), after: afterAuthHook(signInGuard) },
     advanced: {
       useSecureCookies: production,
-      defaultCookieAttributes: { httpOnly: true, sameSite: 'lax' },
+      defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure: production },
+      // Only the header app.ts writes from the socket address (or a proxy Express trusts), never a client's.
+      ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
     },
     telemetry: { enabled: false },
   });

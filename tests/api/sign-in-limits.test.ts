@@ -1,0 +1,94 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '../../server/app';
+import { createAuth } from '../../server/auth';
+import { smtpMailer } from '../../server/integrations/mailer/mailer';
+import { createLogger } from '../../server/lib/logger';
+import { createSignInGuard, FREE_FAILURES, MAX_FAILURES_PER_HOUR } from '../../server/lib/sign-in-guard';
+import { makeCompany, makeUser } from '../setup/factories';
+import { createTestApp, TEST_ORIGIN, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.close());
+
+const signIn = (email: string, password: string, headers: Record<string, string> = {}) =>
+  request(t.app).post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).set(headers).send({ email, password });
+
+describe('per-account limit on failed sign-ins (ASVS 4.0.3 2.2.1)', () => {
+  it('backs off after five wrong passwords, even for the right one, with Retry-After', async () => {
+    const company = await makeCompany(t.database.db, 'subcontractor');
+    const { email } = await makeUser(t.database.db, t.auth, company.id);
+    for (let i = 0; i < FREE_FAILURES; i++) expect((await signIn(email, 'wrong-password-here')).status).toBe(401);
+    const res = await signIn(email, TEST_PASSWORD);
+    expect(res.status).toBe(429);
+    expect(res.body.code).toBe('SIGN_IN_BACKOFF');
+    expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
+    // Another account is not affected.
+    const other = await makeUser(t.database.db, t.auth, company.id);
+    expect((await signIn(other.email, TEST_PASSWORD)).status).toBe(200);
+  });
+
+  it('doubles the wait per failure up to a minute and caps failures at 100 an hour', () => {
+    const now = 0;
+    const guard = createSignInGuard(() => now);
+    for (let i = 0; i < FREE_FAILURES; i++) guard.recordFailure('a@x.test');
+    expect(guard.retryAfter('A@X.test')).toBe(1);
+    guard.recordFailure('a@x.test');
+    expect(guard.retryAfter('a@x.test')).toBe(2);
+    for (let i = 0; i < 20; i++) guard.recordFailure('a@x.test');
+    expect(guard.retryAfter('a@x.test')).toBe(60);
+    guard.recordSuccess('a@x.test');
+    expect(guard.retryAfter('a@x.test')).toBe(0);
+  });
+
+  it('refuses the account for the rest of the hour at 100 failures in a rolling hour', () => {
+    let now = 0;
+    const guard = createSignInGuard(() => now);
+    for (let i = 0; i < MAX_FAILURES_PER_HOUR - 1; i++) {
+      guard.recordFailure('b@x.test');
+      guard.recordSuccess('b@x.test'); // ends the back-off, not the hourly count
+      now += 1000;
+    }
+    expect(guard.retryAfter('b@x.test')).toBe(0);
+    guard.recordFailure('b@x.test');
+    guard.recordSuccess('b@x.test');
+    expect(guard.retryAfter('b@x.test')).toBe(3600 - (MAX_FAILURES_PER_HOUR - 1));
+    now = 3600_001;
+    expect(guard.retryAfter('b@x.test')).toBe(0);
+  });
+});
+
+describe("better-auth's per-IP rate limit", () => {
+  it('limits sign-ins per client address, keyed by the address Express derives and not a header the client sets', async () => {
+    const auth = createAuth({
+      db: t.database.db,
+      secret: 'test-secret-test-secret-test-secret-0123',
+      baseURL: TEST_ORIGIN,
+      trustedOrigins: [TEST_ORIGIN],
+      production: false,
+      rateLimit: true,
+    });
+    const app = createApp({
+      database: t.database,
+      auth,
+      logger: createLogger('silent'),
+      mailer: smtpMailer(t.mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
+      storage: t.storage,
+      appUrl: TEST_ORIGIN,
+    });
+    const statuses: number[] = [];
+    for (let i = 0; i < 12; i++) {
+      const res = await request(app)
+        .post('/api/auth/sign-in/email')
+        .set('Origin', TEST_ORIGIN)
+        .set('X-Tallyard-Client-Ip', `203.0.113.${i}`) // replaced by req.ip (the socket; 'trust proxy' is loopback only)
+        .send({ email: `nobody${i}@example.test`, password: 'not-the-password' });
+      statuses.push(res.status);
+    }
+    expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true);
+    expect(statuses.slice(10)).toEqual([429, 429]);
+  });
+});

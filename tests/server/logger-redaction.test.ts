@@ -1,0 +1,58 @@
+import { Writable } from 'node:stream';
+import { describe, expect, it } from 'vitest';
+import { createLogger, redactUrl } from '../../server/lib/logger';
+
+function capture() {
+  const lines: string[] = [];
+  const stream = new Writable({
+    write(chunk, _enc, done) {
+      lines.push(String(chunk));
+      done();
+    },
+  });
+  return { logger: createLogger('info', stream), text: () => lines.join('') };
+}
+
+// OWASP ASVS 4.0.3 7.1.1 (no credentials or payment details in logs) and 7.1.2 (no other sensitive data).
+describe('log redaction', () => {
+  it('never writes passwords, tokens, cookies, signatures or card data from a logged request', () => {
+    const { logger, text } = capture();
+    logger.info(
+      {
+        req: {
+          method: 'POST',
+          url: '/api/auth/reset-password?token=tok-SECRET-1&lang=en',
+          headers: {
+            cookie: 'better-auth.session_token=COOKIE-SECRET-2',
+            authorization: 'Bearer BEARER-SECRET-3',
+            'stripe-signature': 't=1,v1=SIG-SECRET-4',
+            'user-agent': 'vitest',
+          },
+        },
+        res: { headers: { 'set-cookie': 'better-auth.session_token=COOKIE-SECRET-5' } },
+        body: {
+          password: 'PASSWORD-SECRET-6',
+          newPassword: 'PASSWORD-SECRET-7',
+          reauthPassword: 'PASSWORD-SECRET-8',
+          payment: { card: { number: '4242424242424242', cvc: '123', exp_month: 12 } },
+          bank: { account_number: '000123456789', routing_number: '110000000' },
+        },
+        token: 'TOP-LEVEL-TOKEN-9',
+        client_secret: 'pi_123_secret_SECRET-10',
+      },
+      'request received',
+    );
+    const out = text();
+    for (const secret of ['SECRET-1', 'SECRET-2', 'SECRET-3', 'SECRET-4', 'SECRET-5', 'SECRET-6', 'SECRET-7', 'SECRET-8', 'TOKEN-9', 'SECRET-10', '4242424242424242', '000123456789', '110000000']) {
+      expect(out).not.toContain(secret);
+    }
+    expect(out).toContain('[redacted]');
+    expect(out).toContain('"user-agent":"vitest"');
+    expect(out).toContain('lang=en');
+    expect(JSON.parse(out).msg).toBe('request received');
+  });
+
+  it('cuts token-like query parameters from URLs', () => {
+    expect(redactUrl('/verify?token=abc&x=1&signature=zz')).toBe('/verify?token=[redacted]&x=1&signature=[redacted]');
+  });
+});
