@@ -38,7 +38,7 @@ describe('Trench runs worksheet', () => {
     render(<TrenchWorksheet unit="ft" initial={null} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} onInputs={noop} />);
     await userEvent.clear(screen.getByLabelText('Run 1 depth'));
     const result = screen.getByRole('region', { name: 'Result' });
-    expect(within(result).getByRole('alert').textContent).toMatch(/runs\.0\.depth.*Enter a number|Enter a number/);
+    expect(within(result).getByRole('alert').textContent).toMatch(/Run 1 depth: Enter a number/);
     expect(within(result).queryByText('Excavation')).toBeNull();
   });
 });

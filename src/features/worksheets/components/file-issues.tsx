@@ -1,7 +1,7 @@
 import type { FileIssue } from '../lib/csv';
 
 /** Row-level problems in an uploaded or pasted file: line, column, why. */
-export function FileIssues({ issues, fileLabel }: { issues: readonly FileIssue[]; fileLabel: string }) {
+export function FileIssues({ issues, fileLabel, after }: { issues: readonly FileIssue[]; fileLabel: string; after?: string }) {
   if (issues.length === 0) return null;
   return (
     <div role="alert" className="border-brick-200 bg-brick-50 rounded-md border text-sm">
@@ -26,6 +26,7 @@ export function FileIssues({ issues, fileLabel }: { issues: readonly FileIssue[]
           ))}
         </tbody>
       </table>
+      {after ? <p className="text-brick-800 px-3 pb-2 text-xs">{after}</p> : null}
     </div>
   );
 }

@@ -44,7 +44,7 @@ export function FileSource({ label, hint, value, onChange, accept = '.csv,.txt',
         rows={rows}
         spellCheck={false}
         placeholder={placeholder}
-        className="focus-visible:border-spruce-600 focus-visible:outline-spruce-600 num w-full rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-xs shadow-xs"
+        className="focus-visible:border-spruce-600 focus-visible:outline-spruce-600 w-full tabular-nums rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-xs shadow-xs"
         value={big ? `${value.slice(0, 2000)}\n… (${value.length.toLocaleString('en-US')} characters; upload again to replace)` : value}
         readOnly={big}
         onChange={(event) => onChange(event.target.value, null)}

@@ -1,9 +1,17 @@
 import type * as React from 'react';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import type { DomainIssue } from '@/shared/domain/domain-error';
+import { describePath } from '../lib/describe-path';
 import { fmt2 } from '../lib/units';
 
-export type Figure = { label: string; value: number | null | undefined; unit: string; strong?: boolean; whole?: boolean };
+export type Figure = { label: string; value: number | null | undefined; unit: string; strong?: boolean; whole?: boolean; decimals?: number };
+
+function show(f: Figure): string {
+  if (typeof f.value !== 'number' || !Number.isFinite(f.value)) return fmt2(f.value);
+  if (f.whole) return f.value.toLocaleString('en-US');
+  if (f.decimals !== undefined) return f.value.toLocaleString('en-US', { minimumFractionDigits: f.decimals, maximumFractionDigits: f.decimals });
+  return fmt2(f.value);
+}
 
 /** The headline numbers, always with their units. */
 export function Figures({ figures }: { figures: readonly Figure[] }) {
@@ -13,7 +21,7 @@ export function Figures({ figures }: { figures: readonly Figure[] }) {
         <div key={f.label} className="rounded-md bg-stone-50 px-3 py-2">
           <dt className="text-xs text-stone-600">{f.label}</dt>
           <dd className={f.strong ? 'num text-spruce-800 text-lg font-semibold' : 'num text-base text-stone-900'}>
-            {f.whole && typeof f.value === 'number' ? f.value.toLocaleString('en-US') : fmt2(f.value)} <span className="text-xs font-normal text-stone-600">{f.unit}</span>
+            {show(f)} <span className="text-xs font-normal text-stone-600">{f.unit}</span>
           </dd>
         </div>
       ))}
@@ -30,7 +38,7 @@ export function IssueList({ issues, describe }: { issues: readonly DomainIssue[]
       <ul className="mt-1 list-disc pl-5">
         {issues.slice(0, 12).map((i) => (
           <li key={`${i.path}:${i.message}`}>
-            {i.path ? <span className="font-medium">{describe ? describe(i.path) : i.path}: </span> : null}
+            {i.path && i.path !== '(body)' ? <span className="font-medium">{(describe ?? describePath)(i.path)}: </span> : null}
             {i.message}
           </li>
         ))}
@@ -44,7 +52,7 @@ export function Trail({ steps }: { steps: readonly string[] }) {
   return (
     <details open className="group">
       <summary className="cursor-pointer text-xs font-semibold text-stone-700">How it was worked ({steps.length} steps)</summary>
-      <ol className="num mt-2 list-decimal space-y-1 pl-5 text-xs leading-relaxed text-stone-700">
+      <ol className="mt-2 list-decimal space-y-1 pl-5 text-xs leading-relaxed text-stone-700 tabular-nums">
         {steps.map((step, i) => (
           <li key={i}>{step}</li>
         ))}
@@ -72,6 +80,7 @@ export function ResultPanel(props: {
       </CardHeader>
       <CardBody className="space-y-4">
         <IssueList issues={props.issues} {...(props.describe ? { describe: props.describe } : {})} />
+        {!ok && props.issues.length === 0 ? <p className="text-sm text-stone-600">No result yet: see the problems listed with the inputs.</p> : null}
         {ok ? <Figures figures={props.figures!} /> : null}
         {ok ? props.picture : null}
         {ok ? props.children : null}

@@ -50,7 +50,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
     if (!next.trim()) return setFileIssues([]);
     const read = readSections(next, unit);
     setFileIssues(read.issues);
-    if (read.worked.length > 0) {
+    if (read.worked.length > 0 && read.issues.length === 0) {
       setSections(read.worked);
       stations.replace(rowsOf(read.worked));
     }
@@ -71,7 +71,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             accept=".csv,.txt,.xml,.landxml"
             rows={4}
           />
-          <FileIssues issues={fileIssues} fileLabel="Cross sections" />
+          <FileIssues issues={fileIssues} fileLabel="Cross sections" after="The stations below stay as they were until the file reads without problems." />
           <div className="grid grid-cols-2 gap-3">
             <Field label="Formula" error={issueAt(issues, 'formula')}>
               {(c) => <Select {...c} {...form.register('formula')} options={[{ value: 'average-end-area', label: 'Average end area' }, { value: 'prismoidal', label: 'Prismoidal (odd stations, equal pairs)' }]} />}

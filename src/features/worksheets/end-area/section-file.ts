@@ -1,7 +1,7 @@
 import type { LengthUnit } from '@/shared/constants';
 import { isDomainError } from '@/shared/domain/domain-error';
 import { sectionAreas, type SectionResult } from '@/shared/domain/earthwork/section';
-import { csvRows, isHeader, readNumber, type FileIssue } from '../lib/csv';
+import { csvRows, readNumber, type FileIssue } from '../lib/csv';
 import { readLandXmlSections } from '../lib/landxml';
 
 type Pt = [number, number];
@@ -14,7 +14,7 @@ const DESIGN = /^(design|proposed|finish|fg|final|template)/i;
 /** CSV rows of station, surface (ground or design), offset, elevation; a header row is skipped. */
 export function readSectionCsv(text: string): { sections: CrossSection[]; issues: FileIssue[] } {
   const rows = csvRows(text);
-  const body = isHeader(rows[0]) && readNumber(rows[0]!.cells[0] ?? '') === null ? rows.slice(1) : rows;
+  const body = rows[0] && readNumber(rows[0].cells[0] ?? '') === null && readNumber(rows[0].cells[2] ?? '') === null ? rows.slice(1) : rows;
   const byStation = new Map<number, CrossSection>();
   const issues: FileIssue[] = [];
   for (const { line, cells } of body) {

@@ -26,9 +26,9 @@ export function readNumber(cell: string): number | null {
   return NUMBER.test(s) ? Number(s) : null;
 }
 
-/** True when a first row is a header: some cell is not a number. */
+/** True when a first row is a header: none of its cells is a number (so a typo in a data row is reported). */
 export function isHeader(row: CsvRow | undefined): boolean {
-  return row !== undefined && row.cells.some((c) => c !== '' && readNumber(c) === null);
+  return row !== undefined && row.cells.every((c) => readNumber(c) === null) && row.cells.some((c) => c !== '' && c !== '-');
 }
 
 /**
@@ -60,7 +60,7 @@ export function parseNumberTable(text: string, columns: readonly string[], maxIs
 /** Rows of node depths for a grid; an empty cell or "-" is a node outside the outline (null). */
 export function parseGridRows(text: string, maxIssues = 50) {
   const rows = csvRows(text);
-  const body = isHeader(rows[0]) && rows[0]!.cells.some((c) => c !== '-') ? rows.slice(1) : rows;
+  const body = isHeader(rows[0]) ? rows.slice(1) : rows;
   const depths: (number | null)[][] = [];
   const issues: FileIssue[] = [];
   for (const row of body) {

@@ -72,7 +72,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
           </table>
           <Button variant="secondary" size="sm" onClick={() => loads.append({ capacity: NaN, count: NaN })}><Plus aria-hidden /> Add line</Button>
           <FileSource label="Tickets from a spreadsheet" hint="CSV rows of capacity, loads (a header row is skipped); replaces the lines above" value={csv} onChange={readTickets} rows={3} placeholder={'capacity,loads\n14,38'} />
-          <FileIssues issues={fileIssues} fileLabel="Tickets" />
+          <FileIssues issues={fileIssues} fileLabel="Tickets" after="The lines above stay as they were until the file reads without problems." />
         </form>
       }
       result={
@@ -80,7 +80,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
           <ResultPanel
             issues={issues}
             figures={result ? [
-              { label: 'Pay quantity (bank, to 0.1)', value: result.payQuantity, unit: u.volume, strong: true },
+              { label: 'Pay quantity (bank, to 0.1)', decimals: 1, value: result.payQuantity, unit: u.volume, strong: true },
               { label: 'Bank volume', value: result.bankVolume, unit: u.volume },
               { label: 'Loose volume', value: result.looseVolume, unit: u.volume },
             ] : undefined}

@@ -15,7 +15,7 @@ export function MassHaulChart({ result, unit }: { result: MassHaulResult; unit: 
             <XAxis dataKey="station" type="number" domain={['dataMin', 'dataMax']} tickFormatter={(s: number) => formatStation(s, unit)} tick={{ fontSize: 11 }} />
             <YAxis tick={{ fontSize: 11 }} label={{ value: `mass ordinate (${v})`, angle: -90, position: 'insideLeft', fontSize: 11, dy: 50 }} />
             <Tooltip labelFormatter={(s) => `Station ${formatStation(Number(s), unit)}`} formatter={(value) => [`${Number(value).toFixed(1)} ${v}`, 'Mass ordinate']} />
-            <ReferenceLine y={result.balanceLine} stroke="#7f4222" strokeDasharray="5 3" label={{ value: 'balance line', fontSize: 10, position: 'insideTopRight', fill: '#7f4222' }} />
+            <ReferenceLine y={result.balanceLine} stroke="#7f4222" strokeDasharray="5 3" label={{ value: 'balance line', fontSize: 10, position: 'insideTopLeft', fill: '#7f4222' }} />
             <Line type="linear" dataKey="ordinate" stroke="#1f5040" strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} />
             {result.balancePoints.map((s) => (
               <ReferenceDot key={s} x={s} y={result.balanceLine} r={5} fill="#cf8347" stroke="#66361f" />

@@ -15,10 +15,10 @@ import { MassHaulChart } from './mass-haul-chart';
 
 type MassHaulForm = { kind: MassHaulFactorKind; percent: number; freeHaul: number; balanceLine: number; price: number; stations: StationRow[] };
 
-/** An invented half-mile of haul road: a cut hill, then a fill hollow. */
+/** An invented quarter-mile of haul road: a cut hill, a fill hollow, and a cut rise again. */
 function sampleStations(unit: LengthUnit): StationRow[] {
-  const cut = [0, 60, 110, 140, 90, 30, 0, 0, 0, 10, 40];
-  const fill = [20, 0, 0, 0, 0, 20, 70, 120, 100, 50, 10];
+  const cut = [0, 60, 110, 140, 90, 30, 0, 0, 0, 10, 40, 120, 150];
+  const fill = [20, 0, 0, 0, 0, 20, 110, 180, 160, 90, 30, 0, 0];
   const k = unit === 'ft' ? 1 : 0.09;
   return cut.map((c, i) => ({ station: i * (unit === 'ft' ? 100 : 30), cutArea: c * k, fillArea: fill[i]! * k }));
 }

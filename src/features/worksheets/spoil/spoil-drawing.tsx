@@ -9,9 +9,9 @@ const H = 220;
 export function SpoilDrawing({ result, unit }: { result: SpoilResult; unit: LengthUnit }) {
   const base = result.diameter ?? result.width ?? 0;
   const span = result.setback * 3 + base;
-  const scale = Math.min((W - 60) / span, (H - 70) / Math.max(result.height, 1e-9));
+  const scale = Math.min((W - 90) / span, (H - 70) / Math.max(result.height, 1e-9));
   const ground = H - 40;
-  const edge = 50;
+  const edge = 72;
   const toe = edge + result.setback * scale;
   const x = (d: number) => toe + d * scale;
   const peak = ground - result.height * scale;
@@ -21,6 +21,7 @@ export function SpoilDrawing({ result, unit }: { result: SpoilResult; unit: Leng
         <rect x={0} y={ground} width={edge} height={H - ground} fill="#fbf4ec" />
         <line x1={edge} x2={edge} y1={ground} y2={H} stroke="#9e5427" strokeWidth={1.5} />
         <text x={edge - 4} y={H - 6} fontSize={10} textAnchor="end" fill="#7f4222">excavation</text>
+        <text x={edge - 4} y={ground - 6} fontSize={10} textAnchor="end" fill="#57534e">edge</text>
         <rect x={edge} y={ground} width={W - edge} height={H - ground} fill="#e7e5e4" />
         <line x1={edge} x2={W} y1={ground} y2={ground} stroke="#57534e" strokeWidth={1.5} />
         <rect x={edge} y={ground - 4} width={toe - edge} height={4} fill="#b9473a" opacity={0.5} />

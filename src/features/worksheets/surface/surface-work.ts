@@ -26,10 +26,18 @@ function readPoints(text: string): { rows: [number, number, number][]; issues: F
   return { rows: values as [number, number, number][], issues };
 }
 
+/** A spread-out sample: every point when few, else 1,500 picked by a fixed pseudo-random walk (no stripes). */
 function sample(rows: readonly [number, number, number][]): { x: number; y: number }[] {
-  const step = Math.max(1, Math.ceil(rows.length / 1500));
+  if (rows.length <= 1500) return rows.map(([x, y]) => ({ x, y }));
   const out: { x: number; y: number }[] = [];
-  for (let i = 0; i < rows.length; i += step) out.push({ x: rows[i]![0], y: rows[i]![1] });
+  let seed = 12345;
+  for (let k = 0; k < 1500; k++) {
+    seed ^= seed << 13;
+    seed ^= seed >>> 17;
+    seed ^= seed << 5;
+    const row = rows[(seed >>> 0) % rows.length]!;
+    out.push({ x: row[0], y: row[1] });
+  }
   return out;
 }
 

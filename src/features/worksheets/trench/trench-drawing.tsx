@@ -4,7 +4,6 @@ import type { TrenchRunResult } from '@/shared/domain/earthwork/trench';
 import { fmt2 } from '../lib/units';
 
 const W = 480;
-const H = 240;
 const PAD = 40;
 
 /** The trench section of one run: bottom, side slopes (or benches, or a box), widths and depth, to scale. */
@@ -12,7 +11,8 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
   const { depth, bottomWidth, topWidth } = run;
   const setback = limit('spoilSetback', unit);
   const span = topWidth + 2 * setback;
-  const scale = Math.min((W - 2 * PAD) / span, (H - 2 * PAD) / depth);
+  const scale = Math.min((W - 2 * PAD) / span, 170 / depth);
+  const H = depth * scale + PAD + 30;
   const cx = W / 2;
   const top = PAD;
   const x = (offset: number) => cx + offset * scale;
@@ -46,7 +46,7 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
         {depth >= protective ? (
           <g>
             <line x1={PAD / 2} x2={W - PAD / 2} y1={y(protective)} y2={y(protective)} stroke="#b9473a" strokeDasharray="4 3" />
-            <text x={W - PAD / 2} y={y(protective) - 3} fontSize={10} textAnchor="end" fill="#7f302a">
+            <text x={W - 6} y={y(protective) + 12} fontSize={10} textAnchor="end" fill="#7f302a">
               {protective} {unit}: protective system required
             </text>
           </g>
@@ -55,14 +55,14 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
           bottom {fmt2(bottomWidth)} {unit}
         </text>
         <text x={cx} y={top + 14} fontSize={11} textAnchor="middle" fill="#292524">
-          top {fmt2(topWidth)} {unit}
+          {benched ? 'slope line at top' : 'top'} {fmt2(topWidth)} {unit}
         </text>
         <line x1={x(-topWidth / 2) - 12} x2={x(-topWidth / 2) - 12} y1={y(0)} y2={y(depth)} stroke="#44403c" markerEnd="url(#tick)" />
         <text x={x(-topWidth / 2) - 16} y={y(depth / 2)} fontSize={11} textAnchor="end" fill="#292524">
           {fmt2(depth)} {unit}
         </text>
         {slope > 0 ? (
-          <text x={x(half + (slope * depth) / 2) + 8} y={y(depth / 2)} fontSize={11} fill="#7f4222">
+          <text x={x(half + slope * depth * 0.7) + 8} y={y(depth * 0.3)} fontSize={11} fill="#7f4222">
             {benched ? `benches within ${slope}:1` : `${slope}:1 (H:V)`}
           </text>
         ) : (
