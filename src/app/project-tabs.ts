@@ -27,6 +27,7 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
   {
     path: 'tallies',
     label: 'Tallies',
+    screen: () => import('./routes/project-tallies'),
     summary: 'Measured quantities per bid item and pay period, each backed by its worksheet and evidence.',
   },
   {
@@ -38,6 +39,7 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
   {
     path: 'pay-apps',
     label: 'Pay apps',
+    screen: () => import('./routes/project-pay-apps'),
     summary: 'Monthly pay applications: submit, review line by line, certify, with retainage netted.',
   },
   {

@@ -1,4 +1,5 @@
 import { createBrowserRouter, redirect, type RouteObject } from 'react-router';
+import { PROJECT_DETAIL_ROUTES } from './project-detail-routes';
 import { PROJECT_TABS, type ProjectTab } from './project-tabs';
 import { PageLoading } from './layout/page-loading';
 import { RouteError } from './layout/route-error';
@@ -30,7 +31,7 @@ export const routes: RouteObject[] = [
         path: 'projects/:projectId',
         lazy: () => import('./routes/project-shell'),
         ErrorBoundary: RouteError,
-        children: PROJECT_TABS.map(tabRoute),
+        children: [...PROJECT_TABS.map(tabRoute), ...PROJECT_DETAIL_ROUTES],
       },
       { path: '*', lazy: () => import('./routes/not-found') },
     ],

@@ -1,0 +1,21 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { payAppQueryOptions } from '@/features/pay-apps/api/get-pay-apps';
+import { PayAppDetailScreen } from '@/features/pay-apps/components/pay-app-detail';
+import { useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(payAppQueryOptions(params.payAppId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '', payAppId = '' } = useParams();
+  const project = useProject(projectId);
+  return (
+    <>
+      <title>{`${project.name} · Pay application · Tallyard`}</title>
+      <PayAppDetailScreen payAppId={payAppId} isSub={project.myRoles.includes('subcontractor')} isGc={project.myRoles.includes('general_contractor')} />
+    </>
+  );
+}

@@ -1,0 +1,23 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { payAppsQueryOptions } from '@/features/pay-apps/api/get-pay-apps';
+import { PayAppsScreen } from '@/features/pay-apps/components/pay-apps-screen';
+import { useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(payAppsQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  const roles = project.myRoles;
+  const isOwnerOnly = roles.includes('owner') && !roles.some((r) => r === 'subcontractor' || r === 'general_contractor' || r === 'admin');
+  return (
+    <>
+      <title>{`${project.name} · Pay apps · Tallyard`}</title>
+      <PayAppsScreen projectId={projectId} canCreate={roles.includes('subcontractor')} isOwner={isOwnerOnly} />
+    </>
+  );
+}

@@ -1,0 +1,16 @@
+/** The general contractor's unsaved verdicts on lines, keyed by line id. */
+export type LineDecision = { decision: 'approve' | 'dispute'; reason: string; counter: string };
+export type ReviewDraft = Record<string, LineDecision>;
+
+/** The review request body from the draft, and the problems that keep it from being sent (per line). */
+export function reviewBody(draft: ReviewDraft, itemNumberOf: (lineId: string) => string) {
+  const problems: string[] = [];
+  const lines = Object.entries(draft).map(([lineId, d]) => {
+    if (d.decision === 'approve') return { lineId, decision: 'approve' as const };
+    const counter = Number(d.counter);
+    if (d.reason.trim().length < 3) problems.push(`Item ${itemNumberOf(lineId)}: give a reason for the dispute`);
+    if (d.counter.trim() === '' || !Number.isFinite(counter) || counter < 0) problems.push(`Item ${itemNumberOf(lineId)}: give a counter quantity of 0 or more`);
+    return { lineId, decision: 'dispute' as const, reason: d.reason.trim(), counterQuantity: counter };
+  });
+  return { lines, problems };
+}

@@ -1,0 +1,26 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { CreateTallyInput, TallyView } from '@/shared/schemas/tally';
+import { tallyKeys } from './keys';
+
+/** Every tally mutation refreshes the tally lists and details (key prefix `tallies`). */
+function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResult>) {
+  const client = useQueryClient();
+  return useMutation({ mutationFn: fn, onSuccess: () => client.invalidateQueries({ queryKey: tallyKeys.all }) });
+}
+
+export function useCreateTally(projectId: string) {
+  return useTallyMutation(async (input: CreateTallyInput) => (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally);
+}
+
+export function useMarkReady() {
+  return useTallyMutation(async (tallyId: string) => (await api.post<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}/ready`)).tally);
+}
+
+export function useDeleteTally() {
+  return useTallyMutation((tallyId: string) => api.delete(`/api/tallies/${encodeURIComponent(tallyId)}`));
+}
+
+export function useDeleteEvidence() {
+  return useTallyMutation((evidenceId: string) => api.delete(`/api/evidence/${encodeURIComponent(evidenceId)}`));
+}

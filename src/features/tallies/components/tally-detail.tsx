@@ -1,0 +1,109 @@
+import { CheckCircle2, Trash2 } from 'lucide-react';
+import { useState } from 'react';
+import { Link, useNavigate } from 'react-router';
+import { toast } from 'sonner';
+import { Button } from '@/components/ui/button';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { Dialog } from '@/components/ui/dialog';
+import { ErrorState, LoadingState } from '@/components/ui/states';
+import { errorMessage } from '@/lib/api-client';
+import { formatDate, formatQuantity } from '@/lib/format';
+import { MEASUREMENT_METHOD_LABELS } from '@/shared/constants';
+import { useTally } from '../api/get-tallies';
+import { useDeleteTally, useMarkReady } from '../api/save-tally';
+import { EvidencePanel } from './evidence-panel';
+import { InputsSummary } from './inputs-summary';
+import { TallyStatusBadge } from './tally-status-badge';
+
+/** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
+export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: string; canWrite: boolean; payAppStatusOf?: (payAppId: string) => string | undefined }) {
+  const query = useTally(tallyId);
+  const ready = useMarkReady();
+  const remove = useDeleteTally();
+  const navigate = useNavigate();
+  const [confirm, setConfirm] = useState<'ready' | 'delete' | null>(null);
+  if (query.isPending) return <LoadingState label="Loading the tally…" />;
+  if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  const { tally, evidence } = query.data;
+  const draft = tally.status === 'draft';
+  const backWithSub = tally.payAppId ? ['returned', 'draft'].includes(payAppStatusOf?.(tally.payAppId) ?? '') : false;
+  const unit = tally.bidItem.payUnit;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <p className="text-xs text-stone-600">
+            <Link to=".." relative="path" className="underline-offset-2 hover:underline">
+              Tallies
+            </Link>{' '}
+            / {tally.bidItem.itemNumber}
+          </p>
+          <h2 className="text-lg font-semibold text-stone-900">{tally.title || 'Untitled tally'}</h2>
+          <p className="text-sm text-stone-600">
+            Item {tally.bidItem.itemNumber} · {tally.bidItem.description} · measured {formatDate(`${tally.measuredOn}T12:00:00`)} by {tally.author.name}
+          </p>
+        </div>
+        <div className="flex items-center gap-2">
+          <TallyStatusBadge status={tally.status} />
+          {canWrite && draft ? (
+            <>
+              <Button variant="secondary" onClick={() => setConfirm('delete')}>
+                <Trash2 aria-hidden /> Delete
+              </Button>
+              <Button onClick={() => setConfirm('ready')}>
+                <CheckCircle2 aria-hidden /> Mark ready to bill
+              </Button>
+            </>
+          ) : null}
+        </div>
+      </div>
+      <div className="grid gap-4 lg:grid-cols-[1fr_1.2fr]">
+        <Card>
+          <CardHeader>
+            <CardTitle>Quantity</CardTitle>
+            <span className="text-xs text-stone-600">{MEASUREMENT_METHOD_LABELS[tally.method]}</span>
+          </CardHeader>
+          <CardBody className="flex flex-col gap-3">
+            <p className="text-2xl font-semibold text-stone-900 tabular-nums">
+              {formatQuantity(tally.quantity, unit)}
+              {tally.result?.basis ? <span className="ml-2 text-sm font-normal text-stone-600">{tally.result.basis} measure</span> : null}
+            </p>
+            {tally.manualBasis ? <p className="text-sm"><span className="font-medium">Written basis: </span>{tally.manualBasis}</p> : null}
+            {tally.inputs ? <InputsSummary inputs={tally.inputs} /> : null}
+          </CardBody>
+        </Card>
+        <Card>
+          <CardHeader>
+            <CardTitle>Calculation trail</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <ol className="list-decimal space-y-1 pl-5 text-sm text-stone-800">
+              {(tally.result?.trail ?? []).map((step, i) => (
+                <li key={i} className="tabular-nums">{step}</li>
+              ))}
+            </ol>
+          </CardBody>
+        </Card>
+      </div>
+      <EvidencePanel tallyId={tally.id} evidence={evidence} canUpload={canWrite && (draft || backWithSub)} canRemove={canWrite && draft} />
+      <Dialog open={confirm !== null} onClose={() => setConfirm(null)} title={confirm === 'delete' ? 'Delete this draft tally?' : 'Mark this tally ready to bill?'} description={confirm === 'delete' ? 'Its files are removed too. This cannot be undone.' : 'A ready tally can no longer be edited; the next pay application of its period bills it.'}>
+        <div className="flex justify-end gap-2">
+          <Button variant="secondary" onClick={() => setConfirm(null)}>Cancel</Button>
+          <Button
+            variant={confirm === 'delete' ? 'danger' : 'primary'}
+            disabled={ready.isPending || remove.isPending}
+            onClick={() => {
+              const done = { onError: (err: unknown) => toast.error(errorMessage(err)) };
+              if (confirm === 'delete') remove.mutate(tally.id, { ...done, onSuccess: () => void navigate('..', { relative: 'path' }) });
+              else ready.mutate(tally.id, { ...done, onSuccess: () => toast.success('Ready to bill') });
+              setConfirm(null);
+            }}
+          >
+            {confirm === 'delete' ? 'Delete tally' : 'Mark ready'}
+          </Button>
+        </div>
+      </Dialog>
+    </div>
+  );
+}
