@@ -2,6 +2,8 @@
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it } from 'vitest';
+import { parseNumberTable, readNumber } from '@/features/worksheets/lib/csv';
+import { readLandXmlSurfaces } from '@/features/worksheets/lib/landxml';
 import { TrenchWorksheet } from '@/features/worksheets/trench/trench-worksheet';
 
 afterEach(cleanup);
@@ -40,5 +42,29 @@ describe('Trench runs worksheet', () => {
     const result = screen.getByRole('region', { name: 'Result' });
     expect(within(result).getByRole('alert').textContent).toMatch(/Run 1 depth: Enter a number/);
     expect(within(result).queryByText('Excavation')).toBeNull();
+  });
+});
+
+describe('Worksheet file readers', () => {
+  it('reads LandXML points as northing easting elevation (LandXML 1.2 schema, <P>) into x = easting, y = northing', () => {
+    const xml = `<?xml version="1.0"?><LandXML xmlns="http://www.landxml.org/schema/LandXML-1.2"><Surfaces><Surface name="Pad">
+      <Definition><Pnts><P id="1">5000.5 2000.25 101.2</P><P id="2">5010 2003 bad</P></Pnts></Definition></Surface></Surfaces></LandXML>`;
+    const { surfaces, issues } = readLandXmlSurfaces(xml);
+    expect(surfaces[0]!.points).toEqual([[2000.25, 5000.5, 101.2]]);
+    expect(issues).toEqual([expect.objectContaining({ column: 'Pad, <P id="2">' })]);
+  });
+
+  it('reports a bad CSV cell by line and column', () => {
+    const { values, issues } = parseNumberTable('x,y,z\n1,2,3\n4,five,6\n7,8', ['x', 'y', 'z']);
+    expect(values).toEqual([[1, 2, 3]]);
+    expect(issues).toEqual([
+      { line: 3, column: 'y', message: '"five" is not a number' },
+      { line: 4, column: '(row)', message: 'Expected 3 values (x, y, z), found 2' },
+    ]);
+  });
+
+  it('reads station text 12+50 as 1250 ft (100 ft stations, common practice)', () => {
+    expect(readNumber('12+50')).toBe(1250);
+    expect(readNumber('12+50.5')).toBe(1250.5);
   });
 });
