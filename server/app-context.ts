@@ -1,4 +1,5 @@
 import type { Db } from './db/client';
+import type { Payments } from './integrations/payments/payments';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
@@ -13,4 +14,6 @@ export type AppContext = {
   /** The app's public origin, for links in e-mails. */
   appUrl: string;
   mailbox?: SmtpSink;
+  /** Online payment (Stripe's SDK, or the local stand-in); absent when the server has none configured. */
+  payments?: Payments;
 };

@@ -6,6 +6,7 @@ import type { Auth } from './auth';
 import type { Database } from './db/client';
 import type { Mailer } from './integrations/mailer/mailer';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
+import type { Payments } from './integrations/payments/payments';
 import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -24,6 +25,7 @@ import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { varianceRouter } from './modules/variance/variance.routes';
 import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
+import { paymentsRouter, stripeWebhookRouter } from './modules/payments/payments.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
 import type { AppContext } from './app-context';
 
@@ -39,6 +41,8 @@ export type AppDeps = {
   appUrl: string;
   /** Folder of the built client (dist/); served with a fallback to index.html when it exists. */
   clientDir?: string;
+  /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
+  payments?: Payments;
 };
 
 export const JSON_BODY_LIMIT = '1mb';
@@ -54,6 +58,7 @@ export function createApp(deps: AppDeps): Express {
     logger,
     appUrl: deps.appUrl,
     mailbox: deps.mailbox,
+    payments: deps.payments,
   };
   const app = express();
   app.disable('x-powered-by');
@@ -63,6 +68,8 @@ export function createApp(deps: AppDeps): Express {
   app.get('/api/health', (_req, res) => {
     res.json({ status: 'ok', database: database.kind });
   });
+  // Stripe signs the raw body: its webhook parses its own body, before the JSON parser and the session check.
+  app.use(stripeWebhookRouter(ctx));
   // Public routes (no session): the invitation link's preview and accept.
   app.use('/api', publicInvitationsRouter(ctx, auth));
   // better-auth reads its own bodies: mount it before the JSON parser.
@@ -77,6 +84,7 @@ export function createApp(deps: AppDeps): Express {
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
+  app.use('/api', paymentsRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

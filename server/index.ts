@@ -8,6 +8,7 @@ import { runMigrations } from './db/migrate';
 import { seedDemo } from './db/seed-demo';
 import { smtpMailer } from './integrations/mailer/mailer';
 import { startSmtpSink } from './integrations/mailer/smtp-sink';
+import { configurePayments } from './integrations/payments/configure';
 import { localStorage } from './integrations/storage/storage';
 import { loadEnv } from './env';
 import { authSecret, dataDirLayout, lockDataDir } from './lib/data-dir';
@@ -44,6 +45,7 @@ async function main() {
   const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
   if (mailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
   const storage = localStorage(layout.uploads);
+  const payments = await configurePayments(env, logger);
   const app = createApp({
     database,
     auth,
@@ -51,6 +53,7 @@ async function main() {
     mailer,
     storage,
     mailbox,
+    payments: payments.payments,
     appUrl: baseURL,
     clientDir: path.join(ROOT, 'dist'),
   });
@@ -67,6 +70,7 @@ async function main() {
     server.close();
     server.closeAllConnections();
     await mailbox?.close();
+    await payments.close();
     await database.close();
     await unlock();
     process.exit(0);

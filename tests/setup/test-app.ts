@@ -5,6 +5,8 @@ import { createAuth, type Auth } from '../../server/auth';
 import type { Database } from '../../server/db/client';
 import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
+import { startLocalPayments } from '../../server/integrations/payments/local-payments';
+import type { Standin } from '../../stripe-standin/src/index';
 import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
 import { createLogger } from '../../server/lib/logger';
 import { createTestDatabase } from './test-db';
@@ -18,6 +20,8 @@ export type TestApp = {
   database: Database;
   mailbox: SmtpSink;
   storage: Storage;
+  /** The local Stripe stand-in; webhooks reach the app in-process. Bank debits wait for its settle hook. */
+  standin: Standin;
   close: () => Promise<void>;
 };
 
@@ -33,6 +37,12 @@ export async function createTestApp(): Promise<TestApp> {
   });
   const mailbox = await startSmtpSink();
   const storage = memoryStorage();
+  const target: { app?: Express } = {};
+  const { payments, standin } = await startLocalPayments({
+    webhookTarget: async (payload, headers) => (await request(target.app!).post('/api/webhooks/stripe').set(headers).send(payload)).status,
+    achSettleMs: Number.POSITIVE_INFINITY,
+    retryDelaysMs: [50, 200],
+  });
   const app = createApp({
     database,
     auth,
@@ -40,13 +50,16 @@ export async function createTestApp(): Promise<TestApp> {
     mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
     storage,
     mailbox,
+    payments,
     appUrl: TEST_ORIGIN,
   });
+  target.app = app;
   const close = async () => {
+    await standin.close();
     await mailbox.close();
     await database.close();
   };
-  return { app, auth, database, mailbox, storage, close };
+  return { app, auth, database, mailbox, storage, standin, close };
 }
 
 /** A supertest agent signed in as this person: it keeps the session cookie and sends our Origin. */

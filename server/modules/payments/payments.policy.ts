@@ -1,0 +1,40 @@
+import type { AccessRole, PayAppStatus, PaymentStatus } from '../../../src/shared/constants';
+import { sumCents } from '../../../src/shared/domain/money';
+
+/** Only the owner (the payer on the project) starts a payment. */
+export const canPay = (roles: AccessRole[]) => roles.includes('owner');
+
+/** Statuses in which a payment can be started. */
+export const PAYABLE_STATUSES: readonly PayAppStatus[] = ['certified', 'partially_paid'];
+
+/**
+ * How far along a payment is: created < processing < succeeded or failed (both final). An event never moves a
+ * payment to a lower or equal rank, so a late `processing` after `succeeded` is ignored. Canceled only ends an
+ * attempt nobody paid; refunds are handled apart.
+ */
+const RANK: Record<PaymentStatus, number> = { created: 0, canceled: 1, processing: 2, succeeded: 3, failed: 3, refunded: 4 };
+
+export function canMovePayment(from: PaymentStatus, to: PaymentStatus): boolean {
+  if (to === 'refunded') return from === 'succeeded';
+  if (from === 'succeeded' || from === 'failed' || from === 'refunded') return false;
+  if (to === 'canceled') return from === 'created';
+  return RANK[to] > RANK[from];
+}
+
+/** Balance of an application: current due less paid to date less what is still processing (integer cents). */
+export function balanceCents(app: { currentDueCents: number; paidCents: number }, processingCents: number): number {
+  return sumCents([app.currentDueCents, -app.paidCents, -processingCents]);
+}
+
+export type AmountDecision = { ok: true; amountCents: number } | { ok: false; message: string };
+
+/**
+ * The amount to charge: the whole balance, or the owner's partial amount where the project allows partial
+ * payments and it does not exceed the balance.
+ */
+export function chargeAmount(balance: number, partialAllowed: boolean, partialAmountCents: number | undefined): AmountDecision {
+  if (partialAmountCents === undefined) return { ok: true, amountCents: balance };
+  if (!partialAllowed) return { ok: false, message: 'This project does not accept partial payments; pay the whole balance.' };
+  if (partialAmountCents > balance) return { ok: false, message: `The amount is more than the balance of ${balance} cents.` };
+  return { ok: true, amountCents: partialAmountCents };
+}

@@ -1,0 +1,108 @@
+import { randomUUID } from 'node:crypto';
+import type { CreatePaymentInput, PayAppPaymentsView, ProjectPaymentsView } from '../../../src/shared/schemas/payment';
+import type { AppContext } from '../../app-context';
+import type { Executor } from '../../db/client';
+import type { Actor } from '../../lib/actor';
+import { AppError, notFound, validationFailed } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { isFrozen } from '../../../src/shared/domain/pay-app-status';
+import { isUuid, loadProjectAccess } from '../projects/project-access';
+import { canReadProject } from '../projects/projects.policy';
+import { balanceCents, canPay, chargeAmount, PAYABLE_STATUSES } from './payments.policy';
+import { presentPayApp, presentPayment } from './payments.presenter';
+import * as repo from './payments.repository';
+
+async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule = canReadProject) {
+  const app = isUuid(payAppId) ? await repo.findPayApp(ctx.db, payAppId) : undefined;
+  if (!app) throw notFound('The pay application');
+  const access = await loadProjectAccess(ctx.db, actor, app.projectId, rule).catch((err: unknown) => {
+    throw err instanceof AppError && err.status === 404 ? notFound('The pay application') : err;
+  });
+  return { app, ...access };
+}
+
+export async function listForPayApp(ctx: AppContext, actor: Actor, payAppId: string): Promise<PayAppPaymentsView> {
+  const { app, project } = await loadPayApp(ctx, actor, payAppId);
+  const rows = await repo.listPayments(ctx.db, { payAppId });
+  const history = await repo.historyOf(ctx.db, rows.map((r) => r.id));
+  return { payApp: presentPayApp(app, rows, project.allowPartialPayments), payments: rows.map((r) => presentPayment(r, app.number, history)) };
+}
+
+export async function listForProject(ctx: AppContext, actor: Actor, projectId: string): Promise<ProjectPaymentsView> {
+  const { project } = await loadProjectAccess(ctx.db, actor, projectId);
+  const apps = (await repo.listPayApps(ctx.db, projectId)).filter((a) => isFrozen(a.status));
+  const rows = await repo.listPayments(ctx.db, { projectId });
+  const history = await repo.historyOf(ctx.db, rows.map((r) => r.id));
+  const numbers = new Map(apps.map((a) => [a.id, a.number]));
+  return {
+    payApps: apps.map((a) => presentPayApp(a, rows, project.allowPartialPayments)),
+    payments: rows.map((r) => presentPayment(r, numbers.get(r.payAppId) ?? 0, history)),
+  };
+}
+
+const audit = (tx: Executor, actor: Actor | null, projectId: string, paymentId: string, action: string, after: unknown, before?: unknown) =>
+  recordAudit(tx, { projectId, actorUserId: actor?.userId ?? null, objectType: 'payment', objectId: paymentId, action, before, after });
+
+/** Ends earlier unpaid checkout attempts of this application, so two open sessions can never both be paid. */
+async function expireEarlierAttempts(ctx: AppContext, actor: Actor, payAppId: string) {
+  for (const open of await repo.openPayments(ctx.db, payAppId)) {
+    const expired = await ctx.payments!.expireSession(open.stripeCheckoutSessionId!).then(() => true, () => false);
+    if (!expired) continue; // already completed: its webhook will tell
+    await ctx.db.transaction(async (tx) => {
+      const row = await repo.findPayment(tx, { id: open.id });
+      if (row?.status !== 'created') return;
+      await repo.updatePayment(tx, row.id, { status: 'canceled' });
+      await repo.addHistory(tx, row.id, 'created', 'canceled', 'A newer payment attempt replaced this one.');
+      await audit(tx, actor, row.projectId, row.id, 'payment.canceled', { status: 'canceled' }, { status: 'created' });
+    });
+  }
+}
+
+/**
+ * Starts a payment: the amount comes from the certified application (never from the client), the row is saved
+ * first, then Stripe is called outside any transaction, then the session id is stored.
+ */
+export async function startPayment(ctx: AppContext, actor: Actor, payAppId: string, input: CreatePaymentInput) {
+  if (!ctx.payments) throw new AppError(503, 'PAYMENTS_UNAVAILABLE', 'Online payment is not configured on this server.');
+  const { project } = await loadPayApp(ctx, actor, payAppId, canPay);
+  await expireEarlierAttempts(ctx, actor, payAppId);
+  const payment = await ctx.db.transaction(async (tx) => {
+    const app = (await repo.findPayApp(tx, payAppId, true))!;
+    const balance = balanceCents(app, await repo.processingCentsOf(tx, app.id));
+    if (!PAYABLE_STATUSES.includes(app.status) || balance <= 0) {
+      throw new AppError(409, 'PAY_APP_NOT_PAYABLE', `Pay application ${app.number} is ${app.status.replace(/_/g, ' ')} with a balance of ${balance} cents; only a certified application with a balance can be paid.`);
+    }
+    const amount = chargeAmount(balance, project.allowPartialPayments, input.partialAmountCents);
+    if (!amount.ok) throw validationFailed([{ path: 'partialAmountCents', message: amount.message }]);
+    const id = randomUUID();
+    const row = await repo.insertPayment(tx, { id, projectId: app.projectId, payAppId: app.id, amountCents: amount.amountCents, idempotencyKey: `tallyard-payment-${id}`, createdByUserId: actor.userId });
+    await repo.addHistory(tx, id, null, 'created', `Started by ${actor.email}`);
+    await audit(tx, actor, app.projectId, id, 'payment.created', { amountCents: row.amountCents, payAppId: app.id, balanceCents: balance });
+    return { row, number: app.number };
+  });
+  const back = `${ctx.appUrl}/projects/${payment.row.projectId}/payments?payment=${payment.row.id}`;
+  const checkout = await ctx.payments
+    .createCheckout({
+      amountCents: payment.row.amountCents,
+      description: `Pay application ${payment.number}, ${project.name}`,
+      metadata: { payAppId, paymentId: payment.row.id, projectId: payment.row.projectId },
+      successUrl: `${back}&result=returned`,
+      cancelUrl: `${back}&result=canceled`,
+      idempotencyKey: payment.row.idempotencyKey,
+      customerEmail: actor.email,
+    })
+    .catch(async (err: unknown) => {
+      ctx.logger.error({ err, paymentId: payment.row.id }, 'checkout session could not be created');
+      await ctx.db.transaction(async (tx) => {
+        await repo.updatePayment(tx, payment.row.id, { status: 'canceled', failureMessage: 'The payment processor could not be reached.' });
+        await repo.addHistory(tx, payment.row.id, 'created', 'canceled', 'The payment processor could not be reached.');
+        await audit(tx, actor, payment.row.projectId, payment.row.id, 'payment.canceled', { reason: 'checkout_failed' });
+      });
+      throw new AppError(502, 'PAYMENT_PROVIDER_UNAVAILABLE', 'The payment processor could not be reached; nothing was charged. Try again shortly.');
+    });
+  await ctx.db.transaction(async (tx) => {
+    await repo.updatePayment(tx, payment.row.id, { stripeCheckoutSessionId: checkout.sessionId });
+    await audit(tx, actor, payment.row.projectId, payment.row.id, 'payment.checkout_opened', { stripeCheckoutSessionId: checkout.sessionId });
+  });
+  return { paymentId: payment.row.id, url: checkout.url };
+}
