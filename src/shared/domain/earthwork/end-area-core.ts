@@ -29,22 +29,25 @@ export function prismoidal(a1: number, am: number, a2: number, length: number): 
 }
 
 /**
- * Cut and fill totals (cubic length units) by average end area over the stations picked by `indices`
- * (ascending). Used for the full run and for the drop-every-other-section sensitivity.
+ * Cut and fill totals (cubic length units) by average end area over every `stride`-th station from the first,
+ * plus the last one (stride 1: all of them). Used for the full run and for the drop-every-other sensitivity.
  */
 export function averageEndAreaTotals(
   stations: readonly StationInput[],
-  indices: readonly number[],
+  stride: number,
   zeroAreaEnds: ZeroAreaEndRule,
 ): { cut: number; fill: number } {
   let cut = 0;
   let fill = 0;
-  for (let k = 0; k + 1 < indices.length; k++) {
-    const a = stations[indices[k]!]!;
-    const b = stations[indices[k + 1]!]!;
+  const last = stations.length - 1;
+  for (let i = 0; i < last; ) {
+    const j = Math.min(i + stride, last);
+    const a = stations[i]!;
+    const b = stations[j]!;
     const length = b.station - a.station;
     cut += endAreaPair(a.cutArea, b.cutArea, length, zeroAreaEnds);
     fill += endAreaPair(a.fillArea, b.fillArea, length, zeroAreaEnds);
+    i = j;
   }
   return { cut, fill };
 }

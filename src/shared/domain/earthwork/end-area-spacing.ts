@@ -95,19 +95,15 @@ export function spacingCheck(
 function dropEveryOther(stations: readonly StationInput[], unit: LengthUnit, rule: ZeroAreaEndRule): SpacingReport['dropEveryOther'] {
   const n = stations.length;
   if (n < 3) return null;
-  const all: number[] = new Array(n);
-  for (let i = 0; i < n; i++) all[i] = i;
-  const kept: number[] = [];
-  for (let i = 0; i < n; i += 2) kept.push(i);
-  if (kept[kept.length - 1] !== n - 1) kept.push(n - 1);
-  const full = averageEndAreaTotals(stations, all, rule);
-  const dropped = averageEndAreaTotals(stations, kept, rule);
+  const full = averageEndAreaTotals(stations, 1, rule);
+  const dropped = averageEndAreaTotals(stations, 2, rule);
+  const kept = Math.ceil(n / 2) + (n % 2 === 0 ? 1 : 0);
   const cut = cubicToVolume(dropped.cut, unit);
   const fill = cubicToVolume(dropped.fill, unit);
   const fullCut = cubicToVolume(full.cut, unit);
   const fullFill = cubicToVolume(full.fill, unit);
   return {
-    keptStations: kept.length,
+    keptStations: kept,
     cut,
     fill,
     net: cut - fill,

@@ -43,14 +43,17 @@ const INTERVAL_TOLERANCE = 1e-9;
 
 function checkStations(stations: readonly StationInput[]): void {
   if (stations.length < 2) throw new DomainError('VALIDATION_FAILED', 'At least 2 stations are needed', ['stations']);
+  let previous = -Infinity;
   for (let i = 0; i < stations.length; i++) {
     const s = stations[i]!;
-    assertFinite(s.station, ['stations', i, 'station']);
-    assertNonNegative(s.cutArea, ['stations', i, 'cutArea']);
-    assertNonNegative(s.fillArea, ['stations', i, 'fillArea']);
-    if (i > 0 && !(s.station > stations[i - 1]!.station)) {
+    // One cheap test per station; the helpers only run to name the failing field.
+    if (!(s.station > previous && s.cutArea >= 0 && s.fillArea >= 0 && s.cutArea < Infinity && s.fillArea < Infinity && s.station < Infinity)) {
+      assertFinite(s.station, ['stations', i, 'station']);
+      assertNonNegative(s.cutArea, ['stations', i, 'cutArea']);
+      assertNonNegative(s.fillArea, ['stations', i, 'fillArea']);
       throw new DomainError('STATIONS_NOT_INCREASING', `Station ${i} must be beyond station ${i - 1}`, ['stations', i, 'station']);
     }
+    previous = s.station;
   }
 }
 
@@ -59,7 +62,8 @@ function pyramidTag(cut: boolean, fill: boolean): EndAreaSegment['pyramid'] {
 }
 
 function averageRows(stations: readonly StationInput[], unit: LengthUnit, rule: ZeroAreaEndRule): EndAreaSegment[] {
-  const rows: EndAreaSegment[] = new Array(stations.length - 1);
+  const rows: EndAreaSegment[] = [];
+  const perCubic = unit === 'ft' ? 27 : 1;
   for (let i = 0; i + 1 < stations.length; i++) {
     const a = stations[i]!;
     const b = stations[i + 1]!;
@@ -68,12 +72,14 @@ function averageRows(stations: readonly StationInput[], unit: LengthUnit, rule: 
       from: a.station,
       to: b.station,
       length,
-      cut: cubicToVolume(endAreaPair(a.cutArea, b.cutArea, length, rule), unit),
-      fill: cubicToVolume(endAreaPair(a.fillArea, b.fillArea, length, rule), unit),
+      cut: endAreaPair(a.cutArea, b.cutArea, length, rule) / perCubic,
+      fill: endAreaPair(a.fillArea, b.fillArea, length, rule) / perCubic,
     };
-    const tag = pyramidTag(isPyramid(a.cutArea, b.cutArea, rule), isPyramid(a.fillArea, b.fillArea, rule));
-    if (tag) row.pyramid = tag;
-    rows[i] = row;
+    if (rule === 'pyramid') {
+      const tag = pyramidTag(isPyramid(a.cutArea, b.cutArea, rule), isPyramid(a.fillArea, b.fillArea, rule));
+      if (tag) row.pyramid = tag;
+    }
+    rows.push(row);
   }
   return rows;
 }

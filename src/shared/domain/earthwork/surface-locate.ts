@@ -11,7 +11,7 @@ export class TinLocator {
   private readonly coords: Float64Array;
   /** +1 or -1: the sign of cross(b - a, p - a) that puts p outside edge a -> b of a triangle. */
   private readonly outside: number;
-  private readonly seeds: Int32Array;
+  private seeds: Int32Array;
   private readonly size: number;
   private readonly minX: number;
   private readonly minY: number;
@@ -32,16 +32,21 @@ export class TinLocator {
       if (y < minY) minY = y;
       if (y > maxY) maxY = y;
     }
-    const count = t.length / 3;
-    this.size = Math.max(1, Math.ceil(Math.sqrt(count / 8)));
+    this.size = Math.max(1, Math.ceil(Math.sqrt(t.length / 3 / 8)));
     this.minX = minX;
     this.minY = minY;
     this.cell = Math.max(maxX - minX, maxY - minY, 1e-12) / this.size;
+    this.seeds = new Int32Array(0);
+  }
+
+  /** Seeds the grid (once, on the first seeded query): every other triangle fills cells of about 8 each. */
+  private seed(): void {
+    const t = this.triangles;
+    const c = this.coords;
     this.seeds = new Int32Array(this.size * this.size).fill(-1);
-    // Every other triangle is enough to seed cells of about 8 triangles each.
-    for (let k = 0; k < count; k += 2) {
-      const a = 2 * t[3 * k]!, b = 2 * t[3 * k + 1]!, c = 2 * t[3 * k + 2]!;
-      this.seeds[this.cellOf((coords[a]! + coords[b]! + coords[c]!) / 3, (coords[a + 1]! + coords[b + 1]! + coords[c + 1]!) / 3)] = k;
+    for (let k = 0; 3 * k < t.length; k += 2) {
+      const a = 2 * t[3 * k]!, b = 2 * t[3 * k + 1]!, d = 2 * t[3 * k + 2]!;
+      this.seeds[this.cellOf((c[a]! + c[b]! + c[d]!) / 3, (c[a + 1]! + c[b + 1]! + c[d + 1]!) / 3)] = k;
     }
   }
 
@@ -60,10 +65,17 @@ export class TinLocator {
     return (c[2 * b]! - ax) * (py - ay) - (c[2 * b + 1]! - ay) * (px - ax);
   }
 
-  /** Triangle index containing (x, y), or -1 outside the convex hull. */
-  locate(x: number, y: number): number {
-    const seed = this.seeds[this.cellOf(x, y)]!;
-    let t = seed >= 0 ? seed : this.last;
+  /**
+   * Triangle index containing (x, y), or -1 outside the convex hull. `seeded` starts from the grid seed (many
+   * queries over the whole mesh); otherwise from the previous answer (a few queries that follow each other).
+   */
+  locate(x: number, y: number, seeded = true): number {
+    let t = this.last;
+    if (seeded) {
+      if (this.seeds.length === 0) this.seed();
+      const s = this.seeds[this.cellOf(x, y)]!;
+      if (s >= 0) t = s;
+    }
     const tri = this.triangles;
     const he = this.halfedges;
     const c = this.coords;

@@ -37,26 +37,36 @@ export function hullOf(tin: Tin): ClipHull {
   return { x, y, z, orientation: twice >= 0 ? 1 : -1 };
 }
 
-/**
- * Heights of `other` at every vertex of `own` (NaN outside other's hull); also marks own's triangles that hold
- * one of other's points, which may overlap other's footprint though all their corners lie outside it.
- */
-export function sampleOther(own: Tin, other: Tin, ownTriOfOther: Int32Array | null): Float64Array {
+/** Heights of `other` at every vertex of `own` (NaN outside other's hull). */
+export function sampleOther(own: Tin, other: Tin): Float64Array {
   const n = own.z.length;
   const at = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = own.coords[2 * i]!, y = own.coords[2 * i + 1]!;
     const t = other.locator.locate(x, y);
     at[i] = t < 0 ? NaN : other.locator.interpolate(t, x, y, other.z);
-    if (ownTriOfOther) ownTriOfOther[i] = t;
   }
   return at;
 }
 
 /**
+ * Own's triangles that hold a corner of other's hull: they can overlap other's footprint with all their own
+ * corners outside it, so they are clipped too. The hull is walked in order, each search starting where the last
+ * one ended.
+ */
+export function markHullCorners(own: Tin, hull: ClipHull): Uint8Array {
+  const marked = new Uint8Array(own.mesh.triangles.length / 3);
+  for (let i = 0; i < hull.x.length; i++) {
+    const t = own.locator.locate(hull.x[i]!, hull.y[i]!, false);
+    if (t >= 0) marked[t] = 1;
+  }
+  return marked;
+}
+
+/**
  * Integrates d = sign x (own z - other z) over own's triangles within other's hull. Triangles with all three
  * corners inside are integrated directly (d is linear over own's triangle once other's heights are sampled at
- * its corners); the rest are clipped to other's hull first.
+ * its corners); those with a corner outside, or holding a corner of the hull, are clipped to the hull first.
  */
 export function integratePass(own: Tin, otherAt: Float64Array, hull: ClipHull, marked: Uint8Array, sign: number): PassTotals {
   const tri = own.mesh.triangles;

@@ -1,6 +1,6 @@
 import Delaunator from 'delaunator';
 import { DomainError } from '../domain-error';
-import { hullOf, integratePass, sampleOther, type PassTotals, type Tin } from './surface-pass';
+import { hullOf, integratePass, markHullCorners, sampleOther, type PassTotals, type Tin } from './surface-pass';
 import { TinLocator } from './surface-locate';
 import { fmt, fmtArea, fmtVolume, type Trail } from './trail';
 import { areaUnitOf, cubicToVolume, volumeUnitOf, type AreaUnit, type LengthUnit, type VolumeUnit } from './units';
@@ -20,11 +20,9 @@ export interface SurfaceInput {
   design: readonly (readonly [number, number, number])[];
 }
 
+/** The mesh the volume was integrated over and what it took. */
 export interface SurfacePass {
   over: 'existing' | 'design';
-  cut: number;
-  fill: number;
-  footprintArea: number;
   triangles: number;
   clippedTriangles: number;
 }
@@ -41,7 +39,7 @@ export interface SurfaceResult {
   areaUnit: AreaUnit;
   existingPoints: number;
   designPoints: number;
-  passes: [SurfacePass, SurfacePass];
+  pass: SurfacePass;
   trail: Trail;
 }
 
@@ -81,12 +79,38 @@ function minOf(a: ArrayLike<number>, b: ArrayLike<number>): number {
   return m;
 }
 
+/** Shoelace area of a mesh's convex hull (a tie-break that mirroring and shifting leave unchanged). */
+function hullArea(tin: Tin): number {
+  const h = hullOf(tin);
+  let twice = 0;
+  for (let i = 0; i < h.x.length; i++) {
+    const j = (i + 1) % h.x.length;
+    twice += h.x[i]! * h.y[j]! - h.x[j]! * h.y[i]!;
+  }
+  return Math.abs(twice) / 2;
+}
+
+/** Integrate over the denser survey; ties go by hull area, then by the sum of heights, so swapping is exact. */
+function overExisting(e: Tin, d: Tin): boolean {
+  if (e.z.length !== d.z.length) return e.z.length > d.z.length;
+  const ae = hullArea(e);
+  const ad = hullArea(d);
+  if (ae !== ad) return ae < ad;
+  let se = 0;
+  let sd = 0;
+  for (let i = 0; i < e.z.length; i++) {
+    se += e.z[i]!;
+    sd += d.z[i]!;
+  }
+  return se >= sd;
+}
+
 /**
  * Surface-to-surface volume from two point surveys, each triangulated (Delaunay, delaunator). Cut where the
- * existing surface is above the design, fill where below, over the plan area both cover. Two passes, each exact
- * where both surfaces are planar: over the existing mesh with design heights sampled at its corners, and over
- * the design mesh with existing heights sampled at its corners; the result is their mean, so swapping the two
- * surveys swaps cut and fill exactly. Triangles crossing the other survey's boundary are clipped to its hull.
+ * existing surface is above the design, fill where below, over the plan area both cover. The depth is
+ * integrated over the denser survey's triangles with the other surface's heights sampled at their corners:
+ * exact wherever the other surface is planar across each triangle, and swapping the two surveys swaps cut and
+ * fill exactly. Triangles crossing the other survey's boundary are clipped to its convex hull.
  */
 export function surfaceVolumeFromPoints(unit: LengthUnit, existing: SurfacePoints, design: SurfacePoints): SurfaceResult {
   // Shift to a local origin: survey coordinates (state plane, 1e6 ft) would otherwise cost digits.
@@ -94,17 +118,12 @@ export function surfaceVolumeFromPoints(unit: LengthUnit, existing: SurfacePoint
   const oy = minOf(existing.y, design.y);
   const e = tinOf(existing, ox, oy, 'existing');
   const d = tinOf(design, ox, oy, 'design');
-  const eHits = new Int32Array(e.z.length);
-  const dHits = new Int32Array(d.z.length);
-  const designAtE = sampleOther(e, d, eHits);
-  const existingAtD = sampleOther(d, e, dHits);
-  const markE = new Uint8Array(e.mesh.triangles.length / 3);
-  const markD = new Uint8Array(d.mesh.triangles.length / 3);
-  for (let i = 0; i < dHits.length; i++) if (dHits[i]! >= 0) markE[dHits[i]!] = 1;
-  for (let i = 0; i < eHits.length; i++) if (eHits[i]! >= 0) markD[eHits[i]!] = 1;
-  const overE = integratePass(e, designAtE, hullOf(d), markE, 1);
-  const overD = integratePass(d, existingAtD, hullOf(e), markD, -1);
-  return present(unit, overE, overD, e.z.length, d.z.length);
+  const useExisting = overExisting(e, d);
+  const own = useExisting ? e : d;
+  const other = useExisting ? d : e;
+  const hull = hullOf(other);
+  const totals = integratePass(own, sampleOther(own, other), hull, markHullCorners(own, hull), useExisting ? 1 : -1);
+  return present(unit, totals, useExisting ? 'existing' : 'design', e.z.length, d.z.length, d.mesh.triangles.length / 3 + e.mesh.triangles.length / 3);
 }
 
 /** Same, from [x, y, z] rows as the calculation API takes them. */
@@ -112,24 +131,30 @@ export function surfaceVolume(input: SurfaceInput): SurfaceResult {
   return surfaceVolumeFromPoints(input.unit, pointsFromRows(input.existing), pointsFromRows(input.design));
 }
 
-function toPass(over: SurfacePass['over'], t: PassTotals, unit: LengthUnit): SurfacePass {
-  return { over, cut: cubicToVolume(t.cut, unit), fill: cubicToVolume(t.fill, unit), footprintArea: t.area, triangles: t.triangles, clippedTriangles: t.clipped };
-}
-
-function present(unit: LengthUnit, a: PassTotals, b: PassTotals, nE: number, nD: number): SurfaceResult {
-  const passes: [SurfacePass, SurfacePass] = [toPass('existing', a, unit), toPass('design', b, unit)];
-  const cut = (passes[0].cut + passes[1].cut) / 2;
-  const fill = (passes[0].fill + passes[1].fill) / 2;
-  const footprintArea = (a.area + b.area) / 2;
+function present(unit: LengthUnit, t: PassTotals, over: SurfacePass['over'], nE: number, nD: number, allTriangles: number): SurfaceResult {
+  const cut = cubicToVolume(t.cut, unit);
+  const fill = cubicToVolume(t.fill, unit);
+  const footprintArea = t.area;
   if (footprintArea === 0) throw new DomainError('NO_OVERLAP', 'The two surveys do not overlap in plan', ['design']);
   const trail: Trail = [
-    `Existing: ${fmt(nE, 0)} points, ${fmt(a.triangles, 0)} Delaunay triangles; design: ${fmt(nD, 0)} points, ${fmt(b.triangles, 0)} triangles (delaunator)`,
-    `Shared footprint (both convex hulls) ${fmtArea(footprintArea, unit)}; ${fmt(a.clipped + b.clipped, 0)} boundary triangles clipped to the other hull`,
-    'Per triangle, depth d = existing - design is linear between sampled corners; V = A (d1 + d2 + d3) / 3, split exactly along d = 0',
-    `Pass over the existing mesh: cut ${fmtVolume(passes[0].cut, unit)}, fill ${fmtVolume(passes[0].fill, unit)}`,
-    `Pass over the design mesh: cut ${fmtVolume(passes[1].cut, unit)}, fill ${fmtVolume(passes[1].fill, unit)}`,
-    `Result = mean of the two passes: cut ${fmtVolume(cut, unit)}, fill ${fmtVolume(fill, unit)}, net ${fmtVolume(cut - fill, unit)}`,
+    `Existing ${fmt(nE, 0)} points, design ${fmt(nD, 0)} points; ${fmt(allTriangles, 0)} Delaunay triangles in all (delaunator)`,
+    `Integrated over the ${over} survey's ${fmt(t.triangles, 0)} triangles (the denser one), the other surface's heights interpolated at their corners`,
+    `Shared footprint (inside both convex hulls) ${fmtArea(footprintArea, unit)}; ${fmt(t.clipped, 0)} boundary triangles clipped to the other hull`,
+    'Per triangle, depth d = existing - design runs linearly between corners; V = A (d1 + d2 + d3) / 3, split exactly along d = 0',
+    `Cut ${fmtVolume(cut, unit)}, fill ${fmtVolume(fill, unit)}, net ${fmtVolume(cut - fill, unit)}`,
   ];
   if (unit === 'ft') trail.push('Cubic feet divided by 27 for CY');
-  return { unit, cut, fill, net: cut - fill, volumeUnit: volumeUnitOf(unit), footprintArea, areaUnit: areaUnitOf(unit), existingPoints: nE, designPoints: nD, passes, trail };
+  return {
+    unit,
+    cut,
+    fill,
+    net: cut - fill,
+    volumeUnit: volumeUnitOf(unit),
+    footprintArea,
+    areaUnit: areaUnitOf(unit),
+    existingPoints: nE,
+    designPoints: nD,
+    pass: { over, triangles: t.triangles, clippedTriangles: t.clipped },
+    trail,
+  };
 }
