@@ -47,9 +47,12 @@ export function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
   const width = doc.page.width - left - doc.page.margins.right;
 
   doc.rect(0, 0, doc.page.width, 6).fill(SPRUCE);
-  doc.fillColor(INK).font('bold').fontSize(16).text(`Pay application No. ${app.number}`, left, 24, { continued: app.revision > 0 });
-  if (app.revision > 0) doc.font('body').fontSize(11).fillColor(STONE).text(`   revision ${app.revision}`);
+  const title = `Pay application No. ${app.number}`;
+  doc.fillColor(INK).font('bold').fontSize(16).text(title, left, 22, { lineBreak: false });
+  const titleWidth = doc.widthOfString(title);
+  if (app.revision > 0) doc.font('body').fontSize(10).fillColor(STONE).text(`revision ${app.revision}`, left + titleWidth + 10, 28, { lineBreak: false });
   doc.font('body').fontSize(10).fillColor(INK);
+  doc.text('', left, 46);
   doc.text(`${f.projectName}${f.contractNumber ? `  -  contract ${f.contractNumber}` : ''}${f.location ? `  -  ${f.location}` : ''}`);
   doc.text(`Period ${app.periodStart} to ${app.periodEnd}${app.isFinal ? '  (final)' : ''}   Status: ${app.status.replace('_', ' ')}`);
   doc.fillColor(STONE).text(`Subcontractor: ${f.parties.subcontractor}   General contractor: ${f.parties.generalContractor}   Owner: ${f.parties.owner}`);
@@ -60,7 +63,7 @@ export function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
     const y = doc.y;
     doc.font('bold').fontSize(7.5).fillColor(STONE);
     for (const c of COLS) {
-      doc.text(c.title, x, y, { width: c.w - 4, align: c.align });
+      doc.text(c.title, x, y, { width: c.w - (c.align === 'right' ? 10 : 4), align: c.align });
       x += c.w;
     }
     doc.moveTo(left, doc.y + 2).lineTo(left + width, doc.y + 2).strokeColor('#c9cdc9').lineWidth(0.5).stroke();
@@ -82,7 +85,7 @@ export function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
     let bottom = y;
     doc.font('body').fontSize(8).fillColor(INK);
     for (const c of COLS) {
-      doc.text(cells[c.key], x, y, { width: c.w - 4, align: c.align });
+      doc.text(cells[c.key], x, y, { width: c.w - (c.align === 'right' ? 10 : 4), align: c.align });
       bottom = Math.max(bottom, doc.y);
       x += c.w;
     }
@@ -134,9 +137,10 @@ export function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
     doc.font('bold').fontSize(8.5).fillColor(INK).text(role, x, sigY, { width: sigW });
     doc.font('body').fontSize(8).fillColor(STONE).text(company, x, doc.y, { width: sigW });
     doc.moveTo(x, sigY + 48).lineTo(x + sigW, sigY + 48).strokeColor(INK).stroke();
-    doc.text(`${caption}   Signature and date`, x, sigY + 52, { width: sigW });
+    doc.text(caption, x, sigY + 52, { width: sigW });
+    doc.text('Signature and date', x, doc.y, { width: sigW });
   });
-  doc.font('body').fontSize(7).fillColor(STONE).text('Quantities follow the contract\'s measurement provisions; payment follows the contract and the governing statute. Tallyard is not legal advice.', left, sigY + 78, { width });
+  doc.font('body').fontSize(7).fillColor(STONE).text('Quantities follow the contract\'s measurement provisions; payment follows the contract and the governing statute. Tallyard is not legal advice.', left, sigY + 84, { width });
   doc.end();
   return done;
 }
