@@ -26,6 +26,7 @@ import { projectsRouter } from './modules/projects/projects.routes';
 import { varianceRouter } from './modules/variance/variance.routes';
 import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
 import { paymentsRouter, stripeWebhookRouter } from './modules/payments/payments.routes';
+import { lienWaiversRouter } from './modules/lien-waivers/lien-waivers.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
 import type { AppContext } from './app-context';
 
@@ -84,7 +85,7 @@ export function createApp(deps: AppDeps): Express {
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
-  app.use('/api', paymentsRouter(ctx));
+  app.use('/api', paymentsRouter(ctx), lienWaiversRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

@@ -1,0 +1,86 @@
+import { isFrozen } from '../../../src/shared/domain/pay-app-status';
+import type { IssueLienWaiverInput, LienWaiverView, ProjectLienWaiversView } from '../../../src/shared/schemas/payment';
+import type { AppContext } from '../../app-context';
+import type { Actor } from '../../lib/actor';
+import { AppError, notFound } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.repository';
+import { isUuid, loadProjectAccess } from '../projects/project-access';
+import { canReadProject } from '../projects/projects.policy';
+import { findPayApp } from '../payments/payments.repository';
+import { renderWaiverPdf } from './lien-waiver-pdf';
+import { canIssueWaiver, waiverOptions } from './lien-waivers.policy';
+import { presentWaiver } from './lien-waivers.presenter';
+import * as repo from './lien-waivers.repository';
+
+const rethrowAs = (what: string) => (err: unknown) => {
+  throw err instanceof AppError && err.status === 404 ? notFound(what) : err;
+};
+
+async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule = canReadProject) {
+  const app = isUuid(payAppId) ? await findPayApp(ctx.db, payAppId) : undefined;
+  if (!app) throw notFound('The pay application');
+  const access = await loadProjectAccess(ctx.db, actor, app.projectId, rule).catch(rethrowAs('The pay application'));
+  return { app, ...access };
+}
+
+export async function listForProject(ctx: AppContext, actor: Actor, projectId: string): Promise<ProjectLienWaiversView> {
+  const { project } = await loadProjectAccess(ctx.db, actor, projectId);
+  const apps = (await repo.payAppsOf(ctx.db, projectId)).filter((a) => isFrozen(a.status));
+  const waivers = await repo.listWaivers(ctx.db, { projectId });
+  const numbers = new Map(apps.map((a) => [a.id, a.number]));
+  const payApps = [];
+  for (const a of apps) {
+    const options = waiverOptions(a, await repo.paymentsOf(ctx.db, a.id), waivers.filter((w) => w.payAppId === a.id));
+    payApps.push({ id: a.id, number: a.number, status: a.status, periodEnd: a.periodEnd, isFinal: a.isFinal, options });
+  }
+  return { state: project.state, payApps, waivers: waivers.map((w) => presentWaiver(w, numbers.get(w.payAppId) ?? 0)) };
+}
+
+/**
+ * The subcontractor issues one waiver: the form must be allowed now (unconditional only after the payment
+ * settled), the PDF is rendered and stored, then the row and its audit event are written in one transaction.
+ */
+export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: string, input: IssueLienWaiverInput): Promise<LienWaiverView> {
+  const { app, project } = await loadPayApp(ctx, actor, payAppId, canIssueWaiver);
+  const issued = await repo.listWaivers(ctx.db, { payAppId });
+  const option = waiverOptions(app, await repo.paymentsOf(ctx.db, app.id), issued).find((o) => o.kind === input.kind);
+  if (!option) throw new AppError(409, 'WAIVER_NOT_ALLOWED', `This is ${app.isFinal ? 'the final' : 'a progress'} application: use the ${app.isFinal ? 'final' : 'progress'} waiver forms.`);
+  if (!option.allowed) throw new AppError(409, 'WAIVER_NOT_ALLOWED', option.reason ?? 'This waiver cannot be issued now.');
+  const signedAt = new Date();
+  const [claimant, customer, owner] = await Promise.all([
+    repo.companyName(ctx.db, project.subcontractorCompanyId),
+    repo.companyName(ctx.db, project.generalContractorCompanyId),
+    repo.companyName(ctx.db, project.ownerCompanyId),
+  ]);
+  const pdf = await renderWaiverPdf({
+    kind: input.kind, state: project.state, project: project.name, location: project.location, claimant, customer, owner,
+    payAppNumber: app.number, amountCents: option.amountCents, throughDate: app.periodEnd, signedName: input.signedName,
+    signedByEmail: actor.email, signedAt, paymentRef: option.paymentId,
+  });
+  const stored = await ctx.storage.put(pdf, 'lien-waivers');
+  try {
+    const row = await ctx.db.transaction(async (tx) => {
+      const row = await repo.insertWaiver(tx, {
+        projectId: app.projectId, payAppId: app.id, paymentId: option.paymentId, kind: input.kind, amountCents: option.amountCents,
+        throughDate: app.periodEnd, signedName: input.signedName, signedByUserId: actor.userId, signedAt, storageKey: stored.key,
+      });
+      await recordAudit(tx, {
+        projectId: app.projectId, actorUserId: actor.userId, objectType: 'lien_waiver', objectId: row.id, action: 'lien_waiver.issued',
+        after: { kind: row.kind, amountCents: row.amountCents, throughDate: row.throughDate, signedName: row.signedName, paymentId: row.paymentId, sha256: stored.sha256 },
+      });
+      return row;
+    });
+    return presentWaiver(row, app.number);
+  } catch (err) {
+    await ctx.storage.remove(stored.key);
+    throw err;
+  }
+}
+
+export async function waiverPdf(ctx: AppContext, actor: Actor, waiverId: string) {
+  const row = isUuid(waiverId) ? await repo.findWaiver(ctx.db, waiverId) : undefined;
+  if (!row) throw notFound('The lien waiver');
+  await loadProjectAccess(ctx.db, actor, row.projectId).catch(rethrowAs('The lien waiver'));
+  const app = (await findPayApp(ctx.db, row.payAppId))!;
+  return { bytes: await ctx.storage.get(row.storageKey), filename: `lien-waiver-pa${app.number}-${row.kind.replace(/_/g, '-')}.pdf` };
+}
