@@ -1,4 +1,4 @@
-import { Plus, Trash2 } from 'lucide-react';
+import { Plus } from 'lucide-react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import type { LengthUnit } from '@/shared/constants';
@@ -8,6 +8,7 @@ import { readNumber } from '../lib/csv';
 import { issueAt } from '../lib/live-calc';
 import { unitLabels } from '../lib/units';
 import { NumberCell } from './number-field';
+import { RemoveRowButton } from './worksheet-columns';
 
 export type StationRow = { station: number; cutArea: number; fillArea: number };
 export type StationCell = keyof StationRow;
@@ -56,9 +57,7 @@ export function StationsTable({ unit, rows, values, issues, register, onRemove, 
                     <NumberCell label={`Row ${i + 1} fill area`} error={issueAt(issues, `stations.${i}.fillArea`)} registration={register(i, 'fillArea')} />
                   </td>
                   <td className="pt-1">
-                    <Button variant="ghost" size="icon-sm" aria-label={`Remove row ${i + 1}`} onClick={() => onRemove(i)}>
-                      <Trash2 />
-                    </Button>
+                    <RemoveRowButton label={`Remove row ${i + 1}`} onClick={() => onRemove(i)} />
                   </td>
                 </tr>
               );

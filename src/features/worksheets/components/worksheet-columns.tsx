@@ -1,4 +1,6 @@
+import { Trash2 } from 'lucide-react';
 import type * as React from 'react';
+import { Button } from '@/components/ui/button';
 import { Card, CardBody } from '@/components/ui/card';
 
 /** Inputs on the left, the live result on the right (stacked on narrow screens). */
@@ -10,5 +12,23 @@ export function WorksheetColumns({ inputs, result }: { inputs: React.ReactNode; 
       </Card>
       <div className="space-y-4">{result}</div>
     </div>
+  );
+}
+
+/** The inputs form: never submitted (the result is live); the label names it for screen readers. */
+export function WorksheetForm({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <form noValidate aria-label={label} className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+      {children}
+    </form>
+  );
+}
+
+/** The trash button at the end of an editable row. */
+export function RemoveRowButton({ label, onClick }: { label: string; onClick: () => void }) {
+  return (
+    <Button variant="ghost" size="icon-sm" aria-label={label} onClick={onClick}>
+      <Trash2 />
+    </Button>
   );
 }

@@ -7,10 +7,11 @@ import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { ResultPanel } from '../components/result-panel';
 import { stationValue, StationsTable, type StationRow } from '../components/stations-table';
-import { WorksheetColumns } from '../components/worksheet-columns';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { fmt2, unitLabels } from '../lib/units';
 import { AreaProfileChart } from './area-profile-chart';
 import { readSections, sampleSectionCsv, type WorkedSection } from './section-file';
@@ -41,8 +42,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const stations = useFieldArray({ control: form.control, name: 'stations' });
   const values = useWatch({ control: form.control }) as EndAreaForm;
   const input = useJsonValue({ unit, ...values });
-  const { result, issues } = useLiveCalc('end-area', input);
-  useReportInputs(input, result !== null, onInputs);
+  const { result, issues } = useWorksheetCalc('end-area', input, onInputs);
   const u = unitLabels(unit);
 
   const readFile = (next: string) => {
@@ -62,7 +62,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Cross sections" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Cross sections">
           <FileSource
             label="Cross sections (CSV or LandXML)"
             hint="CSV rows: station, surface (ground or design), offset, elevation. LandXML: <CrossSect sta> with two <CrossSectSurf>. The areas below are worked from them, to 0.01."
@@ -81,7 +81,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             </Field>
           </div>
           <StationsTable unit={unit} rows={stations.fields} values={values.stations} issues={issues} register={register} onRemove={stations.remove} onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })} />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

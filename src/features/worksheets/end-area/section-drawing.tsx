@@ -32,8 +32,8 @@ export function SectionDrawing({ section, unit }: { section: WorkedSection; unit
         <polyline points={path(section.ground)} fill="none" stroke="#66361f" strokeWidth={2} />
         <polyline points={path(section.design)} fill="none" stroke="#1c1917" strokeWidth={1.5} strokeDasharray="6 3" />
         <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} stroke="#a8a29e" />
-        {[x0, (x0 + x1) / 2, x1].map((o) => (
-          <text key={o} x={x(o)} y={H - 10} fontSize={10} textAnchor="middle" fill="#57534e">
+        {([[x0, 'start'], [(x0 + x1) / 2, 'middle'], [x1, 'end']] as const).map(([o, anchor]) => (
+          <text key={anchor} x={x(o)} y={H - 10} fontSize={10} textAnchor={anchor} fill="#57534e">
             {fmt2(o)} {unit}
           </text>
         ))}

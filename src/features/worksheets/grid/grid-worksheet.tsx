@@ -5,7 +5,7 @@ import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { parseGridRows } from '../lib/csv';
 import { issueAt, useDebounced, useLiveCalc } from '../lib/live-calc';
 import { useJsonValue, useReportInputs } from '../lib/stable';
@@ -40,7 +40,7 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Grid levels" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Grid levels">
           <div className="grid grid-cols-2 gap-3">
             <NumberField label="Node spacing across (x)" unit={u.length} error={issueAt(issues, 'spacingX')} registration={form.register('spacingX', n)} />
             <NumberField label="Node spacing down (y)" unit={u.length} error={issueAt(issues, 'spacingY')} registration={form.register('spacingY', n)} />
@@ -53,7 +53,7 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             rows={8}
           />
           <FileIssues issues={parsed.issues} fileLabel="Node depths" />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

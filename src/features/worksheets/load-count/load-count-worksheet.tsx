@@ -1,4 +1,4 @@
-import { Plus, Trash2 } from 'lucide-react';
+import { Plus } from 'lucide-react';
 import { useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
@@ -7,11 +7,12 @@ import { FileSource } from '../components/file-source';
 import { MaterialPicker } from '../components/material-picker';
 import { NumberCell, NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
+import { RemoveRowButton, WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { parseNumberTable, type FileIssue } from '../lib/csv';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { ConvertCard } from './convert-card';
 import { TicketsChart } from './tickets-chart';
@@ -27,8 +28,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
   const loads = useFieldArray({ control: form.control, name: 'loads' });
   const values = useWatch({ control: form.control }) as LoadForm;
   const input = useJsonValue({ ...values, unit });
-  const { result, issues } = useLiveCalc('load-count', input);
-  useReportInputs(input, result !== null, onInputs);
+  const { result, issues } = useWorksheetCalc('load-count', input, onInputs);
   const [csv, setCsv] = useState('');
   const [fileIssues, setFileIssues] = useState<FileIssue[]>([]);
   const u = unitLabels(unit);
@@ -45,7 +45,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Truck tickets" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Truck tickets">
           <div className="grid grid-cols-2 items-start gap-3">
             <NumberField label="Swell" unit="%" error={issueAt(issues, 'swellPercent')} registration={form.register('swellPercent', n)} hint="Loose over bank, less one" />
             <MaterialPicker onPick={(m) => form.setValue('swellPercent', m.swellPercent)} />
@@ -65,7 +65,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
                   <td className="num pt-2 text-stone-600">{i + 1}</td>
                   <td className="pt-1 pr-2"><NumberCell label={`Line ${i + 1} capacity`} error={issueAt(issues, `loads.${i}.capacity`)} registration={form.register(`loads.${i}.capacity`, n)} /></td>
                   <td className="pt-1 pr-2"><NumberCell label={`Line ${i + 1} loads`} error={issueAt(issues, `loads.${i}.count`)} registration={form.register(`loads.${i}.count`, n)} /></td>
-                  <td className="pt-1"><Button variant="ghost" size="icon-sm" aria-label={`Remove line ${i + 1}`} onClick={() => loads.remove(i)}><Trash2 /></Button></td>
+                  <td className="pt-1"><RemoveRowButton label={`Remove line ${i + 1}`} onClick={() => loads.remove(i)} /></td>
                 </tr>
               ))}
             </tbody>
@@ -73,7 +73,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
           <Button variant="secondary" size="sm" onClick={() => loads.append({ capacity: NaN, count: NaN })}><Plus aria-hidden /> Add line</Button>
           <FileSource label="Tickets from a spreadsheet" hint="CSV rows of capacity, loads (a header row is skipped); replaces the lines above" value={csv} onChange={readTickets} rows={3} placeholder={'capacity,loads\n14,38'} />
           <FileIssues issues={fileIssues} fileLabel="Tickets" after="The lines above stay as they were until the file reads without problems." />
-        </form>
+        </WorksheetForm>
       }
       result={
         <>

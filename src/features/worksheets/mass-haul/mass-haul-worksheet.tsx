@@ -6,10 +6,11 @@ import type { LengthUnit, MassHaulFactorKind } from '@/shared/constants';
 import { NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
 import { stationValue, StationsTable, type StationRow } from '../components/stations-table';
-import { WorksheetColumns } from '../components/worksheet-columns';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { MassHaulChart } from './mass-haul-chart';
 
@@ -45,8 +46,7 @@ export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: Workshe
     ...(Number.isFinite(values.balanceLine) ? { balanceLine: values.balanceLine } : {}),
     ...(Number.isFinite(values.price) ? { overhaulPriceCents: Math.round(values.price * 100) } : {}),
   });
-  const { result, issues } = useLiveCalc('mass-haul', input, 150);
-  useReportInputs(input, result !== null, onInputs);
+  const { result, issues } = useWorksheetCalc('mass-haul', input, onInputs, 150);
   const u = unitLabels(unit);
   const n = { valueAsNumber: true } as const;
   const register = (k: number, cell: keyof StationRow) =>
@@ -56,7 +56,7 @@ export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: Workshe
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Mass haul" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Mass haul">
           <div className="grid grid-cols-2 gap-3">
             <Field label="Fill adjusted by">
               {(c) => <Select {...c} {...form.register('kind')} options={[{ value: 'shrinkage', label: 'Shrinkage (earth)' }, { value: 'swell', label: 'Swell (rock)' }]} />}
@@ -67,7 +67,7 @@ export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: Workshe
             <NumberField label="Overhaul price" unit={`$ per ${ou}`} hint="Optional" error={issueAt(issues, 'overhaulPriceCents')} registration={form.register('price', n)} />
           </div>
           <StationsTable unit={unit} rows={stations.fields} values={values.stations} issues={issues} register={register} onRemove={stations.remove} onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })} />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

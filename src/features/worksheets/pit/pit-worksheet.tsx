@@ -2,10 +2,11 @@ import { useForm, useWatch } from 'react-hook-form';
 import type { LengthUnit } from '@/shared/constants';
 import { NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { PitDrawing } from './pit-drawing';
 
@@ -29,14 +30,13 @@ export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const values = useWatch({ control: form.control }) as PitForm;
   const { sideSlope, ...rest } = values;
   const input = useJsonValue({ unit, ...rest, ...(Number.isFinite(sideSlope) && sideSlope > 0 ? { sideSlope } : {}) });
-  const { result, issues } = useLiveCalc('pit', input);
-  useReportInputs(input, result !== null, onInputs);
+  const { result, issues } = useWorksheetCalc('pit', input, onInputs);
   const u = unitLabels(unit);
   const n = { valueAsNumber: true } as const;
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Pit corners" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Pit corners">
           <div className="grid grid-cols-2 gap-3">
             <NumberField label="Bottom length" unit={u.length} error={issueAt(issues, 'length')} registration={form.register('length', n)} />
             <NumberField label="Bottom width" unit={u.length} error={issueAt(issues, 'width')} registration={form.register('width', n)} />
@@ -54,7 +54,7 @@ export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             error={issueAt(issues, 'sideSlope')}
             registration={form.register('sideSlope', n)}
           />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

@@ -7,10 +7,11 @@ import { Cautions } from '../components/cautions';
 import { MaterialPicker } from '../components/material-picker';
 import { NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { SpoilDrawing } from './spoil-drawing';
 
@@ -31,14 +32,13 @@ export function SpoilWorksheet({ unit, initial, defaults, onInputs }: WorksheetP
   const values = useWatch({ control: form.control }) as SpoilForm;
   const { length, ...rest } = values;
   const input = useJsonValue({ unit, ...rest, ...(values.shape === 'bank' ? { length } : {}) });
-  const { result, issues } = useLiveCalc('spoil', input);
-  useReportInputs(input, result !== null, onInputs);
+  const { result, issues } = useWorksheetCalc('spoil', input, onInputs);
   const u = unitLabels(unit);
   const n = { valueAsNumber: true } as const;
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Spoil planner" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Spoil planner">
           <div className="grid grid-cols-2 gap-3">
             <Field label="Shape">
               {(c) => <Select {...c} {...form.register('shape')} options={[{ value: 'bank', label: 'Bank along the trench' }, { value: 'pile', label: 'Pile (cone)' }]} />}
@@ -57,7 +57,7 @@ export function SpoilWorksheet({ unit, initial, defaults, onInputs }: WorksheetP
             }}
           />
           <Cautions items={result?.cautions ?? [`Keep the toe of the spoil and equipment at least ${dualLength('spoilSetback', unit)} from the excavation edge, or retain it (29 CFR 1926.651(j)(2)).`]} />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
+import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import type { WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
 import { PlanChart } from './plan-chart';
@@ -19,13 +19,13 @@ export function SurfaceWorksheet({ unit }: WorksheetProps) {
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Surface to surface" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Surface to surface">
           <FileSource label={`Existing survey (${u.length})`} hint={HINT} value={texts.existing} onChange={(t) => setTexts((s) => ({ ...s, existing: t }))} accept=".csv,.txt,.xml,.landxml" />
           <FileIssues issues={work?.fileIssues.existing ?? []} fileLabel="Existing survey" />
           <FileSource label={`Design survey (${u.length})`} hint={HINT} value={texts.design} onChange={(t) => setTexts((s) => ({ ...s, design: t }))} accept=".csv,.txt,.xml,.landxml" />
           <FileIssues issues={work?.fileIssues.design ?? []} fileLabel="Design survey" />
           {busy ? <p role="status" className="text-xs text-stone-600">Triangulating in the background…</p> : null}
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

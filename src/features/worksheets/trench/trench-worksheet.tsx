@@ -1,4 +1,4 @@
-import { Plus, Trash2 } from 'lucide-react';
+import { Plus } from 'lucide-react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
@@ -8,10 +8,11 @@ import { dualLength } from '@/shared/domain/earthwork/trench-slopes';
 import { Cautions } from '../components/cautions';
 import { NumberCell } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
-import { WorksheetColumns } from '../components/worksheet-columns';
-import { issueAt, useLiveCalc } from '../lib/live-calc';
-import { useJsonValue, useReportInputs } from '../lib/stable';
+import { RemoveRowButton, WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
+import { issueAt } from '../lib/live-calc';
+import { useJsonValue } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
+import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { TrenchDrawing } from './trench-drawing';
 
@@ -51,8 +52,7 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const values = useWatch({ control: form.control }) as TrenchForm;
   const { soilClass, ...rest } = values;
   const input = useJsonValue({ unit, ...rest, ...(soilClass ? { soilClass } : {}) });
-  const outcome = useLiveCalc('trench', input);
-  useReportInputs(input, outcome.result !== null, onInputs);
+  const outcome = useWorksheetCalc('trench', input, onInputs);
   const u = unitLabels(unit);
   const { result, issues } = outcome;
   const deepest = result ? result.runs.reduce((best, r, i) => (r.depth > result.runs[best]!.depth ? i : best), 0) : 0;
@@ -61,7 +61,7 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   return (
     <WorksheetColumns
       inputs={
-        <form noValidate aria-label="Trench runs" className="space-y-4" onSubmit={(e) => e.preventDefault()}>
+        <WorksheetForm label="Trench runs">
           <div className="grid grid-cols-2 gap-3">
             <Field label="Protection" error={issueAt(issues, 'protection')}>
               {(c) => <Select {...c} {...form.register('protection')} options={TRENCH_PROTECTIONS.map((p) => ({ value: p, label: PROTECTION_LABELS[p] }))} />}
@@ -94,9 +94,7 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
                     </td>
                   ))}
                   <td className="pt-1">
-                    <Button variant="ghost" size="icon-sm" aria-label={`Remove run ${i + 1}`} onClick={() => runs.remove(i)}>
-                      <Trash2 />
-                    </Button>
+                    <RemoveRowButton label={`Remove run ${i + 1}`} onClick={() => runs.remove(i)} />
                   </td>
                 </tr>
               ))}
@@ -114,7 +112,7 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
               ]
             }
           />
-        </form>
+        </WorksheetForm>
       }
       result={
         <ResultPanel

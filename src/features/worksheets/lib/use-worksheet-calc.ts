@@ -1,0 +1,15 @@
+import type { CalcMethod } from '@/shared/constants';
+import { useLiveCalc } from './live-calc';
+import { useReportInputs } from './stable';
+
+/** A worksheet's live result, and its inputs reported to the screen whenever they give one. */
+export function useWorksheetCalc<M extends CalcMethod>(
+  method: M,
+  input: unknown,
+  onInputs: (inputs: Record<string, unknown> | null) => void,
+  delayMs = 0,
+) {
+  const outcome = useLiveCalc(method, input, delayMs);
+  useReportInputs(input, outcome.result !== null, onInputs);
+  return outcome;
+}
