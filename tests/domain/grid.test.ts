@@ -66,7 +66,7 @@ describe('gridVolume', () => {
     expect(r.cut).toBeCloseTo(area * (2 + 0.3 * 2.5 + 0.7 * 2), 9);
   });
 
-  it('keeps the net exact for a plane crossing zero, with cut and fill split by the transition-square formula', () => {
+  it('keeps the net exact for a plane crossing zero, with cut and fill split by the transition-square formula (surveying texts, from memory)', () => {
     const depths = [0, 1, 2].map(() => [-1.5, -0.5, 0.5, 1.5, 2.5]);
     const r = gridVolume({ unit: 'm', spacingX: 1, spacingY: 1, depths });
     expect(r.net).toBeCloseTo(2 * (-1 + 0 + 1 + 2), 12);

@@ -23,7 +23,7 @@ describe('massHaul', () => {
     expect(r.ordinates.map((o) => o.ordinate)).toEqual([0, 750, 1500, 1500, 750, 0]);
   });
 
-  it('prices overhaul once to the cent (Garber and Hoel style: station-yards x $10)', () => {
+  it('prices overhaul once to the cent at a price per station unit (the Garber and Hoel problem\'s data is not in the reference, so only the arithmetic is checked)', () => {
     const r = massHaul({ unit: 'm', stations: metricExample, freeHaul: 20, overhaulPriceCents: 1000 });
     expect(r.overhaulAmountCents).toBe(9_000 * 10_00);
   });

@@ -15,7 +15,7 @@ function codeAndPath(fn: () => unknown): [string, string] {
 }
 
 describe('pitVolume', () => {
-  it('multiplies plan area by the mean corner depth (common practice)', () => {
+  it('multiplies plan area by the mean corner depth (common practice, reference section 1)', () => {
     const r = pitVolume({ unit: 'ft', length: 30, width: 18, cornerDepths: [4, 5, 6, 5] });
     expect(r.averageDepth).toBe(5);
     expect(r.volume).toBeCloseTo((30 * 18 * 5) / 27, 12);
@@ -81,7 +81,7 @@ describe('trenchVolume: OSHA 29 CFR 1926 Subpart P App. B, Table B-1', () => {
     expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'bench', soilClass: 'C', runs }))).toEqual(['BENCHING_NOT_ALLOWED', 'soilClass']);
   });
 
-  it('benches within the slope envelope: less than the sloped section, more than vertical sides', () => {
+  it('benches within the slope envelope in steps of at most 4 ft (App. B Figure B-1, from memory): less than the sloped section', () => {
     const runs = [{ length: 100, depth: 10, bottomWidth: 4 }];
     const bench = trenchVolume({ unit: 'ft', protection: 'bench', soilClass: 'B', runs });
     const slope = trenchVolume({ unit: 'ft', protection: 'slope', soilClass: 'B', runs });
