@@ -45,11 +45,13 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
   {
     path: 'change-orders',
     label: 'Change orders',
+    screen: () => import('./routes/project-change-orders'),
     summary: 'Added items and changed quantities or unit prices, proposed and approved.',
   },
   {
     path: 'quantity-watch',
     label: 'Quantity watch',
+    screen: () => import('./routes/project-quantity-watch'),
     summary: 'Forecast at completion against the contract quantity and the variation band.',
   },
   { path: 'payments', label: 'Payments', summary: 'Card and ACH payments of certified pay applications.' },
@@ -58,7 +60,7 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     path: 'people',
     label: 'People',
     screen: () => import('./routes/project-people'),
-    summary: 'Members and their roles.',
+    summary: 'Members, their roles, and invitations.',
   },
-  { path: 'trail', label: 'Trail', summary: 'Every change on this job: who, when, what, before and after.' },
+  { path: 'trail', label: 'Trail', screen: () => import('./routes/project-trail'), summary: 'Every change on this job: who, when, what, before and after.' },
 ];

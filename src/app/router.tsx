@@ -19,6 +19,7 @@ function tabRoute(tab: ProjectTab): RouteObject {
 /** Every screen is its own lazy chunk; loaders fetch through the same query options the screens read. */
 export const routes: RouteObject[] = [
   { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  { path: '/invitations/:token', lazy: () => import('./routes/invitation-accept'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
   {
     path: '/',
     lazy: () => import('./routes/app-layout'),
@@ -27,6 +28,7 @@ export const routes: RouteObject[] = [
     children: [
       { index: true, loader: () => redirect('/jobs'), Component: () => null },
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
+      { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
       {
         path: 'projects/:projectId',
         lazy: () => import('./routes/project-shell'),

@@ -1,5 +1,6 @@
 import { Link, NavLink, useNavigation } from 'react-router';
 import { UserMenu } from '@/features/auth/components/user-menu';
+import { MailboxLink } from '@/features/mailbox/components/mailbox-link';
 import { cn } from '@/lib/cn';
 
 export function AppHeader() {
@@ -21,7 +22,7 @@ export function AppHeader() {
             <Mark />
             Tallyard
           </Link>
-          <nav aria-label="Main">
+          <nav aria-label="Main" className="flex items-center gap-1">
             <NavLink
               to="/jobs"
               className={({ isActive }) =>
@@ -33,6 +34,7 @@ export function AppHeader() {
             >
               Jobs
             </NavLink>
+            <MailboxLink />
           </nav>
         </div>
         <UserMenu />

@@ -1,0 +1,22 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { changeOrdersQueryOptions } from '@/features/change-orders/api/change-orders';
+import { ChangeOrderList } from '@/features/change-orders/components/change-order-list';
+import { useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(changeOrdersQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  const canPropose = project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor');
+  return (
+    <>
+      <title>{`${project.name} · Change orders · Tallyard`}</title>
+      <ChangeOrderList projectId={projectId} canPropose={canPropose} ownerApproves={project.ownerApprovesChangeOrders} />
+    </>
+  );
+}

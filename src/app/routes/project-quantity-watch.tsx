@@ -1,0 +1,22 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useProject } from '@/features/projects/api/get-project';
+import { varianceQueryOptions } from '@/features/variance/api/variance';
+import { QuantityWatch } from '@/features/variance/components/quantity-watch';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(varianceQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  const canForecast = project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor');
+  return (
+    <>
+      <title>{`${project.name} · Quantity watch · Tallyard`}</title>
+      <QuantityWatch projectId={projectId} canForecast={canForecast} />
+    </>
+  );
+}
