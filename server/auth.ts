@@ -29,6 +29,11 @@ export type AuthOptions = {
   /** better-auth's per-IP rate limit; on unless NODE_ENV is test (the API tests sign in many times a second). */
   rateLimit?: boolean;
   signInGuard?: SignInGuard;
+  /**
+   * Replaces better-auth's scrypt hashing. Only the test suite passes one (a fast hash), so the hundreds of
+   * sign-ups and sign-ins in the API tests don't spend minutes in scrypt; production always uses scrypt.
+   */
+  passwordHasher?: { hash: (password: string) => Promise<string>; verify: (data: { hash: string; password: string }) => Promise<boolean> };
 };
 
 export function createAuth({ db, secret, baseURL, trustedOrigins, production, ...opts }: AuthOptions) {
@@ -45,6 +50,7 @@ export function createAuth({ db, secret, baseURL, trustedOrigins, production, ..
       minPasswordLength: MIN_PASSWORD_LENGTH,
       maxPasswordLength: MAX_PASSWORD_LENGTH,
       autoSignIn: true,
+      ...(opts.passwordHasher ? { password: opts.passwordHasher } : {}),
     },
     session: {
       expiresIn: SESSION_IDLE_SECONDS,

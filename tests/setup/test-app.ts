@@ -9,6 +9,7 @@ import { startLocalPayments } from '../../server/integrations/payments/local-pay
 import type { Standin } from '../../stripe-standin/src/index';
 import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
 import { createLogger } from '../../server/lib/logger';
+import { fastPasswordHasher } from './fast-password';
 import { createTestDatabase } from './test-db';
 
 export const TEST_ORIGIN = 'http://localhost:3000';
@@ -34,6 +35,7 @@ export async function createTestApp(): Promise<TestApp> {
     baseURL: TEST_ORIGIN,
     trustedOrigins: [TEST_ORIGIN],
     production: false,
+    passwordHasher: fastPasswordHasher,
   });
   const mailbox = await startSmtpSink();
   const storage = memoryStorage();

@@ -11,6 +11,7 @@ import type { Database } from '../../server/db/client';
 import { memoryStorage } from '../../server/integrations/storage/storage';
 import { createLogger } from '../../server/lib/logger';
 import { appOrigins } from '../../server/lib/origins';
+import { fastPasswordHasher } from './fast-password';
 import { createTestDatabase } from './test-db';
 
 /**
@@ -28,7 +29,7 @@ export async function startTestServer(
   const port = (server.address() as AddressInfo).port;
   const { trustedOrigins } = appOrigins(port, undefined);
   const baseURL = `http://127.0.0.1:${port}`;
-  const auth = createAuth({ db: database.db, secret: 'e2e-secret-e2e-secret-e2e-secret-0123456', baseURL, trustedOrigins, production: false });
+  const auth = createAuth({ db: database.db, secret: 'e2e-secret-e2e-secret-e2e-secret-0123456', baseURL, trustedOrigins, production: false, passwordHasher: fastPasswordHasher });
   await seedDemo(database.db, auth);
   const mailbox = await startSmtpSink();
   const { payments, standin } = await startLocalPayments({
