@@ -36,11 +36,13 @@ export function WorksheetsScreen({ projectId, units, canSave, bidItems, defaults
   const tally = useTally(tallyId);
   const asked = params.get('method');
   const method: WorksheetMethod = tally.data && isMethod(tally.data.tally.method) ? tally.data.tally.method : isMethod(asked) ? asked : 'end-area';
-  const [inputs, setInputs] = useState<Record<string, unknown> | null>(null);
+  // Tagged with their method: while the next worksheet's chunk loads, the last one's inputs must not be saved.
+  const [reported, setReported] = useState<{ method: WorksheetMethod; inputs: Record<string, unknown> | null } | null>(null);
   const [saving, setSaving] = useState(false);
   const [saved, setSaved] = useState<TallyView | null>(null);
   const create = useCreateTally(projectId);
-  const onInputs = useCallback((next: Record<string, unknown> | null) => setInputs(next), []);
+  const onInputs = useCallback((next: Record<string, unknown> | null) => setReported({ method, inputs: next }), [method]);
+  const inputs = reported?.method === method ? reported.inputs : null;
   const Screen = WORKSHEET_SCREENS[method];
   const saveable = SAVEABLE_METHODS.has(method);
   const initial = tally.data && tally.data.tally.method === method ? tally.data.tally.inputs : null;
