@@ -54,8 +54,8 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     screen: () => import('./routes/project-quantity-watch'),
     summary: 'Forecast at completion against the contract quantity and the variation band.',
   },
-  { path: 'payments', label: 'Payments', summary: 'Card and ACH payments of certified pay applications.' },
-  { path: 'waivers', label: 'Waivers', summary: 'Conditional and unconditional lien waivers tied to payments.' },
+  { path: 'payments', label: 'Payments', screen: () => import('./routes/project-payments'), summary: 'Card and ACH payments of certified pay applications.' },
+  { path: 'waivers', label: 'Waivers', screen: () => import('./routes/project-waivers'), summary: 'Conditional and unconditional lien waivers tied to payments.' },
   {
     path: 'people',
     label: 'People',

@@ -31,7 +31,7 @@ export function statutoryNotice(state: string): string {
   const where = statute
     ? `This project is in ${state.trim().toUpperCase()}, where ${statute} prescribe the waiver forms: the waiver must follow that statutory wording exactly, and a form that does not may be unenforceable.`
     : 'Where the project’s state prescribes a statutory waiver form (for example California Civil Code sections 8132 to 8138, or Texas Property Code section 53.284), the waiver must follow that wording.';
-  return `${where} This document is Tallyard’s own template, follows the contract and the governing statute, and is not legal advice; ask your counsel before relying on it.`;
+  return `${where} Tallyard’s waivers use its own template; waiver and payment rights follow the contract and the governing statute. This is not legal advice: ask your counsel before relying on a waiver.`;
 }
 
 /** The operative sentence of each form. */

@@ -1,0 +1,20 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useProject } from '@/features/projects/api/get-project';
+import { PaymentsScreen, projectPaymentsQueryOptions } from '@/features/payments';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(projectPaymentsQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  return (
+    <>
+      <title>{`${project.name} · Payments · Tallyard`}</title>
+      <PaymentsScreen projectId={projectId} canPay={project.myRoles.includes('owner')} />
+    </>
+  );
+}

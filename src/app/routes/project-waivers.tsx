@@ -1,0 +1,20 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { projectWaiversQueryOptions, WaiversScreen } from '@/features/lien-waivers';
+import { useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(projectWaiversQueryOptions(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  return (
+    <>
+      <title>{`${project.name} · Waivers · Tallyard`}</title>
+      <WaiversScreen projectId={projectId} canIssue={project.myRoles.includes('subcontractor')} />
+    </>
+  );
+}

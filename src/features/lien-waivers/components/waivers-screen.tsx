@@ -1,0 +1,93 @@
+import { Download, Scale } from 'lucide-react';
+import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { formatDate, formatMoney } from '@/lib/format';
+import { LIEN_WAIVER_SUMMARIES, LIEN_WAIVER_TITLES, statutoryNotice } from '@/shared/domain/lien-waiver-text';
+import type { LienWaiverView, ProjectLienWaiversView } from '@/shared/schemas/payment';
+import { useProjectWaivers } from '../api/get-waivers';
+import { IssueWaiverForm } from './issue-waiver-form';
+
+type AppEntry = ProjectLienWaiversView['payApps'][number];
+
+function IssuedList({ waivers }: { waivers: LienWaiverView[] }) {
+  if (waivers.length === 0) return <p className="text-sm text-stone-600">No waiver issued for this application yet.</p>;
+  return (
+    <ul className="flex flex-col gap-1.5 text-sm">
+      {waivers.map((w) => (
+        <li key={w.id} className="flex flex-wrap items-center gap-x-3 gap-y-1">
+          <span className="font-medium">{LIEN_WAIVER_TITLES[w.kind]}</span>
+          <span className="tabular-nums">{formatMoney(w.amountCents)}</span>
+          <span className="text-stone-600">
+            signed “{w.signedName}”, {formatDate(w.signedAt)}
+          </span>
+          <a href={w.downloadUrl} className="text-spruce-700 inline-flex items-center gap-1 underline-offset-2 hover:underline" download>
+            <Download aria-hidden className="size-3.5" /> PDF
+          </a>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function AppWaivers({ projectId, app, waivers, canIssue }: { projectId: string; app: AppEntry; waivers: LienWaiverView[]; canIssue: boolean }) {
+  const [signing, setSigning] = useState<string | null>(null);
+  return (
+    <Card aria-label={`Waivers for pay application ${app.number}`}>
+      <CardHeader>
+        <CardTitle>
+          Pay application No. {app.number}
+          {app.isFinal ? ' (final)' : ''} <span className="font-normal text-stone-600">· work through {formatDate(app.periodEnd)}</span>
+        </CardTitle>
+      </CardHeader>
+      <CardBody className="flex flex-col gap-3">
+        <IssuedList waivers={waivers.filter((w) => w.payAppId === app.id)} />
+        {canIssue ? (
+          <div className="grid gap-2 md:grid-cols-2">
+            {app.options.map((o) => (
+              <div key={o.kind} className="flex flex-col gap-1 rounded-md border border-stone-200 p-3">
+                <p className="text-sm font-medium">{LIEN_WAIVER_TITLES[o.kind]}</p>
+                <p className="text-xs text-stone-600">{LIEN_WAIVER_SUMMARIES[o.kind]}</p>
+                {o.allowed ? (
+                  signing === o.kind ? (
+                    <IssueWaiverForm projectId={projectId} payAppId={app.id} option={o} onDone={() => setSigning(null)} />
+                  ) : (
+                    <div>
+                      <Button size="sm" onClick={() => setSigning(o.kind)}>
+                        Issue for {formatMoney(o.amountCents)}
+                      </Button>
+                    </div>
+                  )
+                ) : (
+                  <p className="text-xs text-stone-500">{o.reason}</p>
+                )}
+              </div>
+            ))}
+          </div>
+        ) : null}
+      </CardBody>
+    </Card>
+  );
+}
+
+/** The Waivers tab: the statutory notice, then per certified application its waivers and (for the subcontractor) what may be issued. */
+export function WaiversScreen({ projectId, canIssue }: { projectId: string; canIssue: boolean }) {
+  const query = useProjectWaivers(projectId);
+  if (query.isPending) return <LoadingState label="Loading waivers…" />;
+  if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  const { payApps, waivers, state } = query.data;
+  return (
+    <div className="flex flex-col gap-4">
+      <aside className="border-clay-200 bg-clay-50 text-clay-900 flex gap-2 rounded-md border px-3 py-2 text-sm" aria-label="Statutory forms">
+        <Scale aria-hidden className="mt-0.5 size-4 shrink-0" />
+        <p>{statutoryNotice(state)}</p>
+      </aside>
+      {payApps.length === 0 ? (
+        <EmptyState title="No certified pay applications yet">Waivers can be issued once an application is certified.</EmptyState>
+      ) : (
+        payApps.map((a) => <AppWaivers key={a.id} projectId={projectId} app={a} waivers={waivers} canIssue={canIssue} />)
+      )}
+    </div>
+  );
+}

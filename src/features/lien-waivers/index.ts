@@ -1,0 +1,2 @@
+export { WaiversScreen } from './components/waivers-screen';
+export { projectWaiversQueryOptions } from './api/get-waivers';

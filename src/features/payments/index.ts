@@ -1,0 +1,2 @@
+export { PaymentsScreen } from './components/payments-screen';
+export { projectPaymentsQueryOptions } from './api/get-payments';
