@@ -1,7 +1,10 @@
 // @vitest-environment jsdom
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router';
 import { afterEach, describe, expect, it } from 'vitest';
+import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-screen';
 import { parseNumberTable, readNumber } from '@/features/worksheets/lib/csv';
 import { readLandXmlSurfaces } from '@/features/worksheets/lib/landxml';
 import { TrenchWorksheet } from '@/features/worksheets/trench/trench-worksheet';
@@ -66,5 +69,32 @@ describe('Worksheet file readers', () => {
   it('reads station text 12+50 as 1250 ft (100 ft stations, common practice)', () => {
     expect(readNumber('12+50')).toBe(1250);
     expect(readNumber('12+50.5')).toBe(1250.5);
+  });
+});
+
+describe('Worksheets screen', () => {
+  function renderScreen(canSave: boolean) {
+    const screenElement = (
+      <WorksheetsScreen projectId="p1" units="us" canSave={canSave} bidItems={[]} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} />
+    );
+    const router = createMemoryRouter([{ path: '/', element: screenElement }], { initialEntries: ['/?method=trench'] });
+    render(
+      <QueryClientProvider client={new QueryClient()}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>,
+    );
+  }
+
+  it('offers Save as tally to the subcontractor once the worksheet has a result', async () => {
+    renderScreen(true);
+    await screen.findByRole('region', { name: 'Result' });
+    expect((await screen.findByRole('button', { name: 'Save as tally' })).hasAttribute('disabled')).toBe(false);
+  });
+
+  it('leaves other roles a calculator without Save', async () => {
+    renderScreen(false);
+    await screen.findByRole('region', { name: 'Result' });
+    expect(screen.queryByRole('button', { name: 'Save as tally' })).toBeNull();
+    expect(screen.getByText(/Calculator only/)).toBeTruthy();
   });
 });
