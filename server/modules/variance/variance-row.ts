@@ -27,6 +27,7 @@ export function watchRow(clause: WatchClause, inputs: WatchInputs): VarianceRowV
   const band = bandForItem(clause.preset, clause.custom, inputs.isMajor);
   let status: WatchStatus = 'no_band';
   let result: ReturnType<typeof quantityVariance> | null = null;
+  let projected = true;
   if (band && contract > 0) {
     result = quantityVariance({ contractQuantity: contract, forecastQuantity: forecastAtCompletion, unitPriceCents: item.unitPriceCents, band, preset: clause.preset });
     status = result.status === 'within' && isEarlyWarning(contract, forecastAtCompletion, band) ? 'early_warning' : result.status;
@@ -34,6 +35,7 @@ export function watchRow(clause: WatchClause, inputs: WatchInputs): VarianceRowV
     // being worked is not short of its band, so the under side waits for a forecast.
     if (!forecast && forecastAtCompletion < contract) {
       status = 'within';
+      projected = false;
       result = { ...result, quantityBeyondBand: 0 };
     }
   }
@@ -51,7 +53,7 @@ export function watchRow(clause: WatchClause, inputs: WatchInputs): VarianceRowV
     pending,
     forecast,
     forecastAtCompletion,
-    variancePercent: contract > 0 ? roundTo(((forecastAtCompletion - contract) / contract) * 100, 2) : null,
+    variancePercent: contract > 0 && projected ? roundTo(((forecastAtCompletion - contract) / contract) * 100, 2) : null,
     band: band && result ? { ...band, lower: roundTo(result.band.lower, 4), upper: roundTo(result.band.upper, 4) } : null,
     status,
     quantityBeyondBand: beyond,

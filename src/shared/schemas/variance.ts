@@ -30,7 +30,7 @@ export type VarianceRowView = {
   forecast: { quantity: number; note: string; updatedAt: string; updatedBy: string } | null;
   /** The forecast, or approved + pending when there is none. */
   forecastAtCompletion: number;
-  /** Null when the contract quantity is zero. */
+  /** Null when the contract quantity is zero, or with no forecast while the quantity to date is short of it. */
   variancePercent: number | null;
   band: { overPercent: number; underPercent: number; lower: number; upper: number } | null;
   status: WatchStatus;

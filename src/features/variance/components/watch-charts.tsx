@@ -6,13 +6,17 @@ import { WATCH_BADGES } from './watch-status-badge';
 
 const AXIS = { fontSize: 11, fill: '#5f594f' };
 
-function ChartCard({ title, note, children }: { title: string; note: string; children: React.ReactElement }) {
+function ChartCard({ title, note, empty, children }: { title: string; note: string; empty: string | null; children: React.ReactElement }) {
   return (
     <Card>
       <CardHeader><CardTitle>{title}</CardTitle></CardHeader>
       <CardBody>
         <p className="mb-2 text-xs text-stone-600">{note}</p>
-        <div className="h-56"><ResponsiveContainer width="100%" height="100%">{children}</ResponsiveContainer></div>
+        {empty ? (
+          <p className="flex h-56 items-center justify-center rounded border border-dashed border-stone-300 text-sm text-stone-500">{empty}</p>
+        ) : (
+          <div className="h-56"><ResponsiveContainer width="100%" height="100%">{children}</ResponsiveContainer></div>
+        )}
       </CardBody>
     </Card>
   );
@@ -22,7 +26,7 @@ function ChartCard({ title, note, children }: { title: string; note: string; chi
 export function WatchCharts({ view }: { view: VarianceView }) {
   const items = view.rows.filter((r) => r.variancePercent !== null);
   const variance = items.map((r) => ({ item: r.itemNumber, variance: r.variancePercent ?? 0, status: r.status }));
-  const toDate = items.map((r) => ({
+  const toDate = view.rows.filter((r) => r.currentContractQuantity > 0 && r.approvedToDate + r.pending > 0).map((r) => ({
     item: r.itemNumber,
     approved: Math.round((r.approvedToDate / r.currentContractQuantity) * 1000) / 10,
     pending: Math.round((r.pending / r.currentContractQuantity) * 1000) / 10,
@@ -30,7 +34,7 @@ export function WatchCharts({ view }: { view: VarianceView }) {
   const earned = view.periods.map((p) => ({ period: `No. ${p.number}`, earned: p.earnedToDateCents / 100, end: p.periodEnd }));
   return (
     <div className="grid gap-4 lg:grid-cols-3">
-      <ChartCard title="Variance by item" note="Forecast at completion against the contract quantity, in percent.">
+      <ChartCard title="Variance by item" note="Forecast at completion against the contract quantity, in percent." empty={variance.length ? null : 'No forecasts yet'}>
         <BarChart data={variance} margin={{ left: -10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="item" tick={AXIS} />
@@ -42,7 +46,7 @@ export function WatchCharts({ view }: { view: VarianceView }) {
           </Bar>
         </BarChart>
       </ChartCard>
-      <ChartCard title="Earned to date by period" note="Earned to date on each pay application past draft.">
+      <ChartCard title="Earned to date by period" note="Earned to date on each pay application past draft." empty={earned.length ? null : 'No pay application submitted yet'}>
         <LineChart data={earned} margin={{ left: 10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="period" tick={AXIS} />
@@ -51,7 +55,7 @@ export function WatchCharts({ view }: { view: VarianceView }) {
           <Line type="monotone" dataKey="earned" stroke="#1f5040" strokeWidth={2} dot={{ r: 3 }} />
         </LineChart>
       </ChartCard>
-      <ChartCard title="Quantity to date against the contract" note="Approved and pending quantity as a percent of each item's contract quantity.">
+      <ChartCard title="Quantity to date against the contract" note="Approved and pending quantity as a percent of each item's contract quantity." empty={toDate.length ? null : 'Nothing billed yet'}>
         <BarChart data={toDate} margin={{ left: -10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="item" tick={AXIS} />

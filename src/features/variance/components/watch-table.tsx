@@ -35,7 +35,7 @@ export function WatchTable({ rows, canForecast }: Props) {
         {rows.map((r) => (
           <TableRow key={r.bidItemId} className={cn((r.status === 'over' || r.status === 'under') && 'bg-brick-50/40')}>
             <TableCell className="font-medium">{r.itemNumber}{r.isMajor ? <span className="ml-1 text-xs text-stone-500">major</span> : null}</TableCell>
-            <TableCell className="max-w-64 truncate" title={r.description}>{r.description}</TableCell>
+            <TableCell className="max-w-48 truncate" title={r.description}>{r.description}</TableCell>
             <TableCell className="num">{formatQuantity(r.currentContractQuantity, r.payUnit)}</TableCell>
             <TableCell className="num">{formatQuantity(r.approvedToDate, r.payUnit)}</TableCell>
             <TableCell className="num">{formatQuantity(r.pending, r.payUnit)}</TableCell>
@@ -59,6 +59,7 @@ export function WatchTable({ rows, canForecast }: Props) {
                 <Button
                   size="sm"
                   variant="secondary"
+                  title="Draft a change order for the quantity beyond the band"
                   disabled={draft.isPending}
                   onClick={() =>
                     draft.mutate(r.draftChangeOrderPath!, {
