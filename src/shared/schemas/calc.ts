@@ -11,7 +11,7 @@ import {
   type CalcMethod,
 } from '../constants';
 import { CALC_LIMITS } from './calc-limits';
-import { cents, finite, nonNegative, percent, pointRows, polyline, positive, stationList, unit } from './calc-fields';
+import { cents, finite, nodeRows, nonNegative, percent, pointRows, polyline, positive, stationList, unit } from './calc-fields';
 
 export { CALC_LIMITS } from './calc-limits';
 
@@ -32,25 +32,12 @@ export const endAreaSchema = z.strictObject({
   zeroAreaEnds: z.enum(ZERO_AREA_END_RULES).optional(),
 });
 
-export const gridSchema = z
-  .strictObject({
-    unit,
-    spacingX: positive,
-    spacingY: positive,
-    depths: z
-      .array(z.array(finite.nullable()).min(2, 'At least 2 nodes a row'))
-      .min(2, 'At least 2 rows')
-      .max(CALC_LIMITS.gridNodes),
-  })
-  .superRefine((grid, ctx) => {
-    const cols = grid.depths[0]?.length ?? 0;
-    const bad = grid.depths.findIndex((row) => row.length !== cols);
-    if (bad >= 0) {
-      ctx.addIssue({ code: 'custom', message: `Row ${bad} has ${grid.depths[bad]!.length} nodes; row 0 has ${cols}`, path: ['depths', bad] });
-    } else if (grid.depths.length * cols > CALC_LIMITS.gridNodes) {
-      ctx.addIssue({ code: 'custom', message: `At most ${CALC_LIMITS.gridNodes} nodes`, path: ['depths'] });
-    }
-  });
+export const gridSchema = z.strictObject({
+  unit,
+  spacingX: positive,
+  spacingY: positive,
+  depths: nodeRows(CALC_LIMITS.gridNodes),
+});
 
 export const pitSchema = z.strictObject({
   unit,
