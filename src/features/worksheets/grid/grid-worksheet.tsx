@@ -1,17 +1,21 @@
 import { useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
+import { Field } from '@/components/ui/field';
+import { Select } from '@/components/ui/select';
 import type { LengthUnit } from '@/shared/constants';
 import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { NumberField } from '../components/number-field';
 import { ResultPanel } from '../components/result-panel';
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
-import { parseGridRows } from '../lib/csv';
 import { issueAt, useDebounced, useLiveCalc } from '../lib/live-calc';
 import { useJsonValue, useReportInputs } from '../lib/stable';
 import type { WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
+import { gridDepths, type GridEntry } from './grid-source';
 import { HeatMap } from './heat-map';
+
+const PASTE = 'Paste from a spreadsheet or upload CSV.';
 
 type GridForm = { spacingX: number; spacingY: number };
 
@@ -26,12 +30,24 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const start = (initial ?? {}) as { spacingX?: number; spacingY?: number; depths?: unknown };
   const spacing = (u: LengthUnit) => (u === 'ft' ? 25 : 10);
   const form = useForm<GridForm>({ defaultValues: { spacingX: start.spacingX ?? spacing(unit), spacingY: start.spacingY ?? spacing(unit) } });
-  const [text, setText] = useState(() => (initial ? depthsText(start.depths) : SAMPLE.join('\n')));
-  const heldText = useDebounced(text, text.length > 20_000 ? 400 : 0);
-  const parsed = useMemo(() => parseGridRows(heldText), [heldText]);
+  const [entry, setEntry] = useState<GridEntry>('depths');
+  const [texts, setTexts] = useState(() => ({ depths: initial ? depthsText(start.depths) : SAMPLE.join('\n'), existing: '', design: '' }));
+  const size = texts.depths.length + texts.existing.length + texts.design.length;
+  const held = useDebounced(texts, size > 20_000 ? 400 : 0);
+  const parsed = useMemo(() => gridDepths(entry, held), [entry, held]);
+  const edit = (key: keyof typeof texts) => (t: string) => setTexts((x) => ({ ...x, [key]: t }));
+  const switchEntry = (next: GridEntry) => {
+    setEntry(next);
+    // The sample as elevations: an invented pad at 250.00 over the same ground.
+    if (next === 'elevations' && !texts.existing && !texts.design) {
+      const shift = (t: string, f: (d: number) => number) => t.split('\n').map((r) => r.split(',').map((c) => (c.trim() === '-' ? '-' : f(Number(c)).toFixed(2))).join(', ')).join('\n');
+      const rows = SAMPLE.join('\n');
+      setTexts((x) => ({ ...x, existing: shift(rows, (d) => 250 + d), design: shift(rows, () => 250) }));
+    }
+  };
   const values = useWatch({ control: form.control }) as GridForm;
-  const size = useJsonValue(values);
-  const input = useMemo(() => ({ unit, ...size, depths: parsed.depths }), [unit, size, parsed.depths]);
+  const spacings = useJsonValue(values);
+  const input = useMemo(() => ({ unit, ...spacings, depths: parsed.depths }), [unit, spacings, parsed.depths]);
   const { result, issues } = useLiveCalc('grid', parsed.issues.length ? null : input, parsed.depths.length > 10_000 ? 300 : 0);
   useReportInputs(input, result !== null && parsed.issues.length === 0, onInputs);
   const u = unitLabels(unit);
@@ -45,13 +61,19 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             <NumberField label="Node spacing across (x)" unit={u.length} error={issueAt(issues, 'spacingX')} registration={form.register('spacingX', n)} />
             <NumberField label="Node spacing down (y)" unit={u.length} error={issueAt(issues, 'spacingY')} registration={form.register('spacingY', n)} />
           </div>
-          <FileSource
-            label={`Node depths (${u.length}), one grid row a line`}
-            hint="Cut positive, fill negative; an empty cell or - is outside the outline. Paste from a spreadsheet or upload CSV."
-            value={text}
-            onChange={(t) => setText(t)}
-            rows={8}
-          />
+          <Field label="Enter the grid as">
+            {(c) => (
+              <Select {...c} value={entry} onChange={(e) => switchEntry(e.target.value as GridEntry)} options={[{ value: 'depths', label: 'Node depths (cut +, fill −)' }, { value: 'elevations', label: 'Existing and design elevations' }]} />
+            )}
+          </Field>
+          {entry === 'depths' ? (
+            <FileSource label={`Node depths (${u.length}), one grid row a line`} hint={`Cut positive, fill negative; an empty cell or - is outside the outline. ${PASTE}`} value={texts.depths} onChange={edit('depths')} rows={8} />
+          ) : (
+            <>
+              <FileSource label={`Existing elevations (${u.length}), one grid row a line`} hint={`An empty cell or - is outside the outline. ${PASTE}`} value={texts.existing} onChange={edit('existing')} rows={5} />
+              <FileSource label={`Design elevations (${u.length}), same grid`} hint="Depth = existing − design at each node." value={texts.design} onChange={edit('design')} rows={5} />
+            </>
+          )}
           <FileIssues issues={parsed.issues} fileLabel="Node depths" />
         </WorksheetForm>
       }
