@@ -39,12 +39,12 @@ async function main() {
     production: env.NODE_ENV === 'production' && baseURL.startsWith('https:'),
   });
   const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
-  if (shouldSeed && (await seedDemo(database.db, auth))) logger.info('seeded the demo project');
+  const storage = localStorage(layout.uploads);
+  if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');
 
   const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
   const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
   if (mailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
-  const storage = localStorage(layout.uploads);
   const payments = await configurePayments(env, logger);
   const app = createApp({
     database,

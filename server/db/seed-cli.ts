@@ -2,6 +2,7 @@
 import { createAuth } from '../auth';
 import { loadEnv } from '../env';
 import { authSecret, dataDirLayout, lockDataDir } from '../lib/data-dir';
+import { localStorage } from '../integrations/storage/storage';
 import { appOrigins } from '../lib/origins';
 import { openDatabase } from './client';
 import { runMigrations } from './migrate';
@@ -22,6 +23,6 @@ const auth = createAuth({
   trustedOrigins,
   production: false,
 });
-console.log((await seedDemo(database.db, auth)) ? 'Seeded the demo project.' : 'The demo project is already there.');
+console.log((await seedDemo(database.db, auth, localStorage(layout.uploads))) ? 'Seeded the demo project.' : 'The demo project is already there.');
 await database.close();
 await unlock();

@@ -1,18 +1,23 @@
 import { eq } from 'drizzle-orm';
 import type { CompanyKind } from '../../src/shared/constants';
 import type { Auth } from '../auth';
+import type { Storage } from '../integrations/storage/storage';
+import { seedPayCycle } from './demo/seed-pay-cycle';
 import type { Db } from './client';
 import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from './demo/demo-data';
 import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
 import { recordAudit } from '../modules/audit/audit.repository';
 
 /**
- * Seeds the demo scenario once. Returns false when the demo project is already there (idempotent: a marker is
- * the general contractor's demo sign-in).
+ * Seeds the demo scenario once. Returns false when the demo is already there (idempotent: a marker is the
+ * general contractor's demo sign-in; the pay cycle has its own marker, a pay application on the demo project).
  */
-export async function seedDemo(db: Db, auth: Auth): Promise<boolean> {
+export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<boolean> {
   const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'gc@tallyard.test')).limit(1);
-  if (existing) return false;
+  if (existing) {
+    const [project] = await db.select({ id: projects.id }).from(projects).where(eq(projects.name, DEMO_PROJECT.name)).limit(1);
+    return project ? seedPayCycle(db, storage, project.id) : false;
+  }
 
   const userIds = new Map<string, string>();
   for (const person of DEMO_PEOPLE) {
@@ -22,7 +27,7 @@ export async function seedDemo(db: Db, auth: Auth): Promise<boolean> {
     userIds.set(person.email, created.user.id);
   }
 
-  await db.transaction(async (tx) => {
+  const projectId = await db.transaction(async (tx) => {
     const companyIds = {} as Record<CompanyKind, string>;
     for (const [kind, name] of Object.entries(DEMO_COMPANIES) as [CompanyKind, string][]) {
       const [row] = await tx.insert(companies).values({ kind, name }).returning({ id: companies.id });
@@ -56,6 +61,8 @@ export async function seedDemo(db: Db, auth: Auth): Promise<boolean> {
       action: 'demo.seeded',
       after: { bidItems: DEMO_BID_ITEMS.length },
     });
+    return projectId;
   });
+  await seedPayCycle(db, storage, projectId);
   return true;
 }

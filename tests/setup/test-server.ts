@@ -30,7 +30,8 @@ export async function startTestServer(
   const { trustedOrigins } = appOrigins(port, undefined);
   const baseURL = `http://127.0.0.1:${port}`;
   const auth = createAuth({ db: database.db, secret: 'e2e-secret-e2e-secret-e2e-secret-0123456', baseURL, trustedOrigins, production: false, passwordHasher: fastPasswordHasher });
-  await seedDemo(database.db, auth);
+  const storage = memoryStorage();
+  await seedDemo(database.db, auth, storage);
   const mailbox = await startSmtpSink();
   const { payments, standin } = await startLocalPayments({
     webhookTarget: `${baseURL}/api/webhooks/stripe`,
@@ -42,7 +43,7 @@ export async function startTestServer(
     auth,
     logger: createLogger('silent'),
     mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
-    storage: memoryStorage(),
+    storage,
     mailbox,
     payments,
     appUrl: baseURL,
