@@ -11,7 +11,8 @@ import type { ProjectRow } from '../projects/projects.repository';
 import * as repo from './variance.repository';
 import { watchRow } from './variance-row';
 
-const PENDING_STATUSES = ['submitted', 'in_review'] as const;
+/** Claimed but not certified: submitted, in review, or returned to the subcontractor with a dispute. */
+const PENDING_STATUSES = ['submitted', 'in_review', 'returned'] as const;
 
 export function clauseName(project: ProjectRow): string {
   return project.variationPreset === 'custom' ? 'the contract’s own band' : VARIANCE_BANDS[project.variationPreset].source;

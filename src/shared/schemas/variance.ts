@@ -25,7 +25,7 @@ export type VarianceRowView = {
   currentContractQuantity: number;
   /** On certified and paid pay applications. */
   approvedToDate: number;
-  /** On submitted pay applications and those in review. */
+  /** On submitted pay applications, those in review, and those returned with a dispute (still claimed). */
   pending: number;
   forecast: { quantity: number; note: string; updatedAt: string; updatedBy: string } | null;
   /** The forecast, or approved + pending when there is none. */
