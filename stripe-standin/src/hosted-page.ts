@@ -24,11 +24,13 @@ function page(session: CheckoutSession, message?: string): string {
         (a) => `<label><input type="radio" name="choice" value="bank:${a.account}"> <code>${a.account}</code> — ${esc(a.label)}</label>`,
       ).join('')}</fieldset>`
     : '';
+  const error = message ? `<p class="err" role="alert">${esc(message)}</p>` : '';
   const body =
     session.status === 'open'
-      ? `<form method="post">${cards}${banks}${message ? `<p class="err" role="alert">${esc(message)}</p>` : ''}<button type="submit">Confirm test payment</button></form>`
-      : `<p>This checkout session is <strong>${session.status}</strong>.</p>`;
-  const back = session.cancel_url ? `<p><a href="${esc(session.cancel_url)}">Cancel and go back</a></p>` : '';
+      ? `<form method="post">${cards}${banks}${error}<button type="submit">Confirm test payment</button></form>`
+      : `${error}<p>This checkout session is <strong>${session.status}</strong>; start a new payment from the app.</p>`;
+  const backLabel = session.status === 'open' ? 'Cancel and go back' : 'Go back to the app';
+  const back = session.cancel_url ? `<p><a href="${esc(session.cancel_url)}">${backLabel}</a></p>` : '';
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Local test checkout</title>
 <meta name="viewport" content="width=device-width,initial-scale=1"><style>${STYLE}</style></head><body><main>
 <p class="banner">Local test checkout — no real money moves. This page belongs to the development stand-in.</p>

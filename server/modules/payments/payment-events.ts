@@ -29,6 +29,13 @@ function fromSession(s: Stripe.Checkout.Session, to: PaymentStatus, method: Paym
   };
 }
 
+/** "Your card was declined (generic_decline)": the processor's sentence with its code. */
+function failureText(error: Stripe.PaymentIntent.LastPaymentError | null): string {
+  const text = (error?.message ?? 'The payment failed').replace(/\.$/, '');
+  const code = error?.decline_code ?? error?.code;
+  return code ? `${text} (${code})` : text;
+}
+
 function fromIntent(pi: Stripe.PaymentIntent, to: PaymentStatus, note: string): PaymentSignal {
   const error = pi.last_payment_error;
   return {
@@ -38,7 +45,7 @@ function fromIntent(pi: Stripe.PaymentIntent, to: PaymentStatus, note: string): 
     to,
     amountCents: pi.amount,
     method: asMethod(pi.payment_method_types[0]),
-    failureMessage: to === 'failed' ? (error?.message ?? 'The payment failed.') + (error?.decline_code ? ` (${error.decline_code})` : error?.code ? ` (${error.code})` : '') : null,
+    failureMessage: to === 'failed' ? failureText(error) : null,
     note,
   };
 }

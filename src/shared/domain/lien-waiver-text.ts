@@ -18,8 +18,8 @@ export const LIEN_WAIVER_SUMMARIES: Record<LienWaiverKind, string> = {
 
 /** The state codes that prescribe the wording of lien waivers, where Tallyard knows of one (from memory). */
 const STATUTES: Record<string, string> = {
-  CA: 'California Civil Code sections 8132 to 8138',
-  TX: 'Texas Property Code section 53.284',
+  CA: 'California Civil Code sections 8132 to 8138 prescribe',
+  TX: 'Texas Property Code section 53.284 prescribes',
 };
 
 /**
@@ -29,7 +29,7 @@ const STATUTES: Record<string, string> = {
 export function statutoryNotice(state: string): string {
   const statute = STATUTES[state.trim().toUpperCase()];
   const where = statute
-    ? `This project is in ${state.trim().toUpperCase()}, where ${statute} prescribe the waiver forms: the waiver must follow that statutory wording exactly, and a form that does not may be unenforceable.`
+    ? `This project is in ${state.trim().toUpperCase()}, where ${statute} the waiver forms: a waiver must follow that statutory wording.`
     : 'Where the project’s state prescribes a statutory waiver form (for example California Civil Code sections 8132 to 8138, or Texas Property Code section 53.284), the waiver must follow that wording.';
   return `${where} Tallyard’s waivers use its own template; waiver and payment rights follow the contract and the governing statute. This is not legal advice: ask your counsel before relying on a waiver.`;
 }

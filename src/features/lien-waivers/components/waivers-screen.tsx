@@ -83,6 +83,7 @@ export function WaiversScreen({ projectId, canIssue }: { projectId: string; canI
         <Scale aria-hidden className="mt-0.5 size-4 shrink-0" />
         <p>{statutoryNotice(state)}</p>
       </aside>
+      {canIssue ? null : <p className="text-sm text-stone-600">The subcontractor issues and signs the waivers; everyone on the job can download them.</p>}
       {payApps.length === 0 ? (
         <EmptyState title="No certified pay applications yet">Waivers can be issued once an application is certified.</EmptyState>
       ) : (

@@ -14,7 +14,7 @@ function ReturnNotice({ data }: { data: ProjectPaymentsView }) {
   if (params.get('result') === 'canceled' && payment.status === 'created') return <Alert>Checkout was left without paying. Nothing was charged.</Alert>;
   if (payment.status === 'succeeded') return <Alert tone="success">Payment received. Receipts are on their way by e-mail.</Alert>;
   if (payment.status === 'processing') return <Alert tone="success">Bank debit started. It shows “Processing” until the bank confirms it.</Alert>;
-  if (payment.status === 'failed') return <Alert>The payment did not go through: {payment.failureMessage}. The balance is open again.</Alert>;
+  if (payment.status === 'failed') return <Alert>The payment did not go through: {payment.failureMessage}. The balance is open again; you can pay it below.</Alert>;
   if (payment.status === 'created') return <Alert tone="success">Waiting for the processor to confirm the payment…</Alert>;
   return null;
 }
