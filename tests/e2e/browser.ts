@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { buildClientIfStale } from '../../scripts/build-client';
 
 /** Debian's chromium package; never a downloaded browser. CHROMIUM_PATH overrides it. */
@@ -36,4 +36,14 @@ export async function launchBrowser(): Promise<Browser> {
       '--disable-sync',
     ],
   });
+}
+
+/** Signs a page in as one of the demo people (password tallyard-demo) and waits for the Jobs screen. */
+export async function signInDemo(page: Page, baseUrl: string, email: string): Promise<void> {
+  await page.goto(`${baseUrl}/`);
+  await page.waitForURL('**/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('tallyard-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL('**/jobs');
 }

@@ -5,7 +5,7 @@ import { projects, user } from '../../server/db/schema';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { waitForMail } from '../setup/payment-flow';
 import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser } from './browser';
+import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
 
 // Test values: Stripe's testing documentation (reference.md section 8). The demo has no certified application
 // yet, so this test writes two into the test server's database (numbers far from the demo's own).
@@ -31,14 +31,7 @@ afterAll(async () => {
   await server?.close();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/`);
-  await page.waitForURL('**/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('tallyard-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/jobs');
-}
+const signIn = (page: Page, email: string) => signInDemo(page, server.url, email);
 
 const shot = (page: Page, name: string) => (shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined);
 
