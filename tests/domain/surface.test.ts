@@ -108,3 +108,31 @@ describe('surface properties', () => {
     );
   });
 });
+
+describe('point location and sampling', () => {
+  it('finds the same heights by walking the mesh and by sweeping its triangles', async () => {
+    const { default: Delaunator } = await import('delaunator');
+    const { TinLocator } = await import('../../src/shared/domain/earthwork/surface-locate');
+    const { sampleOther } = await import('../../src/shared/domain/earthwork/surface-sample');
+    const tin = (pts: P3[]) => {
+      const coords = new Float64Array(pts.flatMap(([x, y]) => [x, y]));
+      const mesh = new Delaunator(coords);
+      return { mesh, coords, z: new Float64Array(pts.map((p) => p[2])), locator: new TinLocator(mesh, coords) };
+    };
+    const other = tin(survey(15, 12, 40, 30, (x, y) => Math.sin(x / 5) + y / 10, 8));
+    const own = tin(survey(23, 19, 50, 36, () => 0, 9).map(([x, y, z]): P3 => [x - 5, y - 3, z]));
+    const swept = sampleOther(own, other);
+    let inside = 0;
+    for (let i = 0; i < own.z.length; i++) {
+      const x = own.coords[2 * i]!, y = own.coords[2 * i + 1]!;
+      const t = other.locator.locate(x, y);
+      if (t < 0) {
+        expect(swept[i]).toBeNaN();
+        continue;
+      }
+      inside++;
+      expect(swept[i]).toBeCloseTo(other.locator.interpolate(t, x, y, other.z), 9);
+    }
+    expect(inside).toBeGreaterThan(200);
+  });
+});

@@ -2,7 +2,8 @@ import type Delaunator from 'delaunator';
 
 /**
  * Point location in a Delaunay triangulation by a visibility walk (it always ends on a Delaunay mesh), started
- * from a seed triangle of a coarse grid over the mesh's bounding box so each walk is a few steps long.
+ * from a seed triangle of a coarse grid over the mesh's bounding box (built on the first seeded query) or from
+ * the previous answer. Bulk sampling of one surface at another's vertices uses surface-sample.ts instead.
  * Coordinates are the shifted plan coordinates the mesh was built from.
  */
 export class TinLocator {
@@ -12,10 +13,10 @@ export class TinLocator {
   /** +1 or -1: the sign of cross(b - a, p - a) that puts p outside edge a -> b of a triangle. */
   private readonly outside: number;
   private seeds: Int32Array;
-  private readonly size: number;
-  private readonly minX: number;
-  private readonly minY: number;
-  private readonly cell: number;
+  private size = 1;
+  private minX = 0;
+  private minY = 0;
+  private cell = 1;
   private last = 0;
 
   constructor(mesh: Delaunator<Float64Array>, coords: Float64Array) {
@@ -24,9 +25,16 @@ export class TinLocator {
     this.coords = coords;
     const t = this.triangles;
     this.outside = -Math.sign(this.cross(t[0]!, t[1]!, coords[2 * t[2]!]!, coords[2 * t[2]! + 1]!)) || 1;
+    this.seeds = new Int32Array(0);
+  }
+
+  /** Seeds the grid (once, on the first seeded query): every other triangle fills cells of about 8 each. */
+  private seed(): void {
+    const t = this.triangles;
+    const c = this.coords;
     let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (let i = 0; i < coords.length; i += 2) {
-      const x = coords[i]!, y = coords[i + 1]!;
+    for (let i = 0; i < c.length; i += 2) {
+      const x = c[i]!, y = c[i + 1]!;
       if (x < minX) minX = x;
       if (x > maxX) maxX = x;
       if (y < minY) minY = y;
@@ -36,13 +44,6 @@ export class TinLocator {
     this.minX = minX;
     this.minY = minY;
     this.cell = Math.max(maxX - minX, maxY - minY, 1e-12) / this.size;
-    this.seeds = new Int32Array(0);
-  }
-
-  /** Seeds the grid (once, on the first seeded query): every other triangle fills cells of about 8 each. */
-  private seed(): void {
-    const t = this.triangles;
-    const c = this.coords;
     this.seeds = new Int32Array(this.size * this.size).fill(-1);
     for (let k = 0; 3 * k < t.length; k += 2) {
       const a = 2 * t[3 * k]!, b = 2 * t[3 * k + 1]!, d = 2 * t[3 * k + 2]!;

@@ -37,18 +37,6 @@ export function hullOf(tin: Tin): ClipHull {
   return { x, y, z, orientation: twice >= 0 ? 1 : -1 };
 }
 
-/** Heights of `other` at every vertex of `own` (NaN outside other's hull). */
-export function sampleOther(own: Tin, other: Tin): Float64Array {
-  const n = own.z.length;
-  const at = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const x = own.coords[2 * i]!, y = own.coords[2 * i + 1]!;
-    const t = other.locator.locate(x, y);
-    at[i] = t < 0 ? NaN : other.locator.interpolate(t, x, y, other.z);
-  }
-  return at;
-}
-
 /**
  * Own's triangles that hold a corner of other's hull: they can overlap other's footprint with all their own
  * corners outside it, so they are clipped too. The hull is walked in order, each search starting where the last
@@ -75,26 +63,40 @@ export function integratePass(own: Tin, otherAt: Float64Array, hull: ClipHull, m
   const acc = new Float64Array(3);
   const poly = new ClipPolygon(hull.x.length + 8);
   const scratch = new ClipPolygon(hull.x.length + 8);
+  // Depth per vertex once (NaN outside the other surface), so each triangle reads three numbers.
+  const depth = new Float64Array(z.length);
+  for (let i = 0; i < z.length; i++) depth[i] = sign * (z[i]! - otherAt[i]!);
+  // Uniform triangles add twice-area x depth sum here (divided by 6 at the end); mixed ones go through addTriangle.
+  let cut6 = 0;
+  let fill6 = 0;
+  let area2 = 0;
   let clipped = 0;
   for (let t = 0; t < tri.length; t += 3) {
     const a = tri[t]!, b = tri[t + 1]!, d = tri[t + 2]!;
-    const oa = otherAt[a]!, ob = otherAt[b]!, od = otherAt[d]!;
+    const da = depth[a]!, db = depth[b]!, dd = depth[d]!;
     const ax = c[2 * a]!, ay = c[2 * a + 1]!, bx = c[2 * b]!, by = c[2 * b + 1]!, dx = c[2 * d]!, dy = c[2 * d + 1]!;
-    if (oa === oa && ob === ob && od === od) {
-      const area = Math.abs((bx - ax) * (dy - ay) - (by - ay) * (dx - ax)) / 2;
-      addTriangle(area, sign * (z[a]! - oa), sign * (z[b]! - ob), sign * (z[d]! - od), acc);
+    if (da === da && db === db && dd === dd) {
+      const twice = Math.abs((bx - ax) * (dy - ay) - (by - ay) * (dx - ax));
+      const sum = da + db + dd;
+      if (da >= 0 && db >= 0 && dd >= 0) {
+        cut6 += twice * sum;
+        area2 += twice;
+      } else if (da <= 0 && db <= 0 && dd <= 0) {
+        fill6 -= twice * sum;
+        area2 += twice;
+      } else addTriangle(twice / 2, da, db, dd, acc);
       continue;
     }
-    if (!(oa === oa || ob === ob || od === od || marked[t / 3] === 1)) continue;
+    if (!(da === da || db === db || dd === dd || marked[t / 3] === 1)) continue;
     clipped++;
     poly.n = 0;
-    poly.push(ax, ay, oa);
-    poly.push(bx, by, ob);
-    poly.push(dx, dy, od);
+    poly.push(ax, ay, otherAt[a]!);
+    poly.push(bx, by, otherAt[b]!);
+    poly.push(dx, dy, otherAt[d]!);
     const out = clipToHull(poly, hull, scratch);
     addPolygon(out, own, t / 3, sign, acc);
   }
-  return { cut: acc[0]!, fill: acc[1]!, area: acc[2]!, triangles: tri.length / 3, clipped };
+  return { cut: acc[0]! + cut6 / 6, fill: acc[1]! + fill6 / 6, area: acc[2]! + area2 / 2, triangles: tri.length / 3, clipped };
 }
 
 /** Fan over a clipped (convex) polygon; own z from own triangle's plane, other z carried by the clip. */

@@ -1,6 +1,7 @@
 import Delaunator from 'delaunator';
 import { DomainError } from '../domain-error';
-import { hullOf, integratePass, markHullCorners, sampleOther, type PassTotals, type Tin } from './surface-pass';
+import { hullOf, integratePass, markHullCorners, type PassTotals, type Tin } from './surface-pass';
+import { sampleOther } from './surface-sample';
 import { TinLocator } from './surface-locate';
 import { fmt, fmtArea, fmtVolume, type Trail } from './trail';
 import { areaUnitOf, cubicToVolume, volumeUnitOf, type AreaUnit, type LengthUnit, type VolumeUnit } from './units';
