@@ -1,0 +1,40 @@
+import { existsSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { withinLimit, type MeasuredBench } from './measured';
+
+const DIST = path.resolve('dist');
+const LIMIT_KB = 150;
+
+/** The entry script of dist/index.html and every module it imports statically, transitively (not lazy ones). */
+export function initialScripts(): string[] {
+  const html = readFileSync(path.join(DIST, 'index.html'), 'utf8');
+  const entry = /<script[^>]+type="module"[^>]+src="([^"]+)"/.exec(html)?.[1];
+  if (!entry) throw new Error('dist/index.html has no module script');
+  const seen = new Set<string>();
+  const visit = (rel: string) => {
+    const file = path.join(DIST, rel.replace(/^\//, ''));
+    if (seen.has(file)) return;
+    seen.add(file);
+    const code = readFileSync(file, 'utf8');
+    // Static imports only: `import ... from "./x.js"`, `import "./x.js"`, `export ... from "./x.js"`.
+    for (const m of code.matchAll(/(?:^|[;\n}])\s*(?:import|export)\s*(?:[\w*{}\s,$]+from\s*)?["'](\.\/[^"']+\.js)["']/g)) {
+      visit(path.posix.join(path.posix.dirname(rel), m[1]!));
+    }
+  };
+  visit(entry);
+  return [...seen];
+}
+
+export const clientBundle: MeasuredBench = {
+  name: 'client-initial-js-gzip',
+  async measure() {
+    if (!existsSync(path.join(DIST, 'index.html'))) throw new Error('Build the client first: npm run build');
+    const files = initialScripts();
+    const bytes = files.reduce((sum, f) => sum + gzipSync(readFileSync(f), { level: 9 }).length, 0);
+    const kb = bytes / 1024;
+    // Reported in kB where the other entries report seconds: ratio = kB / 150.
+    const r = withinLimit(this.name, kb, LIMIT_KB, `limit ${LIMIT_KB} kB gzip; ${files.length} files, ${kb.toFixed(1)} kB`);
+    return { ...r, seconds: 0, baselineSeconds: 0 };
+  },
+};
