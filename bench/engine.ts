@@ -13,6 +13,7 @@ const grid: BenchEntry<Float64Array> = {
   budget: 2,
   // Runs take about a millisecond: many of them let the fastest of each side find a quiet moment.
   repeats: 200,
+  warmups: 20,
   setup: () => roundPitGrid(GRID),
   run: (values) => gridVolumeFromArray(values, GRID, GRID, 10, 10, 'ft'),
   runBaseline: (values) => {
@@ -44,7 +45,7 @@ const surface: BenchEntry<{ existing: Survey; design: Survey }> = {
   baseline: 'delaunator triangulation of both surveys alone',
   budget: 1.5,
   memoryBudgetMB: 1024,
-  repeats: 3,
+  repeats: 5,
   setup: () => ({
     existing: survey(1000, 1, (x, y) => 100 + 5 * Math.sin(x / 50) + 0.01 * y),
     design: survey(1000, 7, (x, y) => 101 + 0.002 * x + (Math.abs(x - 500) < 200 && Math.abs(y - 500) < 150 ? -2 : 0)),
@@ -61,7 +62,8 @@ const endAreas: BenchEntry<StationRows> = {
   // Beyond the rows every answer must carry, the engine validates, runs the spacing check, the
   // drop-every-other totals and writes the trail.
   budget: 2.5,
-  repeats: 20,
+  repeats: 60,
+  warmups: 15,
   setup: () => stations(100_000),
   run: (rows) => endAreaVolumes({ unit: 'ft', stations: rows }),
   runBaseline: (rows) => {

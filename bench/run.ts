@@ -30,8 +30,10 @@ async function measure(entry: BenchEntry<unknown>): Promise<BenchResult> {
   const sample = () => (sampled = Math.max(sampled, process.memoryUsage().rss));
   const ctx = await entry.setup();
   sample();
-  keep(entry.runBaseline(ctx));
-  keep(entry.run(ctx));
+  for (let i = 0; i < (entry.warmups ?? 1); i++) {
+    keep(entry.runBaseline(ctx));
+    keep(entry.run(ctx));
+  }
   sample();
   let seconds = Infinity;
   let baselineSeconds = Infinity;

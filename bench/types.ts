@@ -10,8 +10,10 @@ export interface BenchEntry<Ctx = unknown> {
   budget: number;
   /** Largest allowed peak resident memory of the benchmark's process, MB. */
   memoryBudgetMB?: number;
-  /** Timed runs of each side (the fastest counts); one untimed warm-up run of each comes first. */
+  /** Timed runs of each side (the fastest counts). */
   repeats: number;
+  /** Untimed runs of each side first (default 1): lets the JIT and the young heap settle. */
+  warmups?: number;
   setup(): Ctx | Promise<Ctx>;
   run(ctx: Ctx): unknown;
   runBaseline(ctx: Ctx): unknown;
