@@ -6,7 +6,7 @@ import { getActor } from '../../lib/actor';
 import { AppError } from '../../lib/app-error';
 
 /** Surfaces of up to 1,000,000 points each arrive as JSON: this route alone takes bodies up to this size. */
-export const CALC_BODY_LIMIT = '96mb';
+export const CALC_BODY_LIMIT = '128mb';
 
 /**
  * POST /api/calc/:method: the quantity engine for scripts and integrations (signed-in users). Pure computation:
