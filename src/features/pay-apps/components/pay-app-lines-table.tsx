@@ -14,7 +14,7 @@ const num = 'text-right tabular-nums whitespace-nowrap';
 export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
   const sum = (pick: (l: PayAppDetail['lines'][number]) => number) => app.lines.reduce((s, l) => s + pick(l), 0);
   return (
-    <Table>
+    <Table aria-label={`Lines of pay application ${app.number}`}>
       <TableHead>
         <tr>
           <TableHeaderCell>Item</TableHeaderCell>

@@ -35,7 +35,7 @@ export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: st
           {isOwner ? 'Applications appear here once the general contractor certifies them.' : canCreate ? 'Mark the period’s tallies ready, then compile the application for the period.' : 'The subcontractor has not compiled one yet.'}
         </EmptyState>
       ) : (
-        <Table>
+        <Table aria-label="Pay applications">
           <TableHead>
             <tr>
               <TableHeaderCell>No.</TableHeaderCell>
