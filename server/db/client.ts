@@ -29,6 +29,9 @@ export type DatabaseOptions =
 export async function openDatabase(options: DatabaseOptions): Promise<Database> {
   if (options.kind === 'postgres') {
     const pool = new pg.Pool({ connectionString: options.url, max: 10 });
+    // An idle connection the server ends (restart, failover, a dropped test database) must not crash the process;
+    // the pool replaces it on the next query.
+    pool.on('error', (err) => console.warn(`PostgreSQL connection lost: ${err.message}`));
     const db = drizzlePg(pool, { schema, casing: 'snake_case' }) as unknown as Db;
     return { db, kind: 'postgres', close: () => pool.end() };
   }
