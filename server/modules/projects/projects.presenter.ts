@@ -49,12 +49,14 @@ export function presentProject(
   totals: ProjectTotals,
   companies: ProjectView['companies'],
   members: ProjectMemberView[],
+  money: ProjectView['money'],
 ): ProjectView {
   return {
     ...presentProjectSummary(row, myRoles, totals),
     ...presentSettings(row),
     companies,
     members,
+    money,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };

@@ -1,7 +1,8 @@
-import { and, eq, inArray, or } from 'drizzle-orm';
+import { and, desc, eq, inArray, or } from 'drizzle-orm';
 import type { ProjectRole } from '../../../src/shared/constants';
 import type { Executor } from '../../db/client';
-import { bidItems, companies, companyMembers, projectMembers, projects, user } from '../../db/schema';
+import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
+import { bidItems, companies, companyMembers, payApps, projectMembers, projects, user } from '../../db/schema';
 
 export type ProjectRow = typeof projects.$inferSelect;
 
@@ -80,4 +81,13 @@ export async function listMembers(db: Executor, projectId: string) {
     .leftJoin(companies, eq(companies.id, companyMembers.companyId))
     .where(eq(projectMembers.projectId, projectId))
     .orderBy(projectMembers.role, user.name);
+}
+
+/** Certified (frozen) pay applications of a project, newest first: their earned, retainage and paid cents. */
+export async function certifiedPayApps(db: Executor, projectId: string) {
+  return db
+    .select({ number: payApps.number, earnedToDateCents: payApps.earnedToDateCents, retainageCents: payApps.retainageCents, paidCents: payApps.paidCents })
+    .from(payApps)
+    .where(and(eq(payApps.projectId, projectId), inArray(payApps.status, [...FROZEN_STATUSES])))
+    .orderBy(desc(payApps.number));
 }

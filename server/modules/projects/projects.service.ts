@@ -55,6 +55,12 @@ async function viewOf(db: Executor, project: repo.ProjectRow, roles: ProjectView
   const companyRows = await repo.findCompanies(db, companyIds);
   const members = await repo.listMembers(db, project.id);
   const totals = await totalsFor(db, [project.id]);
+  const certified = await repo.certifiedPayApps(db, project.id);
+  const money = {
+    earnedToDateCents: certified[0]?.earnedToDateCents ?? 0,
+    retainageHeldCents: certified[0]?.retainageCents ?? 0,
+    paidToDateCents: sumCents(certified.map((a) => a.paidCents)),
+  };
   const company = (id: string) => presentCompany(companyRows.find((c) => c.id === id)!);
   return presentProject(
     project,
@@ -66,6 +72,7 @@ async function viewOf(db: Executor, project: repo.ProjectRow, roles: ProjectView
       owner: company(project.ownerCompanyId),
     },
     members,
+    money,
   );
 }
 

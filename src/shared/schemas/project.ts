@@ -86,6 +86,8 @@ export type ProjectView = ProjectSummaryView &
   ProjectSettings & {
     companies: { subcontractor: CompanyView; generalContractor: CompanyView; owner: CompanyView };
     members: ProjectMemberView[];
+    /** From certified applications: earned and retainage held to date (the latest one), and paid to date. */
+    money: { earnedToDateCents: number; retainageHeldCents: number; paidToDateCents: number };
     createdAt: string;
     updatedAt: string;
   };

@@ -13,6 +13,9 @@ export function ProjectOverview({ project }: { project: ProjectView }) {
     <div className="flex flex-col gap-5">
       <dl className="grid grid-cols-2 gap-3 md:grid-cols-4">
         <Stat label="Contract sum" value={formatMoney(project.contractSumCents)} note="Original bid schedule" />
+        <Stat label="Earned to date" value={formatMoney(project.money.earnedToDateCents)} note="Latest certified pay app" />
+        <Stat label="Retainage held" value={formatMoney(project.money.retainageHeldCents)} note="Withheld to date" />
+        <Stat label="Paid to date" value={formatMoney(project.money.paidToDateCents)} note="Settled payments" />
         <Stat label="Bid items" value={project.bidItemCount} />
         <Stat label="Retainage" value={formatPercentBps(project.retainageBps)} note="Withheld per line" />
         <Stat
