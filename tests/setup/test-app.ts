@@ -1,15 +1,11 @@
 import type { Express } from 'express';
 import request from 'supertest';
-import { createApp } from '../../server/app';
-import { createAuth, type Auth } from '../../server/auth';
+import type { Auth } from '../../server/auth';
 import type { Database } from '../../server/db/client';
-import { smtpMailer } from '../../server/integrations/mailer/mailer';
-import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
-import { startLocalPayments } from '../../server/integrations/payments/local-payments';
+import type { SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import type { Standin } from '../../stripe-standin/src/index';
-import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
-import { createLogger } from '../../server/lib/logger';
-import { fastPasswordHasher } from './fast-password';
+import type { Storage } from '../../server/integrations/storage/storage';
+import { assembleTestApp } from './assemble-app';
 import { createTestDatabase } from './test-db';
 
 export const TEST_ORIGIN = 'http://localhost:3000';
@@ -29,36 +25,19 @@ export type TestApp = {
 /** The real app on a fresh test database, driven in-process by supertest. */
 export async function createTestApp(): Promise<TestApp> {
   const database = await createTestDatabase();
-  const auth = createAuth({
-    db: database.db,
-    secret: 'test-secret-test-secret-test-secret-0123',
+  const target: { app?: Express } = {};
+  const built = await assembleTestApp({
+    database,
     baseURL: TEST_ORIGIN,
     trustedOrigins: [TEST_ORIGIN],
-    production: false,
-    passwordHasher: fastPasswordHasher,
-  });
-  const mailbox = await startSmtpSink();
-  const storage = memoryStorage();
-  const target: { app?: Express } = {};
-  const { payments, standin } = await startLocalPayments({
     webhookTarget: async (payload, headers) => (await request(target.app!).post('/api/webhooks/stripe').set(headers).send(payload)).status,
     achSettleMs: Number.POSITIVE_INFINITY,
     retryDelaysMs: [50, 200],
   });
-  const app = createApp({
-    database,
-    auth,
-    logger: createLogger('silent'),
-    mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
-    storage,
-    mailbox,
-    payments,
-    appUrl: TEST_ORIGIN,
-  });
+  const { app, auth, mailbox, storage, standin } = built;
   target.app = app;
   const close = async () => {
-    await standin.close();
-    await mailbox.close();
+    await built.close();
     await database.close();
   };
   return { app, auth, database, mailbox, storage, standin, close };

@@ -1,17 +1,10 @@
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
-import { createApp } from '../../server/app';
-import { createAuth } from '../../server/auth';
-import { seedDemo } from '../../server/db/seed-demo';
-import { smtpMailer } from '../../server/integrations/mailer/mailer';
-import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
-import { startLocalPayments } from '../../server/integrations/payments/local-payments';
+import type { SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import type { Database } from '../../server/db/client';
-import { memoryStorage } from '../../server/integrations/storage/storage';
-import { createLogger } from '../../server/lib/logger';
 import { appOrigins } from '../../server/lib/origins';
-import { fastPasswordHasher } from './fast-password';
+import { assembleTestApp } from './assemble-app';
 import { createTestDatabase } from './test-db';
 
 /**
@@ -29,26 +22,17 @@ export async function startTestServer(
   const port = (server.address() as AddressInfo).port;
   const { trustedOrigins } = appOrigins(port, undefined);
   const baseURL = `http://127.0.0.1:${port}`;
-  const auth = createAuth({ db: database.db, secret: 'e2e-secret-e2e-secret-e2e-secret-0123456', baseURL, trustedOrigins, production: false, passwordHasher: fastPasswordHasher });
-  const storage = memoryStorage();
-  await seedDemo(database.db, auth, storage);
-  const mailbox = await startSmtpSink();
-  const { payments, standin } = await startLocalPayments({
+  const built = await assembleTestApp({
+    database,
+    baseURL,
+    trustedOrigins,
     webhookTarget: `${baseURL}/api/webhooks/stripe`,
     achSettleMs: opts.achSettleMs ?? Number.POSITIVE_INFINITY,
     retryDelaysMs: [100, 500],
-  });
-  const app = createApp({
-    database,
-    auth,
-    logger: createLogger('silent'),
-    mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
-    storage,
-    mailbox,
-    payments,
-    appUrl: baseURL,
+    seed: true,
     clientDir: path.resolve('dist'),
   });
+  const { app, mailbox, standin } = built;
   server.on('request', app);
   return {
     url: baseURL,
@@ -56,10 +40,9 @@ export async function startTestServer(
     database,
     standinUrl: standin.url,
     close: async () => {
-      await standin.close();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      await mailbox.close();
+      await built.close();
       await database.close();
     },
   };
