@@ -1,8 +1,10 @@
+import type { Request, Response } from 'express';
 import type { Db } from './db/client';
 import type { Payments } from './integrations/payments/payments';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
 import type { Logger } from './lib/logger';
+import type { ConfirmRecentAuth } from './middleware/require-recent-auth';
 import type { Outbox } from './modules/notifications/outbox';
 
 /** What a module's routes and services need from the app, built once by createApp. */
@@ -16,4 +18,13 @@ export type AppContext = {
   mailbox?: SmtpSink;
   /** Online payment (Stripe's SDK, or the local stand-in); absent when the server has none configured. */
   payments?: Payments;
+  /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
+  recentAuth: RecentAuth;
+};
+
+export type RecentAuth = {
+  /** Takes the typed password out of the body now; the returned check runs after the route's access checks. */
+  take: (req: Request, res: Response) => ConfirmRecentAuth;
+  /** A payment of more than this many cents needs a recent sign-in (or the password again). */
+  paymentAboveCents: number;
 };

@@ -13,6 +13,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
 import { requireActor } from './middleware/require-actor';
+import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { securityHeaders } from './middleware/security-headers';
 import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
@@ -44,7 +45,12 @@ export type AppDeps = {
   clientDir?: string;
   /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
   payments?: Payments;
+  /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
+  reauth?: { withinMinutes?: number; paymentAboveCents?: number };
 };
+
+/** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
+export const DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS = 1_000_000;
 
 export const JSON_BODY_LIMIT = '1mb';
 
@@ -60,6 +66,10 @@ export function createApp(deps: AppDeps): Express {
     appUrl: deps.appUrl,
     mailbox: deps.mailbox,
     payments: deps.payments,
+    recentAuth: {
+      take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
+      paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
+    },
   };
   const app = express();
   app.disable('x-powered-by');

@@ -16,6 +16,8 @@ const envSchema = z.object({
   STRIPE_SECRET_KEY: z.string().optional(),
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
+  REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
+  REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
   SEED_DEMO: z.enum(['auto', 'always', 'never']).default('auto'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });

@@ -55,6 +55,7 @@ async function main() {
     mailbox,
     payments: payments.payments,
     appUrl: baseURL,
+    reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
     clientDir: path.join(ROOT, 'dist'),
   });
   const server = createServer(app);

@@ -21,6 +21,9 @@ export type RecentAuthOptions = {
   now?: () => number;
 };
 
+/** A deferred re-authentication check: run it after the route's own access checks and before the change. */
+export type ConfirmRecentAuth = () => Promise<void>;
+
 /**
  * Re-authentication before a sensitive step (OWASP ASVS 4.0.3 3.7.1; OWASP API Security Top 10 2023 API2,
  * broken authentication): passes when the session's password sign-in is at most `withinMinutes` old, or when
@@ -28,47 +31,55 @@ export type RecentAuthOptions = {
  * REAUTH_REQUIRED (no password given) or REAUTH_FAILED (a wrong one). Mount after requireActor.
  */
 export function requireRecentAuth(options: RecentAuthOptions): RequestHandler {
-  const check = recentAuthCheck(options);
+  const take = recentAuthCheck(options);
   return async (req, res, next) => {
-    if (!options.when || (await options.when(req, res))) await check(req, res);
+    const confirm = take(req, res);
+    if (!options.when || (await options.when(req, res))) await confirm();
     next();
   };
 }
 
-/** The same check as a function, for a route that knows only inside its handler (after reading the amount). */
-export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res: Response) => Promise<void> {
+/**
+ * The same check for a route that knows only inside its handler (after its access checks, or after reading the
+ * amount): `take(req, res)` removes the typed password from the body at once, so the body's own schema never
+ * sees it, and returns the check to run later. Run it outside any database transaction: better-auth reads the
+ * password through its own connection.
+ */
+export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res: Response) => ConfirmRecentAuth {
   const { auth, withinMinutes = DEFAULT_REAUTH_MINUTES, now = Date.now } = options;
   const guard = options.guard ?? createSignInGuard(now);
-  return async (req, res) => {
-    const actor = getActor(res);
+  return (req, res) => {
     const body = req.body as Record<string, unknown> | undefined;
     const typed = body && typeof body === 'object' ? body[REAUTH_FIELD] : undefined;
     if (body && typeof body === 'object') delete body[REAUTH_FIELD];
-    if (typeof typed === 'string' && typed.length > 0) {
-      const wait = guard.retryAfter(actor.userId);
-      if (wait > 0) {
-        throw new AppError(429, 'REAUTH_BACKOFF', `Too many wrong passwords. Try again in ${wait} seconds.`);
+    return async () => {
+      const actor = getActor(res);
+      if (typeof typed === 'string' && typed.length > 0) {
+        const wait = guard.retryAfter(actor.userId);
+        if (wait > 0) {
+          throw new AppError(429, 'REAUTH_BACKOFF', `Too many wrong passwords. Try again in ${wait} seconds.`);
+        }
+        const ok = await auth.api
+          .verifyPassword({ body: { password: typed }, headers: fromNodeHeaders(req.headers) })
+          .then((r) => r.status === true)
+          .catch(() => false);
+        if (!ok) {
+          guard.recordFailure(actor.userId);
+          throw new AppError(403, 'REAUTH_FAILED', 'That password is not right. Enter your Tallyard password.', [
+            { path: REAUTH_FIELD, message: 'Wrong password.' },
+          ]);
+        }
+        guard.recordSuccess(actor.userId);
+        return;
       }
-      const ok = await auth.api
-        .verifyPassword({ body: { password: typed }, headers: fromNodeHeaders(req.headers) })
-        .then((r) => r.status === true)
-        .catch(() => false);
-      if (!ok) {
-        guard.recordFailure(actor.userId);
-        throw new AppError(403, 'REAUTH_FAILED', 'That password is not right. Enter your Tallyard password.', [
-          { path: REAUTH_FIELD, message: 'Wrong password.' },
-        ]);
-      }
-      guard.recordSuccess(actor.userId);
-      return;
-    }
-    const age = now() - getSessionInfo(res).createdAt.getTime();
-    if (age <= withinMinutes * 60_000) return;
-    throw new AppError(
-      403,
-      'REAUTH_REQUIRED',
-      `Enter your password again to confirm this step (you signed in more than ${withinMinutes} minutes ago).`,
-      [{ path: REAUTH_FIELD, message: 'Password required.' }],
-    );
+      const age = now() - getSessionInfo(res).createdAt.getTime();
+      if (age <= withinMinutes * 60_000) return;
+      throw new AppError(
+        403,
+        'REAUTH_REQUIRED',
+        `Enter your password again to confirm this step (you signed in more than ${withinMinutes} minutes ago).`,
+        [{ path: REAUTH_FIELD, message: 'Password required.' }],
+      );
+    };
   };
 }

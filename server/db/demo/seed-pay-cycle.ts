@@ -49,7 +49,9 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   const items = await db.select({ id: bidItems.id, itemNumber: bidItems.itemNumber }).from(bidItems).where(eq(bidItems.projectId, projectId));
   const itemIds = new Map(items.map((i) => [i.itemNumber, i.id]));
   const outboxBefore = new Set((await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id));
-  const ctx: AppContext = { db, storage, outbox: { flush: async () => {} }, logger: createLogger('silent'), appUrl: '' };
+  // The seed acts for the demo people without sessions: nothing to re-authenticate.
+  const noReauth = { take: () => async () => {}, paymentAboveCents: Number.MAX_SAFE_INTEGER };
+  const ctx: AppContext = { db, storage, outbox: { flush: async () => {} }, logger: createLogger('silent'), appUrl: '', recentAuth: noReauth };
 
   for (const [index, period] of DEMO_PAY_CYCLE.entries()) {
     await tallyPeriod(db, storage, sub, projectId, period, itemIds);

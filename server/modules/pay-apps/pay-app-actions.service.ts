@@ -5,6 +5,7 @@ import type { AppContext } from '../../app-context';
 import type { Executor } from '../../db/client';
 import { disputeComments, disputes, payAppLines } from '../../db/schema';
 import type { Actor } from '../../lib/actor';
+import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
 import { AppError, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { enqueueEmail } from '../notifications/outbox';
@@ -51,7 +52,8 @@ export async function submitPayApp(ctx: AppContext, actor: Actor, payAppId: stri
   });
 }
 
-export async function certifyPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: PayAppActionInput) {
+/** `confirmRecentAuth` runs after the access and state checks, so only someone who may certify is asked to sign in again. */
+export async function certifyPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: PayAppActionInput, confirmRecentAuth?: ConfirmRecentAuth) {
   const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
   const to = checkAction(app, 'certify', roles, input.expectedRevision);
   const lines = await repo.listLines(ctx.db, app.id);
@@ -59,6 +61,7 @@ export async function certifyPayApp(ctx: AppContext, actor: Actor, payAppId: str
   if (unapproved.length > 0) {
     throw new AppError(409, 'PAY_APP_LINES_NOT_APPROVED', `Every line must be approved before certifying; ${unapproved.length} is not.`, unapproved.map((l) => ({ path: `lines.${l.id}`, message: `Item ${l.itemNumber} is ${l.reviewStatus}` })));
   }
+  await confirmRecentAuth?.();
   return commit(ctx, app.id, async (tx) => {
     const row = await moveStatus(tx, app, [{ from: app.status, to }], actor.userId, { certifiedAt: new Date(), certifiedByUserId: actor.userId }, input.note);
     await audit(tx, actor, app, 'pay_app.certified', state(app), { ...state(row), certifiedAt: row.certifiedAt });

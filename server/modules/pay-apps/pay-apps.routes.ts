@@ -30,7 +30,8 @@ export function payAppsRouter(ctx: AppContext): Router {
     res.json({ payApp: await actions.revisePayApp(ctx, getActor(res), req.params.payAppId, revisePayAppSchema.parse(req.body)) });
   });
   router.post('/pay-apps/:payAppId/certify', async (req, res) => {
-    res.json({ payApp: await actions.certifyPayApp(ctx, getActor(res), req.params.payAppId, payAppActionSchema.parse(req.body ?? {})) });
+    const confirm = ctx.recentAuth.take(req, res);
+    res.json({ payApp: await actions.certifyPayApp(ctx, getActor(res), req.params.payAppId, payAppActionSchema.parse(req.body ?? {}), confirm) });
   });
   router.post('/disputes/:disputeId/comments', async (req, res) => {
     const { body } = disputeCommentSchema.parse(req.body);

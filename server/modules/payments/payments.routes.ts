@@ -15,8 +15,9 @@ export function paymentsRouter(ctx: AppContext): Router {
     res.json(await service.listForProject(ctx, getActor(res), req.params.projectId));
   });
   router.post('/pay-apps/:payAppId/payments', async (req, res) => {
+    const confirm = ctx.recentAuth.take(req, res);
     const input = createPaymentSchema.parse(req.body ?? {});
-    res.status(201).json(await service.startPayment(ctx, getActor(res), req.params.payAppId, input));
+    res.status(201).json(await service.startPayment(ctx, getActor(res), req.params.payAppId, input, confirm));
   });
   return router;
 }

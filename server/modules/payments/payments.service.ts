@@ -3,6 +3,7 @@ import type { CreatePaymentInput, PayAppPaymentsView, ProjectPaymentsView } from
 import type { AppContext } from '../../app-context';
 import type { Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
+import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
 import { AppError, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isFrozen } from '../../../src/shared/domain/pay-app-status';
@@ -62,10 +63,16 @@ async function expireEarlierAttempts(ctx: AppContext, actor: Actor, payAppId: st
  * Starts a payment: the amount comes from the certified application (never from the client), the row is saved
  * first, then Stripe is called outside any transaction, then the session id is stored.
  */
-export async function startPayment(ctx: AppContext, actor: Actor, payAppId: string, input: CreatePaymentInput) {
+export async function startPayment(ctx: AppContext, actor: Actor, payAppId: string, input: CreatePaymentInput, confirmRecentAuth?: ConfirmRecentAuth) {
   if (!ctx.payments) throw new AppError(503, 'PAYMENTS_UNAVAILABLE', 'Online payment is not configured on this server.');
   const { project } = await loadPayApp(ctx, actor, payAppId, canPay);
   await expireEarlierAttempts(ctx, actor, payAppId);
+  // Above the threshold the payer signs in again first; outside the transaction, since better-auth reads the
+  // password through its own connection. The amount is computed again under the row lock below.
+  const preview = await repo.findPayApp(ctx.db, payAppId);
+  const previewBalance = preview ? balanceCents(preview, await repo.processingCentsOf(ctx.db, preview.id)) : 0;
+  const previewAmount = chargeAmount(previewBalance, project.allowPartialPayments, input.partialAmountCents);
+  if (previewAmount.ok && previewAmount.amountCents > ctx.recentAuth.paymentAboveCents) await confirmRecentAuth?.();
   const payment = await ctx.db.transaction(async (tx) => {
     const app = (await repo.findPayApp(tx, payAppId, true))!;
     const balance = balanceCents(app, await repo.processingCentsOf(tx, app.id));
