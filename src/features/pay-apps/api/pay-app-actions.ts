@@ -22,7 +22,11 @@ export const useCreatePayApp = (projectId: string) =>
   usePayAppMutation((input: CreatePayAppInput) => post(`/api/projects/${encodeURIComponent(projectId)}/pay-apps`, input));
 
 export const useSubmitPayApp = (id: string) => usePayAppMutation((expectedRevision: number) => post(action(id, 'submit'), { expectedRevision }));
-export const useCertifyPayApp = (id: string) => usePayAppMutation((expectedRevision: number) => post(action(id, 'certify'), { expectedRevision }));
+/** Certifying may ask for the password again (REAUTH_REQUIRED); the dialog re-sends it as `reauthPassword`. */
+export const useCertifyPayApp = (id: string) =>
+  usePayAppMutation(({ expectedRevision, reauthPassword }: { expectedRevision: number; reauthPassword?: string }) =>
+    post(action(id, 'certify'), reauthPassword ? { expectedRevision, reauthPassword } : { expectedRevision }),
+  );
 export const useReviewPayApp = (id: string) => usePayAppMutation((input: ReviewPayAppInput) => post(action(id, 'review'), input));
 export const useRevisePayApp = (id: string) => usePayAppMutation((input: RevisePayAppInput) => post(action(id, 'revise'), input));
 

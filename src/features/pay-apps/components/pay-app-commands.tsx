@@ -3,7 +3,8 @@ import { useState } from 'react';
 import { toast } from 'sonner';
 import { Button, buttonVariants } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { errorMessage } from '@/lib/api-client';
+import { isReauthError, ReauthPassword } from '@/components/reauth-password';
+import { errorMessage, type ApiError } from '@/lib/api-client';
 import { formatMoney } from '@/lib/format';
 import type { PayAppDetail } from '@/shared/schemas/pay-app';
 import { useCertifyPayApp, useSubmitPayApp } from '../api/pay-app-actions';
@@ -12,20 +13,36 @@ type Ask = 'submit' | 'certify' | null;
 
 /** Exports for everyone; Submit for the subcontractor on a draft; Certify for the general contractor when all lines are approved. */
 export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub: boolean; isGc: boolean }) {
-  const [ask, setAsk] = useState<Ask>(null);
+  const [ask, setAskState] = useState<Ask>(null);
+  const [reauth, setReauth] = useState<ApiError | null>(null);
+  const [password, setPassword] = useState('');
+  const setAsk = (next: Ask) => {
+    setAskState(next);
+    setReauth(null);
+    setPassword('');
+  };
   const submit = useSubmitPayApp(app.id);
   const certify = useCertifyPayApp(app.id);
   const allApproved = app.lines.every((l) => l.reviewStatus === 'approved');
   const canCertify = isGc && (app.status === 'submitted' || app.status === 'in_review');
   const base = `/api/pay-apps/${encodeURIComponent(app.id)}`;
-  const run = () => {
-    const mutation = ask === 'submit' ? submit : certify;
-    mutation.mutate(app.revision, {
-      onSuccess: () => toast.success(ask === 'submit' ? 'Submitted; the general contractor has been told' : 'Certified; the owner has been asked for payment'),
-      onError: (err) => toast.error(errorMessage(err)),
-    });
-    setAsk(null);
+  const done = {
+    onSuccess: () => {
+      toast.success(ask === 'submit' ? 'Submitted; the general contractor has been told' : 'Certified; the owner has been asked for payment');
+      setAsk(null);
+    },
+    onError: (err: Error) => {
+      // Certifying after a long session asks for the password again: keep the dialog open with a password field.
+      if (isReauthError(err)) return setReauth(err);
+      toast.error(errorMessage(err));
+      setAsk(null);
+    },
   };
+  const run = () => {
+    if (ask === 'submit') submit.mutate(app.revision, done);
+    else certify.mutate({ expectedRevision: app.revision, reauthPassword: reauth ? password : undefined }, done);
+  };
+  const pending = submit.isPending || certify.isPending;
   return (
     <div className="flex flex-wrap items-center gap-2">
       <a className={buttonVariants({ variant: 'secondary', size: 'md' })} href={`${base}/export.pdf`} download>
@@ -53,9 +70,23 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
         <p className="text-sm">
           Current due <span className="font-semibold tabular-nums">{formatMoney(app.currentDueCents)}</span> for {app.periodStart} to {app.periodEnd}.
         </p>
+        {reauth ? (
+          <form
+            id="certify-reauth"
+            className="mt-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              run();
+            }}
+          >
+            <ReauthPassword value={password} onChange={setPassword} error={reauth} />
+          </form>
+        ) : null}
         <div className="mt-4 flex justify-end gap-2">
           <Button variant="secondary" onClick={() => setAsk(null)}>Cancel</Button>
-          <Button onClick={run}>{ask === 'submit' ? 'Submit' : 'Certify'}</Button>
+          <Button onClick={run} disabled={pending || (reauth !== null && password.length === 0)}>
+            {ask === 'submit' ? 'Submit' : 'Certify'}
+          </Button>
         </div>
       </Dialog>
     </div>

@@ -3,11 +3,17 @@ import { api } from '@/lib/api-client';
 
 export type StartedPayment = { paymentId: string; url: string };
 
-/** Asks the server for a checkout; the amount is the server's, a partial amount only where the project allows. */
-export function startPayment(payAppId: string, partialAmountCents?: number): Promise<StartedPayment> {
-  return api.post<StartedPayment>(`/api/pay-apps/${encodeURIComponent(payAppId)}/payments`, partialAmountCents === undefined ? {} : { partialAmountCents });
+export type StartPaymentInput = { partialAmountCents?: number | undefined; reauthPassword?: string | undefined };
+
+/**
+ * Asks the server for a checkout; the amount is the server's, a partial amount only where the project allows. A
+ * large payment after a long session is refused with REAUTH_REQUIRED until `reauthPassword` comes along.
+ */
+export function startPayment(payAppId: string, { partialAmountCents, reauthPassword }: StartPaymentInput = {}): Promise<StartedPayment> {
+  const body = { ...(partialAmountCents === undefined ? {} : { partialAmountCents }), ...(reauthPassword ? { reauthPassword } : {}) };
+  return api.post<StartedPayment>(`/api/pay-apps/${encodeURIComponent(payAppId)}/payments`, body);
 }
 
 export function useStartPayment(payAppId: string) {
-  return useMutation({ mutationFn: (partialAmountCents?: number) => startPayment(payAppId, partialAmountCents) });
+  return useMutation({ mutationFn: (input: StartPaymentInput = {}) => startPayment(payAppId, input) });
 }

@@ -6,7 +6,8 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { errorMessage } from '@/lib/api-client';
+import { isReauthError, ReauthPassword } from '@/components/reauth-password';
+import { errorMessage, type ApiError } from '@/lib/api-client';
 import { formatMoney } from '@/lib/format';
 import { applyServerErrors } from '@/lib/form-errors';
 import { parseDollarsToCents } from '@/shared/parse-money';
@@ -23,6 +24,8 @@ type PayFormValues = z.infer<typeof payFormSchema>;
 export function PayForm({ payApp }: { payApp: PayablePayAppView }) {
   const start = useStartPayment(payApp.id);
   const [formError, setFormError] = useState<string | null>(null);
+  const [reauth, setReauth] = useState<ApiError | null>(null);
+  const [password, setPassword] = useState('');
   const form = useForm<PayFormValues>({ resolver: zodResolver(payFormSchema), defaultValues: { part: 'balance', amount: '' } });
   const part = useWatch({ control: form.control, name: 'part' });
 
@@ -36,9 +39,10 @@ export function PayForm({ payApp }: { payApp: PayablePayAppView }) {
       cents = parsed;
     }
     try {
-      const { url } = await start.mutateAsync(cents);
+      const { url } = await start.mutateAsync({ partialAmountCents: cents, reauthPassword: reauth ? password : undefined });
       window.location.assign(url);
     } catch (err) {
+      if (isReauthError(err)) return setReauth(err);
       const left = applyServerErrors(err, form.setError, ['amount'], { partialAmountCents: 'amount' });
       if (left.length > 0 || !form.formState.errors.amount) setFormError(errorMessage(err));
     }
@@ -71,9 +75,10 @@ export function PayForm({ payApp }: { payApp: PayablePayAppView }) {
         the bank confirms, usually within four business days). The application counts as paid only once the money has
         settled. Payment terms follow your contract; Tallyard is not legal or financial advice.
       </p>
+      {reauth ? <ReauthPassword value={password} onChange={setPassword} error={reauth} /> : null}
       {formError ? <Alert>{formError}</Alert> : null}
       <div>
-        <Button type="submit" disabled={start.isPending || start.isSuccess}>
+        <Button type="submit" disabled={start.isPending || start.isSuccess || (reauth !== null && password.length === 0)}>
           {start.isPending || start.isSuccess ? 'Opening checkout…' : 'Continue to payment'}
         </Button>
       </div>
