@@ -90,3 +90,7 @@ export async function memberEmails(db: Executor, projectId: string, roles: Proje
 
 export const openPayments = (db: Executor, payAppId: string) =>
   db.select().from(payments).where(and(eq(payments.payAppId, payAppId), eq(payments.status, 'created'), sql`${payments.stripeCheckoutSessionId} is not null`));
+
+/** Every attempt not yet paid, failed or canceled: with a checkout session, or one being opened right now. */
+export const unfinishedPayments = (db: Executor, payAppId: string) =>
+  db.select().from(payments).where(and(eq(payments.payAppId, payAppId), eq(payments.status, 'created')));

@@ -59,6 +59,30 @@ async function expireEarlierAttempts(ctx: AppContext, actor: Actor, payAppId: st
   }
 }
 
+/** An attempt saved without a checkout session this long ago was cut off (the process ended mid-request). */
+const ABANDONED_AFTER_MS = 2 * 60_000;
+
+/**
+ * Under the pay application's row lock: another attempt still open (one a concurrent request is opening, or one
+ * whose session could not be ended because it was already completed) means this one would charge the same
+ * balance twice, so it is refused with 409. An attempt that never got its session and is long abandoned is ended.
+ */
+async function refuseWhileAnotherAttemptIsOpen(tx: Executor, actor: Actor, app: repo.PayAppRow) {
+  for (const other of await repo.unfinishedPayments(tx, app.id)) {
+    if (!other.stripeCheckoutSessionId && Date.now() - other.createdAt.getTime() > ABANDONED_AFTER_MS) {
+      await repo.updatePayment(tx, other.id, { status: 'canceled', failureMessage: 'The checkout was never opened.' });
+      await repo.addHistory(tx, other.id, 'created', 'canceled', 'Abandoned before its checkout was opened.');
+      await audit(tx, actor, other.projectId, other.id, 'payment.canceled', { status: 'canceled', reason: 'abandoned' }, { status: 'created' });
+      continue;
+    }
+    throw new AppError(
+      409,
+      'PAYMENT_IN_PROGRESS',
+      `Another payment of pay application ${app.number} is under way (started ${other.createdAt.toISOString()}). Finish or close that checkout, then reload; this request charged nothing.`,
+    );
+  }
+}
+
 /**
  * Starts a payment: the amount comes from the certified application (never from the client), the row is saved
  * first, then Stripe is called outside any transaction, then the session id is stored.
@@ -81,6 +105,7 @@ export async function startPayment(ctx: AppContext, actor: Actor, payAppId: stri
     }
     const amount = chargeAmount(balance, project.allowPartialPayments, input.partialAmountCents);
     if (!amount.ok) throw validationFailed([{ path: 'partialAmountCents', message: amount.message }]);
+    await refuseWhileAnotherAttemptIsOpen(tx, actor, app);
     const id = randomUUID();
     const row = await repo.insertPayment(tx, { id, projectId: app.projectId, payAppId: app.id, amountCents: amount.amountCents, idempotencyKey: `tallyard-payment-${id}`, createdByUserId: actor.userId });
     await repo.addHistory(tx, id, null, 'created', `Started by ${actor.email}`);
