@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bidItems } from '../../server/db/schema';
 import { makeBidItem, makeWorld, sampleBidItem } from '../setup/factories';
+import { makeTally } from '../setup/pay-cycle-factories';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -61,6 +62,16 @@ describe('bid items: who may do what', () => {
     expect(patched.body.bidItem).toMatchObject({ contractQuantity: 2500, isMajor: true });
     expect((await gc.delete(`/api/bid-items/${item.id}`)).status).toBe(204);
     expect((await gc.patch(`/api/bid-items/${item.id}`).send({ isMajor: false })).status).toBe(404);
+  });
+
+  it('refuses with 409 to delete an item that tallies or pay application lines refer to, and keeps it', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id);
+    await makeTally(t.database.db, { projectId: w.home.id, bidItemId: item.id, authorUserId: w.people.subcontractor.id, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
+    const res = await (await as('general_contractor')).delete(`/api/bid-items/${item.id}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('BID_ITEM_IN_USE');
+    expect(res.body.error.message).toContain('1 tally');
+    expect((await t.database.db.select().from(bidItems).where(eq(bidItems.id, item.id))).length).toBe(1);
   });
 });
 

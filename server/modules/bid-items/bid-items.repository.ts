@@ -1,7 +1,7 @@
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, count, eq, inArray } from 'drizzle-orm';
 import type { BidItemInput, UpdateBidItemInput } from '../../../src/shared/schemas/bid-item';
 import type { Executor } from '../../db/client';
-import { bidItems } from '../../db/schema';
+import { bidItems, changeOrderItems, payAppLines, tallies } from '../../db/schema';
 import type { BidItemRow } from './bid-items.presenter';
 
 export async function listBidItems(db: Executor, projectId: string): Promise<BidItemRow[]> {
@@ -11,6 +11,13 @@ export async function listBidItems(db: Executor, projectId: string): Promise<Bid
 export async function findBidItem(db: Executor, bidItemId: string): Promise<BidItemRow | undefined> {
   const [row] = await db.select().from(bidItems).where(eq(bidItems.id, bidItemId)).limit(1);
   return row;
+}
+
+/** How many tallies, pay application lines and change order items name this bid item. */
+export async function referencesTo(db: Executor, bidItemId: string) {
+  const counted = async (table: typeof tallies | typeof payAppLines | typeof changeOrderItems) =>
+    (await db.select({ n: count() }).from(table).where(eq(table.bidItemId, bidItemId)))[0]!.n;
+  return { tallies: await counted(tallies), payAppLines: await counted(payAppLines), changeOrderItems: await counted(changeOrderItems) };
 }
 
 export async function existingItemNumbers(db: Executor, projectId: string, itemNumbers: string[]): Promise<string[]> {

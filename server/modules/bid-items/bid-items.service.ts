@@ -76,6 +76,16 @@ export async function updateBidItem(db: Db, actor: Actor, bidItemId: string, inp
 export async function deleteBidItem(db: Db, actor: Actor, bidItemId: string): Promise<void> {
   const before = await loadForChange(db, actor, bidItemId);
   await db.transaction(async (tx) => {
+    // Quantities measured or billed against an item keep it: the contract changes through a change order instead.
+    const used = await repo.referencesTo(tx, bidItemId);
+    const uses = [
+      used.tallies ? `${used.tallies} tall${used.tallies === 1 ? 'y' : 'ies'}` : '',
+      used.payAppLines ? `${used.payAppLines} pay application line${used.payAppLines === 1 ? '' : 's'}` : '',
+      used.changeOrderItems ? `${used.changeOrderItems} change order item${used.changeOrderItems === 1 ? '' : 's'}` : '',
+    ].filter(Boolean);
+    if (uses.length > 0) {
+      throw new AppError(409, 'BID_ITEM_IN_USE', `Bid item ${before.itemNumber} cannot be deleted: ${uses.join(', ')} refer to it. Change its quantity through a change order instead.`);
+    }
     await repo.deleteBidItem(tx, bidItemId);
     await audit(tx, actor, before.projectId, bidItemId, 'bid_item.deleted', presentBidItem(before), undefined);
   });
