@@ -106,4 +106,10 @@ describe('PATCH /api/projects/:projectId', () => {
     expect((await (await as('subcontractor')).patch(`/api/projects/${w.home.id}`).send({ retainageBps: 0 })).status).toBe(403);
     expect((await (await as('outsider')).patch(`/api/projects/${w.home.id}`).send({ retainageBps: 0 })).status).toBe(404);
   });
+
+  it('answers an empty change with 400 and writes nothing', async () => {
+    const res = await (await as('general_contractor')).patch(`/api/projects/${w.home.id}`).send({});
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({ code: 'VALIDATION_FAILED', message: expect.any(String) });
+  });
 });

@@ -58,7 +58,11 @@ export const createProjectSchema = projectSettingsSchema
   .strict();
 export type CreateProjectInput = z.infer<typeof createProjectSchema>;
 
-export const updateProjectSchema = projectSettingsSchema.partial().extend({ name: projectName.optional() }).strict();
+export const updateProjectSchema = projectSettingsSchema
+  .partial()
+  .extend({ name: projectName.optional() })
+  .strict()
+  .refine((input) => Object.keys(input).length > 0, { message: 'Send at least one setting to change.' });
 export type UpdateProjectInput = z.infer<typeof updateProjectSchema>;
 
 export type CompanyView = { id: string; name: string; kind: (typeof COMPANY_KINDS)[number] };
