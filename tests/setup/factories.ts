@@ -42,7 +42,7 @@ export async function addMember(db: Db, projectId: string, userId: string, role:
 }
 
 export const sampleBidItem = (overrides: Partial<BidItemInput> = {}): BidItemInput => ({
-  itemNumber: `T-${randomUUID().slice(0, 4)}`,
+  itemNumber: `T-${randomUUID().slice(0, 8)}`,
   description: 'Unclassified excavation',
   payUnit: 'CY',
   basis: 'bank',

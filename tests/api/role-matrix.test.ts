@@ -1,0 +1,237 @@
+import { count } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { PayAppStatus } from '../../src/shared/constants';
+import { auditEvents, changeOrders, disputes, invitations, payAppLines } from '../../server/db/schema';
+import { makeBidItem, makeWorld } from '../setup/factories';
+import { FILES, makeTally } from '../setup/pay-cycle-factories';
+import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { registeredRoutes } from '../setup/routes';
+import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
+import { eq } from 'drizzle-orm';
+
+// OWASP API Security Top 10 (2023) API5, broken function level authorization, and API1, object level; OWASP ASVS
+// 4.0.3 section 4.1.3 (least privilege) and 4.2.1. The product brief's roles: the subcontractor measures, bills and
+// signs waivers; the general contractor manages the contract, reviews and certifies; the owner pays; a company
+// admin manages the contract and its people as the general contractor does. Each route is called by each role
+// with a body that passes validation, so the answer is the role rule's and not the schema's: a role that may not
+// gets 403 and nothing is written; a role that may gets past authorization (a 2xx, or the listed state answer).
+type Role = 'subcontractor' | 'general_contractor' | 'owner' | 'admin';
+const ROLES: Role[] = ['subcontractor', 'general_contractor', 'owner', 'admin'];
+const ALL = ROLES;
+const CONTRACT: Role[] = ['general_contractor', 'admin'];
+const SUB: Role[] = ['subcontractor'];
+
+type Fixture = {
+  projectId: string;
+  bidItemId: string;
+  tallyId: string;
+  evidenceId: string;
+  payAppId: string;
+  lineId: string;
+  disputeId: string;
+  changeOrderId: string;
+  invitationId: string;
+  waiverId: string;
+  method: string;
+  token: string;
+};
+type Rule = {
+  may: Role[];
+  /** The pay application's state the step needs (default certified). */
+  payApp?: PayAppStatus;
+  body?: (f: Fixture) => object;
+  upload?: { field: string; bytes: Buffer; name: string };
+  /** Answers other than 2xx that still show the role got through (a state the fixture cannot reach cheaply). */
+  passes?: number[];
+  /** Roles that do not see the object at all in this state (404, as for a foreign object) rather than 403. */
+  hiddenFrom?: Role[];
+};
+// The owner sees pay applications once certified (product brief, roles): an earlier one is not there for the owner.
+const OWNER_SEES_CERTIFIED: Role[] = ['owner'];
+
+const RULES: Record<string, Rule> = {
+  'POST /api/calc/:method': { may: ALL, body: () => ({ points: [], cellSize: 10 }), passes: [400] },
+  'GET /api/me': { may: ALL },
+  'GET /api/companies': { may: ALL },
+  'GET /api/projects': { may: ALL },
+  'POST /api/projects': { may: CONTRACT },
+  'GET /api/dev/mailbox': { may: ALL },
+  'GET /api/projects/:projectId': { may: ALL },
+  'PATCH /api/projects/:projectId': { may: CONTRACT, body: () => ({ retainageBps: 500 }) },
+  'GET /api/projects/:projectId/bid-items': { may: ALL },
+  'POST /api/projects/:projectId/bid-items': { may: CONTRACT, body: () => ({ itemNumber: `N-${Math.random().toString(36).slice(2, 8)}`, description: 'Rock excavation', payUnit: 'CY', basis: 'bank', unitPriceCents: 4200, contractQuantity: 300, isMajor: false, method: 'end-area' }) },
+  'POST /api/projects/:projectId/bid-items/import': { may: CONTRACT, upload: { field: 'file', bytes: Buffer.from('item_number,description,pay_unit,unit_price,contract_quantity\nZ-1,Topsoil stripping,SY,1.25,4000\n'), name: 'items.csv' }, passes: [400] },
+  'PATCH /api/bid-items/:bidItemId': { may: CONTRACT, body: () => ({ isMajor: true }) },
+  'DELETE /api/bid-items/:bidItemId': { may: CONTRACT, passes: [409] },
+  'GET /api/projects/:projectId/change-orders': { may: ALL },
+  'POST /api/projects/:projectId/change-orders': { may: ['subcontractor', 'general_contractor'], body: (f) => ({ title: 'More rock', items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }] }) },
+  'GET /api/projects/:projectId/contract-quantities': { may: ALL },
+  'GET /api/change-orders/:id': { may: ALL },
+  // The owner decides too only on a project that asks for the owner's approval (not the home project).
+  'POST /api/change-orders/:id/approve': { may: ['general_contractor'], body: () => ({ note: 'Agreed' }) },
+  'POST /api/change-orders/:id/reject': { may: ['general_contractor'], body: () => ({ note: 'Not agreed' }) },
+  'GET /api/projects/:projectId/variance': { may: ALL },
+  'PUT /api/bid-items/:bidItemId/forecast': { may: ['subcontractor', 'general_contractor'], body: () => ({ forecastQuantity: 1000 }) },
+  'POST /api/bid-items/:bidItemId/variance-change-order': { may: ['subcontractor', 'general_contractor'], passes: [409] },
+  'GET /api/projects/:projectId/invitations': { may: CONTRACT },
+  'POST /api/projects/:projectId/invitations': { may: CONTRACT, body: () => ({ email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`, role: 'owner' }) },
+  'DELETE /api/invitations/:id': { may: CONTRACT },
+  'GET /api/projects/:projectId/audit': { may: ALL },
+  'GET /api/pay-apps/:payAppId/audit': { may: ALL },
+  'GET /api/projects/:projectId/tallies': { may: ALL },
+  'POST /api/projects/:projectId/tallies': { may: SUB, body: (f) => ({ bidItemId: f.bidItemId, measuredOn: '2026-11-04', method: 'manual', quantity: 12, manualBasis: 'Counted at the stockpile' }) },
+  'GET /api/tallies/:tallyId': { may: ALL },
+  'PATCH /api/tallies/:tallyId': { may: SUB, body: () => ({ title: 'North cut' }) },
+  'POST /api/tallies/:tallyId/ready': { may: SUB },
+  'DELETE /api/tallies/:tallyId': { may: SUB },
+  'POST /api/tallies/:tallyId/evidence': { may: SUB, upload: { field: 'files', bytes: FILES.pdf, name: 'ticket.pdf' } },
+  'GET /api/evidence/:evidenceId/download': { may: ALL },
+  'DELETE /api/evidence/:evidenceId': { may: SUB },
+  'GET /api/projects/:projectId/pay-apps': { may: ALL },
+  'POST /api/projects/:projectId/pay-apps': { may: SUB, body: () => ({ periodStart: '2027-01-01', periodEnd: '2027-01-31' }), passes: [409] },
+  'GET /api/pay-apps/:payAppId': { may: ALL },
+  'POST /api/pay-apps/:payAppId/submit': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'draft' },
+  'POST /api/pay-apps/:payAppId/review': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'submitted', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, decision: 'approve' }] }) },
+  'POST /api/pay-apps/:payAppId/revise': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'returned', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, action: 'accept' }] }) },
+  'POST /api/pay-apps/:payAppId/certify': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'in_review', body: () => ({ expectedRevision: 0 }) },
+  'POST /api/disputes/:disputeId/comments': { may: ['subcontractor', 'general_contractor'], body: () => ({ body: 'Survey attached.' }) },
+  'GET /api/pay-apps/:payAppId/export.pdf': { may: ALL },
+  'GET /api/pay-apps/:payAppId/export.csv': { may: ALL },
+  'POST /api/pay-apps/:payAppId/payments': { may: ['owner'], body: () => ({}) },
+  'GET /api/pay-apps/:payAppId/payments': { may: ALL },
+  'GET /api/projects/:projectId/payments': { may: ALL },
+  'POST /api/pay-apps/:payAppId/lien-waivers': { may: SUB, body: () => ({ kind: 'conditional_final', signedName: 'Dana Whitfield' }), passes: [409] },
+  'GET /api/projects/:projectId/lien-waivers': { may: ALL },
+  'GET /api/lien-waivers/:waiverId/pdf': { may: ALL },
+};
+/** Routes that need no session, or that no role reaches (the matrix file covers them). */
+const OUTSIDE_ROLES = ['GET /api/health', 'GET /api/invitations/:token', 'POST /api/invitations/:token/accept', 'POST /api/webhooks/stripe'];
+
+let t: TestApp;
+let w: Awaited<ReturnType<typeof makeWorld>>;
+const agents = {} as Record<Role, ReturnType<typeof request.agent>>;
+let serial = 100;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  w = await makeWorld(t.database.db, t.auth);
+  for (const role of ROLES) agents[role] = await signedInAgent(t.app, w.people[role].email);
+}, 120_000);
+afterAll(() => t?.close());
+
+/** Fresh objects on the home project, with the pay application in the state the step needs. */
+async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixture> {
+  const db = t.database.db;
+  const sub = w.people.subcontractor.id;
+  const gc = w.people.general_contractor.id;
+  const item = await makeBidItem(db, w.home.id);
+  const tally = await makeTally(db, { projectId: w.home.id, bidItemId: item.id, authorUserId: sub, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
+  const uploaded = await agents.subcontractor.post(`/api/tallies/${tally.id}/evidence`).attach('files', FILES.pdf, 'ticket.pdf');
+  const app = await makeCertifiedPayApp(db, w.home.id, sub, { number: ++serial, status: payAppStatus });
+  const [line] = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, app.id)).limit(1);
+  const [dispute] = await db.insert(disputes).values({ payAppId: app.id, lineId: line!.id, revision: 0, reason: 'Short', counterQuantity: 1, openedByUserId: gc }).returning();
+  const [co] = await db.insert(changeOrders).values({ projectId: w.home.id, number: ++serial, title: 'CO', proposedByUserId: gc }).returning();
+  const [invitation] = await db
+    .insert(invitations)
+    .values({ projectId: w.home.id, email: `x${serial}@example.test`, role: 'owner', tokenHash: `h${serial}`, invitedByUserId: gc, expiresAt: new Date(Date.now() + 86_400_000) })
+    .returning();
+  let waiverId = '00000000-0000-4000-8000-00000000beef';
+  if (payAppStatus === 'certified') {
+    const waiver = await agents.subcontractor.post(`/api/pay-apps/${app.id}/lien-waivers`).send({ kind: 'conditional_progress', signedName: 'Dana Whitfield' });
+    waiverId = waiver.body.waiver?.id ?? waiverId;
+  }
+  return {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    tallyId: tally.id,
+    evidenceId: uploaded.body.evidence?.[0]?.id ?? uploaded.body.tally?.evidence?.[0]?.id,
+    payAppId: app.id,
+    lineId: line!.id,
+    disputeId: dispute!.id,
+    changeOrderId: co!.id,
+    invitationId: invitation!.id,
+    waiverId,
+    method: 'grid',
+    token: 'x',
+  };
+}
+
+function call(role: Role, route: string, f: Fixture) {
+  const rule = RULES[route]!;
+  const [method, template] = route.split(' ') as [string, string];
+  const path = template
+    .replace(/(change-orders|invitations)\/:id/, (_m, kind: string) => `${kind}/${kind === 'change-orders' ? f.changeOrderId : f.invitationId}`)
+    .replace(/:(\w+)/g, (_m, name: string) => String(f[name as keyof Fixture]));
+  let req = (agents[role] as unknown as Record<string, (p: string) => request.Test>)[method.toLowerCase()]!(path).set('Origin', TEST_ORIGIN);
+  if (rule.upload) return req.attach(rule.upload.field, rule.upload.bytes, rule.upload.name);
+  if (route === 'POST /api/projects') return req.send({ name: 'Mill Creek outfall', subcontractorCompanyId: w.companies.sub.id, ownerCompanyId: w.companies.owner.id });
+  if (method !== 'GET' && method !== 'DELETE') req = req.send(rule.body?.(f) ?? {});
+  return req;
+}
+
+async function writes() {
+  const [row] = await t.database.db.select({ n: count() }).from(auditEvents);
+  return row!.n;
+}
+
+describe('the role matrix', () => {
+  it('has a rule for every route a signed-in person can reach, and none for a route that is gone', () => {
+    const routes = registeredRoutes(t.app);
+    expect(routes.filter((r) => !(r in RULES) && !OUTSIDE_ROLES.includes(r))).toEqual([]);
+    expect(Object.keys(RULES).filter((r) => !routes.includes(r))).toEqual([]);
+  });
+
+  it('answers 403 to every role a route does not allow, with a valid body, and writes nothing', async () => {
+    const refused: string[] = [];
+    for (const [route, rule] of Object.entries(RULES)) {
+      const denied = ROLES.filter((r) => !rule.may.includes(r));
+      if (denied.length === 0) continue;
+      const f = await fixture(rule.payApp);
+      for (const role of denied) {
+        const before = await writes();
+        const res = await call(role, route, f);
+        const expected = rule.hiddenFrom?.includes(role) ? 404 : 403;
+        if (res.status !== expected) refused.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+        if ((await writes()) !== before) refused.push(`${route} as ${role}: wrote an audit event`);
+      }
+    }
+    expect(refused).toEqual([]);
+  }, 240_000);
+
+  it('lets every role a route allows through its authorization, never with a 5xx', async () => {
+    const stopped: string[] = [];
+    const shared = await fixture();
+    for (const [route, rule] of Object.entries(RULES)) {
+      for (const role of rule.may) {
+        // Reads change nothing and share one set of objects; each write gets its own.
+        const res = await call(role, route, route.startsWith('GET') && !rule.payApp ? shared : await fixture(rule.payApp));
+        const through = (res.status >= 200 && res.status < 300) || (rule.passes ?? []).includes(res.status);
+        if (!through) stopped.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+      }
+    }
+    expect(stopped).toEqual([]);
+  }, 240_000);
+
+  it('never answers a read with internal fields: password hashes, tokens, secrets, storage keys, other sessions', async () => {
+    // OWASP API Security Top 10 (2023) API3, broken object property level authorization.
+    const f = await fixture();
+    const leaks: string[] = [];
+    const scan = (value: unknown, where: string) => {
+      if (Array.isArray(value)) return value.forEach((v, i) => scan(v, `${where}[${i}]`));
+      if (!value || typeof value !== 'object') return;
+      for (const [key, v] of Object.entries(value)) {
+        if (/password|hash|token|secret|storageKey|sessionId$|ipAddress|userAgent|idempotency/i.test(key) && key !== 'stripeCheckoutSessionId') leaks.push(`${where}.${key}`);
+        scan(v, `${where}.${key}`);
+      }
+    };
+    for (const [route, rule] of Object.entries(RULES)) {
+      if (!route.startsWith('GET') || route.endsWith('.pdf') || route.endsWith('.csv') || route.endsWith('/download') || route.endsWith('/pdf')) continue;
+      for (const role of rule.may) {
+        const res = await call(role, route, f);
+        scan(res.body, `${route} as ${role}`);
+      }
+    }
+    expect(leaks).toEqual([]);
+  }, 120_000);
+});
