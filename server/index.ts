@@ -44,7 +44,11 @@ async function main() {
 
   const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
   const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
-  if (mailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
+  // The Mailbox page shows every caught message to any signed-in person (invitation links included): a development
+  // aid only. In production without SMTP_URL mail is still caught, but no page shows it.
+  const showMailbox = env.NODE_ENV !== 'production';
+  if (mailbox && showMailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
+  if (mailbox && !showMailbox) logger.warn('no SMTP_URL in production: mail is caught locally and nobody receives it; set SMTP_URL');
   const payments = await configurePayments(env, logger);
   const app = createApp({
     database,
@@ -52,7 +56,7 @@ async function main() {
     logger,
     mailer,
     storage,
-    mailbox,
+    mailbox: showMailbox ? mailbox : undefined,
     payments: payments.payments,
     appUrl: baseURL,
     reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
