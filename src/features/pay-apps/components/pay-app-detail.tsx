@@ -13,7 +13,7 @@ import { PayAppStatusBadge, periodText } from './pay-app-labels';
 import { PayAppLinesTable } from './pay-app-lines-table';
 import { PayAppTotals } from './pay-app-totals';
 import { RevisePanel } from './revise-panel';
-import { reviewBody, type ReviewDraft } from './review-draft';
+import { approveRemaining, reviewBody, type ReviewDraft } from './review-draft';
 import { StatusHistory } from './status-history';
 
 type Roles = { isSub: boolean; isGc: boolean };
@@ -29,6 +29,7 @@ export function PayAppDetailScreen({ payAppId, isSub, isGc }: { payAppId: string
   const app = query.data;
   const reviewing = isGc && (app.status === 'submitted' || app.status === 'in_review');
   const decided = Object.keys(draft).length;
+  const remaining = app.lines.filter((l) => l.reviewStatus !== 'approved' && !(l.id in draft)).length;
   const saveReview = () => {
     const { lines, problems: found } = reviewBody(draft, (id) => app.lines.find((l) => l.id === id)?.itemNumber ?? '?');
     setProblems(found);
@@ -70,8 +71,8 @@ export function PayAppDetailScreen({ payAppId, isSub, isGc }: { payAppId: string
           {problems.length || review.isError ? (
             <Alert className="flex-1">{problems.length ? problems.join('; ') : errorMessage(review.error)}</Alert>
           ) : null}
-          <Button variant="secondary" onClick={() => setDraft(Object.fromEntries(app.lines.map((l) => [l.id, { decision: 'approve', reason: '', counter: '' }])))}>
-            Approve all lines
+          <Button variant="secondary" onClick={() => setDraft((d) => approveRemaining(d, app.lines))} disabled={remaining === 0}>
+            Approve {remaining} undecided line{remaining === 1 ? '' : 's'}
           </Button>
           <Button onClick={saveReview} disabled={decided === 0 || review.isPending}>
             Save review of {decided} line{decided === 1 ? '' : 's'}

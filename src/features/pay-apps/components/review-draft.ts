@@ -14,3 +14,15 @@ export function reviewBody(draft: ReviewDraft, itemNumberOf: (lineId: string) =>
   });
   return { lines, problems };
 }
+
+/**
+ * Approves every line that has no verdict yet: lines already approved, and lines the reviewer has already decided
+ * (a dispute being written, say), are left as they are.
+ */
+export function approveRemaining(draft: ReviewDraft, lines: { id: string; reviewStatus: string }[]): ReviewDraft {
+  const next = { ...draft };
+  for (const line of lines) {
+    if (line.reviewStatus !== 'approved' && !(line.id in next)) next[line.id] = { decision: 'approve', reason: '', counter: '' };
+  }
+  return next;
+}
