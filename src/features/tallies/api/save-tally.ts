@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { CreateTallyInput, TallyView } from '@/shared/schemas/tally';
+import type { CreateTallyInput, TallyView, UpdateTallyInput } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 
 /** Every tally mutation refreshes the tally lists and details (key prefix `tallies`). */
@@ -11,6 +11,11 @@ function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResul
 
 export function useCreateTally(projectId: string) {
   return useTallyMutation(async (input: CreateTallyInput) => (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally);
+}
+
+/** A draft's changes; the server merges them and computes the quantity again. */
+export function useUpdateTally(tallyId: string) {
+  return useTallyMutation(async (input: UpdateTallyInput) => (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally);
 }
 
 export function useMarkReady() {

@@ -7,7 +7,7 @@ import { Select } from '@/components/ui/select';
 import { errorMessage, isApiError } from '@/lib/api-client';
 import { MEASUREMENT_METHOD_LABELS, type MeasurementMethod, type PayUnit } from '@/shared/constants';
 import { createTallySchema, type TallyView } from '@/shared/schemas/tally';
-import { useCreateTally } from '../api/save-tally';
+import { useCreateTally, useUpdateTally } from '../api/save-tally';
 import { EXAMPLE_INPUTS, TALLY_METHODS } from './tally-labels';
 
 export type BidItemChoice = { id: string; itemNumber: string; description: string; payUnit: PayUnit; method: MeasurementMethod };
@@ -16,17 +16,36 @@ type Errors = Record<string, string>;
 const today = () => new Date().toISOString().slice(0, 10);
 const exampleFor = (method: MeasurementMethod) => JSON.stringify(EXAMPLE_INPUTS[method] ?? {}, null, 2);
 
+type TallyFormProps = {
+  projectId: string;
+  bidItems: BidItemChoice[];
+  onDone: (tally: TallyView) => void;
+  /** A draft to edit; without it the form makes a new tally. */
+  tally?: TallyView;
+};
+
+const valuesOf = (tally: TallyView) => ({
+  title: tally.title,
+  measuredOn: tally.measuredOn,
+  inputs: tally.inputs ? JSON.stringify(tally.inputs, null, 2) : exampleFor(tally.method),
+  quantity: tally.method === 'manual' ? String(tally.quantity) : '',
+  manualBasis: tally.manualBasis ?? '',
+  component: '',
+});
+
 /**
- * A new tally: bid item, date, and either a worksheet's inputs (JSON, the calc API body; the worksheet screens
- * may fill it later) or a manual quantity with its written basis. The server computes the quantity.
+ * A new tally, or a draft's edit: bid item, date, and either a worksheet's inputs (JSON, the calc API body; the
+ * worksheet screens may fill it later) or a manual quantity with its written basis. The server computes the quantity.
  */
-export function NewTallyForm({ projectId, bidItems, onDone }: { projectId: string; bidItems: BidItemChoice[]; onDone: (tally: TallyView) => void }) {
-  const first = bidItems[0];
+export function NewTallyForm({ projectId, bidItems, onDone, tally }: TallyFormProps) {
+  const first = tally ? bidItems.find((b) => b.id === tally.bidItem.id) : bidItems[0];
   const [bidItemId, setBidItemId] = useState(first?.id ?? '');
-  const [method, setMethod] = useState<MeasurementMethod>(first && (TALLY_METHODS as readonly string[]).includes(first.method) ? first.method : 'manual');
-  const [values, setValues] = useState({ title: '', measuredOn: today(), inputs: exampleFor(method), quantity: '', manualBasis: '', component: '' });
+  const [method, setMethod] = useState<MeasurementMethod>(tally ? tally.method : first && (TALLY_METHODS as readonly string[]).includes(first.method) ? first.method : 'manual');
+  const [values, setValues] = useState(() => (tally ? valuesOf(tally) : { title: '', measuredOn: today(), inputs: exampleFor(method), quantity: '', manualBasis: '', component: '' }));
   const [errors, setErrors] = useState<Errors>({});
-  const create = useCreateTally(projectId);
+  const created = useCreateTally(projectId);
+  const updated = useUpdateTally(tally?.id ?? '');
+  const create = tally ? updated : created;
   const item = bidItems.find((b) => b.id === bidItemId);
   const methodOf = (b: BidItemChoice | undefined): MeasurementMethod => (b && (TALLY_METHODS as readonly string[]).includes(b.method) ? b.method : 'manual');
   const chooseMethod = (next: MeasurementMethod) => {
@@ -119,7 +138,7 @@ export function NewTallyForm({ projectId, bidItems, onDone }: { projectId: strin
       {create.isError ? <Alert>{errorMessage(create.error)}</Alert> : null}
       <div className="flex justify-end gap-2">
         <Button type="submit" disabled={create.isPending || !bidItemId}>
-          {create.isPending ? 'Computing…' : 'Save draft tally'}
+          {create.isPending ? 'Computing…' : tally ? 'Save changes' : 'Save draft tally'}
         </Button>
       </div>
     </form>

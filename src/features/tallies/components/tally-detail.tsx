@@ -1,4 +1,4 @@
-import { CheckCircle2, Trash2 } from 'lucide-react';
+import { CheckCircle2, Pencil, Trash2 } from 'lucide-react';
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router';
 import { toast } from 'sonner';
@@ -13,6 +13,7 @@ import { useTally } from '../api/get-tallies';
 import { useDeleteTally, useMarkReady } from '../api/save-tally';
 import { EvidencePanel } from './evidence-panel';
 import { InputsSummary } from './inputs-summary';
+import { NewTallyForm } from './new-tally-form';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
@@ -22,6 +23,7 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
   const remove = useDeleteTally();
   const navigate = useNavigate();
   const [confirm, setConfirm] = useState<'ready' | 'delete' | null>(null);
+  const [editing, setEditing] = useState(false);
   if (query.isPending) return <LoadingState label="Loading the tally…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
   const { tally, evidence } = query.data;
@@ -50,6 +52,9 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
             <>
               <Button variant="secondary" onClick={() => setConfirm('delete')}>
                 <Trash2 aria-hidden /> Delete
+              </Button>
+              <Button variant="secondary" onClick={() => setEditing(true)}>
+                <Pencil aria-hidden /> Edit
               </Button>
               <Button onClick={() => setConfirm('ready')}>
                 <CheckCircle2 aria-hidden /> Mark ready to bill
@@ -87,6 +92,19 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
         </Card>
       </div>
       <EvidencePanel tallyId={tally.id} evidence={evidence} canUpload={canWrite && (draft || backWithSub)} canRemove={canWrite && draft} />
+      <Dialog open={editing} onClose={() => setEditing(false)} title="Edit draft tally" description="The server computes the quantity again from what you change." className="w-[min(44rem,calc(100vw-2rem))]">
+        {editing ? (
+          <NewTallyForm
+            projectId={tally.projectId}
+            tally={tally}
+            bidItems={[{ id: tally.bidItem.id, itemNumber: tally.bidItem.itemNumber, description: tally.bidItem.description, payUnit: unit, method: tally.method }]}
+            onDone={(saved) => {
+              setEditing(false);
+              toast.success(`Saved: ${saved.quantity} ${saved.bidItem.payUnit}`);
+            }}
+          />
+        ) : null}
+      </Dialog>
       <Dialog open={confirm !== null} onClose={() => setConfirm(null)} title={confirm === 'delete' ? 'Delete this draft tally?' : 'Mark this tally ready to bill?'} description={confirm === 'delete' ? 'Its files are removed too. This cannot be undone.' : 'A ready tally can no longer be edited; the next pay application of its period bills it.'}>
         <div className="flex justify-end gap-2">
           <Button variant="secondary" onClick={() => setConfirm(null)}>Cancel</Button>
