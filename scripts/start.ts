@@ -3,4 +3,6 @@ import { buildClientIfStale } from './build-client';
 
 await buildClientIfStale();
 process.env.NODE_ENV ??= 'production';
+// The demo command: the Mailbox page shows the mail the local sink catches (`npm run serve` leaves it off).
+process.env.MAILBOX ??= 'on';
 await import('../server/index');

@@ -18,6 +18,8 @@ const envSchema = z.object({
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
+  /** The Mailbox page (every caught message, to any signed-in person): `auto` shows it outside production. */
+  MAILBOX: z.enum(['auto', 'on', 'off']).default('auto'),
   SEED_DEMO: z.enum(['auto', 'always', 'never']).default('auto'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });

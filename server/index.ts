@@ -45,8 +45,8 @@ async function main() {
   const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
   const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
   // The Mailbox page shows every caught message to any signed-in person (invitation links included): a development
-  // aid only. In production without SMTP_URL mail is still caught, but no page shows it.
-  const showMailbox = env.NODE_ENV !== 'production';
+  // and demo aid (`npm start` turns it on). In production without SMTP_URL mail is still caught, but no page shows it.
+  const showMailbox = env.MAILBOX === 'on' || (env.MAILBOX === 'auto' && env.NODE_ENV !== 'production');
   if (mailbox && showMailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
   if (mailbox && !showMailbox) logger.warn('no SMTP_URL in production: mail is caught locally and nobody receives it; set SMTP_URL');
   const payments = await configurePayments(env, logger);
