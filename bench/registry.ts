@@ -1,8 +1,8 @@
 import type { BenchModule } from './types';
 
 /**
- * Benchmark modules, loaded lazily. To add benchmarks (API round trips, client bundle size...), write a module
- * exporting `benchmarks` (BenchEntry items timed against a baseline, or SelfMeasuredBench items that return their
- * own result) and add it here. Each benchmark runs in its own child process.
+ * Benchmark modules, loaded lazily. A module exports `benchmarks`: BenchEntry items timed against a baseline, or
+ * SelfMeasuredBench items that measure themselves against absolute budgets. Each benchmark runs in its own child
+ * process, in this order.
  */
-export const benchModules: (() => Promise<BenchModule>)[] = [() => import('./engine')];
+export const benchModules: (() => Promise<BenchModule>)[] = [() => import('./engine'), () => import('./quality/index')];

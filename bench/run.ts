@@ -1,11 +1,12 @@
 import { fork } from 'node:child_process';
+import { loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { benchModules } from './registry';
-import type { AnyBench, BenchEntry, BenchResult } from './types';
-import { keep } from './types';
+import type { AnyBench, BenchCheck, BenchEntry, BenchResult } from './types';
+import { check, keep } from './types';
 
 /**
- * npm run bench [-- --json] [-- --only NAME]
+ * npm run bench [-- --json] [-- --only NAME] [-- --list]
  * Each benchmark runs in its own child process so its peak memory (the process's max resident set, also sampled
  * with process.memoryUsage between runs) is its own. Exits 1 when any budget is missed.
  */
@@ -24,6 +25,8 @@ function time(fn: () => unknown): number {
   keep(fn());
   return (performance.now() - start) / 1000;
 }
+
+const peakMB = (sampled = 0) => Math.round(Math.max(sampled / 2 ** 20, process.resourceUsage().maxRSS / 1024));
 
 async function measure(entry: BenchEntry<unknown>): Promise<BenchResult> {
   let sampled = 0;
@@ -44,19 +47,14 @@ async function measure(entry: BenchEntry<unknown>): Promise<BenchResult> {
     seconds = Math.min(seconds, time(() => entry.run(ctx)));
     sample();
   }
-  const peakMemoryMB = Math.max(sampled / 2 ** 20, process.resourceUsage().maxRSS / 1024);
-  const ratio = seconds / baselineSeconds;
-  const memoryOk = entry.memoryBudgetMB === undefined || peakMemoryMB <= entry.memoryBudgetMB;
-  return {
-    name: entry.name,
-    seconds: round(seconds),
-    baseline: entry.baseline,
-    baselineSeconds: round(baselineSeconds),
-    ratio: Math.round(ratio * 100) / 100,
-    budget: entry.budget,
-    ok: ratio <= entry.budget && memoryOk,
-    peakMemoryMB: Math.round(peakMemoryMB),
-  };
+  const peakMemoryMB = peakMB(sampled);
+  const checks: BenchCheck[] = [check('time / baseline', seconds / baselineSeconds, 'x', '<=', entry.budget)];
+  if (entry.memoryBudgetMB !== undefined) checks.push(check('peak memory', peakMemoryMB, 'MB', '<=', entry.memoryBudgetMB));
+  return result(entry.name, checks, entry.baseline, { seconds: round(seconds), baselineSeconds: round(baselineSeconds) }, peakMemoryMB);
+}
+
+function result(name: string, checks: BenchCheck[], baseline: string, figures: Record<string, number>, peakMemoryMB: number): BenchResult {
+  return { name, ok: checks.every((c) => c.ok), checks, baseline, figures, peakMemoryMB, loadAverage: Math.round(loadavg()[0]! * 100) / 100 };
 }
 
 function round(s: number): number {
@@ -68,22 +66,23 @@ function runChild(name: string): Promise<BenchResult> {
     // No --expose-gc: a forced full collection between runs threw away optimised code and slowed the next run
     // twentyfold, so memory is what the process really holds at its peak.
     const proc = fork(fileURLToPath(import.meta.url), ['--child', name], { stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
-    let result: BenchResult | undefined;
-    proc.on('message', (m) => (result = m as BenchResult));
+    let outcome: BenchResult | undefined;
+    proc.on('message', (m) => (outcome = m as BenchResult));
     proc.on('error', reject);
-    proc.on('exit', (code) => (result ? resolve(result) : reject(new Error(`benchmark ${name} exited with ${code}`))));
+    proc.on('exit', (code) => (outcome ? resolve(outcome) : reject(new Error(`benchmark ${name} exited with ${code}`))));
   });
 }
+
+const describe = (c: BenchCheck) => `${c.figure} ${c.value} ${c.unit} (budget ${c.op} ${c.budget} ${c.unit})`;
 
 function print(r: BenchResult): void {
   if (json) {
     console.log(JSON.stringify(r));
     return;
   }
-  const flag = r.ok ? 'ok  ' : 'MISS';
-  console.log(
-    `${flag} ${r.name.padEnd(28)} ${r.seconds.toFixed(4).padStart(9)} s   baseline ${r.baselineSeconds.toFixed(4).padStart(9)} s (${r.baseline})   ratio ${r.ratio.toFixed(2)} / budget ${r.budget}   peak ${r.peakMemoryMB} MB`,
-  );
+  const figures = Object.entries(r.figures).map(([k, v]) => `${k} ${v}`).join(', ');
+  console.log(`${r.ok ? 'ok  ' : 'MISS'} ${r.name.padEnd(28)} ${r.checks.map(describe).join('; ')}`);
+  console.log(`     ${''.padEnd(28)} ${figures}; ${r.baseline}; peak ${r.peakMemoryMB} MB; load ${r.loadAverage}`);
 }
 
 async function main(): Promise<void> {
@@ -91,7 +90,19 @@ async function main(): Promise<void> {
   if (child) {
     const entry = entries.find((e) => e.name === child);
     if (!entry) throw new Error(`no benchmark ${child}`);
-    process.send!('measure' in entry ? await entry.measure() : await measure(entry));
+    let r: BenchResult;
+    if ('measure' in entry) {
+      const m = await entry.measure();
+      r = result(entry.name, m.checks, m.baseline, m.figures, peakMB());
+    } else {
+      r = await measure(entry);
+    }
+    // Exit once the line is sent: a handle a benchmark left open (a socket, a timer) must not keep it alive.
+    process.send!(r, () => process.exit(0));
+    return;
+  }
+  if (args.includes('--list')) {
+    for (const e of entries) console.log(e.name);
     return;
   }
   const chosen = only ? entries.filter((e) => e.name === only) : entries;
