@@ -8,3 +8,4 @@ export * from './pay-apps';
 export * from './change-orders';
 export * from './emails';
 export * from './payments';
+export * from './pay-app-relations';

@@ -1,5 +1,5 @@
-import type { DisputeView, PayAppLineView, PayAppSummary } from '../../../src/shared/schemas/pay-app';
-import type { disputesOf, LineRow, PayAppRow } from './pay-apps.repository';
+import type { DisputeView, PayAppDetail, PayAppLineView, PayAppSummary } from '../../../src/shared/schemas/pay-app';
+import type { PayAppDetailRow, PayAppRow } from './pay-apps.repository';
 
 export function presentSummary(row: PayAppRow, certifiedBy: string | null = null): PayAppSummary {
   return {
@@ -25,7 +25,7 @@ export function presentSummary(row: PayAppRow, certifiedBy: string | null = null
   };
 }
 
-export function presentLine(l: LineRow): PayAppLineView {
+export function presentLine(l: PayAppDetailRow['lines'][number]): PayAppLineView {
   return {
     id: l.id,
     bidItemId: l.bidItemId,
@@ -45,8 +45,12 @@ export function presentLine(l: LineRow): PayAppLineView {
   };
 }
 
-export function presentDisputes({ rows, comments, resolvers }: Awaited<ReturnType<typeof disputesOf>>): DisputeView[] {
-  return rows.map(({ d, openedBy }) => ({
+export function presentHistory(h: PayAppDetailRow['history'][number]): PayAppDetail['history'][number] {
+  return { id: h.id, fromStatus: h.fromStatus, toStatus: h.toStatus, revision: h.revision, note: h.note, actor: h.actor?.name ?? null, createdAt: h.createdAt.toISOString() };
+}
+
+export function presentDispute(d: PayAppDetailRow['disputes'][number]): DisputeView {
+  return {
     id: d.id,
     lineId: d.lineId,
     revision: d.revision,
@@ -55,10 +59,14 @@ export function presentDisputes({ rows, comments, resolvers }: Awaited<ReturnTyp
     status: d.status,
     resolution: d.resolution,
     resolutionNote: d.resolutionNote,
-    openedBy,
-    resolvedBy: d.resolvedByUserId ? (resolvers.get(d.resolvedByUserId) ?? null) : null,
+    openedBy: d.openedBy.name,
+    resolvedBy: d.resolvedBy?.name ?? null,
     createdAt: d.createdAt.toISOString(),
     resolvedAt: d.resolvedAt?.toISOString() ?? null,
-    comments: comments.filter((c) => c.c.disputeId === d.id).map((c) => ({ id: c.c.id, author: c.author, body: c.c.body, createdAt: c.c.createdAt.toISOString() })),
-  }));
+    comments: d.comments.map((c) => ({ id: c.id, author: c.author.name, body: c.body, createdAt: c.createdAt.toISOString() })),
+  };
+}
+
+export function presentTally(t: PayAppDetailRow['tallies'][number]): PayAppDetail['tallies'][number] {
+  return { id: t.id, bidItemId: t.bidItemId, measuredOn: t.measuredOn, title: t.title, quantity: t.quantity };
 }

@@ -1,8 +1,9 @@
-import { and, asc, desc, eq, gte, inArray, lte, max } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, lte, max, sql } from 'drizzle-orm';
 import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
 import type { ProjectRole } from '../../../src/shared/constants';
-import type { Executor } from '../../db/client';
-import { bidItems, disputeComments, disputes, payAppLines, payApps, payAppStatusHistory, projectMembers, tallies, user } from '../../db/schema';
+import type { Db, Executor } from '../../db/client';
+import { preparedFor } from '../../db/prepared';
+import { bidItems, disputeComments, disputes, payAppLines, payApps, payAppStatusHistory, projectMembers, projects, tallies, user } from '../../db/schema';
 
 export type PayAppRow = typeof payApps.$inferSelect;
 export type LineRow = typeof payAppLines.$inferSelect;
@@ -62,30 +63,6 @@ export async function readyTallies(db: Executor, projectId: string, from: string
     .where(and(eq(tallies.projectId, projectId), eq(tallies.status, 'ready'), gte(tallies.measuredOn, from), lte(tallies.measuredOn, to)));
 }
 
-export async function talliesOf(db: Executor, payAppId: string) {
-  return db.select().from(tallies).where(eq(tallies.payAppId, payAppId)).orderBy(asc(tallies.measuredOn));
-}
-
-export async function historyOf(db: Executor, payAppId: string) {
-  return db
-    .select({ h: payAppStatusHistory, actor: user.name })
-    .from(payAppStatusHistory)
-    .leftJoin(user, eq(user.id, payAppStatusHistory.actorUserId))
-    .where(eq(payAppStatusHistory.payAppId, payAppId))
-    .orderBy(asc(payAppStatusHistory.createdAt), asc(payAppStatusHistory.revision));
-}
-
-export async function disputesOf(db: Executor, payAppId: string) {
-  const rows = await db.select({ d: disputes, openedBy: user.name }).from(disputes).innerJoin(user, eq(user.id, disputes.openedByUserId)).where(eq(disputes.payAppId, payAppId)).orderBy(asc(disputes.createdAt));
-  const ids = rows.map((r) => r.d.id);
-  const comments = ids.length
-    ? await db.select({ c: disputeComments, author: user.name }).from(disputeComments).innerJoin(user, eq(user.id, disputeComments.authorUserId)).where(inArray(disputeComments.disputeId, ids)).orderBy(asc(disputeComments.createdAt))
-    : [];
-  const resolverIds = [...new Set(rows.map((r) => r.d.resolvedByUserId).filter((x): x is string => !!x))];
-  const resolvers = resolverIds.length ? await db.select({ id: user.id, name: user.name }).from(user).where(inArray(user.id, resolverIds)) : [];
-  return { rows, comments, resolvers: new Map(resolvers.map((r) => [r.id, r.name])) };
-}
-
 export async function findDispute(db: Executor, disputeId: string) {
   const [row] = await db.select({ d: disputes, projectId: payApps.projectId, status: payApps.status }).from(disputes).innerJoin(payApps, eq(payApps.id, disputes.payAppId)).where(eq(disputes.id, disputeId)).limit(1);
   return row;
@@ -101,8 +78,54 @@ export async function addressesOf(db: Executor, projectId: string, role: Project
   return [...new Set(rows.map((r) => r.email))].sort();
 }
 
-export async function userName(db: Executor, userId: string | null): Promise<string | null> {
-  if (!userId) return null;
-  const [row] = await db.select({ name: user.name }).from(user).where(eq(user.id, userId)).limit(1);
-  return row?.name ?? null;
+const nameOnly = { columns: { name: true } } as const;
+
+const reads = preparedFor((db: Db) => ({
+  /** A pay application, its project and the person's roles on that project. */
+  withAccess: db
+    .select({
+      app: payApps,
+      project: projects,
+      roles: sql<ProjectRole[]>`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`,
+    })
+    .from(payApps)
+    .innerJoin(projects, eq(projects.id, payApps.projectId))
+    .where(eq(payApps.id, sql.placeholder('payAppId')))
+    .limit(1)
+    .prepare('pay_app_with_access'),
+  /**
+   * Everything the detail view shows, as one statement (Drizzle's relational query: each relation is a JSON
+   * aggregate, so 200 lines come back as one value instead of 200 rows to decode).
+   */
+  detail: db.query.payApps
+    .findFirst({
+      where: eq(payApps.id, sql.placeholder('payAppId')),
+      with: {
+        certifiedBy: nameOnly,
+        lines: {
+          columns: { payAppId: false, sortOrder: false, createdAt: false, updatedAt: false },
+          orderBy: [asc(payAppLines.sortOrder)],
+        },
+        history: { with: { actor: nameOnly }, orderBy: [asc(payAppStatusHistory.createdAt), asc(payAppStatusHistory.revision)] },
+        disputes: {
+          with: { openedBy: nameOnly, resolvedBy: nameOnly, comments: { with: { author: nameOnly }, orderBy: [asc(disputeComments.createdAt)] } },
+          orderBy: [asc(disputes.createdAt)],
+        },
+        tallies: { columns: { id: true, bidItemId: true, measuredOn: true, title: true, quantity: true }, orderBy: [asc(tallies.measuredOn)] },
+      },
+    })
+    .prepare('pay_app_detail'),
+}));
+
+/** A pay application with its project and the roles `userId` holds there (an empty list when none), in one read. */
+export async function findPayAppWithAccess(db: Db, payAppId: string, userId: string) {
+  const [row] = await reads(db).withAccess.execute({ payAppId, userId });
+  return row;
 }
+
+/** A pay application with its lines, history, disputes with their threads, and the tallies it bills, in one read. */
+export async function findPayAppDetail(db: Db, payAppId: string) {
+  return reads(db).detail.execute({ payAppId });
+}
+
+export type PayAppDetailRow = NonNullable<Awaited<ReturnType<typeof findPayAppDetail>>>;

@@ -1,12 +1,12 @@
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
-import type { Db, Executor } from '../../db/client';
+import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
 import { loadPayAppAccess } from './pay-app-access';
 import { canCreatePayApp, canSeePayApp } from './pay-apps.policy';
-import { presentDisputes, presentLine, presentSummary } from './pay-apps.presenter';
+import { presentDispute, presentHistory, presentLine, presentSummary, presentTally } from './pay-apps.presenter';
 import * as repo from './pay-apps.repository';
 
 export async function listPayApps(db: Db, actor: Actor, projectId: string) {
@@ -14,18 +14,18 @@ export async function listPayApps(db: Db, actor: Actor, projectId: string) {
   return (await repo.listPayApps(db, projectId)).filter((a) => canSeePayApp(roles, a.status)).map((a) => presentSummary(a));
 }
 
-/** One application with its lines, history, disputes with their threads, and the tallies it bills. */
-export async function payAppDetail(db: Executor, payAppId: string): Promise<PayAppDetail> {
-  const app = (await repo.findPayApp(db, payAppId))!;
-  const lines = (await repo.listLines(db, payAppId)).map(presentLine);
+/** One application with its lines, history, disputes with their threads, and the tallies it bills (one read). */
+export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDetail> {
+  const app = (await repo.findPayAppDetail(db, payAppId))!;
+  const lines = app.lines.map(presentLine);
   const contractSumCents = sumCents(lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)));
   const percentCompleteBps = contractSumCents > 0 ? Math.floor((app.earnedToDateCents * 10_000) / contractSumCents) : 0;
   return {
-    ...presentSummary(app, await repo.userName(db, app.certifiedByUserId)),
+    ...presentSummary(app, app.certifiedBy?.name ?? null),
     lines,
-    history: (await repo.historyOf(db, payAppId)).map(({ h, actor }) => ({ id: h.id, fromStatus: h.fromStatus, toStatus: h.toStatus, revision: h.revision, note: h.note, actor, createdAt: h.createdAt.toISOString() })),
-    disputes: presentDisputes(await repo.disputesOf(db, payAppId)),
-    tallies: (await repo.talliesOf(db, payAppId)).map((t) => ({ id: t.id, bidItemId: t.bidItemId, measuredOn: t.measuredOn, title: t.title, quantity: t.quantity })),
+    history: app.history.map(presentHistory),
+    disputes: app.disputes.map(presentDispute),
+    tallies: app.tallies.map(presentTally),
     contractSumCents,
     percentCompleteBps,
   };
