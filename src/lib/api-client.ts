@@ -1,4 +1,4 @@
-import { apiErrorSchema, type ApiErrorDetail } from '@/shared/schemas/api-error';
+import type { ApiErrorBody, ApiErrorDetail } from '@/shared/schemas/api-error';
 
 /** An API answer that was not 2xx, carrying the server's stable code and its field or row details. */
 export class ApiError extends Error {
@@ -15,11 +15,32 @@ export class ApiError extends Error {
   }
 }
 
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+function isDetail(v: unknown): v is ApiErrorDetail {
+  return (
+    isRecord(v) &&
+    typeof v.path === 'string' &&
+    typeof v.message === 'string' &&
+    (v.line === undefined || Number.isSafeInteger(v.line)) &&
+    (v.column === undefined || typeof v.column === 'string')
+  );
+}
+
+/**
+ * Whether a body is the server's error shape (the same rules as `apiErrorSchema`). Checked by hand so the entry
+ * chunk does not carry zod: every screen loads this module, and zod comes with the forms that need it.
+ */
+export function isApiErrorBody(body: unknown): body is ApiErrorBody {
+  if (!isRecord(body) || !isRecord(body.error)) return false;
+  const { code, message, details } = body.error;
+  return typeof code === 'string' && typeof message === 'string' && (details === undefined || (Array.isArray(details) && details.every(isDetail)));
+}
+
 /** Builds an ApiError from a status and whatever body came back, even when it is not our error shape. */
 export function toApiError(status: number, body: unknown): ApiError {
-  const parsed = apiErrorSchema.safeParse(body);
-  if (parsed.success) {
-    const { code, message, details } = parsed.data.error;
+  if (isApiErrorBody(body)) {
+    const { code, message, details } = body.error;
     return new ApiError(status, code, message, details);
   }
   if (status === 0) return new ApiError(0, 'NETWORK_ERROR', 'The server could not be reached. Check the connection.');
