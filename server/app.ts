@@ -15,6 +15,7 @@ import { csrfGuard } from './middleware/csrf-guard';
 import { requireActor } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { securityHeaders } from './middleware/security-headers';
+import { refuseUnstorableText } from './middleware/storable-text';
 import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { changeOrdersRouter } from './modules/change-orders/change-orders.routes';
@@ -89,7 +90,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireActor(auth, db));
   // The calculation API parses its own (larger) bodies; everything else is limited to JSON_BODY_LIMIT.
   app.use('/api', calcRouter());
-  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]));
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));

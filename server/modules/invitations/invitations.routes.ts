@@ -3,6 +3,7 @@ import { acceptInvitationSchema, createInvitationSchema } from '../../../src/sha
 import type { AppContext } from '../../app-context';
 import type { Auth } from '../../auth';
 import { getActor } from '../../lib/actor';
+import { refuseUnstorableText } from '../../middleware/storable-text';
 import { acceptInvitation, previewInvitation } from './invitation-accept.service';
 import * as service from './invitations.service';
 
@@ -32,9 +33,9 @@ export function publicInvitationsRouter(ctx: AppContext, auth: Auth): Router {
   router.get('/invitations/:token', async (req, res) => {
     res.json({ invitation: await previewInvitation(ctx.db, req.params.token) });
   });
-  router.post('/invitations/:token/accept', express.json({ limit: '16kb' }), async (req, res) => {
+  router.post('/invitations/:token/accept', express.json({ limit: '16kb' }), refuseUnstorableText, async (req, res) => {
     const input = acceptInvitationSchema.parse(req.body ?? {});
-    const { projectId, setCookie } = await acceptInvitation(ctx.db, auth, req.params.token, input, req.headers);
+    const { projectId, setCookie } = await acceptInvitation(ctx.db, auth, String(req.params.token), input, req.headers);
     if (setCookie.length > 0) res.setHeader('Set-Cookie', setCookie);
     res.json({ projectId });
   });
