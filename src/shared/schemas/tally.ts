@@ -1,11 +1,11 @@
 import { z } from 'zod';
 import { MEASUREMENT_BASES, MEASUREMENT_METHODS, TALLY_STATUSES, type MeasurementBasis, type MeasurementMethod, type PayUnit, type TallyStatus } from '../constants';
 
-/** A calendar day, `YYYY-MM-DD`, that exists. */
+/** A calendar day, `YYYY-MM-DD`, that exists: from 0001-01-01 (PostgreSQL's date has no year 0, JavaScript's does). */
 export const isoDateSchema = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-10-31')
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a real date');
+  .refine((s) => !s.startsWith('0000') && !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a real date');
 
 /** Which part of a cut-and-fill worksheet a tally bills. */
 export const TALLY_COMPONENTS = ['cut', 'fill'] as const;
