@@ -12,6 +12,7 @@ import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
+import { jsonBodiesOnly } from './middleware/json-bodies-only';
 import { requireActor } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { securityHeaders } from './middleware/security-headers';
@@ -82,6 +83,8 @@ export function createApp(deps: AppDeps): Express {
   });
   // Stripe signs the raw body: its webhook parses its own body, before the JSON parser and the session check.
   app.use(stripeWebhookRouter(ctx));
+  // Bodies are JSON in UTF-8, or a multipart form to an upload route; anything else is 415 before a route runs.
+  app.use('/api', jsonBodiesOnly({ skip: [/^\/auth\//], multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/] }));
   // Public routes (no session): the invitation link's preview and accept.
   app.use('/api', publicInvitationsRouter(ctx, auth));
   // better-auth reads its own bodies: mount it before the JSON parser.

@@ -1,0 +1,33 @@
+import type { RequestHandler } from 'express';
+import { AppError } from '../lib/app-error';
+
+type Options = {
+  /** Paths (below the mount point) that read their own bodies, e.g. better-auth's. */
+  skip: RegExp[];
+  /** Upload routes: they take a multipart form instead. */
+  multipart: RegExp[];
+};
+
+const unsupported = (message: string) => new AppError(415, 'UNSUPPORTED_MEDIA_TYPE', message);
+
+/**
+ * A request with a body must send JSON, in UTF-8, or a multipart form to an upload route; anything else answers 415
+ * before a route could treat the unread body as empty (OWASP ASVS 4.0.3 13.1.5: unexpected or missing content
+ * types are refused; RFC 8259 section 8.1: JSON exchanged between systems is UTF-8). A request without a body passes.
+ */
+export function jsonBodiesOnly({ skip, multipart }: Options): RequestHandler {
+  return (req, _res, next) => {
+    if (skip.some((re) => re.test(req.path))) return next();
+    // req.is answers null when there is no body at all.
+    const kind = req.is(['application/json', 'multipart/form-data']);
+    if (kind === null) return next();
+    if (kind === 'application/json') {
+      const charset = /;\s*charset="?([^";\s]+)"?/i.exec(req.get('content-type') ?? '')?.[1]?.toLowerCase();
+      if (charset === undefined || charset === 'utf-8' || charset === 'utf8') return next();
+      throw unsupported(`The body is in ${charset}; send JSON in UTF-8.`);
+    }
+    if (kind === 'multipart/form-data' && multipart.some((re) => re.test(req.path))) return next();
+    const type = req.get('content-type');
+    throw unsupported(type ? `This route takes a JSON body (application/json), not ${type.split(';')[0]}.` : 'The body has no Content-Type; send application/json.');
+  };
+}
