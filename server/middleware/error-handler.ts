@@ -30,6 +30,10 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return send(413, 'BODY_TOO_LARGE', `The request body is larger than the limit of ${e.limit} bytes.`);
     }
     if (e.type === 'entity.parse.failed') return send(400, 'MALFORMED_JSON', 'The request body is not valid JSON.');
+    if (e.type === 'encoding.unsupported') {
+      return send(415, 'UNSUPPORTED_ENCODING', 'The body is compressed in a way this server does not read; send it as is, or gzip, deflate or br.');
+    }
+    if (e.type === 'charset.unsupported') return send(415, 'UNSUPPORTED_CHARSET', 'The body is not in UTF-8; send JSON in UTF-8.');
     if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
       return send(e.status, 'BAD_REQUEST', 'The request could not be read.');
     }
