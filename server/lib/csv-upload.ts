@@ -1,12 +1,15 @@
 import multer from 'multer';
 import { MAX_CSV_UPLOAD_BYTES } from '../../src/shared/constants';
 import { AppError } from './app-error';
+import { readableMultipart } from './multipart';
 
 /** One CSV file in memory, at most MAX_CSV_UPLOAD_BYTES. */
-export const csvUpload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_CSV_UPLOAD_BYTES, files: 1, fields: 10 },
-}).single('file');
+export const csvUpload = readableMultipart(
+  multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: MAX_CSV_UPLOAD_BYTES, files: 1, fields: 10 },
+  }).single('file'),
+);
 
 const CSV_TYPES = ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/csv', 'application/octet-stream'];
 

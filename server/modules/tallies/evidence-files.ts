@@ -3,12 +3,15 @@ import { MAX_EVIDENCE_BYTES, MAX_EVIDENCE_FILES_PER_TALLY } from '../../../src/s
 import type { EvidenceKind } from '../../../src/shared/schemas/tally';
 import type { ApiErrorDetail } from '../../../src/shared/schemas/api-error';
 import { AppError } from '../../lib/app-error';
+import { readableMultipart } from '../../lib/multipart';
 
 /** Files in memory in the `files` field, each at most MAX_EVIDENCE_BYTES. */
-export const evidenceUpload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_EVIDENCE_BYTES, files: MAX_EVIDENCE_FILES_PER_TALLY, fields: 5 },
-}).array('files', MAX_EVIDENCE_FILES_PER_TALLY);
+export const evidenceUpload = readableMultipart(
+  multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: MAX_EVIDENCE_BYTES, files: MAX_EVIDENCE_FILES_PER_TALLY, fields: 5 },
+  }).array('files', MAX_EVIDENCE_FILES_PER_TALLY),
+);
 
 type Rule = { kind: EvidenceKind; contentType: string; mimetypes: string[]; check: (b: Buffer) => string | null };
 
