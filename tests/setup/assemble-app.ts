@@ -48,7 +48,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
   const app = createApp({
     database: o.database,
     auth,
-    logger: createLogger('silent'),
+    logger: createLogger(process.env.TEST_LOG_LEVEL ?? 'silent'),
     mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
     storage,
     mailbox,
