@@ -10,7 +10,7 @@ const features = readdirSync('src/features', { withFileTypes: true })
   .map((entry) => entry.name);
 
 export default tseslint.config(
-  { ignores: ['dist', 'node_modules', 'data', '.data-test', 'coverage', 'drizzle'] },
+  { ignores: ['dist', 'dist-server', 'node_modules', 'data', '.data-test', 'coverage', 'drizzle'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

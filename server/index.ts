@@ -1,87 +1,22 @@
-import { createServer } from 'node:http';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { createApp } from './app';
-import { createAuth } from './auth';
 import { openDatabase } from './db/client';
-import { runMigrations } from './db/migrate';
-import { seedDemo } from './db/seed-demo';
-import { smtpMailer } from './integrations/mailer/mailer';
-import { startSmtpSink } from './integrations/mailer/smtp-sink';
-import { configurePayments } from './integrations/payments/configure';
-import { localStorage } from './integrations/storage/storage';
 import { loadEnv } from './env';
-import { authSecret, dataDirLayout, lockDataDir } from './lib/data-dir';
+import { dataDirLayout, lockDataDir } from './lib/data-dir';
 import { createLogger } from './lib/logger';
-import { appOrigins } from './lib/origins';
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
-
-/** env -> lock -> db -> migrate -> seed -> createApp -> listen; SIGTERM and SIGINT close cleanly. */
+/**
+ * env -> lock -> db -> migrate -> seed -> createApp -> listen. The database opens while the rest of the server's
+ * modules load (server/boot.ts, imported here only then): on the embedded database the two take about as long
+ * as each other, and the start-up is their overlap.
+ */
 async function main() {
   const env = loadEnv();
   const logger = createLogger(env.LOG_LEVEL);
   const layout = dataDirLayout(env.DATA_DIR);
-  const usePostgres = Boolean(env.DATABASE_URL);
-  const unlock = usePostgres ? async () => {} : await lockDataDir(layout);
-  const database = await openDatabase(
-    env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db },
-  );
-  await runMigrations(database);
-
-  const devOrigins = env.NODE_ENV === 'development' ? ['http://localhost:5173', 'http://127.0.0.1:5173'] : [];
-  const { baseURL, trustedOrigins } = appOrigins(env.PORT, env.APP_URL, devOrigins);
-  const auth = createAuth({
-    db: database.db,
-    secret: authSecret(layout, env.BETTER_AUTH_SECRET),
-    baseURL,
-    trustedOrigins,
-    production: env.NODE_ENV === 'production' && baseURL.startsWith('https:'),
-  });
-  const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
-  const storage = localStorage(layout.uploads);
-  if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');
-
-  const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
-  const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
-  // The Mailbox page shows every caught message to any signed-in person (invitation links included): a development
-  // and demo aid (`npm start` turns it on). In production without SMTP_URL mail is still caught, but no page shows it.
-  const showMailbox = env.MAILBOX === 'on' || (env.MAILBOX === 'auto' && env.NODE_ENV !== 'production');
-  if (mailbox && showMailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
-  if (mailbox && !showMailbox) logger.warn('no SMTP_URL in production: mail is caught locally and nobody receives it; set SMTP_URL');
-  const payments = await configurePayments(env, logger);
-  const app = createApp({
-    database,
-    auth,
-    logger,
-    mailer,
-    storage,
-    mailbox: showMailbox ? mailbox : undefined,
-    payments: payments.payments,
-    appUrl: baseURL,
-    reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
-    clientDir: path.join(ROOT, 'dist'),
-  });
-  const server = createServer(app);
-  server.listen(env.PORT, env.HOST, () => {
-    logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
-  });
-
-  let closing = false;
-  const shutdown = async (signal: string) => {
-    if (closing) return;
-    closing = true;
-    logger.info({ signal }, 'shutting down');
-    server.close();
-    server.closeAllConnections();
-    await mailbox?.close();
-    await payments.close();
-    await database.close();
-    await unlock();
-    process.exit(0);
-  };
-  process.on('SIGTERM', () => void shutdown('SIGTERM'));
-  process.on('SIGINT', () => void shutdown('SIGINT'));
+  const unlock = env.DATABASE_URL ? async () => {} : await lockDataDir(layout);
+  const opening = openDatabase(env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db });
+  opening.catch(() => {}); // awaited below, after the import; this only keeps a failure from counting as unhandled meanwhile
+  const { boot } = await import('./boot');
+  await boot({ env, logger, layout, database: await opening, unlock });
 }
 
 main().catch((err: unknown) => {

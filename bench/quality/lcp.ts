@@ -2,9 +2,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
-import { freePort, startServerProcess } from '../../tests/setup/server-process';
+import { freePort } from '../../tests/setup/server-process';
 import { check, type SelfMeasuredBench } from '../types';
-import { ensureBuilt } from './built';
+import { ensureBuilt, startBuiltServer } from './built';
 
 const LIMIT_MS = 1000;
 const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -15,7 +15,7 @@ export const lcp: SelfMeasuredBench = {
   async measure() {
     await ensureBuilt();
     const dataDir = mkdtempSync(path.join(tmpdir(), 'tallyard-bench-lcp-'));
-    const server = await startServerProcess(dataDir, await freePort(), { NODE_ENV: 'production' });
+    const server = await startBuiltServer(dataDir, await freePort());
     const userDataDir = mkdtempSync(path.join(tmpdir(), 'tallyard-bench-chromium-'));
     const browser = await chromium.launchPersistentContext(userDataDir, { executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
     try {

@@ -17,9 +17,12 @@ export type ServerProcess = {
   output: () => string;
 };
 
+/** The server from its sources under tsx; the benchmarks start the built one (`dist-server/index.js`). */
+export const SOURCE_SERVER = ['--import', 'tsx', 'server/index.ts'];
+
 /** The real server (`node --import tsx server/index.ts`) on this data folder; resolves once it listens. */
-export async function startServerProcess(dataDir: string, port: number, env: Record<string, string> = {}): Promise<ServerProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+export async function startServerProcess(dataDir: string, port: number, env: Record<string, string> = {}, nodeArgs = SOURCE_SERVER): Promise<ServerProcess> {
+  const child = spawn(process.execPath, nodeArgs, {
     env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', LOG_LEVEL: 'info', NODE_ENV: 'test', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -1,5 +1,4 @@
 import type { AddressInfo } from 'node:net';
-import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
 /** A message the local sink caught, as the dev Mailbox page and the tests read it. */
@@ -30,7 +29,9 @@ export async function startSmtpSink(maxMessages = 500): Promise<SmtpSink> {
       // smtp-server resets session.envelope after the callback: copy it first.
       const rcpt = session.envelope.rcptTo.map((r) => r.address);
       const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : '';
-      simpleParser(stream)
+      // mailparser loads with the first message, not at start (it is a large part of the start-up time).
+      import('mailparser')
+        .then(({ simpleParser }) => simpleParser(stream))
         .then((parsed) => {
           caught.push({
             id: nextId++,

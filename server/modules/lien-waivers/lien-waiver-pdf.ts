@@ -1,5 +1,4 @@
 import { createRequire } from 'node:module';
-import PDFDocument from 'pdfkit';
 import type { LienWaiverKind } from '../../../src/shared/constants';
 import { LIEN_WAIVER_TITLES, statutoryNotice, waiverBody } from '../../../src/shared/domain/lien-waiver-text';
 import { formatCentsPlain } from '../payments/payment-format';
@@ -27,7 +26,9 @@ export type WaiverPdfInput = {
 };
 
 /** Tallyard's own waiver template as a one-page PDF (Work Sans), signed by the typed name. */
-export function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
+export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
+  // pdfkit loads with the first document, not at start (it is a large part of the start-up time).
+  const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({ size: 'LETTER', margin: 60, info: { Title: `${LIEN_WAIVER_TITLES[w.kind]}, ${w.project}`, Author: 'Tallyard' } });
   doc.registerFont('body', FONT);
   doc.registerFont('bold', FONT_BOLD);

@@ -1,5 +1,4 @@
 import { createRequire } from 'node:module';
-import PDFDocument from 'pdfkit';
 import type { PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import { dollars, percentText, quantityText } from './export-format';
 
@@ -33,7 +32,9 @@ export function beyondBand(app: PayAppDetail, bandOverBps: number) {
 }
 
 /** The pay application as a PDF of our own layout, Work Sans embedded; resolves with the bytes. */
-export function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
+export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
+  // pdfkit loads with the first document, not at start (it is a large part of the start-up time).
+  const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({ size: 'LETTER', layout: 'landscape', margin: 36, info: { Title: `${f.projectName} pay application ${app.number}`, Author: 'Tallyard' } });
   doc.registerFont('body', FONT);
   doc.registerFont('bold', FONT_BOLD);

@@ -1,0 +1,60 @@
+import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { build, type Plugin } from 'esbuild';
+
+const ROOT = path.resolve(import.meta.dirname, '..');
+const OUT_DIR = path.join(ROOT, 'dist-server');
+export const SERVER_BUNDLE = path.join(OUT_DIR, 'index.js');
+const SOURCES = ['server', 'src/shared', 'stripe-standin/src', 'package-lock.json', 'tsconfig.json', 'scripts/build-server.ts'];
+
+function newestMtime(entry: string): number {
+  const stat = statSync(entry);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  return Math.max(stat.mtimeMs, ...readdirSync(entry).map((name) => newestMtime(path.join(entry, name))));
+}
+
+/**
+ * Each module keeps its own `import.meta.url` (its source file's), so the files it finds beside itself (the
+ * migrations, the common-password list, fonts through createRequire) resolve as they do under tsx.
+ */
+const sourceUrls: Plugin = {
+  name: 'source-import-meta-url',
+  setup(b) {
+    b.onLoad({ filter: /\.ts$/ }, async (args) => {
+      const { readFile } = await import('node:fs/promises');
+      const code = await readFile(args.path, 'utf8');
+      return { contents: code.replaceAll('import.meta.url', JSON.stringify(pathToFileURL(args.path).href)), loader: 'ts' };
+    });
+  },
+};
+
+/**
+ * Bundles the server (our TypeScript: server/, src/shared, the Stripe stand-in) into dist-server/, so
+ * `npm start` runs plain node with no TypeScript to transpile at start. npm packages stay external and load from
+ * node_modules as usual. Rebuilt when missing or older than its sources.
+ */
+export async function buildServerIfStale(force = false): Promise<boolean> {
+  if (!force && existsSync(SERVER_BUNDLE) && statSync(SERVER_BUNDLE).mtimeMs >= Math.max(...SOURCES.map((p) => newestMtime(path.join(ROOT, p))))) return false;
+  console.log('Building the server (dist-server/)...');
+  rmSync(OUT_DIR, { recursive: true, force: true });
+  await build({
+    absWorkingDir: ROOT,
+    entryPoints: ['server/index.ts'],
+    outdir: OUT_DIR,
+    // Modules imported with import() (the Stripe stand-in) become chunks of their own, loaded when first used.
+    splitting: true,
+    chunkNames: 'chunks/[name]-[hash]',
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    packages: 'external',
+    sourcemap: 'linked',
+    logLevel: 'warning',
+    plugins: [sourceUrls],
+  });
+  return true;
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) await buildServerIfStale(process.argv.includes('--force'));

@@ -1,0 +1,80 @@
+import { createServer } from 'node:http';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { createApp } from './app';
+import { createAuth } from './auth';
+import type { Database } from './db/client';
+import { runMigrations } from './db/migrate';
+import { seedDemo } from './db/seed-demo';
+import { smtpMailer } from './integrations/mailer/mailer';
+import { startSmtpSink } from './integrations/mailer/smtp-sink';
+import { configurePayments } from './integrations/payments/configure';
+import { localStorage } from './integrations/storage/storage';
+import type { Env } from './env';
+import { authSecret, type DataDirLayout } from './lib/data-dir';
+import type { Logger } from './lib/logger';
+import { appOrigins } from './lib/origins';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+export type BootArgs = { env: Env; logger: Logger; layout: DataDirLayout; database: Database; unlock: () => Promise<void> };
+
+/** migrate -> seed -> createApp -> listen, on a database server/index.ts has opened; SIGTERM and SIGINT close cleanly. */
+export async function boot({ env, logger, layout, database, unlock }: BootArgs): Promise<void> {
+  const usePostgres = database.kind === 'postgres';
+  await runMigrations(database);
+
+  const devOrigins = env.NODE_ENV === 'development' ? ['http://localhost:5173', 'http://127.0.0.1:5173'] : [];
+  const { baseURL, trustedOrigins } = appOrigins(env.PORT, env.APP_URL, devOrigins);
+  const auth = createAuth({
+    db: database.db,
+    secret: authSecret(layout, env.BETTER_AUTH_SECRET),
+    baseURL,
+    trustedOrigins,
+    production: env.NODE_ENV === 'production' && baseURL.startsWith('https:'),
+  });
+  const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
+  const storage = localStorage(layout.uploads);
+  if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');
+
+  const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
+  const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
+  // The Mailbox page shows every caught message to any signed-in person (invitation links included): a development
+  // and demo aid (`npm start` turns it on). In production without SMTP_URL mail is still caught, but no page shows it.
+  const showMailbox = env.MAILBOX === 'on' || (env.MAILBOX === 'auto' && env.NODE_ENV !== 'production');
+  if (mailbox && showMailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
+  if (mailbox && !showMailbox) logger.warn('no SMTP_URL in production: mail is caught locally and nobody receives it; set SMTP_URL');
+  const payments = await configurePayments(env, logger);
+  const app = createApp({
+    database,
+    auth,
+    logger,
+    mailer,
+    storage,
+    mailbox: showMailbox ? mailbox : undefined,
+    payments: payments.payments,
+    appUrl: baseURL,
+    reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
+    clientDir: path.join(ROOT, 'dist'),
+  });
+  const server = createServer(app);
+  server.listen(env.PORT, env.HOST, () => {
+    logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
+  });
+
+  let closing = false;
+  const shutdown = async (signal: string) => {
+    if (closing) return;
+    closing = true;
+    logger.info({ signal }, 'shutting down');
+    server.close();
+    server.closeAllConnections();
+    await mailbox?.close();
+    await payments.close();
+    await database.close();
+    await unlock();
+    process.exit(0);
+  };
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+}
