@@ -18,7 +18,8 @@ const unsupported = (message: string) => new AppError(415, 'UNSUPPORTED_MEDIA_TY
 export function jsonBodiesOnly({ skip, multipart }: Options): RequestHandler {
   return (req, _res, next) => {
     if (skip.some((re) => re.test(req.path))) return next();
-    // req.is answers null when there is no body at all.
+    // No body: req.is answers null without one, and a fetch() POST with none says Content-Length: 0.
+    if (req.get('content-length') === '0' && !req.get('transfer-encoding')) return next();
     const kind = req.is(['application/json', 'multipart/form-data']);
     if (kind === null) return next();
     if (kind === 'application/json') {
