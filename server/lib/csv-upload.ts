@@ -1,6 +1,7 @@
 import multer from 'multer';
 import { MAX_CSV_UPLOAD_BYTES } from '../../src/shared/constants';
 import { AppError } from './app-error';
+import { nonCsvFormat } from './file-signature';
 import { readableMultipart } from './multipart';
 
 /** One CSV file in memory, at most MAX_CSV_UPLOAD_BYTES. */
@@ -12,20 +13,69 @@ export const csvUpload = readableMultipart(
 );
 
 const CSV_TYPES = ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/csv', 'application/octet-stream'];
+const SAVE_AS = 'Save it as "CSV UTF-8" and upload again.';
+
+export type CsvDecode = { ok: true; text: string } | { ok: false; problem: string };
+
+/** Byte offset of the first byte that is not valid UTF-8 (the shortest prefix a fatal decoder refuses). */
+function firstInvalidUtf8(bytes: Buffer): number {
+  let lo = 0;
+  let hi = bytes.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    try {
+      new TextDecoder('utf-8', { fatal: true }).decode(bytes.subarray(0, mid + 1), { stream: true });
+      lo = mid + 1;
+    } catch {
+      hi = mid;
+    }
+  }
+  return lo;
+}
+
+/** UTF-16 without a byte-order mark: ASCII text has a zero in every other byte. */
+function looksLikeUtf16(bytes: Buffer): boolean {
+  const sample = bytes.subarray(0, 2048);
+  let even = 0;
+  let odd = 0;
+  sample.forEach((b, i) => (b === 0 ? (i % 2 === 0 ? even++ : odd++) : undefined));
+  return Math.max(even, odd) > sample.length / 4;
+}
 
 /**
- * Checks that an uploaded file really is CSV text: a .csv (or .txt) name, a plausible declared type, valid UTF-8
- * and no binary bytes. Returns the decoded text.
+ * Reads CSV bytes as UTF-8 text (a UTF-8 byte-order mark is allowed). Refuses, naming the problem: a file whose
+ * magic bytes say it is another format (a zip, a PDF, an image: file-type's signatures), UTF-16 (by its byte-order
+ * mark, Unicode 15 section 23.8, or its zero bytes), other binary content, and bytes that are not UTF-8, with the
+ * first bad byte and its line (a Windows-1252 export, most often).
  */
-export function readCsvText(file: Express.Multer.File | undefined): string {
+export async function decodeCsvBytes(bytes: Buffer): Promise<CsvDecode> {
+  const bom = bytes.subarray(0, 2).toString('hex').toUpperCase();
+  if (bom === 'FFFE' || bom === 'FEFF') return { ok: false, problem: `is UTF-16 text (byte-order mark ${bom}), not UTF-8. ${SAVE_AS}` };
+  const format = await nonCsvFormat(bytes);
+  if (format) return { ok: false, problem: `is a .${format.ext} file (${format.mime}) by its content, not CSV text` };
+  if (bytes.includes(0)) {
+    return { ok: false, problem: looksLikeUtf16(bytes) ? `looks like UTF-16 text without a byte-order mark, not UTF-8. ${SAVE_AS}` : 'has binary content; it is not CSV text' };
+  }
+  try {
+    return { ok: true, text: new TextDecoder('utf-8', { fatal: true }).decode(bytes) };
+  } catch {
+    const at = firstInvalidUtf8(bytes);
+    const line = bytes.subarray(0, at).filter((b) => b === 0x0a).length + 1;
+    const byte = (bytes[at] ?? 0).toString(16).toUpperCase().padStart(2, '0');
+    return { ok: false, problem: `is not UTF-8 text: byte 0x${byte} on line ${line} is not valid UTF-8 (a Windows-1252 or Latin-1 file?). ${SAVE_AS}` };
+  }
+}
+
+/**
+ * Checks that an uploaded file really is CSV text: a .csv (or .txt) name, a plausible declared type, and content
+ * that decodes as CSV text (decodeCsvBytes). Returns the decoded text.
+ */
+export async function readCsvText(file: Express.Multer.File | undefined): Promise<string> {
   const bad = (message: string) => new AppError(400, 'UPLOAD_NOT_CSV', message, [{ path: 'file', message }]);
   if (!file) throw new AppError(400, 'UPLOAD_MISSING', 'Attach a CSV file in the "file" field.', [{ path: 'file', message: 'Required' }]);
   if (!/\.(csv|txt)$/i.test(file.originalname)) throw bad('The file name should end in .csv.');
   if (!CSV_TYPES.includes(file.mimetype)) throw bad(`A ${file.mimetype} file is not CSV.`);
-  if (file.buffer.includes(0)) throw bad('The file has binary content; it is not CSV text.');
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(file.buffer);
-  } catch {
-    throw bad('The file is not UTF-8 text. Save it as "CSV UTF-8" and upload again.');
-  }
+  const decoded = await decodeCsvBytes(file.buffer);
+  if (!decoded.ok) throw bad(`The file ${decoded.problem}`);
+  return decoded.text;
 }

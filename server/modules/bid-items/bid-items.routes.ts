@@ -15,7 +15,7 @@ export function bidItemsRouter(db: Db): Router {
     res.status(201).json({ bidItem: await service.createBidItem(db, getActor(res), req.params.projectId, input) });
   });
   router.post('/projects/:projectId/bid-items/import', csvUpload, async (req, res) => {
-    const text = readCsvText(req.file);
+    const text = await readCsvText(req.file);
     res.status(201).json(await service.importBidItems(db, getActor(res), String(req.params.projectId), text));
   });
   router.patch('/bid-items/:bidItemId', async (req, res) => {
