@@ -3,6 +3,7 @@ import { MAX_EVIDENCE_BYTES, MAX_EVIDENCE_FILES_PER_TALLY } from '../../../src/s
 import type { EvidenceKind } from '../../../src/shared/schemas/tally';
 import type { ApiErrorDetail } from '../../../src/shared/schemas/api-error';
 import { AppError } from '../../lib/app-error';
+import { decodeCsvBytes } from '../../lib/csv-upload';
 import { readableMultipart } from '../../lib/multipart';
 
 /** Files in memory in the `files` field, each at most MAX_EVIDENCE_BYTES. */
@@ -13,7 +14,7 @@ export const evidenceUpload = readableMultipart(
   }).array('files', MAX_EVIDENCE_FILES_PER_TALLY),
 );
 
-type Rule = { kind: EvidenceKind; contentType: string; mimetypes: string[]; check: (b: Buffer) => string | null };
+type Rule = { kind: EvidenceKind; contentType: string; mimetypes: string[]; check: (b: Buffer) => string | null | Promise<string | null> };
 
 const GENERIC = ['application/octet-stream', ''];
 const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -35,7 +36,15 @@ function isLandXml(text: string): boolean {
 }
 
 const RULES: Record<string, Rule> = {
-  csv: { kind: 'csv', contentType: 'text/csv', mimetypes: ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel'], check: (b) => (utf8(b) === null ? 'is not UTF-8 text, so it is not CSV' : null) },
+  csv: {
+    kind: 'csv',
+    contentType: 'text/csv',
+    mimetypes: ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel'],
+    check: async (b) => {
+      const decoded = await decodeCsvBytes(b);
+      return decoded.ok ? null : decoded.problem;
+    },
+  },
   pdf: { kind: 'pdf', contentType: 'application/pdf', mimetypes: ['application/pdf'], check: (b) => (b.subarray(0, 5).toString('latin1') === '%PDF-' ? null : 'does not start with %PDF-, so it is not a PDF') },
   png: { kind: 'image', contentType: 'image/png', mimetypes: ['image/png'], check: (b) => (b.subarray(0, 8).equals(PNG) ? null : 'does not carry the PNG signature') },
   jpg: { kind: 'image', contentType: 'image/jpeg', mimetypes: ['image/jpeg', 'image/jpg', 'image/pjpeg'], check: (b) => (b.subarray(0, 3).equals(JPEG) ? null : 'does not carry the JPEG signature') },
@@ -72,12 +81,13 @@ export function safeFileName(original: string): string {
 export type CheckedFile = { fileName: string; contentType: string; kind: EvidenceKind; bytes: Buffer };
 
 /** Checks every file of an upload against its declared type; reports every bad file by index and name. */
-export function checkEvidenceFiles(files: Express.Multer.File[] | undefined): CheckedFile[] {
+export async function checkEvidenceFiles(files: Express.Multer.File[] | undefined): Promise<CheckedFile[]> {
   if (!files || files.length === 0) {
     throw new AppError(400, 'UPLOAD_MISSING', 'Attach at least one file in the "files" field.', [{ path: 'files', message: 'Required' }]);
   }
   const details: ApiErrorDetail[] = [];
-  const checked = files.map((file, i) => {
+  const checked: CheckedFile[] = [];
+  for (const [i, file] of files.entries()) {
     const fileName = safeFileName(file.originalname);
     const ext = /\.([a-z0-9]+)$/.exec(fileName)?.[1] ?? '';
     const rule = RULES[ext];
@@ -86,11 +96,11 @@ export function checkEvidenceFiles(files: Express.Multer.File[] | undefined): Ch
     else if (file.size === 0) say('the file is empty');
     else if (!rule.mimetypes.includes(file.mimetype) && !GENERIC.includes(file.mimetype)) say(`declared as ${file.mimetype}, which does not match .${ext}`);
     else {
-      const problem = rule.check(file.buffer);
+      const problem = await rule.check(file.buffer);
       if (problem) say(`the content ${problem}`);
     }
-    return { fileName, contentType: rule?.contentType ?? '', kind: rule?.kind ?? 'csv', bytes: file.buffer };
-  });
+    checked.push({ fileName, contentType: rule?.contentType ?? '', kind: rule?.kind ?? 'csv', bytes: file.buffer });
+  }
   if (details.length > 0) throw new AppError(400, 'EVIDENCE_REJECTED', `${details.length} file(s) were refused; nothing was saved.`, details);
   return checked;
 }
