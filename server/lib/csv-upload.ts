@@ -17,20 +17,18 @@ const SAVE_AS = 'Save it as "CSV UTF-8" and upload again.';
 
 export type CsvDecode = { ok: true; text: string } | { ok: false; problem: string };
 
-/** Byte offset of the first byte that is not valid UTF-8 (the shortest prefix a fatal decoder refuses). */
+/**
+ * Byte offset where the first ill-formed UTF-8 sequence starts: a lenient decoder puts U+FFFD for it (WHATWG
+ * Encoding, "UTF-8 decode"), and the text before it re-encodes to the same bytes. A U+FFFD the file really holds
+ * (EF BF BD) is skipped.
+ */
 function firstInvalidUtf8(bytes: Buffer): number {
-  let lo = 0;
-  let hi = bytes.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    try {
-      new TextDecoder('utf-8', { fatal: true }).decode(bytes.subarray(0, mid + 1), { stream: true });
-      lo = mid + 1;
-    } catch {
-      hi = mid;
-    }
+  const text = new TextDecoder('utf-8').decode(bytes);
+  for (let i = text.indexOf('\uFFFD'); i !== -1; i = text.indexOf('\uFFFD', i + 1)) {
+    const at = Buffer.byteLength(text.slice(0, i));
+    if (!(bytes[at] === 0xef && bytes[at + 1] === 0xbf && bytes[at + 2] === 0xbd)) return at;
   }
-  return lo;
+  return 0;
 }
 
 /** UTF-16 without a byte-order mark: ASCII text has a zero in every other byte. */
