@@ -61,9 +61,13 @@ const RULES: Record<string, Rule> = {
 };
 RULES.jpeg = RULES.jpg!;
 
+/** Names Windows reserves for devices, also before any extension (Microsoft, "Naming Files, Paths, and Namespaces"). */
+const WINDOWS_RESERVED = /^(con|prn|aux|nul|com\d|lpt\d)$/i;
+
 /**
- * A name safe to show and to send in Content-Disposition: the last path segment, letters, digits, dot, dash,
- * underscore and space only, at most 120 characters. It is never used as a path (storage picks random keys).
+ * A name safe to show, to send in Content-Disposition and to save on any desktop: the last path segment, letters,
+ * digits, dot, dash, underscore and space only, at most 120 characters, no Windows device name, no trailing dot. It
+ * is never used as a path (storage picks random keys).
  */
 export function safeFileName(original: string): string {
   const base = original.split(/[\\/]/).pop() ?? '';
@@ -74,8 +78,8 @@ export function safeFileName(original: string): string {
     .replace(/^[.\s_]+/, '')
     .trim();
   const ext = /\.[A-Za-z0-9]{1,5}$/.exec(cleaned)?.[0] ?? '';
-  const stem = cleaned.slice(0, cleaned.length - ext.length).slice(0, 120 - ext.length);
-  return `${stem || 'evidence'}${ext.toLowerCase()}`;
+  const stem = cleaned.slice(0, cleaned.length - ext.length).slice(0, 120 - ext.length).replace(/[.\s]+$/, '');
+  return `${WINDOWS_RESERVED.test(stem.split('.')[0]!.trim()) ? `evidence-${stem}` : stem || 'evidence'}${ext.toLowerCase()}`;
 }
 
 export type CheckedFile = { fileName: string; contentType: string; kind: EvidenceKind; bytes: Buffer };
