@@ -19,6 +19,8 @@ type Options = {
   achSettleMs: number;
   retryDelaysMs: number[];
   seed?: boolean;
+  /** Where uploads go; memory storage unless given (a test of the folder layout passes localStorage). */
+  storage?: Storage;
   clientDir?: string;
 };
 
@@ -37,7 +39,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
     production: false,
     passwordHasher: fastPasswordHasher,
   });
-  const storage = memoryStorage();
+  const storage = o.storage ?? memoryStorage();
   if (o.seed) await seedDemo(o.database.db, auth, storage);
   const mailbox = await startSmtpSink();
   const { payments, standin } = await startLocalPayments({

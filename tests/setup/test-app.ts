@@ -23,7 +23,7 @@ export type TestApp = {
 };
 
 /** The real app on a fresh test database, driven in-process by supertest. */
-export async function createTestApp(): Promise<TestApp> {
+export async function createTestApp(options: { storage?: Storage } = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const target: { app?: Express } = {};
   const built = await assembleTestApp({
@@ -33,6 +33,7 @@ export async function createTestApp(): Promise<TestApp> {
     webhookTarget: async (payload, headers) => (await request(target.app!).post('/api/webhooks/stripe').set(headers).send(payload)).status,
     achSettleMs: Number.POSITIVE_INFINITY,
     retryDelaysMs: [50, 200],
+    storage: options.storage,
   });
   const { app, auth, mailbox, storage, standin } = built;
   target.app = app;
