@@ -86,6 +86,9 @@ export function createApp(deps: AppDeps): Express {
   // Bodies are JSON in UTF-8, or a multipart form to an upload route; anything else is 415 before a route runs.
   app.use('/api', jsonBodiesOnly({ skip: [/^\/auth\//], multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/] }));
   // Public routes (no session): the invitation link's preview and accept.
+  // Accepting creates an account or a membership without a session yet: it needs our own Origin as well.
+  const csrf = csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]);
+  app.use('/api/invitations', csrf);
   app.use('/api', publicInvitationsRouter(ctx, auth));
   // better-auth reads its own bodies: mount it before the JSON parser.
   app.all('/api/auth/{*splat}', clientIpForAuth, toNodeHandler(auth));
@@ -94,7 +97,7 @@ export function createApp(deps: AppDeps): Express {
   // The calculation API parses its own (larger) bodies; everything else is limited to JSON_BODY_LIMIT.
   app.use('/api', calcRouter());
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
-  app.use('/api', csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]));
+  app.use('/api', csrf);
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));

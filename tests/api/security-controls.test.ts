@@ -68,6 +68,12 @@ describe('CSRF protection on the app routes (ASVS 4.0.3 4.2.2; OWASP CSRF cheat 
     expect(same.status).toBe(201);
   });
 
+  it('refuses accepting an invitation from another site, before any session exists', async () => {
+    const res = await request(t.app).post('/api/invitations/some-token/accept').set('Origin', 'https://evil.example').send({ name: 'X', password: 'gravel-and-loam-2026' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('CSRF_REJECTED');
+  });
+
   it('answers 401 first for a mutating request with neither cookie nor Origin', async () => {
     const res = await request(t.app).post('/api/projects').send(newProject());
     expect(res.status).toBe(401);
