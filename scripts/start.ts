@@ -7,7 +7,8 @@ import { buildIfStale } from './build';
 await buildIfStale();
 const server = spawn(process.execPath, [SERVER_BUNDLE], {
   stdio: 'inherit',
-  env: { ...process.env, NODE_ENV: process.env.NODE_ENV ?? 'production' },
+  // The demo command: the Mailbox page shows the mail the local sink catches (`npm run serve` leaves it off).
+  env: { ...process.env, NODE_ENV: process.env.NODE_ENV ?? 'production', MAILBOX: process.env.MAILBOX ?? 'on' },
 });
 // The server closes cleanly on either signal (and ignores a second one); pass them on and leave with its code.
 for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => server.kill(signal));
