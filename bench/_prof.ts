@@ -1,0 +1,11 @@
+import Delaunator from 'delaunator';
+import { surfaceVolumeFromPoints } from '/work/wt-surface-engine/src/shared/domain/earthwork/surface';
+import { survey } from '/work/wt-surface-engine/bench/engine-inputs';
+const n = Number(process.argv[2] ?? 400);
+const e = survey(n, 1, (x, y) => 100 + 5 * Math.sin(x / 50) + 0.01 * y);
+const d = survey(n, 7, (x, y) => 101 + 0.002 * x + (Math.abs(x - 500) < 200 && Math.abs(y - 500) < 150 ? -2 : 0));
+const tri = () => { for (const p of [e, d]) { const c = new Float64Array(2 * p.x.length); for (let i = 0; i < p.x.length; i++) { c[2*i] = p.x[i]!; c[2*i+1] = p.y[i]!; } new Delaunator(c); } };
+tri(); surfaceVolumeFromPoints('ft', e, d);
+let t0 = performance.now(); tri(); const tb = performance.now() - t0;
+t0 = performance.now(); const r = surfaceVolumeFromPoints('ft', e, d); const ts = performance.now() - t0;
+console.log({ tb, ts, ratio: ts / tb, pieces: r.overlay.pieces, triE: r.overlay.existingTriangles, cut: r.cut, fill: r.fill });
