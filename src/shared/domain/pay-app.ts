@@ -1,7 +1,9 @@
 import { DomainError, assertFinite, assertNonNegative } from './domain-error';
 import { fmt, type Trail } from './earthwork/trail';
 import { lineAmountCents, percentOfCents, subtractCents, sumCents, type Cents } from './money';
-import { addDecimals } from './rounding';
+import { addDecimals, roundTo } from './rounding';
+
+const roundHalfAwayFromZero = (value: number) => roundTo(value, 0);
 
 export interface PayAppLineInput {
   unitPriceCents: Cents;
@@ -9,6 +11,12 @@ export interface PayAppLineInput {
   previousQuantity: number;
   /** May be negative to correct an earlier period, as long as the to-date quantity stays at or above 0. */
   thisPeriodQuantity: number;
+  /**
+   * Amount to date on the previous certified application, as certified (cents). Given, it stands as the previous
+   * amount whatever today's unit price is: a price change applies only to quantities paid after it. Absent, the
+   * previous amount is previous quantity x unit price.
+   */
+  previousAmountCents?: Cents;
 }
 
 export interface PayAppInput {
@@ -51,12 +59,20 @@ export interface PayAppResult {
 
 function checkLine(line: PayAppLineInput, i: number): void {
   assertFinite(line.unitPriceCents, ['lines', i, 'unitPriceCents']);
-  if (!Number.isSafeInteger(line.unitPriceCents)) throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['lines', i, 'unitPriceCents']);
+  if (!Number.isSafeInteger(line.unitPriceCents))
+    throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['lines', i, 'unitPriceCents']);
   assertNonNegative(line.contractQuantity, ['lines', i, 'contractQuantity']);
   assertNonNegative(line.previousQuantity, ['lines', i, 'previousQuantity']);
   assertFinite(line.thisPeriodQuantity, ['lines', i, 'thisPeriodQuantity']);
+  if (line.previousAmountCents !== undefined && !Number.isSafeInteger(line.previousAmountCents)) {
+    throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['lines', i, 'previousAmountCents']);
+  }
   if (line.previousQuantity + line.thisPeriodQuantity < 0) {
-    throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', ['lines', i, 'thisPeriodQuantity']);
+    throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', [
+      'lines',
+      i,
+      'thisPeriodQuantity',
+    ]);
   }
 }
 
@@ -69,22 +85,34 @@ function checkLine(line: PayAppLineInput, i: number): void {
 export function payApplication(input: PayAppInput): PayAppResult {
   assertNonNegative(input.retainagePercent, ['retainagePercent']);
   assertFinite(input.previousCertifiedCents, ['previousCertifiedCents']);
-  if (!Number.isSafeInteger(input.previousCertifiedCents)) throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
+  if (!Number.isSafeInteger(input.previousCertifiedCents))
+    throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
   input.lines.forEach(checkLine);
   const priced = input.lines.map((l) => {
     const toDateQuantity = addDecimals(l.previousQuantity, l.thisPeriodQuantity);
+    const previousAtPrice = lineAmountCents(l.previousQuantity, l.unitPriceCents);
+    const previousAmountCents = l.previousAmountCents ?? previousAtPrice;
+    // This period at today's price = to date at today's price - previous at today's price (each rounded once),
+    // so with an unchanged price the amount to date is the to-date quantity x price rounded once.
+    const thisPeriodAtPrice = subtractCents(lineAmountCents(toDateQuantity, l.unitPriceCents), previousAtPrice);
+    // A correction (negative quantity) after a price change takes back at the average price it was paid at.
+    const takenBack = previousAmountCents !== previousAtPrice && l.thisPeriodQuantity < 0 && l.previousQuantity > 0;
+    const amountToDateCents = takenBack
+      ? roundHalfAwayFromZero((previousAmountCents * toDateQuantity) / l.previousQuantity)
+      : sumCents([previousAmountCents, thisPeriodAtPrice]);
     return {
       toDateQuantity,
       contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents),
-      previousAmountCents: lineAmountCents(l.previousQuantity, l.unitPriceCents),
-      amountToDateCents: lineAmountCents(toDateQuantity, l.unitPriceCents),
+      previousAmountCents,
+      amountToDateCents,
     };
   });
   const contractAmountCents = sumCents(priced.map((p) => p.contractAmountCents));
   const earnedToDateCents = sumCents(priced.map((p) => p.amountToDateCents));
   const percentComplete = contractAmountCents > 0 ? (earnedToDateCents / contractAmountCents) * 100 : null;
   const reduction = input.retainageReduction;
-  const reduced = reduction !== undefined && percentComplete !== null && percentComplete >= reduction.afterPercentComplete;
+  const reduced =
+    reduction !== undefined && percentComplete !== null && percentComplete >= reduction.afterPercentComplete;
   const rate = reduced ? reduction!.reducedPercent : input.retainagePercent;
   const lines: PayAppLineResult[] = priced.map((p) => ({
     ...p,
@@ -96,12 +124,22 @@ export function payApplication(input: PayAppInput): PayAppResult {
   const currentDueCents = subtractCents(subtractCents(earnedToDateCents, retainageCents), input.previousCertifiedCents);
   const $ = (c: number) => `$${fmt(c / 100)}`;
   const trail: Trail = [
-    `${lines.length} lines: amount to date = (previous + this period) x unit price, rounded once to the cent per line`,
+    `${lines.length} lines: amount to date = previous amount as certified + this period at the current unit price (to date x price - previous x price, each rounded once to the cent)`,
     `Earned to date = sum of lines = ${$(earnedToDateCents)} of ${$(contractAmountCents)} contract${percentComplete === null ? '' : ` (${fmt(percentComplete, 2)} % complete)`}`,
     reduced
       ? `Retainage reduced to ${fmt(rate, 2)} % after ${fmt(reduction!.afterPercentComplete, 2)} % complete; per line, rounded once: ${$(retainageCents)}`
       : `Retainage ${fmt(rate, 2)} % per line, rounded once: ${$(retainageCents)}`,
     `Current due = earned to date - retainage to date - previous certified = ${$(earnedToDateCents)} - ${$(retainageCents)} - ${$(input.previousCertifiedCents)} = ${$(currentDueCents)}`,
   ];
-  return { lines, contractAmountCents, earnedToDateCents, thisPeriodCents, retainageCents, retainagePercentApplied: rate, percentComplete, currentDueCents, trail };
+  return {
+    lines,
+    contractAmountCents,
+    earnedToDateCents,
+    thisPeriodCents,
+    retainageCents,
+    retainagePercentApplied: rate,
+    percentComplete,
+    currentDueCents,
+    trail,
+  };
 }
