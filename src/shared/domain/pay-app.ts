@@ -1,7 +1,8 @@
 import { DomainError, assertFinite, assertNonNegative } from './domain-error';
 import { fmt, type Trail } from './earthwork/trail';
 import { lineAmountCents, percentOfCents, subtractCents, sumCents, type Cents } from './money';
-import { addDecimals, roundTo } from './rounding';
+import { addExact, decimalOf, pow10 } from './decimal';
+import { roundTo } from './rounding';
 
 const roundHalfAwayFromZero = (value: number) => roundTo(value, 0);
 
@@ -76,6 +77,21 @@ function checkLine(line: PayAppLineInput, i: number): void {
   }
 }
 
+/** Sum of cents, refused as INVALID_NUMBER naming `path` when beyond a safe integer (not a RangeError). */
+function checkedSum(amounts: readonly Cents[], path: (string | number)[], what: string): Cents {
+  const total = amounts.reduce((sum, c) => sum + BigInt(c), 0n);
+  if (total > BigInt(Number.MAX_SAFE_INTEGER) || total < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new DomainError('INVALID_NUMBER', `${what} comes to ${total} cents, beyond the largest amount stored`, path);
+  }
+  return sumCents(amounts);
+}
+
+/** earned / contract x 100 >= percent, decided exactly on integers (57 % of $1,000,000 is exactly $570,000). */
+export function reachesPercent(earnedCents: Cents, contractCents: Cents, percent: number): boolean {
+  const p = decimalOf(percent);
+  return BigInt(earnedCents) * 100n * pow10(p.scale) >= p.digits * BigInt(contractCents);
+}
+
 /**
  * Pay application arithmetic in integer cents (dinero.js). Per line: to-date quantity = previous + this period;
  * amount to date = to-date quantity x unit price, rounded to the cent once; retainage on the line's amount to
@@ -88,39 +104,65 @@ export function payApplication(input: PayAppInput): PayAppResult {
   if (!Number.isSafeInteger(input.previousCertifiedCents))
     throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
   input.lines.forEach(checkLine);
-  const priced = input.lines.map((l) => {
-    const toDateQuantity = addDecimals(l.previousQuantity, l.thisPeriodQuantity);
-    const previousAtPrice = lineAmountCents(l.previousQuantity, l.unitPriceCents);
+  const priced = input.lines.map((l, i) => {
+    // Exact decimal sum (1.00005 + 0 stays 1.00005): the quantity is priced as given, rounded once to the cent.
+    const toDateQuantity = addExact(l.previousQuantity, l.thisPeriodQuantity);
+    const previousAtPrice = lineAmountCents(l.previousQuantity, l.unitPriceCents, ['lines', i, 'previousQuantity']);
+    const toDateAtPrice = lineAmountCents(toDateQuantity, l.unitPriceCents, ['lines', i, 'thisPeriodQuantity']);
     const previousAmountCents = l.previousAmountCents ?? previousAtPrice;
     // This period at today's price = to date at today's price - previous at today's price (each rounded once),
-    // so with an unchanged price the amount to date is the to-date quantity x price rounded once.
-    const thisPeriodAtPrice = subtractCents(lineAmountCents(toDateQuantity, l.unitPriceCents), previousAtPrice);
-    // A correction (negative quantity) after a price change takes back at the average price it was paid at.
+    // so with an unchanged price the amount to date is the to-date quantity x price rounded once. A correction
+    // (negative quantity) after a price change is taken back at the average price it was paid at.
     const takenBack = previousAmountCents !== previousAtPrice && l.thisPeriodQuantity < 0 && l.previousQuantity > 0;
     const amountToDateCents = takenBack
       ? roundHalfAwayFromZero((previousAmountCents * toDateQuantity) / l.previousQuantity)
-      : sumCents([previousAmountCents, thisPeriodAtPrice]);
+      : sumCents([previousAmountCents, subtractCents(toDateAtPrice, previousAtPrice)]);
     return {
       toDateQuantity,
-      contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents),
+      contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents, ['lines', i, 'contractQuantity']),
       previousAmountCents,
       amountToDateCents,
     };
   });
-  const contractAmountCents = sumCents(priced.map((p) => p.contractAmountCents));
-  const earnedToDateCents = sumCents(priced.map((p) => p.amountToDateCents));
+  const contractAmountCents = checkedSum(
+    priced.map((p) => p.contractAmountCents),
+    ['lines'],
+    'The contract amount',
+  );
+  const earnedToDateCents = checkedSum(
+    priced.map((p) => p.amountToDateCents),
+    ['lines'],
+    'The amount earned to date',
+  );
   const percentComplete = contractAmountCents > 0 ? (earnedToDateCents / contractAmountCents) * 100 : null;
   const reduction = input.retainageReduction;
   const reduced =
-    reduction !== undefined && percentComplete !== null && percentComplete >= reduction.afterPercentComplete;
+    reduction !== undefined &&
+    contractAmountCents > 0 &&
+    reachesPercent(earnedToDateCents, contractAmountCents, reduction.afterPercentComplete);
   const rate = reduced ? reduction!.reducedPercent : input.retainagePercent;
-  const lines: PayAppLineResult[] = priced.map((p) => ({
+  const ratePath = reduced ? ['retainageReduction', 'reducedPercent'] : ['retainagePercent'];
+  const lines: PayAppLineResult[] = priced.map((p, i) => ({
     ...p,
     thisPeriodAmountCents: subtractCents(p.amountToDateCents, p.previousAmountCents),
-    retainageCents: percentOfCents(p.amountToDateCents, rate),
+    retainageCents: percentOfCents(p.amountToDateCents, rate, ['lines', i, ...ratePath]),
   }));
-  const retainageCents = sumCents(lines.map((l) => l.retainageCents));
-  const thisPeriodCents = sumCents(lines.map((l) => l.thisPeriodAmountCents));
+  const retainageCents = checkedSum(
+    lines.map((l) => l.retainageCents),
+    ['lines'],
+    'The retainage',
+  );
+  const thisPeriodCents = checkedSum(
+    lines.map((l) => l.thisPeriodAmountCents),
+    ['lines'],
+    'The amount this period',
+  );
+  const currentDue = BigInt(earnedToDateCents) - BigInt(retainageCents) - BigInt(input.previousCertifiedCents);
+  if (currentDue > BigInt(Number.MAX_SAFE_INTEGER) || currentDue < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new DomainError('INVALID_NUMBER', 'The current amount due is beyond the largest amount stored', [
+      'previousCertifiedCents',
+    ]);
+  }
   const currentDueCents = subtractCents(subtractCents(earnedToDateCents, retainageCents), input.previousCertifiedCents);
   const $ = (c: number) => `$${fmt(c / 100)}`;
   const trail: Trail = [
