@@ -1,4 +1,5 @@
 import { Link, NavLink, useNavigation } from 'react-router';
+import { InboxLink } from '@/features/inbox';
 import { UserMenu } from '@/features/auth/components/user-menu';
 import { MailboxLink } from '@/features/mailbox/components/mailbox-link';
 import { cn } from '@/lib/cn';
@@ -23,6 +24,7 @@ export function AppHeader() {
             Tallyard
           </Link>
           <nav aria-label="Main" className="flex items-center gap-1">
+            <InboxLink />
             <NavLink
               to="/jobs"
               className={({ isActive }) =>
