@@ -73,16 +73,14 @@ beforeAll(async () => {
     .set({ certifiedAt: new Date(Date.now() - 40 * DAY) })
     .where(eq(payApps.id, ids.overdue));
   const [line] = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, ids.returned)).limit(1);
-  await db
-    .insert(disputes)
-    .values({
-      payAppId: ids.returned,
-      lineId: line!.id,
-      revision: 0,
-      reason: 'Short',
-      counterQuantity: 1,
-      openedByUserId: gc,
-    });
+  await db.insert(disputes).values({
+    payAppId: ids.returned,
+    lineId: line!.id,
+    revision: 0,
+    reason: 'Short',
+    counterQuantity: 1,
+    openedByUserId: gc,
+  });
   // Pay application 7 was paid by a settled payment; its unconditional waiver is not issued yet.
   const [payment] = await db
     .insert(payments)
@@ -201,11 +199,11 @@ describe('GET /api/inbox', () => {
   it('the owner: pay the certified applications, the one past the payment terms overdue and first; no uncertified application', async () => {
     const v = await inboxOf(agents.owner);
     const due = v.entries.filter((e) => e.kind === 'payment_due');
-    expect(due.map((e) => e.title)).toEqual(['Pay pay application 5', 'Pay pay application 6']);
+    expect(due.map((e) => e.title)).toEqual(['Payment due on pay application 5', 'Payment due on pay application 6']);
     expect(due[0]).toMatchObject({
       overdue: true,
       amountCents: 1_362_190,
-      href: `/projects/${world.home.id}/pay-apps/${ids.overdue}`,
+      href: `/projects/${world.home.id}/payments`,
     });
     expect(due[1]!.overdue).toBe(false);
     // Due 30 days after certification (project defaults' payment terms).

@@ -77,13 +77,14 @@ export async function inboxFor(db: Db, actor: Actor, now = new Date()): Promise<
       add(scope, {
         id: `payment_due:${app.id}`,
         kind: 'payment_due',
-        title: `Pay ${label}`,
+        title: `Payment due on ${label}`,
         detail: app.paidCents > 0 ? 'Balance left after a partial payment' : 'Certified for payment',
         amountCents: balanceCents(app, 0),
         period: { start: app.periodStart, end: app.periodEnd },
         since: app.certifiedAt,
         dueAt: paymentDueAt(app.certifiedAt, scope.project.paymentTermsDays),
-        href: `${pathOf(scope)}/pay-apps/${app.id}`,
+        // Payments are started from the Payments tab, where the application's card takes the payment.
+        href: `${pathOf(scope)}/payments`,
       });
     }
   }
