@@ -23,7 +23,7 @@ async function signIn(page: Page, email: string) {
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('tallyard-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/jobs');
+  await page.waitForURL('**/inbox');
 }
 
 /** A new project set up by the signed-in general contractor (its contract is not locked yet); returns its id. */
@@ -50,7 +50,8 @@ describe('bid schedule in the browser', () => {
   it('offers a change order instead of editing once the contract is locked (the demo job)', async () => {
     const page = await browser.newPage();
     await signIn(page, 'gc@tallyard.test');
-    await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
+  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
     await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Bid schedule' }).click();
     await page.getByRole('table', { name: 'Bid schedule' }).waitFor();
     await page.getByRole('note').filter({ hasText: 'Contract locked' }).waitFor();
