@@ -1,6 +1,6 @@
 import type { PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import { sumCents } from '../../../src/shared/domain/money';
-import { decimal } from './export-format';
+import { formatMoneyPlain as decimal, formatQuantityPlain as num } from '../../../src/shared/format';
 
 /**
  * A text cell a spreadsheet could read as a formula (= + - @, tab, carriage return) gets a leading apostrophe
@@ -11,11 +11,21 @@ export function neutralise(text: string): string {
 }
 
 const quote = (cell: string) => (/[",\r\n]/.test(cell) ? `"${cell.replace(/"/g, '""')}"` : cell);
-const num = (q: number) => String(q);
 
 export const CSV_HEADER = [
-  'item_number', 'description', 'pay_unit', 'unit_price', 'contract_quantity', 'previous_quantity', 'this_period_quantity',
-  'to_date_quantity', 'previous_amount', 'this_period_amount', 'amount_to_date', 'retainage', 'review_status',
+  'item_number',
+  'description',
+  'pay_unit',
+  'unit_price',
+  'contract_quantity',
+  'previous_quantity',
+  'this_period_quantity',
+  'to_date_quantity',
+  'previous_amount',
+  'this_period_amount',
+  'amount_to_date',
+  'retainage',
+  'review_status',
 ];
 
 /** One row per line, then the totals and the payment summary rows; money in dollars with two decimals. */
@@ -23,14 +33,38 @@ export function payAppCsv(app: PayAppDetail): string {
   const rows: string[][] = [CSV_HEADER];
   for (const l of app.lines) {
     rows.push([
-      neutralise(l.itemNumber), neutralise(l.description), l.payUnit, decimal(l.unitPriceCents), num(l.contractQuantity), num(l.previousQuantity),
-      num(l.thisPeriodQuantity), num(l.toDateQuantity), decimal(l.previousAmountCents), decimal(l.thisPeriodAmountCents), decimal(l.amountToDateCents),
-      decimal(l.retainageCents), l.reviewStatus,
+      neutralise(l.itemNumber),
+      neutralise(l.description),
+      l.payUnit,
+      decimal(l.unitPriceCents),
+      num(l.contractQuantity),
+      num(l.previousQuantity),
+      num(l.thisPeriodQuantity),
+      num(l.toDateQuantity),
+      decimal(l.previousAmountCents),
+      decimal(l.thisPeriodAmountCents),
+      decimal(l.amountToDateCents),
+      decimal(l.retainageCents),
+      l.reviewStatus,
     ]);
   }
   const previous = sumCents(app.lines.map((l) => l.previousAmountCents));
   const blank = (label: string, amount: string) => [label, '', '', '', '', '', '', '', '', '', amount, '', ''];
-  rows.push(['TOTAL', `Pay application ${app.number} revision ${app.revision}`, '', '', '', '', '', '', decimal(previous), decimal(app.thisPeriodCents), decimal(app.earnedToDateCents), decimal(app.retainageCents), app.status]);
+  rows.push([
+    'TOTAL',
+    `Pay application ${app.number} revision ${app.revision}`,
+    '',
+    '',
+    '',
+    '',
+    '',
+    '',
+    decimal(previous),
+    decimal(app.thisPeriodCents),
+    decimal(app.earnedToDateCents),
+    decimal(app.retainageCents),
+    app.status,
+  ]);
   rows.push(blank('EARNED_TO_DATE', decimal(app.earnedToDateCents)));
   rows.push(blank('LESS_RETAINAGE', decimal(app.retainageCents)));
   rows.push(blank('LESS_PREVIOUS_CERTIFIED', decimal(app.previousCertifiedCents)));
