@@ -167,6 +167,13 @@ export type EndAreaFormula = (typeof END_AREA_FORMULAS)[number];
 export const ZERO_AREA_END_RULES = ['average', 'pyramid'] as const;
 export type ZeroAreaEndRule = (typeof ZERO_AREA_END_RULES)[number];
 
+/**
+ * How a grid cell with corners in both cut and fill is split: the transition-square formula of surveying texts
+ * (the default), or the exact integral of the bilinear surface through the four corners.
+ */
+export const GRID_MIXED_CELL_SPLITS = ['transition-square', 'exact-bilinear'] as const;
+export type GridMixedCellSplit = (typeof GRID_MIXED_CELL_SPLITS)[number];
+
 export const TRENCH_PROTECTIONS = ['box', 'slope', 'bench'] as const;
 export type TrenchProtection = (typeof TRENCH_PROTECTIONS)[number];
 

@@ -42,7 +42,7 @@ describe('Trench runs worksheet', () => {
 
     // OSHA 29 CFR 1926.652(a)(1): a protective system at 5 ft or more unless in stable rock.
     const cautions = screen.getByRole('complementary', { name: 'Safety cautions' });
-    expect(cautions.textContent).toMatch(/5 ft \(1\.52 m\) deep or more: a protective system is required/);
+    expect(cautions.textContent).toMatch(/5 ft \(1\.524 m\) deep or more: a protective system is required/);
     expect(cautions.textContent).toMatch(/competent person/);
   });
 

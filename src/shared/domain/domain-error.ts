@@ -27,6 +27,8 @@ export const DOMAIN_ERROR_CODES = [
   'INVALID_QUANTITY',
   'UNIT_MISMATCH',
   'METHOD_NOT_BILLABLE',
+  'SLOPED_PIT_ON_SLOPING_GROUND',
+  'DUPLICATE_POINT',
 ] as const;
 export type DomainErrorCode = (typeof DOMAIN_ERROR_CODES)[number];
 
