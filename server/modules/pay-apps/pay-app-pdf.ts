@@ -1,23 +1,13 @@
 import { createRequire } from 'node:module';
 import type { PayAppDetail } from '../../../src/shared/schemas/pay-app';
-import {
-  formatMoney as dollars,
-  formatPercentBps as percentText,
-  formatQuantityNumber,
-} from '../../../src/shared/format';
+import { formatMoney as dollars, formatPercentBps as percentText, formatQuantityNumber } from '../../../src/shared/format';
 
 const require = createRequire(import.meta.url);
 // .woff, not .woff2: pdfkit writes invisible text with woff2 (stack.md pitfall 10).
 const FONT = require.resolve('@fontsource/work-sans/files/work-sans-latin-400-normal.woff');
 const FONT_BOLD = require.resolve('@fontsource/work-sans/files/work-sans-latin-600-normal.woff');
 
-export type PdfFacts = {
-  projectName: string;
-  contractNumber: string;
-  location: string;
-  bandOverBps: number;
-  parties: { subcontractor: string; generalContractor: string; owner: string };
-};
+export type PdfFacts = { projectName: string; contractNumber: string; location: string; bandOverBps: number; parties: { subcontractor: string; generalContractor: string; owner: string } };
 
 const SPRUCE = '#2f6b4f';
 const STONE = '#6b716d';
@@ -38,21 +28,14 @@ const COLS = [
 
 /** Lines whose quantity to date already passes the project's over-run band (variance flag on the document). */
 export function beyondBand(app: PayAppDetail, bandOverBps: number) {
-  return app.lines.filter(
-    (l) => l.contractQuantity > 0 && l.toDateQuantity * 10_000 > l.contractQuantity * (10_000 + bandOverBps),
-  );
+  return app.lines.filter((l) => l.contractQuantity > 0 && l.toDateQuantity * 10_000 > l.contractQuantity * (10_000 + bandOverBps));
 }
 
 /** The pay application as a PDF of our own layout, Work Sans embedded; resolves with the bytes. */
 export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer> {
   // pdfkit loads with the first document, not at start (it is a large part of the start-up time).
   const { default: PDFDocument } = await import('pdfkit');
-  const doc = new PDFDocument({
-    size: 'LETTER',
-    layout: 'landscape',
-    margin: 36,
-    info: { Title: `${f.projectName} pay application ${app.number}`, Author: 'Tallyard' },
-  });
+  const doc = new PDFDocument({ size: 'LETTER', layout: 'landscape', margin: 36, info: { Title: `${f.projectName} pay application ${app.number}`, Author: 'Tallyard' } });
   doc.registerFont('body', FONT);
   doc.registerFont('bold', FONT_BOLD);
   const chunks: Buffer[] = [];
@@ -68,25 +51,12 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
   const title = `Pay application No. ${app.number}`;
   doc.fillColor(INK).font('bold').fontSize(16).text(title, left, 22, { lineBreak: false });
   const titleWidth = doc.widthOfString(title);
-  if (app.revision > 0)
-    doc
-      .font('body')
-      .fontSize(10)
-      .fillColor(STONE)
-      .text(`revision ${app.revision}`, left + titleWidth + 10, 28, { lineBreak: false });
+  if (app.revision > 0) doc.font('body').fontSize(10).fillColor(STONE).text(`revision ${app.revision}`, left + titleWidth + 10, 28, { lineBreak: false });
   doc.font('body').fontSize(10).fillColor(INK);
   doc.text('', left, 46);
-  doc.text(
-    `${f.projectName}${f.contractNumber ? `  -  contract ${f.contractNumber}` : ''}${f.location ? `  -  ${f.location}` : ''}`,
-  );
-  doc.text(
-    `Period ${app.periodStart} to ${app.periodEnd}${app.isFinal ? '  (final)' : ''}   Status: ${app.status.replace('_', ' ')}`,
-  );
-  doc
-    .fillColor(STONE)
-    .text(
-      `Subcontractor: ${f.parties.subcontractor}   General contractor: ${f.parties.generalContractor}   Owner: ${f.parties.owner}`,
-    );
+  doc.text(`${f.projectName}${f.contractNumber ? `  -  contract ${f.contractNumber}` : ''}${f.location ? `  -  ${f.location}` : ''}`);
+  doc.text(`Period ${app.periodStart} to ${app.periodEnd}${app.isFinal ? '  (final)' : ''}   Status: ${app.status.replace('_', ' ')}`);
+  doc.fillColor(STONE).text(`Subcontractor: ${f.parties.subcontractor}   General contractor: ${f.parties.generalContractor}   Owner: ${f.parties.owner}`);
   doc.moveDown(0.8);
 
   const header = () => {
@@ -97,12 +67,7 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
       doc.text(c.title, x, y, { width: c.w - (c.align === 'right' ? 10 : 4), align: c.align });
       x += c.w;
     }
-    doc
-      .moveTo(left, doc.y + 2)
-      .lineTo(left + width, doc.y + 2)
-      .strokeColor('#c9cdc9')
-      .lineWidth(0.5)
-      .stroke();
+    doc.moveTo(left, doc.y + 2).lineTo(left + width, doc.y + 2).strokeColor('#c9cdc9').lineWidth(0.5).stroke();
     doc.y += 5;
   };
   header();
@@ -112,17 +77,9 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
       header();
     }
     const cells: Record<(typeof COLS)[number]['key'], string> = {
-      item: l.itemNumber,
-      desc: l.description,
-      unit: l.payUnit,
-      price: dollars(l.unitPriceCents),
-      contract: formatQuantityNumber(l.contractQuantity, l.payUnit),
-      prev: formatQuantityNumber(l.previousQuantity, l.payUnit),
-      this: formatQuantityNumber(l.thisPeriodQuantity, l.payUnit),
-      todate: formatQuantityNumber(l.toDateQuantity, l.payUnit),
-      amount: dollars(l.amountToDateCents),
-      ret: dollars(l.retainageCents),
-      review: l.reviewStatus,
+      item: l.itemNumber, desc: l.description, unit: l.payUnit, price: dollars(l.unitPriceCents), contract: formatQuantityNumber(l.contractQuantity, l.payUnit),
+      prev: formatQuantityNumber(l.previousQuantity, l.payUnit), this: formatQuantityNumber(l.thisPeriodQuantity, l.payUnit), todate: formatQuantityNumber(l.toDateQuantity, l.payUnit),
+      amount: dollars(l.amountToDateCents), ret: dollars(l.retainageCents), review: l.reviewStatus,
     };
     const y = doc.y;
     let x = left;
@@ -135,11 +92,7 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
     }
     doc.y = bottom + 3;
   }
-  doc
-    .moveTo(left, doc.y)
-    .lineTo(left + width, doc.y)
-    .strokeColor('#c9cdc9')
-    .stroke();
+  doc.moveTo(left, doc.y).lineTo(left + width, doc.y).strokeColor('#c9cdc9').stroke();
   doc.y += 8;
   if (doc.y > doc.page.height - 230) doc.addPage();
 
@@ -156,36 +109,20 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
   const tx = left + width - 260;
   for (const [label, value] of rows) {
     const last = label === 'Current due';
-    doc
-      .font(last ? 'bold' : 'body')
-      .fontSize(last ? 11 : 9)
-      .fillColor(last ? SPRUCE : INK);
+    doc.font(last ? 'bold' : 'body').fontSize(last ? 11 : 9).fillColor(last ? SPRUCE : INK);
     const y = doc.y;
     doc.text(label, tx, y, { width: 150 });
     doc.text(value, tx + 150, y, { width: 110, align: 'right' });
   }
-  doc
-    .font('body')
-    .fontSize(8)
-    .fillColor(STONE)
-    .text(`Complete to date: ${percentText(app.percentCompleteBps)}`, tx, doc.y + 2);
+  doc.font('body').fontSize(8).fillColor(STONE).text(`Complete to date: ${percentText(app.percentCompleteBps)}`, tx, doc.y + 2);
 
   const flags = beyondBand(app, f.bandOverBps);
   doc.y = totalsTop;
   doc.font('bold').fontSize(9).fillColor(INK).text('Quantity flags', left, doc.y, { width: 360 });
-  doc
-    .font('body')
-    .fontSize(8)
-    .fillColor(flags.length ? '#9a3b2e' : STONE);
-  if (flags.length === 0)
-    doc.text(`No item is past ${percentText(10_000 + f.bandOverBps)} of its contract quantity to date.`, {
-      width: 360,
-    });
+  doc.font('body').fontSize(8).fillColor(flags.length ? '#9a3b2e' : STONE);
+  if (flags.length === 0) doc.text(`No item is past ${percentText(10_000 + f.bandOverBps)} of its contract quantity to date.`, { width: 360 });
   for (const l of flags) {
-    doc.text(
-      `Item ${l.itemNumber}: ${formatQuantityNumber(l.toDateQuantity, l.payUnit)} ${l.payUnit} to date is ${percentText(Math.round((l.toDateQuantity / l.contractQuantity) * 10_000))} of the contract quantity ${formatQuantityNumber(l.contractQuantity, l.payUnit)} (band +${percentText(f.bandOverBps)}).`,
-      { width: 360 },
-    );
+    doc.text(`Item ${l.itemNumber}: ${formatQuantityNumber(l.toDateQuantity, l.payUnit)} ${l.payUnit} to date is ${percentText(Math.round((l.toDateQuantity / l.contractQuantity) * 10_000))} of the contract quantity ${formatQuantityNumber(l.contractQuantity, l.payUnit)} (band +${percentText(f.bandOverBps)}).`, { width: 360 });
   }
 
   doc.y = Math.max(doc.y, totalsTop + 120) + 16;
@@ -193,35 +130,18 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
   const sigW = (width - 40) / 3;
   const signers: [string, string, string][] = [
     ['Subcontractor', f.parties.subcontractor, 'Submitted by'],
-    [
-      'General contractor',
-      f.parties.generalContractor,
-      app.certifiedBy ? `Certified by ${app.certifiedBy} on ${app.certifiedAt?.slice(0, 10)}` : 'Certified by',
-    ],
+    ['General contractor', f.parties.generalContractor, app.certifiedBy ? `Certified by ${app.certifiedBy} on ${app.certifiedAt?.slice(0, 10)}` : 'Certified by'],
     ['Owner', f.parties.owner, 'Received by'],
   ];
   signers.forEach(([role, company, caption], i) => {
     const x = left + i * (sigW + 20);
     doc.font('bold').fontSize(8.5).fillColor(INK).text(role, x, sigY, { width: sigW });
     doc.font('body').fontSize(8).fillColor(STONE).text(company, x, doc.y, { width: sigW });
-    doc
-      .moveTo(x, sigY + 48)
-      .lineTo(x + sigW, sigY + 48)
-      .strokeColor(INK)
-      .stroke();
+    doc.moveTo(x, sigY + 48).lineTo(x + sigW, sigY + 48).strokeColor(INK).stroke();
     doc.text(caption, x, sigY + 52, { width: sigW });
     doc.text('Signature and date', x, doc.y, { width: sigW });
   });
-  doc
-    .font('body')
-    .fontSize(7)
-    .fillColor(STONE)
-    .text(
-      "Quantities follow the contract's measurement provisions; payment follows the contract and the governing statute. Tallyard is not legal advice.",
-      left,
-      sigY + 84,
-      { width },
-    );
+  doc.font('body').fontSize(7).fillColor(STONE).text('Quantities follow the contract\'s measurement provisions; payment follows the contract and the governing statute. Tallyard is not legal advice.', left, sigY + 84, { width });
   doc.end();
   return done;
 }
