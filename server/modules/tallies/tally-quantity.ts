@@ -5,6 +5,7 @@ import { fmt } from '../../../src/shared/domain/earthwork/trail';
 import { M3_PER_CY, M_PER_FT } from '../../../src/shared/domain/earthwork/units';
 import type { CreateTallyInput, TallyComponent, TallyResult } from '../../../src/shared/schemas/tally';
 import { AppError } from '../../lib/app-error';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { runWorksheet, type WorksheetResult } from './worksheet-engine';
 
 export type PayItem = { itemNumber: string; payUnit: PayUnit; basis: MeasurementBasis };
@@ -57,14 +58,14 @@ function toPayLength(r: WorksheetResult, item: PayItem, trail: string[]): number
  * The tally's quantity in the bid item's pay unit and basis, computed on the server from the worksheet (or the
  * manual quantity), with every conversion written into the trail.
  */
-export function computeTally(input: Pick<CreateTallyInput, 'method' | 'inputs' | 'component' | 'measuredBasis' | 'quantity' | 'manualBasis'>, item: PayItem, f: MaterialFactors): TallyResult {
+export async function computeTally(input: Pick<CreateTallyInput, 'method' | 'inputs' | 'component' | 'measuredBasis' | 'quantity' | 'manualBasis'>, item: PayItem, f: MaterialFactors, compute?: ComputePool): Promise<TallyResult> {
   const isVolume = item.payUnit === 'CY' || item.payUnit === 'm3';
   if (input.method === 'manual') {
     const q = stored(input.quantity ?? 0);
     const trail = [`Manual quantity ${fmt(q, 4)} ${item.payUnit}${isVolume ? ` (${item.basis})` : ''}`, `Basis: ${input.manualBasis ?? ''}`];
     return { engine: null, measured: null, quantity: q, unit: item.payUnit, basis: isVolume ? item.basis : null, trail };
   }
-  const engine = runWorksheet(input.method, input.inputs ?? {});
+  const engine = await runWorksheet(input.method, input.inputs ?? {}, compute);
   const trail = [...(engine.trail ?? [])];
   let quantity: number;
   let measured: Measured;
