@@ -22,6 +22,7 @@ import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { changeOrdersRouter } from './modules/change-orders/change-orders.routes';
 import { devMailboxRouter } from './modules/dev/mailbox.routes';
+import { inboxRouter } from './modules/inbox/inbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
 import { calcRouter } from './modules/calc/calc.routes';
@@ -104,7 +105,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
-  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
+  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));

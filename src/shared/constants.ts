@@ -333,3 +333,21 @@ export const DEFAULT_MOBILIZATION_STEPS = [
 // ---------------------------------------------------------------------------------------------------------
 // End of the measurement and payment provisions section.
 // ---------------------------------------------------------------------------------------------------------
+
+/**
+ * What an inbox entry asks of the person who sees it. Each is derived from a state rule (the pay application
+ * transitions, the payment, waiver, change order and people policies), never written again for the inbox.
+ */
+export const INBOX_KINDS = [
+  'pay_app_submit',
+  'pay_app_review',
+  'pay_app_certify',
+  'pay_app_revise',
+  'pay_app_answer',
+  'payment_due',
+  'waiver_sign',
+  'waiver_request',
+  'change_order_decide',
+  'invitation_pending',
+] as const;
+export type InboxKind = (typeof INBOX_KINDS)[number];

@@ -46,9 +46,12 @@ export function formatQuantity(quantity: number, unit: PayUnit, basis?: Measurem
   return `${formatQuantityNumber(quantity, unit)} ${unit}${basis ? ` ${basis}` : ''}`;
 }
 
-/** For CSV cells: the display precision, no separators, so a spreadsheet reads a number ("2849.78"). */
-export function formatQuantityPlain(quantity: number, unit: PayUnit): string {
-  return formatNumber(quantity, QUANTITY_DISPLAY_DECIMALS[unit], false);
+/**
+ * For CSV cells: the quantity as the data holds it (up to the stored 4 decimals, no separators), so a spreadsheet
+ * reads a number and its quantity x unit price gives the amounts in the file.
+ */
+export function formatQuantityPlain(quantity: number): string {
+  return String(roundTo(quantity, 4));
 }
 
 /** "$1,234.50" from integer cents; the decimal string comes from dinero.js, only separators are added. */
