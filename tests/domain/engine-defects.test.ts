@@ -245,7 +245,7 @@ describe('very large inputs: a 400 naming the field, never a RangeError', () => 
         {
           unitPriceCents: Number.MAX_SAFE_INTEGER,
           contractQuantity: 1e9,
-          previousQuantity: 1e9,
+          previousQuantity: 0,
           thisPeriodQuantity: 0,
         },
       ],

@@ -161,7 +161,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
         y1 = cb[2 * j1 + 1]!,
         x2 = cb[2 * j2]!,
         y2 = cb[2 * j2 + 1]!;
-      // Boxes apart: no overlap (a cheap test before clipping).
+      // Boxes apart: no overlap (the cheapest test).
       if (
         (x0 > tx1 && x1 > tx1 && x2 > tx1) ||
         (x0 < tx0 && x1 < tx0 && x2 < tx0) ||
@@ -169,12 +169,44 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
         (y0 < ty0 && y1 < ty0 && y2 < ty0)
       )
         continue;
-      clipEdge(tri, x0, y0, x1, y1, ob, r2);
-      if (r2.n === 0) continue;
-      clipEdge(r2, x1, y1, x2, y2, ob, r1);
-      if (r1.n === 0) continue;
-      clipEdge(r1, x2, y2, x0, y0, ob, r2);
-      const piece = r2;
+      // Sides of t's corners against each edge of s: all outside one edge means no overlap; none outside an
+      // edge means the neighbour across it cannot overlap t (it lies beyond that edge), so it is not walked to.
+      const bx0 = ax,
+        by0 = ay,
+        bx1 = ax + ex,
+        by1 = ay + ey,
+        bx2 = ax + fx,
+        by2 = ay + fy;
+      let g0 = x1 - x0,
+        h0 = y1 - y0;
+      const a0 = (g0 * (by0 - y0) - h0 * (bx0 - x0)) * ob,
+        a1 = (g0 * (by1 - y0) - h0 * (bx1 - x0)) * ob,
+        a2 = (g0 * (by2 - y0) - h0 * (bx2 - x0)) * ob;
+      if (a0 <= 0 && a1 <= 0 && a2 <= 0) continue;
+      g0 = x2 - x1;
+      h0 = y2 - y1;
+      const c0 = (g0 * (by0 - y1) - h0 * (bx0 - x1)) * ob,
+        c1 = (g0 * (by1 - y1) - h0 * (bx1 - x1)) * ob,
+        c2 = (g0 * (by2 - y1) - h0 * (bx2 - x1)) * ob;
+      if (c0 <= 0 && c1 <= 0 && c2 <= 0) continue;
+      g0 = x0 - x2;
+      h0 = y0 - y2;
+      const d0 = (g0 * (by0 - y2) - h0 * (bx0 - x2)) * ob,
+        d1 = (g0 * (by1 - y2) - h0 * (bx1 - x2)) * ob,
+        d2 = (g0 * (by2 - y2) - h0 * (bx2 - x2)) * ob;
+      if (d0 <= 0 && d1 <= 0 && d2 <= 0) continue;
+      const out0 = a0 < 0 || a1 < 0 || a2 < 0;
+      const out1 = c0 < 0 || c1 < 0 || c2 < 0;
+      const out2 = d0 < 0 || d1 < 0 || d2 < 0;
+      let piece = tri;
+      if (out0 || out1 || out2) {
+        clipEdge(tri, x0, y0, x1, y1, ob, r2);
+        if (r2.n === 0) continue;
+        clipEdge(r2, x1, y1, x2, y2, ob, r1);
+        if (r1.n === 0) continue;
+        clipEdge(r1, x2, y2, x0, y0, ob, r2);
+        piece = r2;
+      }
       if (piece.n < 3) continue;
       const area = ringArea(piece);
       if (!(area !== 0)) continue;
@@ -199,6 +231,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
       if (!status || status[tIndex] === 1) addRing(piece, f, acc, scratch, tmp);
       else if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
       for (let e = e0; e < e0 + 3; e++) {
+        if (!(e === e0 ? out0 : e === e0 + 1 ? out1 : out2)) continue;
         const opp = hb[e]!;
         if (opp < 0) continue;
         const nb = (opp / 3) | 0;
