@@ -1,5 +1,5 @@
 import { openDatabase } from './db/client';
-import { loadEnv } from './env';
+import { assertDeployable, loadEnv } from './env';
 import { dataDirLayout, lockDataDir } from './lib/data-dir';
 import { createLogger } from './lib/logger';
 
@@ -10,10 +10,13 @@ import { createLogger } from './lib/logger';
  */
 async function main() {
   const env = loadEnv();
+  assertDeployable(env);
   const logger = createLogger(env.LOG_LEVEL);
   const layout = dataDirLayout(env.DATA_DIR);
   const unlock = env.DATABASE_URL ? async () => {} : await lockDataDir(layout);
-  const opening = openDatabase(env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db });
+  const opening = openDatabase(
+    env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db },
+  );
   opening.catch(() => {}); // awaited below, after the import; this only keeps a failure from counting as unhandled meanwhile
   const { boot } = await import('./boot');
   await boot({ env, logger, layout, database: await opening, unlock });

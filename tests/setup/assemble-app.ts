@@ -24,7 +24,14 @@ type Options = {
   clientDir?: string;
 };
 
-export type AssembledApp = { app: Express; auth: Auth; mailbox: SmtpSink; storage: Storage; standin: Standin; close: () => Promise<void> };
+export type AssembledApp = {
+  app: Express;
+  auth: Auth;
+  mailbox: SmtpSink;
+  storage: Storage;
+  standin: Standin;
+  close: () => Promise<void>;
+};
 
 /**
  * The real app with the test integrations: fast password hashing, memory storage, the local SMTP sink and the
@@ -36,7 +43,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
     secret: 'test-secret-test-secret-test-secret-0123',
     baseURL: o.baseURL,
     trustedOrigins: o.trustedOrigins,
-    production: false,
+    secureCookies: false,
     passwordHasher: fastPasswordHasher,
   });
   const storage = o.storage ?? memoryStorage();
