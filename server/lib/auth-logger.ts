@@ -29,7 +29,9 @@ export function authLogger(logger: Logger | undefined): BetterAuthLogger {
   if (!logger) return { disabled: true };
   const auth = logger.child({ component: 'better-auth' });
   return {
-    level: 'warn',
+    // 'info', not 'warn': at warn, error or debug better-auth also prints every refused request (an APIError's
+    // message) through its own console logger, beside this one (better-auth 1.7, api/index onError).
+    level: 'info',
     log: (level, message, ...args) => {
       const fields = args.length > 0 ? { details: args.map(describe) } : {};
       auth[level === 'debug' ? 'debug' : level](fields, scrubLogText(message));

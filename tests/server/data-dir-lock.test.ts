@@ -9,7 +9,15 @@ afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
 
 function startServer(port: number) {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', SEED_DEMO: 'never', LOG_LEVEL: 'info', NODE_ENV: 'test' },
+    env: {
+      ...process.env,
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      SEED_DEMO: 'never',
+      LOG_LEVEL: 'info',
+      NODE_ENV: 'test',
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';

@@ -34,7 +34,8 @@ describe('NODE_ENV=production', () => {
     const { code, output } = await runToExit({ NODE_ENV: 'production', SEED_DEMO: 'never', ...SECRET });
     expect(code).toBe(1);
     expect(output).toContain('cannot start in production');
-    for (const key of ['APP_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET']) expect(output).toContain(`${key}:`);
+    for (const key of ['APP_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET'])
+      expect(output).toContain(`${key}:`);
     expect(output).not.toContain('listening');
   }, 60_000);
 
@@ -42,8 +43,12 @@ describe('NODE_ENV=production', () => {
     const base = { NODE_ENV: 'production', APP_URL: 'https://tallyard.example', SMTP_URL: 'smtp://mail.example:25' };
     expect(() => assertDeployable(loadEnv(base))).toThrow(/STRIPE_SECRET_KEY:[\s\S]*STRIPE_WEBHOOK_SECRET:/);
     expect(() => assertDeployable(loadEnv(base))).not.toThrow(/APP_URL:|SMTP_URL:/);
-    expect(() => assertDeployable(loadEnv({ ...base, STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' }))).not.toThrow();
-    expect(() => assertDeployable(loadEnv({ NODE_ENV: 'production', TALLYARD_DEMO: 'on', DATABASE_URL: 'postgresql://x@db/x' }))).toThrow(/embedded database/);
+    expect(() =>
+      assertDeployable(loadEnv({ ...base, STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' })),
+    ).not.toThrow();
+    expect(() =>
+      assertDeployable(loadEnv({ NODE_ENV: 'production', TALLYARD_DEMO: 'on', DATABASE_URL: 'postgresql://x@db/x' })),
+    ).toThrow(/embedded database/);
     expect(() => assertDeployable(loadEnv({ NODE_ENV: 'production', TALLYARD_DEMO: 'on' }))).not.toThrow();
     expect(() => assertDeployable(loadEnv({ NODE_ENV: 'development' }))).not.toThrow();
   });
@@ -82,7 +87,12 @@ describe('NODE_ENV=production', () => {
   }, 120_000);
 
   it('the embedded demo (`npm start`): a Mailbox labelled demo, showing each person only their own mail', async () => {
-    const server = await startServerProcess(dataDir, await freePort(), { NODE_ENV: 'production', TALLYARD_DEMO: 'on', SEED_DEMO: 'always', ...SECRET });
+    const server = await startServerProcess(dataDir, await freePort(), {
+      NODE_ENV: 'production',
+      TALLYARD_DEMO: 'on',
+      SEED_DEMO: 'always',
+      ...SECRET,
+    });
     try {
       expect(server.output()).toContain('demo mode');
       const owner = await signInCookie(server.url, 'owner@tallyard.test', DEMO_PASSWORD);
@@ -97,4 +107,3 @@ describe('NODE_ENV=production', () => {
     }
   }, 120_000);
 });
-
