@@ -178,3 +178,87 @@ export const LIEN_WAIVER_KINDS = [
   'unconditional_final',
 ] as const;
 export type LienWaiverKind = (typeof LIEN_WAIVER_KINDS)[number];
+
+// ---------------------------------------------------------------------------------------------------------
+// Measurement and payment provisions (issue 15): how each bid item is measured and paid.
+// ---------------------------------------------------------------------------------------------------------
+
+/**
+ * How a bid item is measured and paid (a state DOT Resident Engineer's Manual sections 109.11-109.12; FHWA WFL
+ * supplement to FP-14 section 109.01). `plan_quantity` is paid at the contract quantity as the work is done;
+ * `worksheet` is measured by a worksheet (tallies); `truck_measure` counts loads against the truck register;
+ * `weight` uses scale tickets; `lump_sum` is paid by percent complete or by stages; `force_account` is extra
+ * work on time and materials under a change order.
+ */
+export const MEASUREMENT_PROFILES = [
+  'plan_quantity',
+  'worksheet',
+  'truck_measure',
+  'weight',
+  'lump_sum',
+  'force_account',
+] as const;
+export type MeasurementProfile = (typeof MEASUREMENT_PROFILES)[number];
+
+export const MEASUREMENT_PROFILE_LABELS: Record<MeasurementProfile, string> = {
+  plan_quantity: 'Contract quantity',
+  worksheet: 'Measured on a worksheet',
+  truck_measure: 'Counted loads (truck register)',
+  weight: 'Weighed (scale tickets)',
+  lump_sum: 'Lump sum by percent',
+  force_account: 'Time and materials (force account)',
+};
+
+/** A measurement is interim until the final measurement of the item (WFL supplement to FP-14 section 109.01). */
+export const MEASUREMENT_STAGES = ['interim', 'final'] as const;
+export type MeasurementStage = (typeof MEASUREMENT_STAGES)[number];
+
+/**
+ * Decimals of the pay quantity per pay unit, a project may change them per item. Measurements are kept one
+ * decimal finer (WFL supplement to FP-14 section 109.01). Truck measure in CY is paid to 0.1 (a state DOT
+ * construction manual section 109.11); the others are common practice, from memory.
+ */
+export const DEFAULT_PAY_DECIMALS: Record<PayUnit, number> = {
+  CY: 1,
+  LF: 1,
+  SY: 1,
+  TON: 2,
+  EA: 0,
+  LS: 2,
+  m3: 1,
+  m: 1,
+  m2: 1,
+  t: 2,
+};
+export const MAX_PAY_DECIMALS = 3;
+
+/** How a lump-sum item is earned: a percent complete, or the stages of its schedule. */
+export const LUMP_SUM_METHODS = ['percent', 'stages'] as const;
+export type LumpSumMethod = (typeof LUMP_SUM_METHODS)[number];
+
+/** Force account line kinds of a daily sheet (MoDOT EPG 109.5; TxDOT Construction Contract Administration Manual). */
+export const FORCE_ACCOUNT_LINE_KINDS = ['labor', 'equipment', 'material'] as const;
+export type ForceAccountLineKind = (typeof FORCE_ACCOUNT_LINE_KINDS)[number];
+
+/** Fuel use factors of a fuel price adjustment, gallons per CY (Iowa DOT 2120; FHWA Technical Advisory T 5080.3). */
+export const FUEL_WORK_KINDS = ['excavation', 'embankment'] as const;
+export type FuelWorkKind = (typeof FUEL_WORK_KINDS)[number];
+export const FUEL_GALLONS_PER_CY: Record<FuelWorkKind, number> = { excavation: 0.2, embankment: 0.27 };
+
+/** Lines kept apart from item quantities on a pay application (23 CFR 635.127 for liquidated damages). */
+export const ADJUSTMENT_KINDS = ['liquidated_damages', 'fuel_adjustment', 'credit', 'other'] as const;
+export type AdjustmentKind = (typeof ADJUSTMENT_KINDS)[number];
+
+/** Minimum weighed loads for a source's ton-to-volume factor (Resident Engineer's Manual section 109.12). */
+export const MIN_FACTOR_LOADS = 3;
+/** Plan-quantity substantial error: more than 5 % of the item or $5,000, the smaller (FDOT 9-3.2.1). */
+export const DEFAULT_SUBSTANTIAL_ERROR_PERCENT = 5;
+export const DEFAULT_SUBSTANTIAL_ERROR_CENTS = 500_000;
+/** Mobilization steps: percent of mobilization paid once a percent of the original contract is earned (Iowa DOT 2533 example). */
+export const DEFAULT_MOBILIZATION_STEPS = [
+  { contractEarnedPercent: 5, mobilizationPercent: 25 },
+  { contractEarnedPercent: 10, mobilizationPercent: 50 },
+] as const;
+// ---------------------------------------------------------------------------------------------------------
+// End of the measurement and payment provisions section.
+// ---------------------------------------------------------------------------------------------------------
