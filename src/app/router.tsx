@@ -19,6 +19,8 @@ function tabRoute(tab: ProjectTab): RouteObject {
 /** Every screen is its own lazy chunk; loaders fetch through the same query options the screens read. */
 export const routes: RouteObject[] = [
   { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  { path: '/forgot-password', lazy: () => import('./routes/forgot-password'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  { path: '/reset-password', lazy: () => import('./routes/reset-password'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
   { path: '/invitations/:token', lazy: () => import('./routes/invitation-accept'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
   {
     path: '/',
@@ -29,6 +31,7 @@ export const routes: RouteObject[] = [
       { index: true, loader: () => redirect('/jobs'), Component: () => null },
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
       { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
+      { path: 'account/password', lazy: () => import('./routes/account-password'), ErrorBoundary: RouteError },
       {
         path: 'projects/:projectId',
         lazy: () => import('./routes/project-shell'),

@@ -106,18 +106,22 @@ describe("better-auth's refusals", () => {
     const { default: request } = await import('supertest');
     const t = await createTestApp();
     const written: string[] = [];
-    const spies = [process.stderr, process.stdout].map((stream) => {
+    const spies: (() => void)[] = [process.stderr, process.stdout].map((stream) => {
       const original = stream.write.bind(stream);
       stream.write = ((chunk: unknown, ...rest: unknown[]) => {
         written.push(String(chunk));
         return (original as (...a: unknown[]) => boolean)(chunk, ...rest);
       }) as typeof stream.write;
-      return () => (stream.write = original);
+      return () => {
+        stream.write = original;
+      };
     });
     for (const method of ['log', 'info', 'warn', 'error', 'debug'] as const) {
       const original = console[method];
       console[method] = (...args: unknown[]) => void written.push(args.map(String).join(' '));
-      spies.push(() => (console[method] = original));
+      spies.push(() => {
+        console[method] = original;
+      });
     }
     try {
       await request(t.app)

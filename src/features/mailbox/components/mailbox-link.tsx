@@ -3,7 +3,7 @@ import { NavLink } from 'react-router';
 import { cn } from '@/lib/cn';
 import { useMailbox } from '../api/get-mailbox';
 
-/** The header's Mailbox entry: shown only where the development mailbox answers (no SMTP_URL). */
+/** The header's Mailbox entry: shown only where the Mailbox answers (development and the demo). */
 export function MailboxLink() {
   const mailbox = useMailbox();
   if (!mailbox.isSuccess) return null;
@@ -18,7 +18,7 @@ export function MailboxLink() {
       }
     >
       <Mail aria-hidden className="size-3.5" />
-      Mailbox <span className="text-spruce-200 text-xs">(dev)</span>
+      Mailbox <span className="text-spruce-200 text-xs">({mailbox.data.kind === 'demo' ? 'demo' : 'dev'})</span>
     </NavLink>
   );
 }

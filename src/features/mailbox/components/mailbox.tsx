@@ -9,7 +9,13 @@ import { useMailbox, type CaughtMail } from '../api/get-mailbox';
 
 const when = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'medium' });
 
-/** Development only: every e-mail the local SMTP sink caught, newest first, with its text and HTML. */
+const SUBTITLES = {
+  development:
+    'Development only: mail addressed to you that this server caught in its local SMTP sink instead of delivering it. Kept in memory until the server restarts.',
+  demo: 'This is a demo: it sends no real e-mail. Mail addressed to you (invitations, pay application notices, password links) lands here instead, until the demo restarts.',
+} as const;
+
+/** The signed-in person's own caught e-mail, newest first, with its text and HTML (development and the demo). */
 export function Mailbox() {
   const mailbox = useMailbox();
   const [selectedId, setSelectedId] = useState<number | null>(null);
@@ -19,22 +25,19 @@ export function Mailbox() {
       Refresh
     </Button>
   );
+  const kind = mailbox.data?.kind ?? 'development';
   const header = (
-    <PageHeader
-      title="Mailbox"
-      subtitle="Development only: mail this server sent, caught by its local SMTP sink instead of being delivered. Kept in memory until the server restarts."
-      actions={refresh}
-    />
+    <PageHeader title={kind === 'demo' ? 'Demo mailbox' : 'Mailbox'} subtitle={SUBTITLES[kind]} actions={refresh} />
   );
   if (mailbox.isPending) return <>{header}<LoadingState label="Loading caught mail…" /></>;
   if (mailbox.isError) return <>{header}<ErrorState error={mailbox.error} title="No development mailbox here" /></>;
-  const messages = mailbox.data;
+  const messages = mailbox.data.messages;
   const selected = messages.find((m) => m.id === selectedId) ?? messages[0];
   return (
     <>
       {header}
       {messages.length === 0 || !selected ? (
-        <EmptyState title="No mail caught yet">Invitations and pay application hand-offs appear here as they are sent.</EmptyState>
+        <EmptyState title="No mail for you yet">Invitations, pay application notices and password links addressed to you appear here as they are sent.</EmptyState>
       ) : (
         <div className="grid gap-4 md:grid-cols-[20rem_1fr]">
           <Card className="max-h-[70vh] overflow-y-auto">
