@@ -19,9 +19,24 @@ function tabRoute(tab: ProjectTab): RouteObject {
 /** Every screen is its own lazy chunk; loaders fetch through the same query options the screens read. */
 export const routes: RouteObject[] = [
   { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
-  { path: '/forgot-password', lazy: () => import('./routes/forgot-password'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
-  { path: '/reset-password', lazy: () => import('./routes/reset-password'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
-  { path: '/invitations/:token', lazy: () => import('./routes/invitation-accept'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  {
+    path: '/forgot-password',
+    lazy: () => import('./routes/forgot-password'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
+  {
+    path: '/reset-password',
+    lazy: () => import('./routes/reset-password'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
+  {
+    path: '/invitations/:token',
+    lazy: () => import('./routes/invitation-accept'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
   {
     path: '/',
     lazy: () => import('./routes/app-layout'),

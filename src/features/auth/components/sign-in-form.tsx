@@ -44,7 +44,10 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
         <Button type="submit" disabled={signIn.isPending} className="w-full">
           {signIn.isPending ? 'Signing in…' : 'Sign in'}
         </Button>
-        <Link to="/forgot-password" className="text-spruce-700 self-center text-sm font-medium underline-offset-2 hover:underline">
+        <Link
+          to="/forgot-password"
+          className="self-center text-sm font-medium text-spruce-700 underline-offset-2 hover:underline"
+        >
           Forgot your password?
         </Link>
       </form>

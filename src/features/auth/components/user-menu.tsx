@@ -20,7 +20,7 @@ export function UserMenu() {
       </div>
       <Link
         to="/account/password"
-        className="text-spruce-100 inline-flex items-center gap-1 rounded px-2 py-1 text-sm hover:text-white focus-visible:outline-white"
+        className="inline-flex items-center gap-1 rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white"
       >
         <KeyRound aria-hidden className="size-3.5" />
         Password

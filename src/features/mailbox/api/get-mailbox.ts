@@ -1,7 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 
-export type CaughtMail = { id: number; receivedAt: string; from: string; to: string[]; subject: string; text: string; html: string };
+export type CaughtMail = {
+  id: number;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+};
 
 export const mailboxKeys = { all: ['mailbox'] as const };
 
