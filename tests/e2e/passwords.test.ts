@@ -46,12 +46,12 @@ describe('passwords in the browser', () => {
     );
     const link = /http:\/\/\S+\/reset-password\?token=[A-Za-z0-9_-]+/.exec(mail.text)![0];
     await page.goto(link);
-    await page.getByLabel('New password').fill('password1234');
+    await page.getByLabel('New password', { exact: true }).fill('password1234');
     await page.getByLabel('Type it again').fill('password1234');
     await page.getByRole('button', { name: 'Set my new password' }).click();
     await page.getByText(/list of common passwords/).waitFor();
     await shot(page, 'reset-password-refused');
-    await page.getByLabel('New password').fill('borrow-pit-lift-2027');
+    await page.getByLabel('New password', { exact: true }).fill('borrow-pit-lift-2027');
     await page.getByLabel('Type it again').fill('borrow-pit-lift-2027');
     await page.getByRole('button', { name: 'Set my new password' }).click();
     await page.getByText('Your new password is set.').waitFor();
@@ -62,7 +62,7 @@ describe('passwords in the browser', () => {
     await signInWith(page, 'sub@tallyard.test', 'borrow-pit-lift-2027');
     await page.waitForURL('**/jobs');
     await page.close();
-  });
+  }, 120_000);
 
   it('changing the password signs out the other browser', async () => {
     const other = await browser.newContext();
@@ -90,5 +90,5 @@ describe('passwords in the browser', () => {
     expect(elsewhere.url()).toContain('/sign-in');
     await other.close();
     await page.close();
-  });
+  }, 120_000);
 });

@@ -5,7 +5,7 @@ import { ChangePasswordForm } from '@/features/auth/components/change-password-f
 /** The signed-in person's password. */
 export function Component() {
   return (
-    <>
+    <div className="mx-auto max-w-7xl px-4 pt-4 pb-10">
       <title>Password · Tallyard</title>
       <PageHeader
         title="Your password"
@@ -14,6 +14,6 @@ export function Component() {
       <Card className="max-w-md p-6">
         <ChangePasswordForm />
       </Card>
-    </>
+    </div>
   );
 }

@@ -44,8 +44,10 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
         <Button type="submit" disabled={signIn.isPending} className="w-full">
           {signIn.isPending ? 'Signing in…' : 'Sign in'}
         </Button>
+        {/* Pressing the link must not blur the e-mail field first: its error would push the link away mid-click. */}
         <Link
           to="/forgot-password"
+          onMouseDown={(event) => event.preventDefault()}
           className="self-center text-sm font-medium text-spruce-700 underline-offset-2 hover:underline"
         >
           Forgot your password?
