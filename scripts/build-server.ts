@@ -5,6 +5,8 @@ import { build, type Plugin } from 'esbuild';
 const ROOT = path.resolve(import.meta.dirname, '..');
 const OUT_DIR = path.join(ROOT, 'dist-server');
 export const SERVER_BUNDLE = path.join(OUT_DIR, 'index.js');
+/** The compute pool's worker thread (server/lib/compute/compute-task.ts), bundled beside the server. */
+export const COMPUTE_WORKER_BUNDLE = path.join(OUT_DIR, 'compute-task.js');
 const SOURCES = [
   'server',
   'src/shared',
@@ -64,7 +66,17 @@ export async function bundleServer(outDir: string): Promise<void> {
   rmSync(outDir, { recursive: true, force: true });
   await build({
     absWorkingDir: ROOT,
-    entryPoints: ['server/index.ts'],
+    entryPoints: [
+      { in: 'server/index.ts', out: 'index' },
+      { in: 'server/lib/compute/compute-task.ts', out: 'compute-task' },
+    ],
+    // The pool starts the bundled worker (plain JavaScript) instead of the tsx loader it uses under tsx; its place
+    // is given relative to the pool's own module, never as this machine's absolute path.
+    define: {
+      __TALLYARD_COMPUTE_WORKER__: JSON.stringify(
+        path.relative(path.join(ROOT, 'server/lib/compute'), path.join(outDir, 'compute-task.js')).split(path.sep).join('/'),
+      ),
+    },
     outdir: outDir,
     // Modules imported with import() (the Stripe stand-in) become chunks of their own, loaded when first used.
     splitting: true,

@@ -43,7 +43,9 @@ export const routes: RouteObject[] = [
     ErrorBoundary: RouteError,
     HydrateFallback: PageLoading,
     children: [
-      { index: true, loader: () => redirect('/jobs'), Component: () => null },
+      // The inbox is the first screen after sign-in: what waits on me across all jobs.
+      { index: true, loader: () => redirect('/inbox'), Component: () => null },
+      { path: 'inbox', lazy: () => import('./routes/inbox'), ErrorBoundary: RouteError },
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
       { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
       { path: 'account/password', lazy: () => import('./routes/account-password'), ErrorBoundary: RouteError },
