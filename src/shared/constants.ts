@@ -64,6 +64,70 @@ export const MEASUREMENT_METHOD_LABELS: Record<MeasurementMethod, string> = {
   manual: 'Manual, with written basis',
 };
 
+/** The parts of a cut-and-fill measurement a tally can bill. */
+export const TALLY_COMPONENTS = ['cut', 'fill'] as const;
+export type TallyComponent = (typeof TALLY_COMPONENTS)[number];
+
+/** What a method's result is, for billing: a volume (maybe cut and fill), a volume or a run length, or a number typed with its basis. */
+export const METHOD_YIELDS = ['volume', 'volume-or-length', 'direct'] as const;
+export type MethodYield = (typeof METHOD_YIELDS)[number];
+
+export type MethodBilling =
+  | {
+      bills: true;
+      yields: MethodYield;
+      /** The parts a tally chooses between; empty when the method gives one volume. */
+      components: readonly TallyComponent[];
+      /** Measure the method's volume is in unless the tally says otherwise (cut bank, fill compacted: US Navy EO manual, Table 4-1). */
+      measuredBasis: MeasurementBasis | 'by-component';
+      /** Decimals the billed quantity is rounded to: truck measure pays to 0.1 (a state DOT construction manual,
+       * section 109.11); the others keep the stored precision, numeric(16,4). */
+      payDecimals: number;
+    }
+  | { bills: false; reason: string };
+
+/**
+ * Per measurement method: whether a tally may bill it, and what it yields. The one table the server (tallies
+ * API), the worksheets (Save as tally) and the labels read.
+ */
+export const METHOD_BILLING: Record<MeasurementMethod, MethodBilling> = {
+  'end-area': {
+    bills: true,
+    yields: 'volume',
+    components: TALLY_COMPONENTS,
+    measuredBasis: 'by-component',
+    payDecimals: 4,
+  },
+  grid: { bills: true, yields: 'volume', components: TALLY_COMPONENTS, measuredBasis: 'by-component', payDecimals: 4 },
+  pit: { bills: true, yields: 'volume', components: [], measuredBasis: 'bank', payDecimals: 4 },
+  trench: { bills: true, yields: 'volume-or-length', components: [], measuredBasis: 'bank', payDecimals: 4 },
+  'load-count': { bills: true, yields: 'volume', components: [], measuredBasis: 'loose', payDecimals: 1 },
+  surface: {
+    bills: true,
+    yields: 'volume',
+    components: TALLY_COMPONENTS,
+    measuredBasis: 'by-component',
+    payDecimals: 4,
+  },
+  spoil: {
+    bills: false,
+    reason: 'The spoil planner sizes a pile from a volume already measured; it does not measure a pay quantity.',
+  },
+  'mass-haul': {
+    bills: false,
+    reason:
+      'Mass haul gives overhaul in station-yards, which is not a pay unit of the bid schedule; enter it as a direct quantity with its basis.',
+  },
+  manual: { bills: true, yields: 'direct', components: [], measuredBasis: 'bank', payDecimals: 4 },
+};
+
+export function methodBills(method: MeasurementMethod): boolean {
+  return METHOD_BILLING[method].bills;
+}
+
+/** Pay units counted, lump sum or by area: no worksheet measures them, a tally states them directly. */
+export const DIRECT_PAY_UNITS: readonly PayUnit[] = ['EA', 'LS', 'SY', 'm2'];
+
 /** Variation clause presets. Sources: FAR 52.211-18; 23 CFR 635.109(a)(3). */
 export const VARIATION_PRESETS = ['far-15', 'major-125-75', 'custom'] as const;
 export type VariationPreset = (typeof VARIATION_PRESETS)[number];
@@ -102,6 +166,13 @@ export type EndAreaFormula = (typeof END_AREA_FORMULAS)[number];
 /** What to do where one end area of a segment is zero: keep averaging, or the pyramid rule V = A L / 3. */
 export const ZERO_AREA_END_RULES = ['average', 'pyramid'] as const;
 export type ZeroAreaEndRule = (typeof ZERO_AREA_END_RULES)[number];
+
+/**
+ * How a grid cell with corners in both cut and fill is split: the transition-square formula of surveying texts
+ * (the default), or the exact integral of the bilinear surface through the four corners.
+ */
+export const GRID_MIXED_CELL_SPLITS = ['transition-square', 'exact-bilinear'] as const;
+export type GridMixedCellSplit = (typeof GRID_MIXED_CELL_SPLITS)[number];
 
 export const TRENCH_PROTECTIONS = ['box', 'slope', 'bench'] as const;
 export type TrenchProtection = (typeof TRENCH_PROTECTIONS)[number];
