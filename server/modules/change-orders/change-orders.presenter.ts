@@ -23,10 +23,15 @@ function presentItem(row: ChangeOrderItemRow, ctx: PresentContext): ChangeOrderI
   const quantity = row.bidItemId ? (ctx.quantities.get(row.bidItemId)?.currentContractQuantity ?? 0) : 0;
   const unitPriceCents = bidItem?.unitPriceCents ?? newItem?.unitPriceCents ?? 0;
   let amountDeltaCents = 0;
-  if (row.kind === 'add_item' && newItem) amountDeltaCents = lineAmountCents(newItem.contractQuantity, newItem.unitPriceCents);
-  if (row.kind === 'change_quantity' && row.quantityDelta !== null) amountDeltaCents = lineAmountCents(row.quantityDelta, unitPriceCents);
+  if (row.kind === 'add_item' && newItem)
+    amountDeltaCents = lineAmountCents(newItem.contractQuantity, newItem.unitPriceCents);
+  if (row.kind === 'change_quantity' && row.quantityDelta !== null)
+    amountDeltaCents = lineAmountCents(row.quantityDelta, unitPriceCents);
   if (row.kind === 'change_price' && row.newUnitPriceCents !== null) {
-    amountDeltaCents = sumCents([lineAmountCents(quantity, row.newUnitPriceCents), -lineAmountCents(quantity, unitPriceCents)]);
+    amountDeltaCents = sumCents([
+      lineAmountCents(quantity, row.newUnitPriceCents),
+      -lineAmountCents(quantity, unitPriceCents),
+    ]);
   }
   return {
     id: row.id,

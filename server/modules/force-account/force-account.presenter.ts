@@ -1,23 +1,8 @@
-import {
-  dailySheetTotals,
-  type DailySheetInput,
-  type DailySheetTotals,
-} from '../../../src/shared/domain/provisions/force-account';
+import { dailySheetTotals, type DailySheetInput } from '../../../src/shared/domain/provisions/force-account';
+import type { DailySheetView } from '../../../src/shared/schemas/provisions/views';
 import type { DailySheetRow } from './force-account.repository';
 
-export type DailySheetView = {
-  id: string;
-  changeOrderId: string;
-  workedOn: string;
-  description: string;
-  lines: DailySheetInput;
-  totals: DailySheetTotals;
-  totalCents: number;
-  contractorSignedAt: string | null;
-  gcSignedAt: string | null;
-  /** Signed by both sides: only then does the day count on a pay application. */
-  complete: boolean;
-};
+export type { DailySheetView };
 
 export function presentSheet(r: DailySheetRow): DailySheetView {
   const lines = r.lines as DailySheetInput;

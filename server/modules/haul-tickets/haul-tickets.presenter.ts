@@ -1,28 +1,8 @@
-import {
-  checkTicket,
-  ticketTotals,
-  type RegisteredTruck,
-  type TicketFlag,
-  type TicketTotal,
-} from '../../../src/shared/domain/provisions/truck-measure';
+import { checkTicket, ticketTotals, type RegisteredTruck } from '../../../src/shared/domain/provisions/truck-measure';
+import type { TicketTotalsView, TruckTicketView, TruckView } from '../../../src/shared/schemas/provisions/views';
 import type { TruckRow, TruckTicketRow } from './haul-tickets.repository';
 
-export type TruckView = Pick<TruckRow, 'id' | 'label' | 'hauler' | 'bedVolumeCy' | 'measuredBy' | 'measuredOn'>;
-
-export type TruckTicketView = Pick<
-  TruckTicketRow,
-  | 'id'
-  | 'bidItemId'
-  | 'deliveredOn'
-  | 'truckLabel'
-  | 'material'
-  | 'source'
-  | 'loadedAt'
-  | 'deliveredTo'
-  | 'loadCheckerInitials'
-  | 'deliveryCheckerInitials'
-  | 'loadVolumeCy'
-> & { volumeCy: number; flags: TicketFlag[] };
+export type { TicketTotalsView, TruckTicketView, TruckView };
 
 export function presentTruck(r: TruckRow): TruckView {
   return {
@@ -65,8 +45,6 @@ export function presentTicket(r: TruckTicketRow, register: Map<string, Registere
     flags: check.flags,
   };
 }
-
-export type TicketTotalsView = { byDay: TicketTotal[]; byItem: TicketTotal[] };
 
 export function presentTotals(rows: TruckTicketRow[], register: Map<string, RegisteredTruck>): TicketTotalsView {
   const lines = rows.map(lineOf);

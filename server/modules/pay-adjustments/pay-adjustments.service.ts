@@ -1,21 +1,12 @@
 import { fuelAdjustment, liquidatedDamagesCents } from '../../../src/shared/domain/provisions/deductions';
 import type { CreateAdjustmentInput } from '../../../src/shared/schemas/provisions/accounts';
-import type { AdjustmentKind } from '../../../src/shared/constants';
+import type { PayAdjustmentView } from '../../../src/shared/schemas/provisions/views';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { canRecordAdjustment } from '../field-records/field-records.policy';
 import { asAppError, recordChange } from '../field-records/record-change';
 import * as repo from './pay-adjustments.repository';
-
-export type PayAdjustmentView = {
-  id: string;
-  kind: AdjustmentKind;
-  appliesOn: string;
-  description: string;
-  amountCents: number;
-  basis: Record<string, unknown>;
-};
 
 const present = (r: repo.PayAdjustmentRow): PayAdjustmentView => ({
   id: r.id,

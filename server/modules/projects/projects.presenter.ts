@@ -10,7 +10,11 @@ import type { ProjectRow } from './projects.repository';
 
 export type ProjectTotals = { contractSumCents: number; bidItemCount: number };
 
-export function presentProjectSummary(row: ProjectRow, myRoles: AccessRole[], totals: ProjectTotals): ProjectSummaryView {
+export function presentProjectSummary(
+  row: ProjectRow,
+  myRoles: AccessRole[],
+  totals: ProjectTotals,
+): ProjectSummaryView {
   return {
     id: row.id,
     name: row.name,

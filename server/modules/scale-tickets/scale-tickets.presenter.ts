@@ -1,14 +1,6 @@
 import { moistureCorrected, tonsToCubicYards } from '../../../src/shared/domain/provisions/weight';
+import type { MaterialSourceView, ScaleTicketView } from '../../../src/shared/schemas/provisions/views';
 import type { MaterialSourceRow, ScaleTicketRow } from './scale-tickets.repository';
-
-export type MaterialSourceView = {
-  id: string;
-  name: string;
-  weighedLoads: { netTons: number; volumeCy: number }[];
-  factorComputed: number;
-  factorUsed: number;
-  statedMoisturePercent: number | null;
-};
 
 export function presentSource(r: MaterialSourceRow): MaterialSourceView {
   return {
@@ -20,28 +12,6 @@ export function presentSource(r: MaterialSourceRow): MaterialSourceView {
     statedMoisturePercent: r.statedMoisturePercent,
   };
 }
-
-export type ScaleTicketView = Pick<
-  ScaleTicketRow,
-  | 'id'
-  | 'bidItemId'
-  | 'sourceId'
-  | 'ticketNumber'
-  | 'weighedOn'
-  | 'grossTons'
-  | 'tareTons'
-  | 'netTons'
-  | 'material'
-  | 'moisturePercent'
-  | 'scaleCheckerInitials'
-  | 'deliveryCheckerInitials'
-> & {
-  /** Net weight after the moisture correction (tons, to 0.01). */
-  payTons: number;
-  /** Volume with the source's factor: 0.01 CY computed, and the 0.5 CY banded figure. */
-  computedCy: number;
-  bandedCy: number;
-};
 
 export function presentScaleTicket(r: ScaleTicketRow, source: MaterialSourceRow | undefined): ScaleTicketView {
   const stated = source?.statedMoisturePercent;

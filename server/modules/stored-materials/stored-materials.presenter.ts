@@ -1,18 +1,6 @@
-import { storedAccount, type StoredPeriodAccount } from '../../../src/shared/domain/provisions/stored-materials';
+import { storedAccount } from '../../../src/shared/domain/provisions/stored-materials';
+import type { StoredMaterialView } from '../../../src/shared/schemas/provisions/views';
 import type { MovementRow, StoredMaterialRow } from './stored-materials.repository';
-
-export type StoredMaterialView = {
-  id: string;
-  bidItemId: string;
-  description: string;
-  unit: string;
-  unitCostCents: number;
-  neededQuantity: number;
-  storedAt: string;
-  movements: { id: string; kind: 'added' | 'used'; movedOn: string; quantity: number; invoiceRef: string }[];
-  /** The running account for the period asked (or, without one, everything to date as this period). */
-  account: StoredPeriodAccount;
-};
 
 /** Movements before `from` are previous; from `from` to `to` this period; after `to` not yet counted. */
 export function periodOf(movedOn: string, from: string | undefined, to: string | undefined): number {
