@@ -17,8 +17,8 @@ export type AccessRole = (typeof ACCESS_ROLES)[number];
 export const UNIT_SYSTEMS = ['us', 'metric'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-/** Pay units: US customary first, then metric. */
-export const PAY_UNITS = ['CY', 'LF', 'SY', 'TON', 'EA', 'LS', 'm3', 'm', 'm2', 't'] as const;
+/** Pay units: US customary first, then time (the same in either system), then metric. */
+export const PAY_UNITS = ['CY', 'LF', 'SY', 'TON', 'EA', 'LS', 'DAY', 'HR', 'm3', 'm', 'm2', 't'] as const;
 export type PayUnit = (typeof PAY_UNITS)[number];
 
 export const PAY_UNIT_LABELS: Record<PayUnit, string> = {
@@ -28,6 +28,8 @@ export const PAY_UNIT_LABELS: Record<PayUnit, string> = {
   TON: 'tons',
   EA: 'each',
   LS: 'lump sum',
+  DAY: 'days',
+  HR: 'hours',
   m3: 'cubic metres',
   m: 'metres',
   m2: 'square metres',
@@ -296,6 +298,9 @@ export const DEFAULT_PAY_DECIMALS: Record<PayUnit, number> = {
   TON: 2,
   EA: 0,
   LS: 2,
+  // Time-based work: half days and quarter hours (common practice, from memory).
+  DAY: 1,
+  HR: 2,
   m3: 1,
   m: 1,
   m2: 1,
@@ -333,3 +338,21 @@ export const DEFAULT_MOBILIZATION_STEPS = [
 // ---------------------------------------------------------------------------------------------------------
 // End of the measurement and payment provisions section.
 // ---------------------------------------------------------------------------------------------------------
+
+/**
+ * What an inbox entry asks of the person who sees it. Each is derived from a state rule (the pay application
+ * transitions, the payment, waiver, change order and people policies), never written again for the inbox.
+ */
+export const INBOX_KINDS = [
+  'pay_app_submit',
+  'pay_app_review',
+  'pay_app_certify',
+  'pay_app_revise',
+  'pay_app_answer',
+  'payment_due',
+  'waiver_sign',
+  'waiver_request',
+  'change_order_decide',
+  'invitation_pending',
+] as const;
+export type InboxKind = (typeof INBOX_KINDS)[number];

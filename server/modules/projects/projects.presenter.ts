@@ -8,7 +8,13 @@ import type {
 } from '../../../src/shared/schemas/project';
 import type { ProjectRow } from './projects.repository';
 
-export type ProjectTotals = { contractSumCents: number; bidItemCount: number };
+export type ProjectTotals = {
+  originalContractSumCents: number;
+  approvedChangesCents: number;
+  contractSumCents: number;
+  contractLocked: boolean;
+  bidItemCount: number;
+};
 
 export function presentProjectSummary(
   row: ProjectRow,
