@@ -1,5 +1,5 @@
 import { openDatabase } from './db/client';
-import { loadEnv } from './env';
+import { assertDeployable, loadEnv } from './env';
 import { dataDirLayout, lockDataDir } from './lib/data-dir';
 import { createLogger } from './lib/logger';
 import { installTestHooks } from './lib/test-hooks';
@@ -11,6 +11,7 @@ import { installTestHooks } from './lib/test-hooks';
  */
 async function main() {
   const env = loadEnv();
+  assertDeployable(env);
   const logger = createLogger(env.LOG_LEVEL);
   const layout = dataDirLayout(env.DATA_DIR);
   const unlock = env.DATABASE_URL ? async () => {} : await lockDataDir(layout);
