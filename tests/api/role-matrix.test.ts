@@ -79,6 +79,7 @@ const RULES: Record<string, Rule> = {
   'POST /api/projects/:projectId/invitations': { may: CONTRACT, body: () => ({ email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`, role: 'owner' }) },
   'DELETE /api/invitations/:id': { may: CONTRACT },
   'GET /api/projects/:projectId/audit': { may: ALL },
+  'GET /api/projects/:projectId/audit.csv': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
   'POST /api/projects/:projectId/tallies': { may: SUB, body: (f) => ({ bidItemId: f.bidItemId, measuredOn: '2026-11-04', method: 'manual', quantity: 12, manualBasis: 'Counted at the stockpile' }) },
