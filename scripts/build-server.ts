@@ -6,7 +6,16 @@ import { build, type Plugin } from 'esbuild';
 const ROOT = path.resolve(import.meta.dirname, '..');
 const OUT_DIR = path.join(ROOT, 'dist-server');
 export const SERVER_BUNDLE = path.join(OUT_DIR, 'index.js');
-const SOURCES = ['server', 'src/shared', 'stripe-standin/src', 'package-lock.json', 'tsconfig.json', 'scripts/build-server.ts'];
+/** The compute pool's worker thread (server/lib/compute/compute-task.ts), bundled beside the server. */
+export const COMPUTE_WORKER_BUNDLE = path.join(OUT_DIR, 'compute-task.js');
+const SOURCES = [
+  'server',
+  'src/shared',
+  'stripe-standin/src',
+  'package-lock.json',
+  'tsconfig.json',
+  'scripts/build-server.ts',
+];
 
 function newestMtime(entry: string): number {
   const stat = statSync(entry);
@@ -24,7 +33,10 @@ const sourceUrls: Plugin = {
     b.onLoad({ filter: /\.ts$/ }, async (args) => {
       const { readFile } = await import('node:fs/promises');
       const code = await readFile(args.path, 'utf8');
-      return { contents: code.replaceAll('import.meta.url', JSON.stringify(pathToFileURL(args.path).href)), loader: 'ts' };
+      return {
+        contents: code.replaceAll('import.meta.url', JSON.stringify(pathToFileURL(args.path).href)),
+        loader: 'ts',
+      };
     });
   },
 };
@@ -35,12 +47,22 @@ const sourceUrls: Plugin = {
  * node_modules as usual. Rebuilt when missing or older than its sources.
  */
 export async function buildServerIfStale(force = false): Promise<boolean> {
-  if (!force && existsSync(SERVER_BUNDLE) && statSync(SERVER_BUNDLE).mtimeMs >= Math.max(...SOURCES.map((p) => newestMtime(path.join(ROOT, p))))) return false;
+  if (
+    !force &&
+    existsSync(SERVER_BUNDLE) &&
+    statSync(SERVER_BUNDLE).mtimeMs >= Math.max(...SOURCES.map((p) => newestMtime(path.join(ROOT, p))))
+  )
+    return false;
   console.log('Building the server (dist-server/)...');
   rmSync(OUT_DIR, { recursive: true, force: true });
   await build({
     absWorkingDir: ROOT,
-    entryPoints: ['server/index.ts'],
+    entryPoints: [
+      { in: 'server/index.ts', out: 'index' },
+      { in: 'server/lib/compute/compute-task.ts', out: 'compute-task' },
+    ],
+    // The pool starts the bundled worker (plain JavaScript) instead of the tsx loader it uses under tsx.
+    define: { __TALLYARD_COMPUTE_WORKER__: JSON.stringify(COMPUTE_WORKER_BUNDLE) },
     outdir: OUT_DIR,
     // Modules imported with import() (the Stripe stand-in) become chunks of their own, loaded when first used.
     splitting: true,

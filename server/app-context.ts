@@ -3,6 +3,7 @@ import type { Db } from './db/client';
 import type { Payments } from './integrations/payments/payments';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
+import type { ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
 import type { ConfirmRecentAuth } from './middleware/require-recent-auth';
 import type { Outbox } from './modules/notifications/outbox';
@@ -20,6 +21,8 @@ export type AppContext = {
   payments?: Payments;
   /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
   recentAuth: RecentAuth;
+  /** Worker threads for heavy calculations (large worksheets); without it (the demo seed) they run inline. */
+  compute?: ComputePool;
 };
 
 export type RecentAuth = {

@@ -8,6 +8,7 @@ import type { Mailer } from './integrations/mailer/mailer';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Payments } from './integrations/payments/payments';
 import type { Storage } from './integrations/storage/storage';
+import { sharedComputePool, type ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
@@ -50,6 +51,8 @@ export type AppDeps = {
   payments?: Payments;
   /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
   reauth?: { withinMinutes?: number; paymentAboveCents?: number };
+  /** Worker threads for heavy calculations; the process's shared pool (default limits) unless given. */
+  compute?: ComputePool;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
@@ -61,6 +64,7 @@ export const JSON_BODY_LIMIT = '1mb';
 export function createApp(deps: AppDeps): Express {
   const { database, auth, logger, clientDir } = deps;
   const { db } = database;
+  const compute = deps.compute ?? sharedComputePool();
   const ctx: AppContext = {
     db,
     storage: deps.storage,
@@ -73,6 +77,7 @@ export function createApp(deps: AppDeps): Express {
       take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
     },
+    compute,
   };
   const app = express();
   app.disable('x-powered-by');
@@ -85,7 +90,7 @@ export function createApp(deps: AppDeps): Express {
   // Stripe signs the raw body: its webhook parses its own body, before the JSON parser and the session check.
   app.use(stripeWebhookRouter(ctx));
   // Bodies are JSON in UTF-8, or a multipart form to an upload route; anything else is 415 before a route runs.
-  app.use('/api', jsonBodiesOnly({ skip: [/^\/auth\//], multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/] }));
+  app.use('/api', jsonBodiesOnly({ skip: [/^\/auth\//], multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/, /^\/calc\/surface$/] }));
   // Public routes (no session): the invitation link's preview and accept.
   // Accepting creates an account or a membership without a session yet: it needs our own Origin as well.
   const csrf = csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]);
@@ -95,8 +100,9 @@ export function createApp(deps: AppDeps): Express {
   app.all('/api/auth/{*splat}', clientIpForAuth, toNodeHandler(auth));
 
   app.use('/api', requireActor(auth, db));
-  // The calculation API parses its own (larger) bodies; everything else is limited to JSON_BODY_LIMIT.
-  app.use('/api', calcRouter());
+  // The calculation API parses its own (larger) bodies, large ones in worker threads; everything else is limited
+  // to JSON_BODY_LIMIT.
+  app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
   app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db), inboxRouter(db));

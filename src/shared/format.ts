@@ -24,6 +24,9 @@ export const QUANTITY_DISPLAY_DECIMALS: Record<PayUnit, number> = {
   m: 2,
   EA: 0,
   LS: 2,
+  // Time-based work: tenths of a day, hundredths of an hour (common practice, from memory).
+  DAY: 1,
+  HR: 2,
 };
 
 /** Digits with thousands separators: 12345.678 with 2 decimals -> "12,345.68" (half away from zero). */
@@ -46,9 +49,12 @@ export function formatQuantity(quantity: number, unit: PayUnit, basis?: Measurem
   return `${formatQuantityNumber(quantity, unit)} ${unit}${basis ? ` ${basis}` : ''}`;
 }
 
-/** For CSV cells: the display precision, no separators, so a spreadsheet reads a number ("2849.78"). */
-export function formatQuantityPlain(quantity: number, unit: PayUnit): string {
-  return formatNumber(quantity, QUANTITY_DISPLAY_DECIMALS[unit], false);
+/**
+ * For CSV cells: the quantity as the data holds it (up to the stored 4 decimals, no separators), so a spreadsheet
+ * reads a number and its quantity x unit price gives the amounts in the file.
+ */
+export function formatQuantityPlain(quantity: number): string {
+  return String(roundTo(quantity, 4));
 }
 
 /** "$1,234.50" from integer cents; the decimal string comes from dinero.js, only separators are added. */

@@ -64,7 +64,7 @@ const CASES: Case[] = [
     method: 'pit',
     payUnit: 'CY',
     basis: 'compacted',
-    inputs: { unit: 'ft', length: 40, width: 30, cornerDepths: [4, 5, 6, 5], sideSlope: 1 },
+    inputs: { unit: 'ft', length: 40, width: 30, cornerDepths: [5, 5, 5, 5], sideSlope: 1 },
   },
   {
     method: 'trench',

@@ -7,6 +7,7 @@ import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import { startLocalPayments } from '../../server/integrations/payments/local-payments';
 import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
+import type { ComputePool } from '../../server/lib/compute/compute-pool';
 import { createLogger } from '../../server/lib/logger';
 import type { Standin } from '../../stripe-standin/src/index';
 import { fastPasswordHasher } from './fast-password';
@@ -22,9 +23,18 @@ type Options = {
   /** Where uploads go; memory storage unless given (a test of the folder layout passes localStorage). */
   storage?: Storage;
   clientDir?: string;
+  /** Worker threads for heavy calculations; the shared pool unless given (a test of the limits passes its own). */
+  compute?: ComputePool;
 };
 
-export type AssembledApp = { app: Express; auth: Auth; mailbox: SmtpSink; storage: Storage; standin: Standin; close: () => Promise<void> };
+export type AssembledApp = {
+  app: Express;
+  auth: Auth;
+  mailbox: SmtpSink;
+  storage: Storage;
+  standin: Standin;
+  close: () => Promise<void>;
+};
 
 /**
  * The real app with the test integrations: fast password hashing, memory storage, the local SMTP sink and the
@@ -57,6 +67,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
     payments,
     appUrl: o.baseURL,
     clientDir: o.clientDir,
+    compute: o.compute,
   });
   const close = async () => {
     await standin.close();

@@ -14,6 +14,7 @@ import type { WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
 import { gridDepths, type GridEntry } from './grid-source';
 import { HeatMap } from './heat-map';
+import { formatNumber } from '@/shared/format';
 
 const PASTE = 'Paste from a spreadsheet or upload CSV.';
 
@@ -168,5 +169,5 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
 }
 
 function fmtArea(area: number, label: string): string {
-  return `${area.toLocaleString('en-US', { maximumFractionDigits: 2 })} ${label} each`;
+  return `${formatNumber(area, 2)} ${label} each`;
 }
