@@ -23,6 +23,7 @@ import { changeOrdersRouter } from './modules/change-orders/change-orders.routes
 import { devMailboxRouter } from './modules/dev/mailbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
+import { membersRouter } from './modules/members/members.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
@@ -98,7 +99,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter());
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
-  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db));
+  app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));

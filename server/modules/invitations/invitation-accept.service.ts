@@ -1,13 +1,15 @@
 import { fromNodeHeaders } from 'better-auth/node';
 import type { IncomingHttpHeaders } from 'node:http';
-import type { ProjectRole } from '../../../src/shared/constants';
 import type { AcceptInvitationInput, InvitationPreview } from '../../../src/shared/schemas/invitation';
 import type { Auth } from '../../auth';
 import type { Db } from '../../db/client';
 import { companyMembers, projectMembers } from '../../db/schema';
 import { AppError, conflict, forbidden, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
+import { seatCompanyId } from '../projects/projects.policy';
+import { memberRoles } from '../projects/projects.repository';
 import { hashToken, TOKEN_SHAPE } from './invitation-token';
+import { checkSeat } from './seat-rules';
 import * as repo from './invitations.repository';
 
 type Found = NonNullable<Awaited<ReturnType<typeof repo.findByTokenHash>>>;
@@ -35,9 +37,6 @@ export async function previewInvitation(db: Db, token: string): Promise<Invitati
   };
 }
 
-const partyCompany = (p: Found['project'], role: ProjectRole) =>
-  role === 'subcontractor' ? p.subcontractorCompanyId : role === 'general_contractor' ? p.generalContractorCompanyId : p.ownerCompanyId;
-
 /** A new person's account, through better-auth (it signs the person in: its cookies come back to forward). */
 async function signUp(auth: Auth, email: string, input: AcceptInvitationInput) {
   const problems = [];
@@ -55,7 +54,9 @@ async function signUp(auth: Auth, email: string, input: AcceptInvitationInput) {
 
 /**
  * Accepts an invitation: creates the account (name + password) or, when the e-mail already has one, requires
- * being signed in as it. Adds the project role and, for a person without a company, the role's company.
+ * being signed in as it. The seat rules hold again here: a person of another company cannot take the seat, and
+ * nobody takes a second seat on a job (409; a unique index on the project and person backs it against a race).
+ * Adds the seat and, for a person without a company, the company that fills the seat.
  */
 export async function acceptInvitation(db: Db, auth: Auth, token: string, input: AcceptInvitationInput, headers: IncomingHttpHeaders) {
   const found = await loadOpen(db, token);
@@ -71,13 +72,32 @@ export async function acceptInvitation(db: Db, auth: Auth, token: string, input:
   } else {
     ({ userId, setCookie } = await signUp(auth, invitation.email, input));
   }
+  if (existing) {
+    const company = await repo.companyOf(db, userId);
+    checkSeat(project, invitation.role, invitation.email, {
+      companyId: company?.companyId ?? null,
+      seats: await memberRoles(db, project.id, userId),
+    });
+  }
   await db.transaction(async (tx) => {
-    if (!(await repo.markAccepted(tx, invitation.id))) throw conflict('INVITATION_USED', 'This invitation was already accepted.');
-    if (!(await repo.hasRole(tx, project.id, userId, invitation.role))) {
-      await tx.insert(projectMembers).values({ projectId: project.id, userId, role: invitation.role });
-    }
+    if (!(await repo.markAccepted(tx, invitation.id)))
+      throw conflict('INVITATION_USED', 'This invitation was already accepted.');
     const company = await repo.companyOf(tx, userId);
-    const joinedCompany = company ? null : partyCompany(project, invitation.role);
+    checkSeat(project, invitation.role, invitation.email, {
+      companyId: company?.companyId ?? null,
+      seats: await memberRoles(tx, project.id, userId),
+    });
+    const inserted = await tx
+      .insert(projectMembers)
+      .values({ projectId: project.id, userId, role: invitation.role })
+      .onConflictDoNothing()
+      .returning();
+    if (inserted.length === 0)
+      throw conflict(
+        'ALREADY_HOLDS_SEAT',
+        `${invitation.email} already holds a seat on this job; one person holds one role on a job.`,
+      );
+    const joinedCompany = company ? null : seatCompanyId(project, invitation.role);
     if (joinedCompany) await tx.insert(companyMembers).values({ userId, companyId: joinedCompany, isAdmin: false });
     await recordAudit(tx, {
       projectId: project.id,
