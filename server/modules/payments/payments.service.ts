@@ -4,21 +4,25 @@ import type { AppContext } from '../../app-context';
 import type { Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
-import { AppError, notFound, validationFailed } from '../../lib/app-error';
+import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isFrozen } from '../../../src/shared/domain/pay-app-status';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../projects/projects.policy';
+import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { balanceCents, canPay, chargeAmount, PAYABLE_STATUSES } from './payments.policy';
 import { presentPayApp, presentPayment } from './payments.presenter';
 import * as repo from './payments.repository';
 
+/** The pay application with the same visibility as the application itself: hidden from the owner's side until certified. */
 async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule = canReadProject) {
   const app = isUuid(payAppId) ? await repo.findPayApp(ctx.db, payAppId) : undefined;
   if (!app) throw notFound('The pay application');
-  const access = await loadProjectAccess(ctx.db, actor, app.projectId, rule).catch((err: unknown) => {
+  const access = await loadProjectAccess(ctx.db, actor, app.projectId).catch((err: unknown) => {
     throw err instanceof AppError && err.status === 404 ? notFound('The pay application') : err;
   });
+  if (!canSeePayApp(access.roles, app.status)) throw notFound('The pay application');
+  if (!rule(access.roles)) throw forbidden();
   return { app, ...access };
 }
 
