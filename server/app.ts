@@ -21,6 +21,7 @@ import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
 import { changeOrdersRouter } from './modules/change-orders/change-orders.routes';
 import { devMailboxRouter } from './modules/dev/mailbox.routes';
+import { inboxRouter } from './modules/inbox/inbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
 import { membersRouter } from './modules/members/members.routes';
@@ -99,7 +100,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter());
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
-  app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db));
+  app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));

@@ -19,14 +19,21 @@ function tabRoute(tab: ProjectTab): RouteObject {
 /** Every screen is its own lazy chunk; loaders fetch through the same query options the screens read. */
 export const routes: RouteObject[] = [
   { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
-  { path: '/invitations/:token', lazy: () => import('./routes/invitation-accept'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
+  {
+    path: '/invitations/:token',
+    lazy: () => import('./routes/invitation-accept'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
   {
     path: '/',
     lazy: () => import('./routes/app-layout'),
     ErrorBoundary: RouteError,
     HydrateFallback: PageLoading,
     children: [
-      { index: true, loader: () => redirect('/jobs'), Component: () => null },
+      // The inbox is the first screen after sign-in: what waits on me across all jobs.
+      { index: true, loader: () => redirect('/inbox'), Component: () => null },
+      { path: 'inbox', lazy: () => import('./routes/inbox'), ErrorBoundary: RouteError },
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
       { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
       {

@@ -77,6 +77,70 @@ export const MEASUREMENT_METHOD_LABELS: Record<MeasurementMethod, string> = {
   manual: 'Manual, with written basis',
 };
 
+/** The parts of a cut-and-fill measurement a tally can bill. */
+export const TALLY_COMPONENTS = ['cut', 'fill'] as const;
+export type TallyComponent = (typeof TALLY_COMPONENTS)[number];
+
+/** What a method's result is, for billing: a volume (maybe cut and fill), a volume or a run length, or a number typed with its basis. */
+export const METHOD_YIELDS = ['volume', 'volume-or-length', 'direct'] as const;
+export type MethodYield = (typeof METHOD_YIELDS)[number];
+
+export type MethodBilling =
+  | {
+      bills: true;
+      yields: MethodYield;
+      /** The parts a tally chooses between; empty when the method gives one volume. */
+      components: readonly TallyComponent[];
+      /** Measure the method's volume is in unless the tally says otherwise (cut bank, fill compacted: US Navy EO manual, Table 4-1). */
+      measuredBasis: MeasurementBasis | 'by-component';
+      /** Decimals the billed quantity is rounded to: truck measure pays to 0.1 (a state DOT construction manual,
+       * section 109.11); the others keep the stored precision, numeric(16,4). */
+      payDecimals: number;
+    }
+  | { bills: false; reason: string };
+
+/**
+ * Per measurement method: whether a tally may bill it, and what it yields. The one table the server (tallies
+ * API), the worksheets (Save as tally) and the labels read.
+ */
+export const METHOD_BILLING: Record<MeasurementMethod, MethodBilling> = {
+  'end-area': {
+    bills: true,
+    yields: 'volume',
+    components: TALLY_COMPONENTS,
+    measuredBasis: 'by-component',
+    payDecimals: 4,
+  },
+  grid: { bills: true, yields: 'volume', components: TALLY_COMPONENTS, measuredBasis: 'by-component', payDecimals: 4 },
+  pit: { bills: true, yields: 'volume', components: [], measuredBasis: 'bank', payDecimals: 4 },
+  trench: { bills: true, yields: 'volume-or-length', components: [], measuredBasis: 'bank', payDecimals: 4 },
+  'load-count': { bills: true, yields: 'volume', components: [], measuredBasis: 'loose', payDecimals: 1 },
+  surface: {
+    bills: true,
+    yields: 'volume',
+    components: TALLY_COMPONENTS,
+    measuredBasis: 'by-component',
+    payDecimals: 4,
+  },
+  spoil: {
+    bills: false,
+    reason: 'The spoil planner sizes a pile from a volume already measured; it does not measure a pay quantity.',
+  },
+  'mass-haul': {
+    bills: false,
+    reason:
+      'Mass haul gives overhaul in station-yards, which is not a pay unit of the bid schedule; enter it as a direct quantity with its basis.',
+  },
+  manual: { bills: true, yields: 'direct', components: [], measuredBasis: 'bank', payDecimals: 4 },
+};
+
+export function methodBills(method: MeasurementMethod): boolean {
+  return METHOD_BILLING[method].bills;
+}
+
+/** Pay units counted, lump sum or by area: no worksheet measures them, a tally states them directly. */
+export const DIRECT_PAY_UNITS: readonly PayUnit[] = ['EA', 'LS', 'SY', 'm2'];
+
 /** Variation clause presets. Sources: FAR 52.211-18; 23 CFR 635.109(a)(3). */
 export const VARIATION_PRESETS = ['far-15', 'major-125-75', 'custom'] as const;
 export type VariationPreset = (typeof VARIATION_PRESETS)[number];
@@ -115,6 +179,13 @@ export type EndAreaFormula = (typeof END_AREA_FORMULAS)[number];
 /** What to do where one end area of a segment is zero: keep averaging, or the pyramid rule V = A L / 3. */
 export const ZERO_AREA_END_RULES = ['average', 'pyramid'] as const;
 export type ZeroAreaEndRule = (typeof ZERO_AREA_END_RULES)[number];
+
+/**
+ * How a grid cell with corners in both cut and fill is split: the transition-square formula of surveying texts
+ * (the default), or the exact integral of the bilinear surface through the four corners.
+ */
+export const GRID_MIXED_CELL_SPLITS = ['transition-square', 'exact-bilinear'] as const;
+export type GridMixedCellSplit = (typeof GRID_MIXED_CELL_SPLITS)[number];
 
 export const TRENCH_PROTECTIONS = ['box', 'slope', 'bench'] as const;
 export type TrenchProtection = (typeof TRENCH_PROTECTIONS)[number];
@@ -191,3 +262,105 @@ export const LIEN_WAIVER_KINDS = [
   'unconditional_final',
 ] as const;
 export type LienWaiverKind = (typeof LIEN_WAIVER_KINDS)[number];
+
+// ---------------------------------------------------------------------------------------------------------
+// Measurement and payment provisions (issue 15): how each bid item is measured and paid.
+// ---------------------------------------------------------------------------------------------------------
+
+/**
+ * How a bid item is measured and paid (a state DOT Resident Engineer's Manual sections 109.11-109.12; FHWA WFL
+ * supplement to FP-14 section 109.01). `plan_quantity` is paid at the contract quantity as the work is done;
+ * `worksheet` is measured by a worksheet (tallies); `truck_measure` counts loads against the truck register;
+ * `weight` uses scale tickets; `lump_sum` is paid by percent complete or by stages; `force_account` is extra
+ * work on time and materials under a change order.
+ */
+export const MEASUREMENT_PROFILES = [
+  'plan_quantity',
+  'worksheet',
+  'truck_measure',
+  'weight',
+  'lump_sum',
+  'force_account',
+] as const;
+export type MeasurementProfile = (typeof MEASUREMENT_PROFILES)[number];
+
+export const MEASUREMENT_PROFILE_LABELS: Record<MeasurementProfile, string> = {
+  plan_quantity: 'Contract quantity',
+  worksheet: 'Measured on a worksheet',
+  truck_measure: 'Counted loads (truck register)',
+  weight: 'Weighed (scale tickets)',
+  lump_sum: 'Lump sum by percent',
+  force_account: 'Time and materials (force account)',
+};
+
+/** A measurement is interim until the final measurement of the item (WFL supplement to FP-14 section 109.01). */
+export const MEASUREMENT_STAGES = ['interim', 'final'] as const;
+export type MeasurementStage = (typeof MEASUREMENT_STAGES)[number];
+
+/**
+ * Decimals of the pay quantity per pay unit, a project may change them per item. Measurements are kept one
+ * decimal finer (WFL supplement to FP-14 section 109.01). Truck measure in CY is paid to 0.1 (a state DOT
+ * construction manual section 109.11); the others are common practice, from memory.
+ */
+export const DEFAULT_PAY_DECIMALS: Record<PayUnit, number> = {
+  CY: 1,
+  LF: 1,
+  SY: 1,
+  TON: 2,
+  EA: 0,
+  LS: 2,
+  m3: 1,
+  m: 1,
+  m2: 1,
+  t: 2,
+};
+export const MAX_PAY_DECIMALS = 3;
+
+/** How a lump-sum item is earned: a percent complete, or the stages of its schedule. */
+export const LUMP_SUM_METHODS = ['percent', 'stages'] as const;
+export type LumpSumMethod = (typeof LUMP_SUM_METHODS)[number];
+
+/** Force account line kinds of a daily sheet (MoDOT EPG 109.5; TxDOT Construction Contract Administration Manual). */
+export const FORCE_ACCOUNT_LINE_KINDS = ['labor', 'equipment', 'material'] as const;
+export type ForceAccountLineKind = (typeof FORCE_ACCOUNT_LINE_KINDS)[number];
+
+/** Fuel use factors of a fuel price adjustment, gallons per CY (Iowa DOT 2120; FHWA Technical Advisory T 5080.3). */
+export const FUEL_WORK_KINDS = ['excavation', 'embankment'] as const;
+export type FuelWorkKind = (typeof FUEL_WORK_KINDS)[number];
+export const FUEL_GALLONS_PER_CY: Record<FuelWorkKind, number> = { excavation: 0.2, embankment: 0.27 };
+
+/** Lines kept apart from item quantities on a pay application (23 CFR 635.127 for liquidated damages). */
+export const ADJUSTMENT_KINDS = ['liquidated_damages', 'fuel_adjustment', 'credit', 'other'] as const;
+export type AdjustmentKind = (typeof ADJUSTMENT_KINDS)[number];
+
+/** Minimum weighed loads for a source's ton-to-volume factor (Resident Engineer's Manual section 109.12). */
+export const MIN_FACTOR_LOADS = 3;
+/** Plan-quantity substantial error: more than 5 % of the item or $5,000, the smaller (FDOT 9-3.2.1). */
+export const DEFAULT_SUBSTANTIAL_ERROR_PERCENT = 5;
+export const DEFAULT_SUBSTANTIAL_ERROR_CENTS = 500_000;
+/** Mobilization steps: percent of mobilization paid once a percent of the original contract is earned (Iowa DOT 2533 example). */
+export const DEFAULT_MOBILIZATION_STEPS = [
+  { contractEarnedPercent: 5, mobilizationPercent: 25 },
+  { contractEarnedPercent: 10, mobilizationPercent: 50 },
+] as const;
+// ---------------------------------------------------------------------------------------------------------
+// End of the measurement and payment provisions section.
+// ---------------------------------------------------------------------------------------------------------
+
+/**
+ * What an inbox entry asks of the person who sees it. Each is derived from a state rule (the pay application
+ * transitions, the payment, waiver, change order and people policies), never written again for the inbox.
+ */
+export const INBOX_KINDS = [
+  'pay_app_submit',
+  'pay_app_review',
+  'pay_app_certify',
+  'pay_app_revise',
+  'pay_app_answer',
+  'payment_due',
+  'waiver_sign',
+  'waiver_request',
+  'change_order_decide',
+  'invitation_pending',
+] as const;
+export type InboxKind = (typeof INBOX_KINDS)[number];

@@ -20,6 +20,7 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/calc/:method': 'signed-in',
   'GET /api/me': 'signed-in',
   'GET /api/companies': 'signed-in',
+  'GET /api/inbox': 'signed-in',
   'GET /api/projects': 'signed-in',
   'POST /api/projects': 'signed-in',
   'GET /api/dev/mailbox': 'signed-in',

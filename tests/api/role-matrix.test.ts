@@ -76,6 +76,7 @@ const RULES: Record<string, Rule> = {
   'POST /api/calc/:method': { may: ALL, body: () => ({ points: [], cellSize: 10 }), passes: [400] },
   'GET /api/me': { may: ALL },
   'GET /api/companies': { may: ALL },
+  'GET /api/inbox': { may: ALL },
   'GET /api/projects': { may: ALL },
   'POST /api/projects': { may: CONTRACT },
   'GET /api/dev/mailbox': { may: ALL },

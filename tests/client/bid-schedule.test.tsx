@@ -116,7 +116,8 @@ describe('bid schedule table', () => {
     const firstCells = rows.slice(1, 4).map((row) => within(row).getAllByRole('cell')[0]?.textContent);
     expect(firstCells).toEqual(['2', '7', '10']);
     const trenchCells = within(rows[1]!).getAllByRole('cell');
-    expect(trenchCells[4]?.textContent).toBe('40.00LF');
+    // Display precision per pay unit (src/shared/format.ts): linear feet to 0.1.
+    expect(trenchCells[4]?.textContent).toBe('40.0LF');
     expect(trenchCells[5]?.textContent).toBe('$21.25/LF');
   });
 

@@ -20,7 +20,14 @@ async function typeInto(input: HTMLElement, text: string) {
 
 describe('Trench runs worksheet', () => {
   it('shows the live volume of a typed run and the 5 ft caution', async () => {
-    render(<TrenchWorksheet unit="ft" initial={null} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} onInputs={noop} />);
+    render(
+      <TrenchWorksheet
+        unit="ft"
+        initial={null}
+        defaults={{ swellPercent: 25, shrinkagePercent: 10 }}
+        onInputs={noop}
+      />,
+    );
     // Vertical sides: the textbook's average width is the run's width top and bottom.
     await userEvent.selectOptions(screen.getByLabelText('Protection'), 'box');
     await userEvent.click(screen.getByRole('button', { name: 'Remove run 2' }));
@@ -35,12 +42,19 @@ describe('Trench runs worksheet', () => {
 
     // OSHA 29 CFR 1926.652(a)(1): a protective system at 5 ft or more unless in stable rock.
     const cautions = screen.getByRole('complementary', { name: 'Safety cautions' });
-    expect(cautions.textContent).toMatch(/5 ft \(1\.52 m\) deep or more: a protective system is required/);
+    expect(cautions.textContent).toMatch(/5 ft \(1\.524 m\) deep or more: a protective system is required/);
     expect(cautions.textContent).toMatch(/competent person/);
   });
 
   it('names the field of a bad entry instead of showing a volume', async () => {
-    render(<TrenchWorksheet unit="ft" initial={null} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} onInputs={noop} />);
+    render(
+      <TrenchWorksheet
+        unit="ft"
+        initial={null}
+        defaults={{ swellPercent: 25, shrinkagePercent: 10 }}
+        onInputs={noop}
+      />,
+    );
     await userEvent.clear(screen.getByLabelText('Run 1 depth'));
     const result = screen.getByRole('region', { name: 'Result' });
     expect(within(result).getByRole('alert').textContent).toMatch(/Run 1 depth: Enter a number/);
@@ -73,9 +87,30 @@ describe('Worksheet file readers', () => {
 });
 
 describe('Worksheets screen', () => {
+  const trenchItem = {
+    id: '7d4e2b0a-0000-4000-8000-000000000001',
+    projectId: 'p1',
+    itemNumber: '3.10',
+    description: 'Trench excavation',
+    payUnit: 'CY' as const,
+    basis: 'bank' as const,
+    unitPriceCents: 1850,
+    contractQuantity: 900,
+    isMajor: false,
+    method: 'trench' as const,
+    contractAmountCents: 1665000,
+    createdAt: '2026-10-01T00:00:00Z',
+    updatedAt: '2026-10-01T00:00:00Z',
+  };
   function renderScreen(canSave: boolean) {
     const screenElement = (
-      <WorksheetsScreen projectId="p1" units="us" canSave={canSave} bidItems={[]} defaults={{ swellPercent: 25, shrinkagePercent: 10 }} />
+      <WorksheetsScreen
+        projectId="p1"
+        units="us"
+        canSave={canSave}
+        bidItems={[trenchItem]}
+        defaults={{ swellPercent: 25, shrinkagePercent: 10 }}
+      />
     );
     const router = createMemoryRouter([{ path: '/', element: screenElement }], { initialEntries: ['/?method=trench'] });
     render(
@@ -89,6 +124,8 @@ describe('Worksheets screen', () => {
     renderScreen(true);
     await screen.findByRole('region', { name: 'Result' });
     expect((await screen.findByRole('button', { name: 'Save as tally' })).hasAttribute('disabled')).toBe(false);
+    // The only trench item is preselected, and the line says what saving bills (the same function as the server).
+    expect((await screen.findByTestId('bill-line')).textContent).toMatch(/^Bills [\d,]+\.\d{2} CY bank to item 3\.10/);
   });
 
   it('leaves other roles a calculator without Save', async () => {

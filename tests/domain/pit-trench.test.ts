@@ -32,7 +32,9 @@ describe('pitVolume', () => {
 
 describe('trenchVolume: OSHA 29 CFR 1926 Subpart P App. B, Table B-1', () => {
   it('holds the published maximum slopes (H:V): rock vertical, A 3/4:1, short-term A 1/2:1, B 1:1, C 1-1/2:1', () => {
-    expect(Object.fromEntries(Object.entries(TABLE_B1).map(([k, v]) => [k, [v.horizontalPerVertical, v.degrees]]))).toEqual({
+    expect(
+      Object.fromEntries(Object.entries(TABLE_B1).map(([k, v]) => [k, [v.horizontalPerVertical, v.degrees]])),
+    ).toEqual({
       'stable-rock': [0, 90],
       A: [0.75, 53],
       'A-short-term': [0.5, 63],
@@ -55,30 +57,57 @@ describe('trenchVolume: OSHA 29 CFR 1926 Subpart P App. B, Table B-1', () => {
   });
 
   it('cautions at 5 ft and at 20 ft and deeper (1926.652(a)(1), (b)(4)), and always about the spoil setback', () => {
-    const r = trenchVolume({ unit: 'ft', protection: 'slope', soilClass: 'B', runs: [{ length: 10, depth: 4.9, bottomWidth: 3 }, { length: 10, depth: 5, bottomWidth: 3 }, { length: 10, depth: 20, bottomWidth: 3 }] });
+    const r = trenchVolume({
+      unit: 'ft',
+      protection: 'slope',
+      soilClass: 'B',
+      runs: [
+        { length: 10, depth: 4.9, bottomWidth: 3 },
+        { length: 10, depth: 5, bottomWidth: 3 },
+        { length: 10, depth: 20, bottomWidth: 3 },
+      ],
+    });
     const text = r.cautions.join('\n');
-    expect(text).toMatch(/Runs 2, 3 are 5 ft \(1\.52 m\) deep or more: a protective system is required/);
-    expect(text).toMatch(/Run 3 is 20 ft \(6\.1 m\) deep or more.*registered professional engineer/);
-    expect(text).toMatch(/2 ft \(0\.61 m\) from the edge/);
+    expect(text).toMatch(/Runs 2, 3 are 5 ft \(1\.524 m\) deep or more: a protective system is required/);
+    expect(text).toMatch(/Run 3 is 20 ft \(6\.096 m\) deep or more.*registered professional engineer/);
+    expect(text).toMatch(/2 ft \(0\.6096 m\) from the edge/);
     expect(text).toMatch(/competent person/);
   });
 
-  it('uses the metric thresholds 1.52 m and 6.1 m in metric projects', () => {
-    const r = trenchVolume({ unit: 'm', protection: 'box', runs: [{ length: 10, depth: 1.51, bottomWidth: 1 }, { length: 10, depth: 6.1, bottomWidth: 1 }] });
-    expect(r.cautions.join('\n')).toMatch(/Run 2 is 1\.52 m \(5 ft\) deep or more/);
-    expect(r.cautions.join('\n')).toMatch(/Run 2 is 6\.1 m \(20 ft\) deep or more/);
+  it('uses the metric thresholds 1.524 m and 6.096 m (5 ft and 20 ft x 0.3048 exactly) in metric projects', () => {
+    const r = trenchVolume({
+      unit: 'm',
+      protection: 'box',
+      runs: [
+        { length: 10, depth: 1.51, bottomWidth: 1 },
+        { length: 10, depth: 6.1, bottomWidth: 1 },
+      ],
+    });
+    expect(r.cautions.join('\n')).toMatch(/Run 2 is 1\.524 m \(5 ft\) deep or more/);
+    expect(r.cautions.join('\n')).toMatch(/Run 2 is 6\.096 m \(20 ft\) deep or more/);
     expect(r.volumeUnit).toBe('m3');
   });
 
-  it('refuses the short-term 1/2:1 slope deeper than 12 ft, at that run\'s depth', () => {
-    const runs = [{ length: 10, depth: 12, bottomWidth: 3 }, { length: 10, depth: 12.5, bottomWidth: 3 }];
-    expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'slope', soilClass: 'A-short-term', runs }))).toEqual(['SHORT_TERM_DEPTH_EXCEEDED', 'runs.1.depth']);
+  it("refuses the short-term 1/2:1 slope deeper than 12 ft, at that run's depth", () => {
+    const runs = [
+      { length: 10, depth: 12, bottomWidth: 3 },
+      { length: 10, depth: 12.5, bottomWidth: 3 },
+    ];
+    expect(
+      codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'slope', soilClass: 'A-short-term', runs })),
+    ).toEqual(['SHORT_TERM_DEPTH_EXCEEDED', 'runs.1.depth']);
   });
 
   it('needs a soil class to slope, and refuses to bench Type C', () => {
     const runs = [{ length: 10, depth: 6, bottomWidth: 3 }];
-    expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'slope', runs }))).toEqual(['SOIL_CLASS_REQUIRED', 'soilClass']);
-    expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'bench', soilClass: 'C', runs }))).toEqual(['BENCHING_NOT_ALLOWED', 'soilClass']);
+    expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'slope', runs }))).toEqual([
+      'SOIL_CLASS_REQUIRED',
+      'soilClass',
+    ]);
+    expect(codeAndPath(() => trenchVolume({ unit: 'ft', protection: 'bench', soilClass: 'C', runs }))).toEqual([
+      'BENCHING_NOT_ALLOWED',
+      'soilClass',
+    ]);
   });
 
   it('benches within the slope envelope in steps of at most 4 ft (App. B Figure B-1, from memory): less than the sloped section', () => {

@@ -23,14 +23,15 @@ async function signIn(page: Page, email: string) {
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('tallyard-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/jobs');
+  await page.waitForURL('**/inbox');
 }
 
 describe('bid schedule in the browser', () => {
   it('lets the general contractor add a bid item through the form and shows it in the table', async () => {
     const page = await browser.newPage();
     await signIn(page, 'gc@tallyard.test');
-    await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
+  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
     await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Bid schedule' }).click();
     const table = page.getByRole('table', { name: 'Bid schedule' });
     await table.waitFor();

@@ -38,12 +38,12 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-/** Signs a page in as one of the demo people (password tallyard-demo) and waits for the Jobs screen. */
+/** Signs a page in as one of the demo people (password tallyard-demo) and waits for the Inbox, the first screen. */
 export async function signInDemo(page: Page, baseUrl: string, email: string): Promise<void> {
   await page.goto(`${baseUrl}/`);
   await page.waitForURL('**/sign-in');
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('tallyard-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/jobs');
+  await page.waitForURL('**/inbox');
 }

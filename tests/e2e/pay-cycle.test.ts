@@ -43,7 +43,7 @@ async function signedIn(email: string): Promise<Page> {
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('tallyard-demo');
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/jobs');
+  await page.waitForURL('**/inbox');
   return page;
 }
 
@@ -83,6 +83,7 @@ async function statusIs(page: Page, number: number, label: string) {
 
 /** From the Jobs list, through the job and its Pay apps tab, to the list of applications. */
 async function openPayAppsTab(page: Page) {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
   await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
   await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Pay apps' }).click();
   await page.waitForURL(/\/projects\/[\w-]+\/pay-apps$/);

@@ -1,7 +1,7 @@
 import { createRequire } from 'node:module';
 import type { LienWaiverKind } from '../../../src/shared/constants';
 import { LIEN_WAIVER_TITLES, statutoryNotice, waiverBody } from '../../../src/shared/domain/lien-waiver-text';
-import { formatCentsPlain } from '../payments/payment-format';
+import { formatMoney as formatCentsPlain } from '../../../src/shared/format';
 
 const require = createRequire(import.meta.url);
 // .woff, not .woff2: pdfkit writes invisible text with woff2 (stack.md pitfall 10).
@@ -29,7 +29,11 @@ export type WaiverPdfInput = {
 export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
   // pdfkit loads with the first document, not at start (it is a large part of the start-up time).
   const { default: PDFDocument } = await import('pdfkit');
-  const doc = new PDFDocument({ size: 'LETTER', margin: 60, info: { Title: `${LIEN_WAIVER_TITLES[w.kind]}, ${w.project}`, Author: 'Tallyard' } });
+  const doc = new PDFDocument({
+    size: 'LETTER',
+    margin: 60,
+    info: { Title: `${LIEN_WAIVER_TITLES[w.kind]}, ${w.project}`, Author: 'Tallyard' },
+  });
   doc.registerFont('body', FONT);
   doc.registerFont('bold', FONT_BOLD);
   const chunks: Buffer[] = [];
@@ -38,7 +42,12 @@ export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
   const amount = formatCentsPlain(w.amountCents);
 
   doc.font('bold').fontSize(17).fillColor('#1f2a24').text(LIEN_WAIVER_TITLES[w.kind]);
-  doc.moveDown(0.3).font('body').fontSize(9).fillColor('#6b6459').text(`Pay application ${w.payAppNumber} · ${w.project}${w.location ? `, ${w.location}` : ''}`);
+  doc
+    .moveDown(0.3)
+    .font('body')
+    .fontSize(9)
+    .fillColor('#6b6459')
+    .text(`Pay application ${w.payAppNumber} · ${w.project}${w.location ? `, ${w.location}` : ''}`);
   doc.moveDown(1).fontSize(10).fillColor('#1f2a24');
   const rows: [string, string][] = [
     ['Claimant', w.claimant],
@@ -55,15 +64,29 @@ export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
     doc.font('body').text(value || '—', 200, y, { width: 350 });
     doc.moveDown(0.35);
   }
-  doc.moveDown(1).font('body').fontSize(11).text(
-    waiverBody(w.kind, { claimant: w.claimant, customer: w.customer, owner: w.owner, project: w.project, amount, throughDate: w.throughDate }),
-    60,
-    doc.y,
-    { width: 490, align: 'left', lineGap: 2 },
-  );
+  doc
+    .moveDown(1)
+    .font('body')
+    .fontSize(11)
+    .text(
+      waiverBody(w.kind, {
+        claimant: w.claimant,
+        customer: w.customer,
+        owner: w.owner,
+        project: w.project,
+        amount,
+        throughDate: w.throughDate,
+      }),
+      60,
+      doc.y,
+      { width: 490, align: 'left', lineGap: 2 },
+    );
   doc.moveDown(2).font('bold').fontSize(10).text('Signed');
   doc.font('body').fontSize(14).text(w.signedName);
-  doc.fontSize(8.5).fillColor('#6b6459').text(`Signed electronically by typing the name, by ${w.signedByEmail}, at ${w.signedAt.toISOString()}.`);
+  doc
+    .fontSize(8.5)
+    .fillColor('#6b6459')
+    .text(`Signed electronically by typing the name, by ${w.signedByEmail}, at ${w.signedAt.toISOString()}.`);
   doc.moveDown(2).fontSize(8.5).fillColor('#6b6459').text(statutoryNotice(w.state), { width: 490 });
   doc.end();
   return done;

@@ -1,6 +1,6 @@
 import type { PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import { sumCents } from '../../../src/shared/domain/money';
-import { decimal } from './export-format';
+import { formatMoneyPlain as decimal, formatQuantityPlain as num } from '../../../src/shared/format';
 
 /**
  * A text cell a spreadsheet could read as a formula (= + - @, tab, carriage return) gets a leading apostrophe
@@ -11,7 +11,6 @@ export function neutralise(text: string): string {
 }
 
 const quote = (cell: string) => (/[",\r\n]/.test(cell) ? `"${cell.replace(/"/g, '""')}"` : cell);
-const num = (q: number) => String(q);
 
 export const CSV_HEADER = [
   'item_number', 'description', 'pay_unit', 'unit_price', 'contract_quantity', 'previous_quantity', 'this_period_quantity',

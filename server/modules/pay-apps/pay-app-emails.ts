@@ -1,5 +1,5 @@
-import { toDecimal } from 'dinero.js';
-import { usd } from '../../../src/shared/domain/money';
+import type { PayUnit } from '../../../src/shared/constants';
+import { formatMoney as money, formatQuantity } from '../../../src/shared/format';
 import type { QueuedMail } from '../notifications/outbox';
 
 export type MailFacts = {
@@ -15,14 +15,24 @@ export type MailFacts = {
   actorName: string;
 };
 
-const money = (cents: number) => `$${toDecimal(usd(cents)).replace(/\B(?=(\d{3})+(?!\d))/g, ',')}`;
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 export const payAppLink = (f: MailFacts) => `${f.appUrl}/projects/${f.projectId}/pay-apps/${f.payAppId}`;
 const title = (f: MailFacts) => `Pay application ${f.number}${f.revision > 0 ? ` (revision ${f.revision})` : ''}`;
 
-function mail(f: MailFacts, template: string, to: string[], subject: string, paragraphs: string[], action: string): QueuedMail {
+function mail(
+  f: MailFacts,
+  template: string,
+  to: string[],
+  subject: string,
+  paragraphs: string[],
+  action: string,
+): QueuedMail {
   const link = payAppLink(f);
-  const facts = [`Project: ${f.projectName}`, `Period: ${f.periodStart} to ${f.periodEnd}`, `Current due: ${money(f.currentDueCents)}`];
+  const facts = [
+    `Project: ${f.projectName}`,
+    `Period: ${f.periodStart} to ${f.periodEnd}`,
+    `Current due: ${money(f.currentDueCents)}`,
+  ];
   const text = [...paragraphs, '', ...facts, '', `${action}: ${link}`, '', '-- Tallyard'].join('\n');
   const html = [
     '<div style="font-family: sans-serif; color: #1f2a24; line-height: 1.5">',
@@ -37,16 +47,37 @@ function mail(f: MailFacts, template: string, to: string[], subject: string, par
 
 /** To the general contractor's people: a pay application waits for their review. */
 export const submittedMail = (f: MailFacts, to: string[]) =>
-  mail(f, 'pay_app.submitted', to, `${title(f)} for ${f.projectName} is ready for review`, [`${f.actorName} submitted ${title(f).toLowerCase()} for ${f.projectName}.`, 'Check each line against its tallies and evidence, then approve it or dispute it with a counter quantity.'], 'Review the pay application');
+  mail(
+    f,
+    'pay_app.submitted',
+    to,
+    `${title(f)} for ${f.projectName} is ready for review`,
+    [
+      `${f.actorName} submitted ${title(f).toLowerCase()} for ${f.projectName}.`,
+      'Check each line against its tallies and evidence, then approve it or dispute it with a counter quantity.',
+    ],
+    'Review the pay application',
+  );
 
 /** To the subcontractor's people: lines were disputed and the application came back. */
-export const returnedMail = (f: MailFacts, to: string[], disputed: { itemNumber: string; reason: string; counterQuantity: number; payUnit: string }[]) =>
+export const returnedMail = (
+  f: MailFacts,
+  to: string[],
+  disputed: { itemNumber: string; reason: string; counterQuantity: number; payUnit: string }[],
+) =>
   mail(
     f,
     'pay_app.returned',
     to,
     `${title(f)} for ${f.projectName} was returned with ${disputed.length} disputed line(s)`,
-    [`${f.actorName} returned ${title(f).toLowerCase()} with disputes:`, ...disputed.map((d) => `Item ${d.itemNumber}: ${d.reason} (counter quantity ${d.counterQuantity} ${d.payUnit})`), 'Accept each counter quantity or answer it, then submit the revision.'],
+    [
+      `${f.actorName} returned ${title(f).toLowerCase()} with disputes:`,
+      ...disputed.map(
+        (d) =>
+          `Item ${d.itemNumber}: ${d.reason} (counter quantity ${formatQuantity(d.counterQuantity, d.payUnit as PayUnit)})`,
+      ),
+      'Accept each counter quantity or answer it, then submit the revision.',
+    ],
     'Answer the disputes',
   );
 
@@ -57,6 +88,10 @@ export const certifiedMail = (f: MailFacts, to: string[], termsDays: number) =>
     'pay_app.certified',
     to,
     `${title(f)} for ${f.projectName} is certified: ${money(f.currentDueCents)} due`,
-    [`${f.actorName} certified ${title(f).toLowerCase()} for payment.`, `The amount due is ${money(f.currentDueCents)}, payable within ${termsDays} days under the contract's payment terms.`, 'Payment terms follow the contract and the governing statute; Tallyard is not legal advice.'],
+    [
+      `${f.actorName} certified ${title(f).toLowerCase()} for payment.`,
+      `The amount due is ${money(f.currentDueCents)}, payable within ${termsDays} days under the contract's payment terms.`,
+      'Payment terms follow the contract and the governing statute; Tallyard is not legal advice.',
+    ],
     'See the application and pay',
   );

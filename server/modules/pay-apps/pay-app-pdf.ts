@@ -1,6 +1,6 @@
 import { createRequire } from 'node:module';
 import type { PayAppDetail } from '../../../src/shared/schemas/pay-app';
-import { dollars, percentText, quantityText } from './export-format';
+import { formatMoney as dollars, formatPercentBps as percentText, formatQuantityNumber } from '../../../src/shared/format';
 
 const require = createRequire(import.meta.url);
 // .woff, not .woff2: pdfkit writes invisible text with woff2 (stack.md pitfall 10).
@@ -77,8 +77,8 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
       header();
     }
     const cells: Record<(typeof COLS)[number]['key'], string> = {
-      item: l.itemNumber, desc: l.description, unit: l.payUnit, price: dollars(l.unitPriceCents), contract: quantityText(l.contractQuantity),
-      prev: quantityText(l.previousQuantity), this: quantityText(l.thisPeriodQuantity), todate: quantityText(l.toDateQuantity),
+      item: l.itemNumber, desc: l.description, unit: l.payUnit, price: dollars(l.unitPriceCents), contract: formatQuantityNumber(l.contractQuantity, l.payUnit),
+      prev: formatQuantityNumber(l.previousQuantity, l.payUnit), this: formatQuantityNumber(l.thisPeriodQuantity, l.payUnit), todate: formatQuantityNumber(l.toDateQuantity, l.payUnit),
       amount: dollars(l.amountToDateCents), ret: dollars(l.retainageCents), review: l.reviewStatus,
     };
     const y = doc.y;
@@ -122,7 +122,7 @@ export async function payAppPdf(app: PayAppDetail, f: PdfFacts): Promise<Buffer>
   doc.font('body').fontSize(8).fillColor(flags.length ? '#9a3b2e' : STONE);
   if (flags.length === 0) doc.text(`No item is past ${percentText(10_000 + f.bandOverBps)} of its contract quantity to date.`, { width: 360 });
   for (const l of flags) {
-    doc.text(`Item ${l.itemNumber}: ${quantityText(l.toDateQuantity)} ${l.payUnit} to date is ${percentText(Math.round((l.toDateQuantity / l.contractQuantity) * 10_000))} of the contract quantity ${quantityText(l.contractQuantity)} (band +${percentText(f.bandOverBps)}).`, { width: 360 });
+    doc.text(`Item ${l.itemNumber}: ${formatQuantityNumber(l.toDateQuantity, l.payUnit)} ${l.payUnit} to date is ${percentText(Math.round((l.toDateQuantity / l.contractQuantity) * 10_000))} of the contract quantity ${formatQuantityNumber(l.contractQuantity, l.payUnit)} (band +${percentText(f.bandOverBps)}).`, { width: 360 });
   }
 
   doc.y = Math.max(doc.y, totalsTop + 120) + 16;

@@ -1,16 +1,24 @@
-import { formatCentsPlain } from './payment-format';
+import { formatMoney as formatCentsPlain } from '../../../src/shared/format';
 import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
 import type { PayAppRow, PaymentRow } from './payments.repository';
 import { memberEmails } from './payments.repository';
 
 const METHOD = { card: 'card', us_bank_account: 'ACH bank debit' } as const;
-const FOOTER = 'Payment terms are set by your contract and the governing statute; Tallyard is not legal or financial advice.';
+const FOOTER =
+  'Payment terms are set by your contract and the governing statute; Tallyard is not legal or financial advice.';
 
-const html = (lines: string[]) => lines.map((l) => `<p>${l.replace(/&/g, '&amp;').replace(/</g, '&lt;')}</p>`).join('\n');
+const html = (lines: string[]) =>
+  lines.map((l) => `<p>${l.replace(/&/g, '&amp;').replace(/</g, '&lt;')}</p>`).join('\n');
 
 /** Receipt to the owner, the general contractor and the subcontractor when a payment succeeds. */
-export async function queueReceipt(tx: Executor, ctx: { appUrl: string }, project: { id: string; name: string }, app: PayAppRow, payment: PaymentRow) {
+export async function queueReceipt(
+  tx: Executor,
+  ctx: { appUrl: string },
+  project: { id: string; name: string },
+  app: PayAppRow,
+  payment: PaymentRow,
+) {
   const to = await memberEmails(tx, project.id, ['owner', 'general_contractor', 'subcontractor']);
   const lines = [
     `Payment received for pay application ${app.number} on ${project.name}.`,
@@ -20,11 +28,24 @@ export async function queueReceipt(tx: Executor, ctx: { appUrl: string }, projec
     `Details: ${ctx.appUrl}/projects/${project.id}/payments`,
     FOOTER,
   ];
-  await enqueueEmail(tx, { projectId: project.id, template: 'payment.receipt', to, subject: `Receipt: pay application ${app.number}, ${project.name}`, text: lines.join('\n\n'), html: html(lines) });
+  await enqueueEmail(tx, {
+    projectId: project.id,
+    template: 'payment.receipt',
+    to,
+    subject: `Receipt: pay application ${app.number}, ${project.name}`,
+    text: lines.join('\n\n'),
+    html: html(lines),
+  });
 }
 
 /** Failure notice to the owner: the balance is open again. */
-export async function queueFailureNotice(tx: Executor, ctx: { appUrl: string }, project: { id: string; name: string }, app: PayAppRow, payment: PaymentRow) {
+export async function queueFailureNotice(
+  tx: Executor,
+  ctx: { appUrl: string },
+  project: { id: string; name: string },
+  app: PayAppRow,
+  payment: PaymentRow,
+) {
   const to = await memberEmails(tx, project.id, ['owner']);
   const lines = [
     `A payment of ${formatCentsPlain(payment.amountCents)} for pay application ${app.number} on ${project.name} did not go through.`,
@@ -32,5 +53,12 @@ export async function queueFailureNotice(tx: Executor, ctx: { appUrl: string }, 
     `The balance is open again. You can pay it here: ${ctx.appUrl}/projects/${project.id}/payments`,
     FOOTER,
   ];
-  await enqueueEmail(tx, { projectId: project.id, template: 'payment.failed', to, subject: `Payment failed: pay application ${app.number}, ${project.name}`, text: lines.join('\n\n'), html: html(lines) });
+  await enqueueEmail(tx, {
+    projectId: project.id,
+    template: 'payment.failed',
+    to,
+    subject: `Payment failed: pay application ${app.number}, ${project.name}`,
+    text: lines.join('\n\n'),
+    html: html(lines),
+  });
 }

@@ -1,4 +1,9 @@
-import { createTallySchema, type CreateTallyInput, type TallyListQuery, type UpdateTallyInput } from '../../../src/shared/schemas/tally';
+import {
+  createTallySchema,
+  type CreateTallyInput,
+  type TallyListQuery,
+  type UpdateTallyInput,
+} from '../../../src/shared/schemas/tally';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { validationFailed } from '../../lib/app-error';
@@ -16,7 +21,10 @@ import { loadTallyAccess, tallyNotDraft } from './tally-access';
 export async function listTallies(db: Db, actor: Actor, projectId: string, query: TallyListQuery) {
   await loadProjectAccess(db, actor, projectId);
   const rows = await repo.listTallies(db, projectId, query);
-  const counts = await repo.evidenceCounts(db, rows.map((r) => r.tally.id));
+  const counts = await repo.evidenceCounts(
+    db,
+    rows.map((r) => r.tally.id),
+  );
   return rows.map((r) => presentTally(r, counts.get(r.tally.id) ?? 0));
 }
 
@@ -43,7 +51,15 @@ async function computedColumns(db: Executor, project: ProjectRow, input: CreateT
     measuredOn: input.measuredOn,
     title: input.title,
     method: input.method,
-    inputs: input.method === 'manual' ? null : { ...(input.inputs ?? {}), ...(input.component ? { component: input.component } : {}), ...(input.measuredBasis ? { measuredBasis: input.measuredBasis } : {}) },
+    inputs:
+      input.method === 'manual'
+        ? null
+        : {
+            ...(input.inputs ?? {}),
+            ...(input.component ? { component: input.component } : {}),
+            ...(input.measuredBasis ? { measuredBasis: input.measuredBasis } : {}),
+            ...(input.density ? { density: input.density } : {}),
+          },
     result,
     quantity: result.quantity,
     manualBasis: input.method === 'manual' ? (input.manualBasis ?? null) : null,
@@ -64,21 +80,42 @@ export async function createTally(db: Db, actor: Actor, projectId: string, input
 /** Worksheet fields stored in inputs that are tally options rather than engine inputs. */
 function splitInputs(inputs: Record<string, unknown> | null) {
   if (!inputs) return { inputs: null };
-  const { component, measuredBasis, ...rest } = inputs as { component?: 'cut' | 'fill'; measuredBasis?: 'bank' | 'loose' | 'compacted' };
-  return { inputs: rest as Record<string, unknown>, component, measuredBasis };
+  const { component, measuredBasis, density, ...rest } = inputs as {
+    component?: 'cut' | 'fill';
+    measuredBasis?: 'bank' | 'loose' | 'compacted';
+    density?: number;
+  };
+  return { inputs: rest as Record<string, unknown>, component, measuredBasis, density };
 }
 
 export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
   const t = row.tally;
-  const merged = { bidItemId: t.bidItemId, measuredOn: t.measuredOn, title: t.title, method: t.method, ...splitInputs(t.inputs as Record<string, unknown> | null), quantity: t.method === 'manual' ? t.quantity : null, manualBasis: t.manualBasis, ...patch };
+  const merged = {
+    bidItemId: t.bidItemId,
+    measuredOn: t.measuredOn,
+    title: t.title,
+    method: t.method,
+    ...splitInputs(t.inputs as Record<string, unknown> | null),
+    quantity: t.method === 'manual' ? t.quantity : null,
+    manualBasis: t.manualBasis,
+    ...patch,
+  };
   // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
   const columns = await computedColumns(db, project, createTallySchema.parse(merged));
   await db.transaction(async (tx) => {
     const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
     if (!updated) throw tallyNotDraft('no longer a draft');
-    await audit(tx, actor, t.projectId, tallyId, 'tally.updated', { quantity: t.quantity, measuredOn: t.measuredOn, method: t.method }, { quantity: updated.quantity, measuredOn: updated.measuredOn, method: updated.method });
+    await audit(
+      tx,
+      actor,
+      t.projectId,
+      tallyId,
+      'tally.updated',
+      { quantity: t.quantity, measuredOn: t.measuredOn, method: t.method },
+      { quantity: updated.quantity, measuredOn: updated.measuredOn, method: updated.method },
+    );
   });
   return (await getTally(db, actor, tallyId)).tally;
 }
@@ -89,7 +126,15 @@ export async function markReady(db: Db, actor: Actor, tallyId: string) {
   await db.transaction(async (tx) => {
     const updated = await repo.updateTallyIf(tx, tallyId, 'draft', { status: 'ready' });
     if (!updated) throw tallyNotDraft('no longer a draft');
-    await audit(tx, actor, row.tally.projectId, tallyId, 'tally.ready', { status: 'draft' }, { status: 'ready', quantity: updated.quantity });
+    await audit(
+      tx,
+      actor,
+      row.tally.projectId,
+      tallyId,
+      'tally.ready',
+      { status: 'draft' },
+      { status: 'ready', quantity: updated.quantity },
+    );
   });
   return (await getTally(db, actor, tallyId)).tally;
 }
@@ -105,6 +150,22 @@ export async function deleteTally(db: Db, actor: Actor, tallyId: string, removeF
   await Promise.all(files.map((f) => removeFile(f.evidence.storageKey).catch(() => undefined)));
 }
 
-export function audit(tx: Executor, actor: Actor, projectId: string, objectId: string, action: string, before: unknown, after: unknown) {
-  return recordAudit(tx, { projectId, actorUserId: actor.userId, objectType: 'tally', objectId, action, before, after });
+export function audit(
+  tx: Executor,
+  actor: Actor,
+  projectId: string,
+  objectId: string,
+  action: string,
+  before: unknown,
+  after: unknown,
+) {
+  return recordAudit(tx, {
+    projectId,
+    actorUserId: actor.userId,
+    objectType: 'tally',
+    objectId,
+    action,
+    before,
+    after,
+  });
 }

@@ -1,3 +1,4 @@
+import { formatPercent, formatQuantity } from '../../../src/shared/format';
 import type { ChangeOrderView } from '../../../src/shared/schemas/change-order';
 import type { ForecastInput, VarianceRowView } from '../../../src/shared/schemas/variance';
 import type { Db } from '../../db/client';
@@ -24,7 +25,12 @@ async function loadItem(db: Db, actor: Actor, bidItemId: string) {
 }
 
 /** Sets the forecast at completion of one bid item (latest wins; the trail keeps each change). */
-export async function setForecast(db: Db, actor: Actor, bidItemId: string, input: ForecastInput): Promise<VarianceRowView> {
+export async function setForecast(
+  db: Db,
+  actor: Actor,
+  bidItemId: string,
+  input: ForecastInput,
+): Promise<VarianceRowView> {
   const { item, project } = await loadItem(db, actor, bidItemId);
   return db.transaction(async (tx) => {
     const before = await repo.findForecast(tx, bidItemId);
@@ -41,7 +47,9 @@ export async function setForecast(db: Db, actor: Actor, bidItemId: string, input
       objectType: 'forecast',
       objectId: bidItemId,
       action: 'forecast.updated',
-      before: before ? { itemNumber: item.itemNumber, forecastQuantity: before.forecastQuantity, note: before.note } : null,
+      before: before
+        ? { itemNumber: item.itemNumber, forecastQuantity: before.forecastQuantity, note: before.note }
+        : null,
       after: { itemNumber: item.itemNumber, forecastQuantity: after.forecastQuantity, note: after.note },
     });
     return (await watchRows(tx, project)).rows.find((r) => r.bidItemId === bidItemId)!;
@@ -59,7 +67,10 @@ export async function draftVarianceChangeOrder(db: Db, actor: Actor, bidItemId: 
     throw conflict('WITHIN_BAND', `Item ${item.itemNumber} is within its variation band; there is nothing to change.`);
   }
   if (row.openChangeOrder) {
-    throw conflict('CHANGE_ORDER_OPEN', `Change order ${row.openChangeOrder.number} already changes item ${item.itemNumber}'s quantity.`);
+    throw conflict(
+      'CHANGE_ORDER_OPEN',
+      `Change order ${row.openChangeOrder.number} already changes item ${item.itemNumber}'s quantity.`,
+    );
   }
   const delta = row.status === 'over' ? row.quantityBeyondBand : -row.quantityBeyondBand;
   const edge = row.status === 'over' ? `above ${row.band!.upper}` : `below ${row.band!.lower}`;
@@ -69,7 +80,7 @@ export async function draftVarianceChangeOrder(db: Db, actor: Actor, bidItemId: 
     project.id,
     {
       title: `Item ${item.itemNumber}: quantity beyond the variation band`,
-      reason: `Forecast at completion ${row.forecastAtCompletion} ${item.payUnit} against a contract quantity of ${row.currentContractQuantity} ${item.payUnit} (${row.variancePercent} %); ${row.quantityBeyondBand} ${item.payUnit} ${edge}. Drafted from the quantity watch; the unit price of that quantity may be renegotiated under the contract's variation clause.`,
+      reason: `Forecast at completion ${formatQuantity(row.forecastAtCompletion, item.payUnit)} against a contract quantity of ${formatQuantity(row.currentContractQuantity, item.payUnit)} (${row.variancePercent === null ? 'no contract quantity' : formatPercent(row.variancePercent, 1)}); ${formatQuantity(row.quantityBeyondBand, item.payUnit)} ${edge}. Drafted from the quantity watch; the unit price of that quantity may be renegotiated under the contract's variation clause.`,
       items: [{ kind: 'change_quantity', bidItemId, quantityDelta: delta }],
     },
     'change_order.drafted_from_watch',

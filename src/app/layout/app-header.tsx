@@ -1,10 +1,21 @@
-import { Link, NavLink, useNavigation } from 'react-router';
+import { Menu, X } from 'lucide-react';
+import { useState } from 'react';
+import { Link, NavLink, useLocation, useNavigation } from 'react-router';
 import { UserMenu } from '@/features/auth/components/user-menu';
+import { InboxLink } from '@/features/inbox';
 import { MailboxLink } from '@/features/mailbox/components/mailbox-link';
 import { cn } from '@/lib/cn';
 
+/**
+ * The app header. From the md breakpoint up everything sits on one row; below it (phones) the row keeps the
+ * product mark, the Inbox count and a Menu button, and the links and the person (with Sign out) fold into a panel.
+ */
 export function AppHeader() {
   const navigation = useNavigation();
+  const location = useLocation();
+  // The menu closes by itself on navigation: it is open only at the path where it was opened.
+  const [openAt, setOpenAt] = useState<string | null>(null);
+  const open = openAt === location.pathname;
   return (
     <header className="relative bg-spruce-900 text-white">
       <a
@@ -14,31 +25,45 @@ export function AppHeader() {
         Skip to content
       </a>
       <div className="mx-auto flex h-14 max-w-7xl items-center justify-between gap-4 px-4">
-        <div className="flex items-center gap-6">
+        <div className="flex min-w-0 items-center gap-6">
           <Link
-            to="/jobs"
+            to="/inbox"
             className="flex items-center gap-2 rounded text-base font-semibold tracking-tight focus-visible:outline-white"
           >
             <Mark />
             Tallyard
           </Link>
-          <nav aria-label="Main" className="flex items-center gap-1">
-            <NavLink
-              to="/jobs"
-              className={({ isActive }) =>
-                cn(
-                  'rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white',
-                  isActive && 'bg-spruce-800 text-white',
-                )
-              }
-            >
-              Jobs
-            </NavLink>
-            <MailboxLink />
+          <nav aria-label="Main" className="hidden items-center gap-1 md:flex">
+            <MainLinks />
           </nav>
         </div>
-        <UserMenu />
+        <div className="hidden md:block">
+          <UserMenu />
+        </div>
+        <div className="flex items-center gap-1 md:hidden">
+          <InboxLink />
+          <button
+            type="button"
+            aria-expanded={open}
+            aria-controls="header-menu"
+            onClick={() => setOpenAt(open ? null : location.pathname)}
+            className="inline-flex items-center gap-1 rounded px-2 py-1 text-sm text-spruce-50 hover:bg-spruce-800 focus-visible:outline-white"
+          >
+            {open ? <X aria-hidden className="size-4" /> : <Menu aria-hidden className="size-4" />}
+            Menu
+          </button>
+        </div>
       </div>
+      {open ? (
+        <div id="header-menu" className="border-t border-spruce-800 px-4 pt-2 pb-4 md:hidden">
+          <nav aria-label="Main" className="flex flex-col items-start gap-1">
+            <MainLinks />
+          </nav>
+          <div className="mt-3 flex justify-end border-t border-spruce-800 pt-3">
+            <UserMenu />
+          </div>
+        </div>
+      ) : null}
       {navigation.state === 'loading' ? (
         <div
           role="progressbar"
@@ -47,6 +72,26 @@ export function AppHeader() {
         />
       ) : null}
     </header>
+  );
+}
+
+function MainLinks() {
+  return (
+    <>
+      <InboxLink />
+      <NavLink
+        to="/jobs"
+        className={({ isActive }) =>
+          cn(
+            'rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white',
+            isActive && 'bg-spruce-800 text-white',
+          )
+        }
+      >
+        Jobs
+      </NavLink>
+      <MailboxLink />
+    </>
   );
 }
 

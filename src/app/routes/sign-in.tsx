@@ -5,7 +5,7 @@ import { queryClient } from '@/lib/query-client';
 
 /** Only same-site paths are followed after sign-in. */
 function safeNext(next: string | null): string {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/jobs';
+  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/inbox';
 }
 
 /** Someone already signed in goes straight on. The session is asked afresh, never taken from the cache. */
@@ -15,7 +15,7 @@ export async function loader() {
   } catch {
     return null;
   }
-  return redirect('/jobs');
+  return redirect('/inbox');
 }
 
 export function Component() {

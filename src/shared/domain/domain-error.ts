@@ -25,6 +25,10 @@ export const DOMAIN_ERROR_CODES = [
   'DEGENERATE_SURFACE',
   'INVALID_NUMBER',
   'INVALID_QUANTITY',
+  'UNIT_MISMATCH',
+  'METHOD_NOT_BILLABLE',
+  'SLOPED_PIT_ON_SLOPING_GROUND',
+  'DUPLICATE_POINT',
 ] as const;
 export type DomainErrorCode = (typeof DOMAIN_ERROR_CODES)[number];
 
@@ -63,6 +67,10 @@ export function assertFinite(value: number, path: FieldPath | string): void {
 export function assertNonNegative(value: number, path: FieldPath | string, strict = false): void {
   assertFinite(value, path);
   if (strict ? value <= 0 : value < 0) {
-    throw new DomainError('INVALID_NUMBER', `Expected a number ${strict ? 'above' : 'at or above'} 0, got ${value}`, path);
+    throw new DomainError(
+      'INVALID_NUMBER',
+      `Expected a number ${strict ? 'above' : 'at or above'} 0, got ${value}`,
+      path,
+    );
   }
 }

@@ -1,7 +1,7 @@
 import { DomainError, assertFinite, assertNonNegative } from './domain-error';
 import { fmt, type Trail } from './earthwork/trail';
 import { lineAmountCents, percentOfCents, subtractCents, sumCents, type Cents } from './money';
-import { addDecimals } from './rounding';
+import { addExact, decimalOf, pow10 } from './decimal';
 
 export interface PayAppLineInput {
   unitPriceCents: Cents;
@@ -51,13 +51,33 @@ export interface PayAppResult {
 
 function checkLine(line: PayAppLineInput, i: number): void {
   assertFinite(line.unitPriceCents, ['lines', i, 'unitPriceCents']);
-  if (!Number.isSafeInteger(line.unitPriceCents)) throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['lines', i, 'unitPriceCents']);
+  if (!Number.isSafeInteger(line.unitPriceCents))
+    throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['lines', i, 'unitPriceCents']);
   assertNonNegative(line.contractQuantity, ['lines', i, 'contractQuantity']);
   assertNonNegative(line.previousQuantity, ['lines', i, 'previousQuantity']);
   assertFinite(line.thisPeriodQuantity, ['lines', i, 'thisPeriodQuantity']);
   if (line.previousQuantity + line.thisPeriodQuantity < 0) {
-    throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', ['lines', i, 'thisPeriodQuantity']);
+    throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', [
+      'lines',
+      i,
+      'thisPeriodQuantity',
+    ]);
   }
+}
+
+/** Sum of cents, refused as INVALID_NUMBER naming `path` when beyond a safe integer (not a RangeError). */
+function checkedSum(amounts: readonly Cents[], path: (string | number)[], what: string): Cents {
+  const total = amounts.reduce((sum, c) => sum + BigInt(c), 0n);
+  if (total > BigInt(Number.MAX_SAFE_INTEGER) || total < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new DomainError('INVALID_NUMBER', `${what} comes to ${total} cents, beyond the largest amount stored`, path);
+  }
+  return sumCents(amounts);
+}
+
+/** earned / contract x 100 >= percent, decided exactly on integers (57 % of $1,000,000 is exactly $570,000). */
+export function reachesPercent(earnedCents: Cents, contractCents: Cents, percent: number): boolean {
+  const p = decimalOf(percent);
+  return BigInt(earnedCents) * 100n * pow10(p.scale) >= p.digits * BigInt(contractCents);
 }
 
 /**
@@ -69,30 +89,58 @@ function checkLine(line: PayAppLineInput, i: number): void {
 export function payApplication(input: PayAppInput): PayAppResult {
   assertNonNegative(input.retainagePercent, ['retainagePercent']);
   assertFinite(input.previousCertifiedCents, ['previousCertifiedCents']);
-  if (!Number.isSafeInteger(input.previousCertifiedCents)) throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
+  if (!Number.isSafeInteger(input.previousCertifiedCents))
+    throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
   input.lines.forEach(checkLine);
-  const priced = input.lines.map((l) => {
-    const toDateQuantity = addDecimals(l.previousQuantity, l.thisPeriodQuantity);
+  const priced = input.lines.map((l, i) => {
+    // Exact decimal sum (1.00005 + 0 stays 1.00005): the quantity is priced as given, rounded once to the cent.
+    const toDateQuantity = addExact(l.previousQuantity, l.thisPeriodQuantity);
     return {
       toDateQuantity,
-      contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents),
-      previousAmountCents: lineAmountCents(l.previousQuantity, l.unitPriceCents),
-      amountToDateCents: lineAmountCents(toDateQuantity, l.unitPriceCents),
+      contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents, ['lines', i, 'contractQuantity']),
+      previousAmountCents: lineAmountCents(l.previousQuantity, l.unitPriceCents, ['lines', i, 'previousQuantity']),
+      amountToDateCents: lineAmountCents(toDateQuantity, l.unitPriceCents, ['lines', i, 'thisPeriodQuantity']),
     };
   });
-  const contractAmountCents = sumCents(priced.map((p) => p.contractAmountCents));
-  const earnedToDateCents = sumCents(priced.map((p) => p.amountToDateCents));
+  const contractAmountCents = checkedSum(
+    priced.map((p) => p.contractAmountCents),
+    ['lines'],
+    'The contract amount',
+  );
+  const earnedToDateCents = checkedSum(
+    priced.map((p) => p.amountToDateCents),
+    ['lines'],
+    'The amount earned to date',
+  );
   const percentComplete = contractAmountCents > 0 ? (earnedToDateCents / contractAmountCents) * 100 : null;
   const reduction = input.retainageReduction;
-  const reduced = reduction !== undefined && percentComplete !== null && percentComplete >= reduction.afterPercentComplete;
+  const reduced =
+    reduction !== undefined &&
+    contractAmountCents > 0 &&
+    reachesPercent(earnedToDateCents, contractAmountCents, reduction.afterPercentComplete);
   const rate = reduced ? reduction!.reducedPercent : input.retainagePercent;
-  const lines: PayAppLineResult[] = priced.map((p) => ({
+  const ratePath = reduced ? ['retainageReduction', 'reducedPercent'] : ['retainagePercent'];
+  const lines: PayAppLineResult[] = priced.map((p, i) => ({
     ...p,
     thisPeriodAmountCents: subtractCents(p.amountToDateCents, p.previousAmountCents),
-    retainageCents: percentOfCents(p.amountToDateCents, rate),
+    retainageCents: percentOfCents(p.amountToDateCents, rate, ['lines', i, ...ratePath]),
   }));
-  const retainageCents = sumCents(lines.map((l) => l.retainageCents));
-  const thisPeriodCents = sumCents(lines.map((l) => l.thisPeriodAmountCents));
+  const retainageCents = checkedSum(
+    lines.map((l) => l.retainageCents),
+    ['lines'],
+    'The retainage',
+  );
+  const thisPeriodCents = checkedSum(
+    lines.map((l) => l.thisPeriodAmountCents),
+    ['lines'],
+    'The amount this period',
+  );
+  const currentDue = BigInt(earnedToDateCents) - BigInt(retainageCents) - BigInt(input.previousCertifiedCents);
+  if (currentDue > BigInt(Number.MAX_SAFE_INTEGER) || currentDue < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new DomainError('INVALID_NUMBER', 'The current amount due is beyond the largest amount stored', [
+      'previousCertifiedCents',
+    ]);
+  }
   const currentDueCents = subtractCents(subtractCents(earnedToDateCents, retainageCents), input.previousCertifiedCents);
   const $ = (c: number) => `$${fmt(c / 100)}`;
   const trail: Trail = [
@@ -103,5 +151,15 @@ export function payApplication(input: PayAppInput): PayAppResult {
       : `Retainage ${fmt(rate, 2)} % per line, rounded once: ${$(retainageCents)}`,
     `Current due = earned to date - retainage to date - previous certified = ${$(earnedToDateCents)} - ${$(retainageCents)} - ${$(input.previousCertifiedCents)} = ${$(currentDueCents)}`,
   ];
-  return { lines, contractAmountCents, earnedToDateCents, thisPeriodCents, retainageCents, retainagePercentApplied: rate, percentComplete, currentDueCents, trail };
+  return {
+    lines,
+    contractAmountCents,
+    earnedToDateCents,
+    thisPeriodCents,
+    retainageCents,
+    retainagePercentApplied: rate,
+    percentComplete,
+    currentDueCents,
+    trail,
+  };
 }

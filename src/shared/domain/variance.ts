@@ -60,10 +60,12 @@ export function quantityVariance(input: VarianceInput): VarianceResult {
   assertNonNegative(c, ['contractQuantity'], true);
   assertNonNegative(f, ['forecastQuantity']);
   assertFinite(unitPriceCents, ['unitPriceCents']);
-  if (!Number.isInteger(unitPriceCents)) throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['unitPriceCents']);
+  if (!Number.isInteger(unitPriceCents))
+    throw new DomainError('INVALID_NUMBER', 'Unit price is whole cents', ['unitPriceCents']);
   assertNonNegative(band.overPercent, ['band', 'overPercent']);
   assertNonNegative(band.underPercent, ['band', 'underPercent']);
-  if (band.underPercent > 100) throw new DomainError('INVALID_NUMBER', 'The under band is at most 100 percent', ['band', 'underPercent']);
+  if (band.underPercent > 100)
+    throw new DomainError('INVALID_NUMBER', 'The under band is at most 100 percent', ['band', 'underPercent']);
   const upper = (c * (100 + band.overPercent)) / 100;
   const lower = (c * (100 - band.underPercent)) / 100;
   const over = compareToEdge(f, c, band.overPercent) > 0;
@@ -71,7 +73,7 @@ export function quantityVariance(input: VarianceInput): VarianceResult {
   const status: VarianceStatus = over ? 'over' : under ? 'under' : 'within';
   const quantityBeyondBand = over ? f - upper : under ? lower - f : 0;
   const variancePercent = ((f - c) / c) * 100;
-  const amountBeyondBandCents = lineAmountCents(quantityBeyondBand, unitPriceCents);
+  const amountBeyondBandCents = lineAmountCents(quantityBeyondBand, unitPriceCents, ['unitPriceCents']);
   const cfr = input.preset === 'major-125-75';
   const adjustmentBasisQuantity = status === 'under' && cfr ? f : quantityBeyondBand;
   const source = input.preset && input.preset !== 'custom' ? VARIANCE_BANDS[input.preset].source : 'contract band';
@@ -82,8 +84,19 @@ export function quantityVariance(input: VarianceInput): VarianceResult {
       ? 'Within the band: no quantity beyond it'
       : `${status === 'over' ? 'Over' : 'Under'} the band by ${fmt(quantityBeyondBand, 3)}; x $${fmt(unitPriceCents / 100)} = $${fmt(amountBeyondBandCents / 100)} (rounded once to the cent)`,
   ];
-  if (status === 'under' && cfr) trail.push('23 CFR 635.109(a)(3): a decrease is adjusted on the actual quantity performed, not only the part below 75 %');
-  return { variancePercent, status, quantityBeyondBand, amountBeyondBandCents, band: { lower, upper }, adjustmentBasisQuantity, trail };
+  if (status === 'under' && cfr)
+    trail.push(
+      '23 CFR 635.109(a)(3): a decrease is adjusted on the actual quantity performed, not only the part below 75 %',
+    );
+  return {
+    variancePercent,
+    status,
+    quantityBeyondBand,
+    amountBeyondBandCents,
+    band: { lower, upper },
+    adjustmentBasisQuantity,
+    trail,
+  };
 }
 
 /** Major item test: the item's original amount is at least `thresholdPercent` of the original contract amount. */
@@ -108,10 +121,18 @@ export const EARLY_WARNING_SHARE = 0.8;
  * Early warning: the forecast is still within the band but has passed `share` of it towards either edge
  * (15 % band, 80 %: above 112 % or below 88 % of the contract quantity). Exactly at that point does not warn.
  */
-export function isEarlyWarning(contractQuantity: number, forecastQuantity: number, band: VarianceBand, share = EARLY_WARNING_SHARE): boolean {
+export function isEarlyWarning(
+  contractQuantity: number,
+  forecastQuantity: number,
+  band: VarianceBand,
+  share = EARLY_WARNING_SHARE,
+): boolean {
   if (!(contractQuantity > 0)) return false;
   const c = contractQuantity;
   const f = forecastQuantity;
   const withinBand = compareToEdge(f, c, band.overPercent) <= 0 && compareToEdge(f, c, -band.underPercent) >= 0;
-  return withinBand && (compareToEdge(f, c, band.overPercent * share) > 0 || compareToEdge(f, c, -band.underPercent * share) < 0);
+  return (
+    withinBand &&
+    (compareToEdge(f, c, band.overPercent * share) > 0 || compareToEdge(f, c, -band.underPercent * share) < 0)
+  );
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import {
   END_AREA_FORMULAS,
+  GRID_MIXED_CELL_SPLITS,
   MASS_HAUL_FACTOR_KINDS,
   MEASUREMENT_BASES,
   SOIL_CLASSES,
@@ -11,7 +12,18 @@ import {
   type CalcMethod,
 } from '../constants';
 import { CALC_LIMITS } from './calc-limits';
-import { cents, finite, nodeRows, nonNegative, percent, pointRows, polyline, positive, stationList, unit } from './calc-fields';
+import {
+  cents,
+  finite,
+  nodeRows,
+  nonNegative,
+  percent,
+  pointRows,
+  polyline,
+  positive,
+  stationList,
+  unit,
+} from './calc-fields';
 
 export { CALC_LIMITS } from './calc-limits';
 
@@ -37,6 +49,7 @@ export const gridSchema = z.strictObject({
   spacingX: positive,
   spacingY: positive,
   depths: nodeRows(CALC_LIMITS.gridNodes),
+  mixedCellSplit: z.enum(GRID_MIXED_CELL_SPLITS).optional(),
 });
 
 export const pitSchema = z.strictObject({
@@ -59,10 +72,18 @@ export const trenchSchema = z
   })
   .superRefine((t, ctx) => {
     if (t.protection !== 'box' && !t.soilClass) {
-      ctx.addIssue({ code: 'custom', message: `A soil class is needed when protection is ${t.protection}`, path: ['soilClass'] });
+      ctx.addIssue({
+        code: 'custom',
+        message: `A soil class is needed when protection is ${t.protection}`,
+        path: ['soilClass'],
+      });
     }
     if (t.protection === 'bench' && (t.soilClass === 'C' || t.soilClass === 'A-short-term')) {
-      ctx.addIssue({ code: 'custom', message: 'Benching is for Type A (3/4:1) and B soils; Type C may not be benched', path: ['soilClass'] });
+      ctx.addIssue({
+        code: 'custom',
+        message: 'Benching is for Type A (3/4:1) and B soils; Type C may not be benched',
+        path: ['soilClass'],
+      });
     }
   });
 
@@ -80,7 +101,9 @@ export const convertSchema = z.strictObject({
 export const loadCountSchema = z.strictObject({
   swellPercent,
   loads: z
-    .array(z.strictObject({ capacity: positive, count: z.number().int('Whole loads').min(0).max(CALC_LIMITS.maxMagnitude) }))
+    .array(
+      z.strictObject({ capacity: positive, count: z.number().int('Whole loads').min(0).max(CALC_LIMITS.maxMagnitude) }),
+    )
     .min(1, 'At least one load line')
     .max(CALC_LIMITS.loadLines),
   unit: unit.optional(),
@@ -96,7 +119,8 @@ export const spoilSchema = z
     length: positive.optional(),
   })
   .superRefine((s, ctx) => {
-    if (s.shape === 'bank' && s.length === undefined) ctx.addIssue({ code: 'custom', message: 'A spoil bank needs its length', path: ['length'] });
+    if (s.shape === 'bank' && s.length === undefined)
+      ctx.addIssue({ code: 'custom', message: 'A spoil bank needs its length', path: ['length'] });
   });
 
 export const massHaulSchema = z.strictObject({
@@ -143,7 +167,11 @@ export const payAppCalcSchema = z
   .superRefine((p, ctx) => {
     p.lines.forEach((l, i) => {
       if (l.previousQuantity + l.thisPeriodQuantity < 0) {
-        ctx.addIssue({ code: 'custom', message: 'The quantity to date cannot go below 0', path: ['lines', i, 'thisPeriodQuantity'] });
+        ctx.addIssue({
+          code: 'custom',
+          message: 'The quantity to date cannot go below 0',
+          path: ['lines', i, 'thisPeriodQuantity'],
+        });
       }
     });
   });

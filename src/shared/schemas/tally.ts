@@ -1,15 +1,30 @@
 import { z } from 'zod';
-import { MEASUREMENT_BASES, MEASUREMENT_METHODS, TALLY_STATUSES, type MeasurementBasis, type MeasurementMethod, type PayUnit, type TallyStatus } from '../constants';
+import {
+  MEASUREMENT_BASES,
+  MEASUREMENT_METHODS,
+  TALLY_COMPONENTS,
+  TALLY_STATUSES,
+  type MeasurementBasis,
+  type MeasurementMethod,
+  type PayUnit,
+  type TallyComponent,
+  type TallyStatus,
+} from '../constants';
 
 /** A calendar day, `YYYY-MM-DD`, that exists: from 0001-01-01 (PostgreSQL's date has no year 0, JavaScript's does). */
 export const isoDateSchema = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-10-31')
-  .refine((s) => !s.startsWith('0000') && !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a real date');
+  .refine(
+    (s) =>
+      !s.startsWith('0000') &&
+      !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) &&
+      new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+    'Not a real date',
+  );
 
-/** Which part of a cut-and-fill worksheet a tally bills. */
-export const TALLY_COMPONENTS = ['cut', 'fill'] as const;
-export type TallyComponent = (typeof TALLY_COMPONENTS)[number];
+/** Which part of a cut-and-fill worksheet a tally bills (declared with the method table in constants.ts). */
+export { TALLY_COMPONENTS, type TallyComponent };
 
 export const MAX_TALLY_QUANTITY = 1e9;
 
@@ -24,17 +39,32 @@ const tallyFields = {
   component: z.enum(TALLY_COMPONENTS).optional(),
   /** Measure the worksheet's volume is in; by default cut and truck tickets are bank, fill is compacted. */
   measuredBasis: z.enum(MEASUREMENT_BASES).optional(),
+  /** Weight items (TON, t): the material's weight per bank CY (short tons) or per bank m3 (tonnes). */
+  density: z
+    .number()
+    .finite()
+    .positive('A density is more than 0')
+    .max(10, 'A density of more than 10 tons per bank unit is not a soil or rock')
+    .nullish(),
   /** Manual quantity, in the bid item's pay unit and basis. */
   quantity: z.number().finite().min(0, 'A quantity cannot be negative').max(MAX_TALLY_QUANTITY).nullish(),
   manualBasis: z.string().trim().max(4000).nullish(),
 };
 
-function checkMethod(v: { method?: MeasurementMethod; inputs?: unknown; quantity?: number | null; manualBasis?: string | null }, ctx: z.RefinementCtx) {
+function checkMethod(
+  v: { method?: MeasurementMethod; inputs?: unknown; quantity?: number | null; manualBasis?: string | null },
+  ctx: z.RefinementCtx,
+) {
   if (v.method === undefined) return;
   if (v.method === 'manual') {
-    if (v.quantity === undefined || v.quantity === null) ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'A manual tally needs a quantity' });
+    if (v.quantity === undefined || v.quantity === null)
+      ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'A manual tally needs a quantity' });
     if (!v.manualBasis || v.manualBasis.length < 10) {
-      ctx.addIssue({ code: 'custom', path: ['manualBasis'], message: 'Write the basis of a manual quantity (at least 10 characters)' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['manualBasis'],
+        message: 'Write the basis of a manual quantity (at least 10 characters)',
+      });
     }
   } else if (!v.inputs) {
     ctx.addIssue({ code: 'custom', path: ['inputs'], message: `The ${v.method} worksheet needs its inputs` });

@@ -17,7 +17,15 @@ import { NewTallyForm } from './new-tally-form';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
-export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: string; canWrite: boolean; payAppStatusOf?: (payAppId: string) => string | undefined }) {
+export function TallyDetail({
+  tallyId,
+  canWrite,
+  payAppStatusOf,
+}: {
+  tallyId: string;
+  canWrite: boolean;
+  payAppStatusOf?: (payAppId: string) => string | undefined;
+}) {
   const query = useTally(tallyId);
   const ready = useMarkReady();
   const remove = useDeleteTally();
@@ -43,7 +51,8 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
           </p>
           <h2 className="text-lg font-semibold text-stone-900">{tally.title || 'Untitled tally'}</h2>
           <p className="text-sm text-stone-600">
-            Item {tally.bidItem.itemNumber} · {tally.bidItem.description} · measured {formatDate(`${tally.measuredOn}T12:00:00`)} by {tally.author.name}
+            Item {tally.bidItem.itemNumber} · {tally.bidItem.description} · measured{' '}
+            {formatDate(`${tally.measuredOn}T12:00:00`)} by {tally.author.name}
           </p>
         </div>
         <div className="flex items-center gap-2">
@@ -72,9 +81,16 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
           <CardBody className="flex flex-col gap-3">
             <p className="text-2xl font-semibold text-stone-900 tabular-nums">
               {formatQuantity(tally.quantity, unit)}
-              {tally.result?.basis ? <span className="ml-2 text-sm font-normal text-stone-600">{tally.result.basis} measure</span> : null}
+              {tally.result?.basis ? (
+                <span className="ml-2 text-sm font-normal text-stone-600">{tally.result.basis} measure</span>
+              ) : null}
             </p>
-            {tally.manualBasis ? <p className="text-sm"><span className="font-medium">Written basis: </span>{tally.manualBasis}</p> : null}
+            {tally.manualBasis ? (
+              <p className="text-sm">
+                <span className="font-medium">Written basis: </span>
+                {tally.manualBasis}
+              </p>
+            ) : null}
             {tally.inputs ? <InputsSummary inputs={tally.inputs} /> : null}
           </CardBody>
         </Card>
@@ -85,35 +101,68 @@ export function TallyDetail({ tallyId, canWrite, payAppStatusOf }: { tallyId: st
           <CardBody>
             <ol className="list-decimal space-y-1 pl-5 text-sm text-stone-800">
               {(tally.result?.trail ?? []).map((step, i) => (
-                <li key={i} className="tabular-nums">{step}</li>
+                <li key={i} className="tabular-nums">
+                  {step}
+                </li>
               ))}
             </ol>
           </CardBody>
         </Card>
       </div>
-      <EvidencePanel tallyId={tally.id} evidence={evidence} canUpload={canWrite && (draft || backWithSub)} canRemove={canWrite && draft} />
-      <Dialog open={editing} onClose={() => setEditing(false)} title="Edit draft tally" description="The server computes the quantity again from what you change." className="w-[min(44rem,calc(100vw-2rem))]">
+      <EvidencePanel
+        tallyId={tally.id}
+        evidence={evidence}
+        canUpload={canWrite && (draft || backWithSub)}
+        canRemove={canWrite && draft}
+      />
+      <Dialog
+        open={editing}
+        onClose={() => setEditing(false)}
+        title="Edit draft tally"
+        description="The server computes the quantity again from what you change."
+        className="w-[min(44rem,calc(100vw-2rem))]"
+      >
         {editing ? (
           <NewTallyForm
             projectId={tally.projectId}
             tally={tally}
-            bidItems={[{ id: tally.bidItem.id, itemNumber: tally.bidItem.itemNumber, description: tally.bidItem.description, payUnit: unit, method: tally.method }]}
+            bidItems={[
+              {
+                id: tally.bidItem.id,
+                itemNumber: tally.bidItem.itemNumber,
+                description: tally.bidItem.description,
+                payUnit: unit,
+                method: tally.method,
+              },
+            ]}
             onDone={(saved) => {
               setEditing(false);
-              toast.success(`Saved: ${saved.quantity} ${saved.bidItem.payUnit}`);
+              toast.success(`Saved: ${formatQuantity(saved.quantity, saved.bidItem.payUnit)}`);
             }}
           />
         ) : null}
       </Dialog>
-      <Dialog open={confirm !== null} onClose={() => setConfirm(null)} title={confirm === 'delete' ? 'Delete this draft tally?' : 'Mark this tally ready to bill?'} description={confirm === 'delete' ? 'Its files are removed too. This cannot be undone.' : 'A ready tally can no longer be edited; the next pay application of its period bills it.'}>
+      <Dialog
+        open={confirm !== null}
+        onClose={() => setConfirm(null)}
+        title={confirm === 'delete' ? 'Delete this draft tally?' : 'Mark this tally ready to bill?'}
+        description={
+          confirm === 'delete'
+            ? 'Its files are removed too. This cannot be undone.'
+            : 'A ready tally can no longer be edited; the next pay application of its period bills it.'
+        }
+      >
         <div className="flex justify-end gap-2">
-          <Button variant="secondary" onClick={() => setConfirm(null)}>Cancel</Button>
+          <Button variant="secondary" onClick={() => setConfirm(null)}>
+            Cancel
+          </Button>
           <Button
             variant={confirm === 'delete' ? 'danger' : 'primary'}
             disabled={ready.isPending || remove.isPending}
             onClick={() => {
               const done = { onError: (err: unknown) => toast.error(errorMessage(err)) };
-              if (confirm === 'delete') remove.mutate(tally.id, { ...done, onSuccess: () => void navigate('..', { relative: 'path' }) });
+              if (confirm === 'delete')
+                remove.mutate(tally.id, { ...done, onSuccess: () => void navigate('..', { relative: 'path' }) });
               else ready.mutate(tally.id, { ...done, onSuccess: () => toast.success('Ready to bill') });
               setConfirm(null);
             }}

@@ -10,8 +10,9 @@ import type { VarianceRowView } from '@/shared/schemas/variance';
 import { useDraftChangeOrder } from '../api/variance';
 import { ForecastCell } from './forecast-cell';
 import { WatchStatusBadge } from './watch-status-badge';
+import { formatPercent } from '@/lib/format';
 
-const percent = (value: number | null) => (value === null ? '—' : `${value > 0 ? '+' : ''}${value.toFixed(1)} %`);
+const percent = (value: number | null) => (value === null ? '—' : `${value > 0 ? '+' : ''}${formatPercent(value, 1)}`);
 
 type Props = { rows: readonly VarianceRowView[]; canForecast: boolean };
 
@@ -19,7 +20,18 @@ type Props = { rows: readonly VarianceRowView[]; canForecast: boolean };
 export function WatchTable({ rows, canForecast }: Props) {
   const draft = useDraftChangeOrder();
   const navigate = useNavigate();
-  const headers = ['Item', 'Description', 'Contract', 'Approved to date', 'Pending', 'Forecast at completion', 'Variance', 'Status', 'Beyond the band', ''];
+  const headers = [
+    'Item',
+    'Description',
+    'Contract',
+    'Approved to date',
+    'Pending',
+    'Forecast at completion',
+    'Variance',
+    'Status',
+    'Beyond the band',
+    '',
+  ];
   return (
     <Table aria-label="Quantity watch">
       <TableHead>
@@ -34,25 +46,40 @@ export function WatchTable({ rows, canForecast }: Props) {
       <TableBody>
         {rows.map((r) => (
           <TableRow key={r.bidItemId} className={cn((r.status === 'over' || r.status === 'under') && 'bg-brick-50/40')}>
-            <TableCell className="font-medium">{r.itemNumber}{r.isMajor ? <span className="ml-1 text-xs text-stone-500">major</span> : null}</TableCell>
-            <TableCell className="max-w-48 truncate" title={r.description}>{r.description}</TableCell>
+            <TableCell className="font-medium">
+              {r.itemNumber}
+              {r.isMajor ? <span className="ml-1 text-xs text-stone-500">major</span> : null}
+            </TableCell>
+            <TableCell className="max-w-48 truncate" title={r.description}>
+              {r.description}
+            </TableCell>
             <TableCell className="num">{formatQuantity(r.currentContractQuantity, r.payUnit)}</TableCell>
             <TableCell className="num">{formatQuantity(r.approvedToDate, r.payUnit)}</TableCell>
             <TableCell className="num">{formatQuantity(r.pending, r.payUnit)}</TableCell>
-            <TableCell className="num"><ForecastCell row={r} canEdit={canForecast} /></TableCell>
+            <TableCell className="num">
+              <ForecastCell row={r} canEdit={canForecast} />
+            </TableCell>
             <TableCell className="num">{percent(r.variancePercent)}</TableCell>
-            <TableCell><WatchStatusBadge status={r.status} /></TableCell>
+            <TableCell>
+              <WatchStatusBadge status={r.status} />
+            </TableCell>
             <TableCell className="num">
               {r.quantityBeyondBand > 0 ? (
                 <>
                   {formatQuantity(r.quantityBeyondBand, r.payUnit)}
                   <span className="block text-xs text-stone-600">{formatMoney(r.amountBeyondBandCents)}</span>
                 </>
-              ) : '—'}
+              ) : (
+                '—'
+              )}
             </TableCell>
             <TableCell className="text-right">
               {r.openChangeOrder ? (
-                <Link to={`../change-orders/${r.openChangeOrder.id}`} relative="path" className="text-spruce-800 text-xs underline-offset-2 hover:underline">
+                <Link
+                  to={`../change-orders/${r.openChangeOrder.id}`}
+                  relative="path"
+                  className="text-xs text-spruce-800 underline-offset-2 hover:underline"
+                >
                   Change order {r.openChangeOrder.number} open
                 </Link>
               ) : r.draftChangeOrderPath && canForecast ? (

@@ -1,7 +1,8 @@
 import { Upload } from 'lucide-react';
-import { useId, useRef } from 'react';
+import { useId, useRef, useState } from 'react';
 import { buttonVariants } from '@/components/ui/button';
 import { cn } from '@/lib/cn';
+import { notTextReason, useWorksheetFiles } from '../lib/worksheet-files';
 
 type FileSourceProps = {
   label: string;
@@ -14,9 +15,20 @@ type FileSourceProps = {
 };
 
 /** Paste text, or upload a file (read in the browser; nothing leaves it until a tally is saved). */
-export function FileSource({ label, hint, value, onChange, accept = '.csv,.txt', rows = 6, placeholder }: FileSourceProps) {
+export function FileSource({
+  label,
+  hint,
+  value,
+  onChange,
+  accept = '.csv,.txt',
+  rows = 6,
+  placeholder,
+}: FileSourceProps) {
   const id = useId();
   const input = useRef<HTMLInputElement>(null);
+  const files = useWorksheetFiles();
+  const [refused, setRefused] = useState<string | null>(null);
+  const attached = files?.attached.get(label);
   const big = value.length > 200_000;
   return (
     <div className="flex flex-col gap-1">
@@ -33,8 +45,13 @@ export function FileSource({ label, hint, value, onChange, accept = '.csv,.txt',
             className="sr-only"
             onChange={async (event) => {
               const file = event.target.files?.[0];
-              if (file) onChange(await file.text(), file.name);
               if (input.current) input.current.value = '';
+              if (!file) return;
+              const why = await notTextReason(file);
+              setRefused(why);
+              if (why) return;
+              files?.attach(label, file);
+              onChange(await file.text(), file.name);
             }}
           />
         </label>
@@ -44,11 +61,24 @@ export function FileSource({ label, hint, value, onChange, accept = '.csv,.txt',
         rows={rows}
         spellCheck={false}
         placeholder={placeholder}
-        className="focus-visible:border-spruce-600 focus-visible:outline-spruce-600 w-full tabular-nums rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-xs shadow-xs"
-        value={big ? `${value.slice(0, 2000)}\n… (${value.length.toLocaleString('en-US')} characters; upload again to replace)` : value}
+        className="w-full rounded-md border border-stone-300 bg-white px-2.5 py-1.5 font-mono text-xs tabular-nums shadow-xs focus-visible:border-spruce-600 focus-visible:outline-spruce-600"
+        value={
+          big
+            ? `${value.slice(0, 2000)}\n… (${value.length.toLocaleString('en-US')} characters; upload again to replace)`
+            : value
+        }
         readOnly={big}
-        onChange={(event) => onChange(event.target.value, null)}
+        onChange={(event) => {
+          files?.detach(label);
+          onChange(event.target.value, null);
+        }}
       />
+      {refused ? (
+        <p role="alert" className="text-xs text-brick-700">
+          {refused}. Nothing was read.
+        </p>
+      ) : null}
+      {attached ? <p className="text-xs text-spruce-800">Attached as evidence when saved: {attached.name}</p> : null}
       <p className="text-xs text-stone-500">{hint}</p>
     </div>
   );

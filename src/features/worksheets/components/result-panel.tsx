@@ -3,13 +3,21 @@ import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import type { DomainIssue } from '@/shared/domain/domain-error';
 import { describePath } from '../lib/describe-path';
 import { fmt2 } from '../lib/units';
+import { formatNumber } from '@/shared/format';
 
-export type Figure = { label: string; value: number | null | undefined; unit: string; strong?: boolean; whole?: boolean; decimals?: number };
+export type Figure = {
+  label: string;
+  value: number | null | undefined;
+  unit: string;
+  strong?: boolean;
+  whole?: boolean;
+  decimals?: number;
+};
 
 function show(f: Figure): string {
   if (typeof f.value !== 'number' || !Number.isFinite(f.value)) return fmt2(f.value);
-  if (f.whole) return f.value.toLocaleString('en-US');
-  if (f.decimals !== undefined) return f.value.toLocaleString('en-US', { minimumFractionDigits: f.decimals, maximumFractionDigits: f.decimals });
+  if (f.whole) return formatNumber(f.value, 0);
+  if (f.decimals !== undefined) return formatNumber(f.value, f.decimals);
   return fmt2(f.value);
 }
 
@@ -20,7 +28,7 @@ export function Figures({ figures }: { figures: readonly Figure[] }) {
       {figures.map((f) => (
         <div key={f.label} className="rounded-md bg-stone-50 px-3 py-2">
           <dt className="text-xs text-stone-600">{f.label}</dt>
-          <dd className={f.strong ? 'num text-spruce-800 text-lg font-semibold' : 'num text-base text-stone-900'}>
+          <dd className={f.strong ? 'num text-lg font-semibold text-spruce-800' : 'num text-base text-stone-900'}>
             {show(f)} <span className="text-xs font-normal text-stone-600">{f.unit}</span>
           </dd>
         </div>
@@ -30,15 +38,23 @@ export function Figures({ figures }: { figures: readonly Figure[] }) {
 }
 
 /** What is wrong with the inputs, each with the field it is in. */
-export function IssueList({ issues, describe }: { issues: readonly DomainIssue[]; describe?: (path: string) => string }) {
+export function IssueList({
+  issues,
+  describe,
+}: {
+  issues: readonly DomainIssue[];
+  describe?: (path: string) => string;
+}) {
   if (issues.length === 0) return null;
   return (
-    <div role="alert" className="border-brick-200 bg-brick-50 text-brick-800 rounded-md border px-3 py-2 text-sm">
+    <div role="alert" className="rounded-md border border-brick-200 bg-brick-50 px-3 py-2 text-sm text-brick-800">
       <p className="font-medium">No result until these are fixed:</p>
       <ul className="mt-1 list-disc pl-5">
         {issues.slice(0, 12).map((i) => (
           <li key={`${i.path}:${i.message}`}>
-            {i.path && i.path !== '(body)' ? <span className="font-medium">{(describe ?? describePath)(i.path)}: </span> : null}
+            {i.path && i.path !== '(body)' ? (
+              <span className="font-medium">{(describe ?? describePath)(i.path)}: </span>
+            ) : null}
             {i.message}
           </li>
         ))}
@@ -51,7 +67,9 @@ export function IssueList({ issues, describe }: { issues: readonly DomainIssue[]
 export function Trail({ steps }: { steps: readonly string[] }) {
   return (
     <details open className="group">
-      <summary className="cursor-pointer text-xs font-semibold text-stone-700">How it was worked ({steps.length} steps)</summary>
+      <summary className="cursor-pointer text-xs font-semibold text-stone-700">
+        How it was worked ({steps.length} steps)
+      </summary>
       <ol className="mt-2 list-decimal space-y-1 pl-5 text-xs leading-relaxed text-stone-700 tabular-nums">
         {steps.map((step, i) => (
           <li key={i}>{step}</li>
@@ -80,7 +98,9 @@ export function ResultPanel(props: {
       </CardHeader>
       <CardBody className="space-y-4">
         <IssueList issues={props.issues} {...(props.describe ? { describe: props.describe } : {})} />
-        {!ok && props.issues.length === 0 ? <p className="text-sm text-stone-600">No result yet: see the problems listed with the inputs.</p> : null}
+        {!ok && props.issues.length === 0 ? (
+          <p className="text-sm text-stone-600">No result yet: see the problems listed with the inputs.</p>
+        ) : null}
         {ok ? <Figures figures={props.figures!} /> : null}
         {ok ? props.picture : null}
         {ok ? props.children : null}

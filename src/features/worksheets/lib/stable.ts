@@ -9,9 +9,11 @@ export function useJsonValue<T>(value: T): T {
   return useMemo(() => JSON.parse(key) as T, [key]);
 }
 
-/** Tells the screen the inputs when they give a result, and null while they do not. */
-export function useReportInputs(input: unknown, ok: boolean, onInputs: (inputs: Record<string, unknown> | null) => void) {
+/** Tells the screen the inputs and the engine's result when they give one, and nulls while they do not. */
+export function useReportInputs(input: unknown, result: unknown, onInputs: ReportInputs) {
   useEffect(() => {
-    onInputs(ok ? (input as Record<string, unknown>) : null);
-  }, [input, ok, onInputs]);
+    onInputs(result ? (input as Record<string, unknown>) : null, result ? (result as Record<string, unknown>) : null);
+  }, [input, result, onInputs]);
 }
+
+export type ReportInputs = (inputs: Record<string, unknown> | null, result: Record<string, unknown> | null) => void;

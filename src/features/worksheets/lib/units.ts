@@ -1,5 +1,6 @@
 import type { LengthUnit, UnitSystem } from '@/shared/constants';
 import { areaUnitOf, volumeUnitOf } from '@/shared/domain/earthwork/units';
+import { formatNumber } from '@/shared/format';
 
 export function lengthUnitOf(system: UnitSystem): LengthUnit {
   return system === 'metric' ? 'm' : 'ft';
@@ -10,9 +11,7 @@ export function unitLabels(unit: LengthUnit) {
   return { length: unit, area: areaUnitOf(unit), volume: volumeUnitOf(unit) };
 }
 
-const numberFormat = new Intl.NumberFormat('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
-
-/** "1,234.57" (two decimals, separators); a dash for a missing number. */
+/** "1,234.57" (two decimals, separators, the shared formatter); a dash for a missing number. */
 export function fmt2(value: number | null | undefined): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? '–' : numberFormat.format(value);
+  return value === null || value === undefined ? '–' : formatNumber(value, 2);
 }

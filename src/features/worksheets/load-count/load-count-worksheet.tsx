@@ -22,9 +22,20 @@ type LoadForm = { swellPercent: number; loads: Load[] };
 
 export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: WorksheetProps) {
   // Invented tickets: two truck sizes on one haul.
-  const sample: Load[] = unit === 'ft' ? [{ capacity: 14, count: 38 }, { capacity: 18, count: 22 }] : [{ capacity: 10, count: 38 }, { capacity: 14, count: 22 }];
+  const sample: Load[] =
+    unit === 'ft'
+      ? [
+          { capacity: 14, count: 38 },
+          { capacity: 18, count: 22 },
+        ]
+      : [
+          { capacity: 10, count: 38 },
+          { capacity: 14, count: 22 },
+        ];
   const start = (initial as Partial<LoadForm> | null) ?? {};
-  const form = useForm<LoadForm>({ defaultValues: { swellPercent: start.swellPercent ?? defaults.swellPercent, loads: start.loads ?? sample } });
+  const form = useForm<LoadForm>({
+    defaultValues: { swellPercent: start.swellPercent ?? defaults.swellPercent, loads: start.loads ?? sample },
+  });
   const loads = useFieldArray({ control: form.control, name: 'loads' });
   const values = useWatch({ control: form.control }) as LoadForm;
   const input = useJsonValue({ ...values, unit });
@@ -47,7 +58,13 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
       inputs={
         <WorksheetForm label="Truck tickets">
           <div className="grid grid-cols-2 items-start gap-3">
-            <NumberField label="Swell" unit="%" error={issueAt(issues, 'swellPercent')} registration={form.register('swellPercent', n)} hint="Loose over bank, less one" />
+            <NumberField
+              label="Swell"
+              unit="%"
+              error={issueAt(issues, 'swellPercent')}
+              registration={form.register('swellPercent', n)}
+              hint="Loose over bank, less one"
+            />
             <MaterialPicker onPick={(m) => form.setValue('swellPercent', m.swellPercent)} />
           </div>
           <table className="w-full text-sm">
@@ -62,29 +79,67 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
             <tbody>
               {loads.fields.map((field, i) => (
                 <tr key={field.id} className="align-top">
-                  <td className="num pt-2 text-stone-600">{i + 1}</td>
-                  <td className="pt-1 pr-2"><NumberCell label={`Line ${i + 1} capacity`} error={issueAt(issues, `loads.${i}.capacity`)} registration={form.register(`loads.${i}.capacity`, n)} /></td>
-                  <td className="pt-1 pr-2"><NumberCell label={`Line ${i + 1} loads`} error={issueAt(issues, `loads.${i}.count`)} registration={form.register(`loads.${i}.count`, n)} /></td>
-                  <td className="pt-1"><RemoveRowButton label={`Remove line ${i + 1}`} onClick={() => loads.remove(i)} /></td>
+                  <td className="pt-2 num text-stone-600">{i + 1}</td>
+                  <td className="pt-1 pr-2">
+                    <NumberCell
+                      label={`Line ${i + 1} capacity`}
+                      error={issueAt(issues, `loads.${i}.capacity`)}
+                      registration={form.register(`loads.${i}.capacity`, n)}
+                    />
+                  </td>
+                  <td className="pt-1 pr-2">
+                    <NumberCell
+                      label={`Line ${i + 1} loads`}
+                      error={issueAt(issues, `loads.${i}.count`)}
+                      registration={form.register(`loads.${i}.count`, n)}
+                    />
+                  </td>
+                  <td className="pt-1">
+                    <RemoveRowButton label={`Remove line ${i + 1}`} onClick={() => loads.remove(i)} />
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
-          <Button variant="secondary" size="sm" onClick={() => loads.append({ capacity: NaN, count: NaN })}><Plus aria-hidden /> Add line</Button>
-          <FileSource label="Tickets from a spreadsheet" hint="CSV rows of capacity, loads (a header row is skipped); replaces the lines above" value={csv} onChange={readTickets} rows={3} placeholder={'capacity,loads\n14,38'} />
-          <FileIssues issues={fileIssues} fileLabel="Tickets" after="The lines above stay as they were until the file reads without problems." />
+          <Button variant="secondary" size="sm" onClick={() => loads.append({ capacity: NaN, count: NaN })}>
+            <Plus aria-hidden /> Add line
+          </Button>
+          <FileSource
+            label="Tickets from a spreadsheet"
+            hint="CSV rows of capacity, loads (a header row is skipped); replaces the lines above"
+            value={csv}
+            onChange={readTickets}
+            rows={3}
+            placeholder={'capacity,loads\n14,38'}
+          />
+          <FileIssues
+            issues={fileIssues}
+            fileLabel="Tickets"
+            after="The lines above stay as they were until the file reads without problems."
+          />
         </WorksheetForm>
       }
       result={
         <>
           <ResultPanel
             issues={issues}
-            figures={result ? [
-              { label: 'Pay quantity (bank, to 0.1)', decimals: 1, value: result.payQuantity, unit: u.volume, strong: true },
-              { label: 'Bank volume', value: result.bankVolume, unit: u.volume },
-              { label: 'Loose volume', value: result.looseVolume, unit: u.volume },
-            ] : undefined}
-            picture={result ? <TicketsChart volumeUnit={u.volume} lines={values.loads.map((l, i) => ({ label: `Line ${i + 1}`, loose: l.capacity * l.count }))} /> : null}
+            figures={
+              result
+                ? [
+                    { label: 'Loose volume hauled', value: result.looseVolume, unit: u.volume, strong: true },
+                    { label: 'Bank volume at this swell', value: result.bankVolume, unit: u.volume },
+                    { label: 'Loads', whole: true, value: result.loads, unit: 'loads' },
+                  ]
+                : undefined
+            }
+            picture={
+              result ? (
+                <TicketsChart
+                  volumeUnit={u.volume}
+                  lines={values.loads.map((l, i) => ({ label: `Line ${i + 1}`, loose: l.capacity * l.count }))}
+                />
+              ) : null
+            }
             trail={result?.trail}
           />
           <ConvertCard unit={unit} defaults={defaults} />

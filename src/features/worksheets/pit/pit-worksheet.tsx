@@ -15,14 +15,19 @@ type PitForm = { length: number; width: number; cornerDepths: [number, number, n
 /** An invented detention basin. */
 function sample(unit: LengthUnit): PitForm {
   return unit === 'ft'
-    ? { length: 60, width: 40, cornerDepths: [4.2, 5, 6.1, 5.5], sideSlope: 1.5 }
-    : { length: 18, width: 12, cornerDepths: [1.3, 1.5, 1.8, 1.7], sideSlope: 1.5 };
+    ? { length: 60, width: 40, cornerDepths: [5, 5, 5, 5], sideSlope: 1.5 }
+    : { length: 18, width: 12, cornerDepths: [1.5, 1.5, 1.5, 1.5], sideSlope: 1.5 };
 }
 
 function fromInitial(initial: Record<string, unknown> | null, unit: LengthUnit): PitForm {
   if (!initial) return sample(unit);
   const i = initial as Partial<PitForm>;
-  return { length: i.length ?? NaN, width: i.width ?? NaN, cornerDepths: i.cornerDepths ?? [NaN, NaN, NaN, NaN], sideSlope: i.sideSlope ?? NaN };
+  return {
+    length: i.length ?? NaN,
+    width: i.width ?? NaN,
+    cornerDepths: i.cornerDepths ?? [NaN, NaN, NaN, NaN],
+    sideSlope: i.sideSlope ?? NaN,
+  };
 }
 
 export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
@@ -38,13 +43,31 @@ export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
       inputs={
         <WorksheetForm label="Pit corners">
           <div className="grid grid-cols-2 gap-3">
-            <NumberField label="Bottom length" unit={u.length} error={issueAt(issues, 'length')} registration={form.register('length', n)} />
-            <NumberField label="Bottom width" unit={u.length} error={issueAt(issues, 'width')} registration={form.register('width', n)} />
+            <NumberField
+              label="Bottom length"
+              unit={u.length}
+              error={issueAt(issues, 'length')}
+              registration={form.register('length', n)}
+            />
+            <NumberField
+              label="Bottom width"
+              unit={u.length}
+              error={issueAt(issues, 'width')}
+              registration={form.register('width', n)}
+            />
           </div>
           <fieldset className="grid grid-cols-2 gap-3">
-            <legend className="mb-1 text-xs font-semibold text-stone-700">Corner depths, clockwise from the north-west corner</legend>
+            <legend className="mb-1 text-xs font-semibold text-stone-700">
+              Corner depths, clockwise from the north-west corner
+            </legend>
             {([0, 1, 2, 3] as const).map((i) => (
-              <NumberField key={i} label={`d${i + 1}`} unit={u.length} error={issueAt(issues, `cornerDepths.${i}`)} registration={form.register(`cornerDepths.${i}`, n)} />
+              <NumberField
+                key={i}
+                label={`d${i + 1}`}
+                unit={u.length}
+                error={issueAt(issues, `cornerDepths.${i}`)}
+                registration={form.register(`cornerDepths.${i}`, n)}
+              />
             ))}
           </fieldset>
           <NumberField
@@ -59,12 +82,26 @@ export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
       result={
         <ResultPanel
           issues={issues}
-          figures={result ? [
-            { label: 'Excavation', value: result.volume, unit: u.volume, strong: true },
-            { label: 'Bottom area', value: result.area, unit: u.area },
-            { label: 'Mean corner depth', value: result.averageDepth, unit: u.length },
-          ] : undefined}
-          picture={result ? <PitDrawing length={values.length} width={values.width} depths={values.cornerDepths} result={result} unit={unit} /> : null}
+          figures={
+            result
+              ? [
+                  { label: 'Excavation', value: result.volume, unit: u.volume, strong: true },
+                  { label: 'Bottom area', value: result.area, unit: u.area },
+                  { label: 'Mean corner depth', value: result.averageDepth, unit: u.length },
+                ]
+              : undefined
+          }
+          picture={
+            result ? (
+              <PitDrawing
+                length={values.length}
+                width={values.width}
+                depths={values.cornerDepths}
+                result={result}
+                unit={unit}
+              />
+            ) : null
+          }
           trail={result?.trail}
         />
       }

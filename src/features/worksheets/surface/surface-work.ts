@@ -12,6 +12,8 @@ export type SurfaceWork = {
   fileIssues: Record<SurfaceSide, FileIssue[]>;
   /** Up to 1,500 plan points of each survey, for the picture. */
   preview: Record<SurfaceSide, { x: number; y: number }[]>;
+  /** The calc API body the result came from (what a tally stores), or null without a result. */
+  inputs: { unit: LengthUnit; existing: [number, number, number][]; design: [number, number, number][] } | null;
 };
 
 /** Above this many points in all, the work runs in a Web Worker so typing stays smooth. */
@@ -47,18 +49,24 @@ export function workSurfaces(unit: LengthUnit, existingText: string, designText:
   const design = readPoints(designText);
   const fileIssues = { existing: existing.issues, design: design.issues };
   const preview = { existing: sample(existing.rows), design: sample(design.rows) };
-  if (existing.issues.length || design.issues.length) return { result: null, issues: [], fileIssues, preview };
+  if (existing.issues.length || design.issues.length)
+    return { result: null, issues: [], fileIssues, preview, inputs: null };
   try {
     const big = existing.rows.length + design.rows.length > WORKER_THRESHOLD;
     // Small surveys go through the calc schema for its field messages; big ones were checked row by row above.
     const result = big
       ? surfaceVolumeFromPoints(unit, pointsFromRows(existing.rows), pointsFromRows(design.rows))
       : runCalc('surface', { unit, existing: existing.rows, design: design.rows });
-    return { result, issues: [], fileIssues, preview };
+    return { result, issues: [], fileIssues, preview, inputs: { unit, existing: existing.rows, design: design.rows } };
   } catch (error) {
     const issues = isDomainError(error) ? error.issues : [{ path: '', message: String(error) }];
-    return { result: null, issues, fileIssues, preview };
+    return { result: null, issues, fileIssues, preview, inputs: null };
   }
+}
+
+/** A saved tally's point rows back as the CSV text the worksheet edits. */
+export function rowsText(rows: unknown): string {
+  return Array.isArray(rows) ? ['x,y,z', ...rows.map((r) => (Array.isArray(r) ? r.join(',') : ''))].join('\n') : '';
 }
 
 /** An invented yard regrade: a low mound surveyed on a 25 ft grid, and a gently sloped pad on a 50 ft grid. */

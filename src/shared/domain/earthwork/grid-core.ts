@@ -26,6 +26,9 @@ export interface GridTotals {
   netCubic: number;
   cells: number;
   mixedCells: number;
+  /** The transition-square split of the mixed cells alone, cubic length units (part of cutCubic and fillCubic). */
+  mixedCutCubic: number;
+  mixedFillCubic: number;
   /** Nodes by weight, index 1..4. */
   weightCounts: [number, number, number, number, number];
   /** Sum of the depths of the nodes of each weight (index 1..4), length units. */
@@ -142,6 +145,8 @@ export function gridTotals(values: Float64Array, rows: number, cols: number, cel
     netCubic: net * k,
     cells,
     mixedCells: mixed,
+    mixedCutCubic: mixedCut * k,
+    mixedFillCubic: mixedFill * k,
     weightCounts: counts,
     weightSums: sums,
   };

@@ -8,9 +8,18 @@ export class EdgeTally {
   /** Nodes by weight, index 1..3 (weight 4 is derived by the caller from identities). */
   readonly counts: [number, number, number, number, number] = [0, 0, 0, 0, 0];
   readonly sums: [number, number, number, number, number] = [0, 0, 0, 0, 0];
+  /** Defined nodes of weight 0 (in no complete cell): counts[0]. Stretches of weight 0 are read for them. */
 
   /** Tallies the node row at `offset`, given the run lists (flat start/end pairs) of the cell rows around it. */
-  row(values: Float64Array, offset: number, cols: number, up: Int32Array, upRuns: number, down: Int32Array, downRuns: number): void {
+  row(
+    values: Float64Array,
+    offset: number,
+    cols: number,
+    up: Int32Array,
+    upRuns: number,
+    down: Int32Array,
+    downRuns: number,
+  ): void {
     let iu = 0;
     let id = 0;
     let x = 0;
@@ -19,7 +28,11 @@ export class EdgeTally {
       while (id < downRuns && down[2 * id + 1]! + 2 <= x) id++;
       const w = countAt(up, upRuns, iu, x) + countAt(down, downRuns, id, x);
       const next = Math.min(nextBreak(up, upRuns, iu, x), nextBreak(down, downRuns, id, x), cols);
-      if (w > 0 && w < 4) {
+      if (w === 0) {
+        let lone = 0;
+        for (let j = x; j < next; j++) if (values[offset + j] === values[offset + j]) lone++;
+        this.counts[0] += lone;
+      } else if (w < 4) {
         let sum = 0;
         for (let j = x; j < next; j++) sum += values[offset + j]!;
         this.counts[w]! += next - x;

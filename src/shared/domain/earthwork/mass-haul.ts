@@ -67,6 +67,8 @@ export interface MassHaulResult {
   /** Unbalanced volumes at the ends of the profile (bank measure). */
   waste: number;
   borrow: number;
+  /** Of waste and borrow: volume that comes in at the start and leaves at the end (layers open at both ends). */
+  through: number;
   overhaulAmountCents: number | null;
   trail: string[];
 }
@@ -76,7 +78,11 @@ function fillFactor(input: MassHaulInput): number {
   const p = input.factor.percent / 100;
   assertFinite(input.factor.percent, ['factor', 'percent']);
   const k = input.factor.kind === 'shrinkage' ? 1 - p : 1 + p;
-  if (!(k > 0) || p < 0) throw new DomainError('INVALID_NUMBER', 'The factor percent must be 0 or more (shrinkage under 100)', ['factor', 'percent']);
+  if (!(k > 0) || p < 0)
+    throw new DomainError('INVALID_NUMBER', 'The factor percent must be 0 or more (shrinkage under 100)', [
+      'factor',
+      'percent',
+    ]);
   return k;
 }
 
@@ -88,7 +94,12 @@ function ordinatesOf(input: MassHaulInput, k: number): MassOrdinate[] {
   for (let i = 1; i < stations.length; i++) {
     const a = stations[i - 1]!;
     const b = stations[i]!;
-    if (!(b.station > a.station)) throw new DomainError('STATIONS_NOT_INCREASING', `Station ${i} must be beyond station ${i - 1}`, ['stations', i, 'station']);
+    if (!(b.station > a.station))
+      throw new DomainError('STATIONS_NOT_INCREASING', `Station ${i} must be beyond station ${i - 1}`, [
+        'stations',
+        i,
+        'station',
+      ]);
     const length = b.station - a.station;
     const cut = cubicToVolume(endAreaPair(a.cutArea, b.cutArea, length, rule), unit);
     const fill = cubicToVolume(endAreaPair(a.fillArea, b.fillArea, length, rule), unit);
@@ -101,7 +112,8 @@ function ordinatesOf(input: MassHaulInput, k: number): MassOrdinate[] {
 /** Mass ordinates, balance points, haul and overhaul by the mass diagram (see mass-haul-layers.ts). */
 export function massHaul(input: MassHaulInput): MassHaulResult {
   const { unit } = input;
-  if (input.stations.length < 2) throw new DomainError('VALIDATION_FAILED', 'At least 2 stations are needed', ['stations']);
+  if (input.stations.length < 2)
+    throw new DomainError('VALIDATION_FAILED', 'At least 2 stations are needed', ['stations']);
   input.stations.forEach((s, i) => {
     assertFinite(s.station, ['stations', i, 'station']);
     assertNonNegative(s.cutArea, ['stations', i, 'cutArea']);
@@ -114,12 +126,12 @@ export function massHaul(input: MassHaulInput): MassHaulResult {
   assertFinite(line, ['balanceLine']);
   const k = fillFactor(input);
   const ordinates = ordinatesOf(input, k);
-  const { loops, balancePoints, waste, borrow } = haulLoops(ordinates, line, input.freeHaul, stationLength);
+  const { loops, balancePoints, waste, borrow, through } = haulLoops(ordinates, line, input.freeHaul, stationLength);
   const haul = loops.reduce((s, l) => s + l.haul, 0);
   const overhaul = loops.reduce((s, l) => s + l.overhaul, 0);
   const overhaulVolume = loops.reduce((s, l) => s + l.overhaulVolume, 0);
   const price = input.overhaulPriceCents;
-  const overhaulAmountCents = price === undefined ? null : lineAmountCents(overhaul, price);
+  const overhaulAmountCents = price === undefined ? null : lineAmountCents(overhaul, price, ['overhaulPriceCents']);
   const result: MassHaulResult = {
     unit,
     volumeUnit: volumeUnitOf(unit),
@@ -136,6 +148,7 @@ export function massHaul(input: MassHaulInput): MassHaulResult {
     overhaul,
     waste,
     borrow,
+    through,
     overhaulAmountCents,
     trail: [],
   };
@@ -149,15 +162,30 @@ function haulLoops(ordinates: readonly MassOrdinate[], line: number, freeHaul: n
   const balancePoints: number[] = [];
   let waste = 0;
   let borrow = 0;
+  let through = 0;
   let xs: number[] = [];
   let gs: number[] = [];
   let sign = 0;
   const flush = () => {
     if (sign === 0 || xs.length < 2) return;
-    const st = regionLayers(xs, gs.map((g) => g * sign), freeHaul);
+    const st = regionLayers(
+      xs,
+      gs.map((g) => g * sign),
+      freeHaul,
+    );
     const forward = sign > 0;
-    // Layers open at the end: cut never used (forward) is waste, fill never supplied (backward) is borrow.
-    if (forward) { waste += st.openEnd; borrow += st.openStart; } else { borrow += st.openEnd; waste += st.openStart; }
+    // Layers open at the end: cut never used (forward) is waste, fill never supplied (backward) is borrow. A
+    // layer open at both ends comes in at one end and leaves at the other: it is both borrow and waste.
+    if (forward) {
+      waste += st.openEnd;
+      borrow += st.openStart;
+    } else {
+      borrow += st.openEnd;
+      waste += st.openStart;
+    }
+    waste += st.openBoth;
+    borrow += st.openBoth;
+    through += st.openBoth;
     if (st.volume === 0) return;
     loops.push({
       from: xs[0]!,
@@ -197,5 +225,5 @@ function haulLoops(ordinates: readonly MassOrdinate[], line: number, freeHaul: n
     } else if (s !== 0) sign = s;
   }
   flush();
-  return { loops, balancePoints, waste, borrow };
+  return { loops, balancePoints, waste, borrow, through };
 }

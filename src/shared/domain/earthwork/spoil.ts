@@ -2,7 +2,15 @@ import type { SpoilShape } from '../../constants';
 import { DomainError, assertNonNegative } from '../domain-error';
 import { dualLength, limit } from './trench-slopes';
 import { fmt, fmtArea, fmtLength, fmtVolume, type Trail } from './trail';
-import { areaUnitOf, cubicToVolume, volumeToCubic, volumeUnitOf, type AreaUnit, type LengthUnit, type VolumeUnit } from './units';
+import {
+  areaUnitOf,
+  cubicToVolume,
+  volumeToCubic,
+  volumeUnitOf,
+  type AreaUnit,
+  type LengthUnit,
+  type VolumeUnit,
+} from './units';
 
 export interface SpoilInput {
   unit: LengthUnit;
@@ -28,7 +36,7 @@ export interface SpoilResult {
   width?: number;
   footprintArea: number;
   areaUnit: AreaUnit;
-  /** 1926.651(j)(2): the toe stays this far from the excavation edge (2 ft, 0.61 m). */
+  /** 1926.651(j)(2): the toe stays this far from the excavation edge (2 ft, 0.6096 m). */
   setback: number;
   /** Edge of the excavation to the pile's centre (or the bank's ridge line): setback + radius or half width. */
   centerFromEdge: number;
@@ -54,12 +62,15 @@ export function spoilPlan(input: SpoilInput): SpoilResult {
   assertNonNegative(bankVolume, ['bankVolume']);
   assertNonNegative(swellPercent, ['swellPercent']);
   assertNonNegative(angleOfReposeDeg, ['angleOfReposeDeg'], true);
-  if (angleOfReposeDeg >= 90) throw new DomainError('INVALID_NUMBER', 'An angle of repose is below 90 degrees', ['angleOfReposeDeg']);
+  if (angleOfReposeDeg >= 90)
+    throw new DomainError('INVALID_NUMBER', 'An angle of repose is below 90 degrees', ['angleOfReposeDeg']);
   const looseVolume = bankVolume * (1 + swellPercent / 100);
   const cubic = volumeToCubic(looseVolume, unit);
   const tan = Math.tan(angleOfReposeDeg * RAD);
   const setback = limit('spoilSetback', unit);
-  const trail: Trail = [`Loose = bank x (1 + swell) = ${fmt(bankVolume, 2)} x ${fmt(1 + swellPercent / 100, 4)} = ${fmtVolume(looseVolume, unit)}`];
+  const trail: Trail = [
+    `Loose = bank x (1 + swell) = ${fmt(bankVolume, 2)} x ${fmt(1 + swellPercent / 100, 4)} = ${fmtVolume(looseVolume, unit)}`,
+  ];
   const base = { unit, shape, looseVolume, volumeUnit: volumeUnitOf(unit), areaUnit: areaUnitOf(unit), setback };
   const cautions = [
     `Keep the toe of the spoil and equipment at least ${dualLength('spoilSetback', unit)} from the excavation edge, or retain it (29 CFR 1926.651(j)(2)).`,
@@ -76,7 +87,8 @@ export function spoilPlan(input: SpoilInput): SpoilResult {
     return { ...base, height, diameter: 2 * r, footprintArea, centerFromEdge: setback + r, cautions, trail };
   }
   const length = input.length;
-  if (length === undefined) throw new DomainError('LENGTH_REQUIRED', 'A spoil bank needs its length along the trench', ['length']);
+  if (length === undefined)
+    throw new DomainError('LENGTH_REQUIRED', 'A spoil bank needs its length along the trench', ['length']);
   assertNonNegative(length, ['length'], true);
   const area = cubic / length;
   const width = Math.sqrt((4 * area) / tan);
@@ -86,5 +98,13 @@ export function spoilPlan(input: SpoilInput): SpoilResult {
     `Triangular section at ${fmt(angleOfReposeDeg, 1)} deg: B = sqrt(4 A / tan a) = ${fmtLength(width, unit, 3)}; H = (B/2) tan a = ${fmtLength(height, unit, 3)} (derivation; textbook form from memory)`,
     `Footprint B x L = ${fmtArea(width * length, unit)}; ridge ${fmtLength(setback + width / 2, unit, 2)} from the edge (setback + B/2)`,
   );
-  return { ...base, height, width, footprintArea: width * length, centerFromEdge: setback + width / 2, cautions, trail };
+  return {
+    ...base,
+    height,
+    width,
+    footprintArea: width * length,
+    centerFromEdge: setback + width / 2,
+    cautions,
+    trail,
+  };
 }
