@@ -11,6 +11,8 @@ import {
   payApps,
   payments,
   projects,
+  companyMembers,
+  user,
 } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
@@ -59,6 +61,10 @@ beforeAll(async () => {
   const gc = world.people.general_contractor.id;
   const app = (number: number, status: PayAppStatus, projectId = world.home.id) =>
     makeCertifiedPayApp(db, projectId, sub, { number, status });
+  // Waivers are signed under the account's own name; the outsider administers its general contractor company, so it
+  // follows the invitations to that company's seat on its own job.
+  await db.update(user).set({ name: 'Dana Whitfield' }).where(eq(user.id, sub));
+  await db.update(companyMembers).set({ isAdmin: true }).where(eq(companyMembers.userId, world.outsider.id));
   ids.draft = (await app(1, 'draft')).id;
   ids.submitted = (await app(2, 'submitted')).id;
   ids.inReview = (await app(3, 'in_review')).id;
