@@ -50,11 +50,13 @@ export type AppDeps = {
   /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
   payments?: Payments;
   /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
-  reauth?: { withinMinutes?: number; paymentAboveCents?: number };
+  reauth?: { withinMinutes?: number; paymentAboveCents?: number; paymentWindowHours?: number };
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
 export const DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS = 1_000_000;
+/** The threshold applies to the total paid on one application over this many hours, so splitting does not avoid it. */
+export const DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS = 24;
 
 export const JSON_BODY_LIMIT = '1mb';
 
@@ -73,6 +75,7 @@ export function createApp(deps: AppDeps): Express {
     recentAuth: {
       take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
+      paymentWindowHours: deps.reauth?.paymentWindowHours ?? DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS,
     },
   };
   const app = express();

@@ -7,6 +7,7 @@ import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
 import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isFrozen } from '../../../src/shared/domain/pay-app-status';
+import { sumCents } from '../../../src/shared/domain/money';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../projects/projects.policy';
 import { canSeePayApp } from '../pay-apps/pay-apps.policy';
@@ -100,7 +101,10 @@ export async function startPayment(ctx: AppContext, actor: Actor, payAppId: stri
   const preview = await repo.findPayApp(ctx.db, payAppId);
   const previewBalance = preview ? balanceCents(preview, await repo.processingCentsOf(ctx.db, preview.id)) : 0;
   const previewAmount = chargeAmount(previewBalance, project.allowPartialPayments, input.partialAmountCents);
-  if (previewAmount.ok && previewAmount.amountCents > ctx.recentAuth.paymentAboveCents) await confirmRecentAuth?.();
+  // The threshold is on the total paid on this application within the window: two payments just under it ask too.
+  const since = new Date(Date.now() - ctx.recentAuth.paymentWindowHours * 3_600_000);
+  const earlier = await repo.recentPaymentCents(ctx.db, payAppId, since);
+  if (previewAmount.ok && sumCents([earlier, previewAmount.amountCents]) > ctx.recentAuth.paymentAboveCents) await confirmRecentAuth?.();
   const payment = await ctx.db.transaction(async (tx) => {
     const app = (await repo.findPayApp(tx, payAppId, true))!;
     const balance = balanceCents(app, await repo.processingCentsOf(tx, app.id));
