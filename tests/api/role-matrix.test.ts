@@ -15,6 +15,7 @@ import {
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { FILES, makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { makeChangeOrder, makeDailySheet, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { eq } from 'drizzle-orm';
@@ -40,6 +41,9 @@ const SEAT_OF: Partial<Record<Role, string>> = {
 };
 /** A company's own people list and removals: another company's people do not see the company at all. */
 const NOT_OF_SUB_COMPANY: Role[] = ['general_contractor', 'owner', 'admin', 'owner_admin'];
+const FIELD: Role[] = ['subcontractor', 'general_contractor'];
+const TRUCK_TICKET = { deliveredOn: '2026-05-04', truckLabel: 'T-12', material: 'Select borrow', source: 'Hollis pit', loadedAt: 'Face 2', deliveredTo: 'Sta 14+00', loadCheckerInitials: 'RB', deliveryCheckerInitials: 'MK' };
+const TRUCK_TICKET_CSV = 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
 
 type Fixture = {
   projectId: string;
@@ -57,6 +61,12 @@ type Fixture = {
   /** A person of the subcontractor company seated on the project, for the removal routes. */
   userId: string;
   companyId: string;
+  truckItemId: string;
+  weightItemId: string;
+  sourceId: string;
+  approvedChangeOrderId: string;
+  sheetId: string;
+  storedMaterialId: string;
 };
 type Rule = {
   may: Role[];
@@ -83,12 +93,44 @@ const RULES: Record<string, Rule> = {
   'GET /api/projects/:projectId': { may: ALL },
   'PATCH /api/projects/:projectId': { may: CONTRACT, body: () => ({ retainageBps: 500 }) },
   'GET /api/projects/:projectId/bid-items': { may: ALL },
-  'POST /api/projects/:projectId/bid-items': { may: CONTRACT, body: () => ({ itemNumber: `N-${Math.random().toString(36).slice(2, 8)}`, description: 'Rock excavation', payUnit: 'CY', basis: 'bank', unitPriceCents: 4200, contractQuantity: 300, isMajor: false, method: 'end-area' }) },
-  'POST /api/projects/:projectId/bid-items/import': { may: CONTRACT, upload: { field: 'file', bytes: Buffer.from('item_number,description,pay_unit,unit_price,contract_quantity\nZ-1,Topsoil stripping,SY,1.25,4000\n'), name: 'items.csv' }, passes: [400] },
-  'PATCH /api/bid-items/:bidItemId': { may: CONTRACT, body: () => ({ isMajor: true }) },
+  'POST /api/projects/:projectId/bid-items': {
+    may: CONTRACT,
+    body: () => ({
+      itemNumber: `N-${Math.random().toString(36).slice(2, 8)}`,
+      description: 'Rock excavation',
+      payUnit: 'CY',
+      basis: 'bank',
+      unitPriceCents: 4200,
+      contractQuantity: 300,
+      isMajor: false,
+      method: 'end-area',
+    }),
+    passes: [409],
+  },
+  'POST /api/projects/:projectId/bid-items/import': {
+    may: CONTRACT,
+    upload: {
+      field: 'file',
+      bytes: Buffer.from(
+        'item_number,description,pay_unit,unit_price,contract_quantity\nZ-1,Topsoil stripping,SY,1.25,4000\n',
+      ),
+      name: 'items.csv',
+    },
+    passes: [400],
+  },
+  'PATCH /api/bid-items/:bidItemId': {
+    may: CONTRACT,
+    body: () => ({ isMajor: true, reason: 'Corrected after the lock' }),
+  },
   'DELETE /api/bid-items/:bidItemId': { may: CONTRACT, passes: [409] },
   'GET /api/projects/:projectId/change-orders': { may: ALL },
-  'POST /api/projects/:projectId/change-orders': { may: ['subcontractor', 'general_contractor'], body: (f) => ({ title: 'More rock', items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }] }) },
+  'POST /api/projects/:projectId/change-orders': {
+    may: ['subcontractor', 'general_contractor'],
+    body: (f) => ({
+      title: 'More rock',
+      items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }],
+    }),
+  },
   'GET /api/projects/:projectId/contract-quantities': { may: ALL },
   'GET /api/change-orders/:id': { may: ALL },
   // The owner decides too only on a project that asks for the owner's approval (not the home project).
@@ -119,7 +161,16 @@ const RULES: Record<string, Rule> = {
   'GET /api/projects/:projectId/audit': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
-  'POST /api/projects/:projectId/tallies': { may: SUB, body: (f) => ({ bidItemId: f.bidItemId, measuredOn: '2026-11-04', method: 'manual', quantity: 12, manualBasis: 'Counted at the stockpile' }) },
+  'POST /api/projects/:projectId/tallies': {
+    may: SUB,
+    body: (f) => ({
+      bidItemId: f.bidItemId,
+      measuredOn: '2026-11-04',
+      method: 'manual',
+      quantity: 12,
+      manualBasis: 'Counted at the stockpile',
+    }),
+  },
   'GET /api/tallies/:tallyId': { may: ALL },
   'PATCH /api/tallies/:tallyId': { may: SUB, body: () => ({ title: 'North cut' }) },
   'POST /api/tallies/:tallyId/ready': { may: SUB },
@@ -128,13 +179,35 @@ const RULES: Record<string, Rule> = {
   'GET /api/evidence/:evidenceId/download': { may: ALL },
   'DELETE /api/evidence/:evidenceId': { may: SUB },
   'GET /api/projects/:projectId/pay-apps': { may: ALL },
-  'POST /api/projects/:projectId/pay-apps': { may: SUB, body: () => ({ periodStart: '2027-01-01', periodEnd: '2027-01-31' }), passes: [409] },
+  'POST /api/projects/:projectId/pay-apps': {
+    may: SUB,
+    body: () => ({ periodStart: '2027-01-01', periodEnd: '2027-01-31' }),
+    passes: [409],
+  },
   'GET /api/pay-apps/:payAppId': { may: ALL },
   'POST /api/pay-apps/:payAppId/submit': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'draft' },
-  'POST /api/pay-apps/:payAppId/review': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'submitted', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, decision: 'approve' }] }) },
-  'POST /api/pay-apps/:payAppId/revise': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'returned', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, action: 'accept' }] }) },
-  'POST /api/pay-apps/:payAppId/certify': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'in_review', body: () => ({ expectedRevision: 0 }) },
-  'POST /api/disputes/:disputeId/comments': { may: ['subcontractor', 'general_contractor'], body: () => ({ body: 'Survey attached.' }) },
+  'POST /api/pay-apps/:payAppId/review': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: ['general_contractor'],
+    payApp: 'submitted',
+    body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, decision: 'approve' }] }),
+  },
+  'POST /api/pay-apps/:payAppId/revise': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: SUB,
+    payApp: 'returned',
+    body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, action: 'accept' }] }),
+  },
+  'POST /api/pay-apps/:payAppId/certify': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: ['general_contractor'],
+    payApp: 'in_review',
+    body: () => ({ expectedRevision: 0 }),
+  },
+  'POST /api/disputes/:disputeId/comments': {
+    may: ['subcontractor', 'general_contractor'],
+    body: () => ({ body: 'Survey attached.' }),
+  },
   'GET /api/pay-apps/:payAppId/export.pdf': { may: ALL },
   'GET /api/pay-apps/:payAppId/export.csv': { may: ALL },
   'POST /api/pay-apps/:payAppId/payments': { may: ['owner'], body: () => ({}) },
@@ -147,9 +220,35 @@ const RULES: Record<string, Rule> = {
   },
   'GET /api/projects/:projectId/lien-waivers': { may: ALL },
   'GET /api/lien-waivers/:waiverId/pdf': { may: ALL },
+  // Measurement and payment provisions (issue 15): the contract side sets how an item is paid; either contractor
+  // keeps the field records; the owner reads them.
+  'GET /api/projects/:projectId/measurement-profiles': { may: ALL },
+  'PUT /api/bid-items/:bidItemId/measurement-profile': { may: CONTRACT, body: () => ({ profile: 'truck_measure' }) },
+  'GET /api/projects/:projectId/trucks': { may: ALL },
+  'POST /api/projects/:projectId/trucks': { may: FIELD, body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }) },
+  'GET /api/projects/:projectId/truck-tickets': { may: ALL },
+  'POST /api/projects/:projectId/truck-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }) },
+  'POST /api/projects/:projectId/truck-tickets/import': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, csv: TRUCK_TICKET_CSV }) },
+  'GET /api/projects/:projectId/material-sources': { may: ALL },
+  'POST /api/projects/:projectId/material-sources': { may: FIELD, body: () => ({ name: `Pit ${++serial}`, weighedLoads: [{ netTons: 18.42, volumeCy: 12.5 }, { netTons: 19.1, volumeCy: 13 }, { netTons: 18.75, volumeCy: 12.7 }] }) },
+  'GET /api/projects/:projectId/scale-tickets': { may: ALL },
+  'GET /api/projects/:projectId/daily-sheets': { may: ALL },
+  'POST /api/projects/:projectId/daily-sheets': { may: FIELD, body: (f) => ({ changeOrderId: f.approvedChangeOrderId, workedOn: '2026-06-09', description: 'Muck removal', labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }], equipment: [], materials: [], markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 } }) },
+  'POST /api/daily-sheets/:sheetId/sign': { may: FIELD },
+  'GET /api/projects/:projectId/stored-materials': { may: ALL },
+  'POST /api/projects/:projectId/stored-materials': { may: FIELD, body: (f) => ({ bidItemId: f.bidItemId, description: '24 in RCP', unit: 'LF', unitCostCents: 5840, neededQuantity: 400, storedAt: 'East yard' }) },
+  'POST /api/stored-materials/:storedMaterialId/movements': { may: FIELD, body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }) },
+  'GET /api/projects/:projectId/pay-adjustments': { may: ALL },
+  'POST /api/projects/:projectId/pay-adjustments': { may: CONTRACT, body: () => ({ kind: 'liquidated_damages', appliesOn: '2026-11-30', description: 'Late', daysOverrun: 2, dailyCents: 285_000 }) },
+  'POST /api/projects/:projectId/scale-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.weightItemId, sourceId: f.sourceId, ticketNumber: `S-${++serial}`, weighedOn: '2026-05-04', grossTons: 33.85, tareTons: 13.85, material: 'Base', scaleCheckerInitials: 'JT', deliveryCheckerInitials: 'MK' }) },
 };
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
-const OUTSIDE_ROLES = ['GET /api/health', 'GET /api/invitations/:token', 'POST /api/invitations/:token/accept', 'POST /api/webhooks/stripe'];
+const OUTSIDE_ROLES = [
+  'GET /api/health',
+  'GET /api/invitations/:token',
+  'POST /api/invitations/:token/accept',
+  'POST /api/webhooks/stripe',
+];
 
 let t: TestApp;
 let w: Awaited<ReturnType<typeof makeWorld>>;
@@ -171,16 +270,46 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
   const sub = w.people.subcontractor.id;
   const gc = w.people.general_contractor.id;
   const item = await makeBidItem(db, w.home.id);
-  const tally = await makeTally(db, { projectId: w.home.id, bidItemId: item.id, authorUserId: sub, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
-  const uploaded = await agents.subcontractor.post(`/api/tallies/${tally.id}/evidence`).attach('files', FILES.pdf, 'ticket.pdf');
+  const tally = await makeTally(db, {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    authorUserId: sub,
+    measuredOn: '2026-10-05',
+    quantity: 10,
+    status: 'draft',
+  });
+  const uploaded = await agents.subcontractor
+    .post(`/api/tallies/${tally.id}/evidence`)
+    .attach('files', FILES.pdf, 'ticket.pdf');
   const app = await makeCertifiedPayApp(db, w.home.id, sub, { number: ++serial, status: payAppStatus });
   const [line] = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, app.id)).limit(1);
-  const [dispute] = await db.insert(disputes).values({ payAppId: app.id, lineId: line!.id, revision: 0, reason: 'Short', counterQuantity: 1, openedByUserId: gc }).returning();
-  const [co] = await db.insert(changeOrders).values({ projectId: w.home.id, number: ++serial, title: 'CO', proposedByUserId: gc }).returning();
+  const [dispute] = await db
+    .insert(disputes)
+    .values({
+      payAppId: app.id,
+      lineId: line!.id,
+      revision: 0,
+      reason: 'Short',
+      counterQuantity: 1,
+      openedByUserId: gc,
+    })
+    .returning();
+  const [co] = await db
+    .insert(changeOrders)
+    .values({ projectId: w.home.id, number: ++serial, title: 'CO', proposedByUserId: gc })
+    .returning();
   const [invitation] = await db
     .insert(invitations)
-    .values({ projectId: w.home.id, email: `x${serial}@example.test`, role: 'owner', tokenHash: `h${serial}`, invitedByUserId: gc, expiresAt: new Date(Date.now() + 86_400_000) })
+    .values({
+      projectId: w.home.id,
+      email: `x${serial}@example.test`,
+      role: 'owner',
+      tokenHash: `h${serial}`,
+      invitedByUserId: gc,
+      expiresAt: new Date(Date.now() + 86_400_000),
+    })
     .returning();
+  const approved = await makeChangeOrder(db, w.home.id, gc);
   let waiverId = '00000000-0000-4000-8000-00000000beef';
   const userId = `crew-${serial}`;
   await db.insert(user).values({ id: userId, name: `Crew ${serial}`, email: `crew-${serial}@example.test` });
@@ -207,6 +336,12 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     token: 'x',
     userId,
     companyId: w.companies.sub.id,
+    truckItemId: (await makeProfiledItem(db, w.home.id, 'truck_measure')).id,
+    weightItemId: (await makeProfiledItem(db, w.home.id, 'weight', { payUnit: 'TON' })).id,
+    sourceId: (await makeSource(db, w.home.id)).id,
+    approvedChangeOrderId: approved.id,
+    sheetId: (await makeDailySheet(db, w.home.id, approved.id, gc)).id,
+    storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
   };
 }
 
@@ -214,9 +349,15 @@ function call(role: Role, route: string, f: Fixture) {
   const rule = RULES[route]!;
   const [method, template] = route.split(' ') as [string, string];
   const path = template
-    .replace(/(change-orders|invitations)\/:id/, (_m, kind: string) => `${kind}/${kind === 'change-orders' ? f.changeOrderId : f.invitationId}`)
+    .replace(
+      /(change-orders|invitations)\/:id/,
+      (_m, kind: string) => `${kind}/${kind === 'change-orders' ? f.changeOrderId : f.invitationId}`,
+    )
     .replace(/:(\w+)/g, (_m, name: string) => String(f[name as keyof Fixture]));
-  let req = (agents[role] as unknown as Record<string, (p: string) => request.Test>)[method.toLowerCase()]!(path).set('Origin', TEST_ORIGIN);
+  let req = (agents[role] as unknown as Record<string, (p: string) => request.Test>)[method.toLowerCase()]!(path).set(
+    'Origin',
+    TEST_ORIGIN,
+  );
   if (rule.upload) return req.attach(rule.upload.field, rule.upload.bytes, rule.upload.name);
   if (route === 'POST /api/projects')
     return req.send({
@@ -250,7 +391,8 @@ describe('the role matrix', () => {
         const before = await writes();
         const res = await call(role, route, f);
         const expected = rule.hiddenFrom?.includes(role) ? 404 : 403;
-        if (res.status !== expected) refused.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+        if (res.status !== expected)
+          refused.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
         if ((await writes()) !== before) refused.push(`${route} as ${role}: wrote an audit event`);
       }
     }
@@ -263,7 +405,11 @@ describe('the role matrix', () => {
     for (const [route, rule] of Object.entries(RULES)) {
       for (const role of rule.may) {
         // Reads change nothing and share one set of objects; each write gets its own.
-        const res = await call(role, route, route.startsWith('GET') && !rule.payApp ? shared : await fixture(rule.payApp));
+        const res = await call(
+          role,
+          route,
+          route.startsWith('GET') && !rule.payApp ? shared : await fixture(rule.payApp),
+        );
         const through = (res.status >= 200 && res.status < 300) || (rule.passes ?? []).includes(res.status);
         if (!through) stopped.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
       }
@@ -279,12 +425,23 @@ describe('the role matrix', () => {
       if (Array.isArray(value)) return value.forEach((v, i) => scan(v, `${where}[${i}]`));
       if (!value || typeof value !== 'object') return;
       for (const [key, v] of Object.entries(value)) {
-        if (/password|hash|token|secret|storageKey|sessionId$|ipAddress|userAgent|idempotency/i.test(key) && key !== 'stripeCheckoutSessionId') leaks.push(`${where}.${key}`);
+        if (
+          /password|hash|token|secret|storageKey|sessionId$|ipAddress|userAgent|idempotency/i.test(key) &&
+          key !== 'stripeCheckoutSessionId'
+        )
+          leaks.push(`${where}.${key}`);
         scan(v, `${where}.${key}`);
       }
     };
     for (const [route, rule] of Object.entries(RULES)) {
-      if (!route.startsWith('GET') || route.endsWith('.pdf') || route.endsWith('.csv') || route.endsWith('/download') || route.endsWith('/pdf')) continue;
+      if (
+        !route.startsWith('GET') ||
+        route.endsWith('.pdf') ||
+        route.endsWith('.csv') ||
+        route.endsWith('/download') ||
+        route.endsWith('/pdf')
+      )
+        continue;
       for (const role of rule.may) {
         const res = await call(role, route, f);
         scan(res.body, `${route} as ${role}`);

@@ -6,6 +6,7 @@ import {
 } from '../../../src/shared/schemas/tally';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
@@ -43,9 +44,9 @@ async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: strin
 }
 
 /** The stored columns for a tally: the server's own computation, never a number sent by the client. */
-async function computedColumns(db: Executor, project: ProjectRow, input: CreateTallyInput) {
+async function computedColumns(db: Executor, project: ProjectRow, input: CreateTallyInput, compute?: ComputePool) {
   const item = await itemOnProject(db, project, input.bidItemId);
-  const result = computeTally(input, item, project);
+  const result = await computeTally(input, item, project, compute);
   return {
     bidItemId: item.id,
     measuredOn: input.measuredOn,
@@ -66,9 +67,9 @@ async function computedColumns(db: Executor, project: ProjectRow, input: CreateT
   };
 }
 
-export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput) {
+export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput, compute?: ComputePool) {
   const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
-  const columns = await computedColumns(db, project, input);
+  const columns = await computedColumns(db, project, input, compute);
   const id = await db.transaction(async (tx) => {
     const row = await repo.insertTally(tx, { ...columns, projectId, authorUserId: actor.userId });
     await audit(tx, actor, projectId, row.id, 'tally.created', undefined, { ...columns, result: undefined });
@@ -88,7 +89,7 @@ function splitInputs(inputs: Record<string, unknown> | null) {
   return { inputs: rest as Record<string, unknown>, component, measuredBasis, density };
 }
 
-export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput) {
+export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput, compute?: ComputePool) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
   const t = row.tally;
@@ -103,7 +104,7 @@ export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: 
     ...patch,
   };
   // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
-  const columns = await computedColumns(db, project, createTallySchema.parse(merged));
+  const columns = await computedColumns(db, project, createTallySchema.parse(merged), compute);
   await db.transaction(async (tx) => {
     const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
     if (!updated) throw tallyNotDraft('no longer a draft');
