@@ -372,3 +372,26 @@ describe('removing people', () => {
     expect({ status: last.status, code: last.body.error?.code }).toEqual({ status: 409, code: 'LAST_COMPANY_ADMIN' });
   });
 });
+
+describe('GET /api/companies lists what the person may see, not every company', () => {
+  it("shows a subcontractor's person their own company and their jobs' parties only", async () => {
+    const res = await (await as('subcontractor')).get('/api/companies');
+    expect(res.status).toBe(200);
+    const ids = res.body.companies.map((c: { id: string }) => c.id).sort();
+    expect(ids).toEqual([w.companies.sub.id, w.companies.gc.id, w.companies.owner.id].sort());
+  });
+
+  it("shows the owner's admin no company of a job its company is not on", async () => {
+    const res = await (await as('owner_admin')).get('/api/companies');
+    const ids = res.body.companies.map((c: { id: string }) => c.id);
+    for (const other of [w.companies.otherGc.id, w.companies.otherSub.id, w.companies.otherOwner.id]) expect(ids).not.toContain(other);
+  });
+
+  it("shows a general contractor's person the subcontractor and owner companies a new job can name, and no other general contractor", async () => {
+    const res = await (await as('general_contractor')).get('/api/companies');
+    const byId = new Map(res.body.companies.map((c: { id: string; kind: string }) => [c.id, c.kind]));
+    expect(byId.get(w.companies.otherSub.id)).toBe('subcontractor');
+    expect(byId.get(w.companies.otherOwner.id)).toBe('owner');
+    expect(byId.has(w.companies.otherGc.id)).toBe(false);
+  });
+});
