@@ -48,6 +48,7 @@ const ROUTES: Record<string, Scope> = {
   'GET /api/companies/:companyId/members': 'company',
   'DELETE /api/companies/:companyId/members/:userId': 'company',
   'GET /api/projects/:projectId/audit': 'project',
+  'GET /api/projects/:projectId/audit.csv': 'project',
   'GET /api/pay-apps/:payAppId/audit': 'project',
   'GET /api/projects/:projectId/tallies': 'project',
   'POST /api/projects/:projectId/tallies': 'project',

@@ -159,6 +159,7 @@ const RULES: Record<string, Rule> = {
   'GET /api/companies/:companyId/members': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'DELETE /api/companies/:companyId/members/:userId': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'GET /api/projects/:projectId/audit': { may: ALL },
+  'GET /api/projects/:projectId/audit.csv': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
   'POST /api/projects/:projectId/tallies': {

@@ -6,6 +6,13 @@ import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { loadProjectAccess } from '../projects/project-access';
 import { presentAuditEvent } from './audit.presenter';
 import * as repo from './audit-query.repository';
+import { nameObjects } from './trail-names.repository';
+import { TRAIL_CSV_MAX, trailCsv } from './trail-csv';
+
+async function present(db: Db, projectId: string, rows: repo.AuditRow[]): Promise<AuditEventView[]> {
+  const names = await nameObjects(db, projectId, rows);
+  return rows.map((row) => presentAuditEvent(row, names.get(row.id)!));
+}
 
 /**
  * The project's trail, newest first; any member reads it, and a viewer who sees pay applications only once
@@ -13,13 +20,39 @@ import * as repo from './audit-query.repository';
  */
 export async function projectTrail(db: Db, actor: Actor, projectId: string, query: AuditQuery): Promise<AuditPage> {
   const { roles } = await loadProjectAccess(db, actor, projectId);
-  const { page, pageSize, objectType } = query;
+  const { page, pageSize, objectType, person, from, to } = query;
+  const filter = { objectType, person, from, to };
   const certifiedOnly = !canSeePayApp(roles, 'draft');
-  const [{ rows, total }, objectTypes] = await Promise.all([
-    repo.listProjectAudit(db, projectId, { objectType, limit: pageSize, offset: (page - 1) * pageSize, certifiedOnly }),
-    repo.projectObjectTypes(db, projectId, certifiedOnly),
-  ]);
-  return { events: rows.map(presentAuditEvent), page, pageSize, total, objectTypes };
+  const { rows, total } = await repo.listProjectAudit(db, projectId, {
+    ...filter,
+    limit: pageSize,
+    offset: (page - 1) * pageSize,
+    certifiedOnly,
+  });
+  const objectTypes = await repo.projectObjectTypes(db, projectId, certifiedOnly);
+  const people = await repo.projectActors(db, projectId);
+  return { events: await present(db, projectId, rows), page, pageSize, total, objectTypes, people };
+}
+
+/** The filtered trail as CSV (every matching event, newest first, up to TRAIL_CSV_MAX rows), with the same visibility. */
+export async function projectTrailCsv(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  query: AuditQuery,
+): Promise<{ csv: string; projectName: string }> {
+  const { project, roles } = await loadProjectAccess(db, actor, projectId);
+  const { objectType, person, from, to } = query;
+  const { rows } = await repo.listProjectAudit(db, projectId, {
+    objectType,
+    person,
+    from,
+    to,
+    limit: TRAIL_CSV_MAX,
+    offset: 0,
+    certifiedOnly: !canSeePayApp(roles, 'draft'),
+  });
+  return { csv: trailCsv(await present(db, projectId, rows)), projectName: project.name };
 }
 
 /**
@@ -29,5 +62,5 @@ export async function projectTrail(db: Db, actor: Actor, projectId: string, quer
 export async function payAppTrail(db: Db, actor: Actor, payAppId: string): Promise<AuditEventView[]> {
   const { app } = await loadPayAppAccess(db, actor, payAppId);
   const rows = await repo.listPayAppAudit(db, app.projectId, app.id);
-  return rows.map(presentAuditEvent);
+  return present(db, app.projectId, rows);
 }
