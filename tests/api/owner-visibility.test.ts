@@ -75,9 +75,15 @@ describe("the owner's side and an application not yet certified", () => {
       expect(res.status).toBe(200);
       expect(names(res.body.events), who).toEqual([]);
       expect(res.body.objectTypes, who).not.toContain('pay_app');
+      const csv = await (await signedInAgent(t.app, w.people[who].email)).get(`/api/projects/${w.home.id}/audit.csv`);
+      expect(csv.status).toBe(200);
+      expect(csv.text, who).not.toMatch(/pay application 1(?!\d)/i);
     }
     const gc = await (await signedInAgent(t.app, w.people.general_contractor.email)).get(`/api/projects/${w.home.id}/audit?pageSize=100`);
     expect(names(gc.body.events).map((e) => e.objectType)).toContain('pay_app');
+    const gcCsv = await (await signedInAgent(t.app, w.people.general_contractor.email)).get(`/api/projects/${w.home.id}/audit.csv`);
+    // The CSV names objects by label: the hidden application is pay application 1.
+    expect(gcCsv.text).toMatch(/pay application 1(?!\d)/i);
   });
 
   it('shows the owner the application and its whole trail once certified', async () => {
