@@ -3,9 +3,11 @@ import type { Db } from './db/client';
 import type { Payments } from './integrations/payments/payments';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
+import type { ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
 import type { ConfirmRecentAuth } from './middleware/require-recent-auth';
 import type { Outbox } from './modules/notifications/outbox';
+import type { MailboxKind } from './modules/dev/mailbox.routes';
 
 /** What a module's routes and services need from the app, built once by createApp. */
 export type AppContext = {
@@ -16,10 +18,14 @@ export type AppContext = {
   /** The app's public origin, for links in e-mails. */
   appUrl: string;
   mailbox?: SmtpSink;
+  /** How the Mailbox page is labelled (development unless the embedded demo). */
+  mailboxKind?: MailboxKind;
   /** Online payment (Stripe's SDK, or the local stand-in); absent when the server has none configured. */
   payments?: Payments;
   /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
   recentAuth: RecentAuth;
+  /** Worker threads for heavy calculations (large worksheets); without it (the demo seed) they run inline. */
+  compute?: ComputePool;
 };
 
 export type RecentAuth = {

@@ -80,7 +80,7 @@ export const apiThroughput: SelfMeasuredBench = {
     await new Promise<void>((r) => appServer.listen(0, '127.0.0.1', r));
     const appUrl = `http://127.0.0.1:${(appServer.address() as AddressInfo).port}`;
     // The app is attached once the auth origin knows the port. The fast hasher only shortens the seed's sign-ups.
-    const auth = createAuth({ db: database.db, secret: 'bench-secret-bench-secret-bench-secret-01', baseURL: appUrl, trustedOrigins: [appUrl], production: false, rateLimit: false, passwordHasher: fastPasswordHasher });
+    const auth = createAuth({ db: database.db, secret: 'bench-secret-bench-secret-bench-secret-01', baseURL: appUrl, trustedOrigins: [appUrl], secureCookies: false, rateLimit: false, passwordHasher: fastPasswordHasher });
     await seedDemo(database.db, auth, memoryStorage());
     const payAppId = await payAppWithLines(database.db);
     const app = createApp({ database, auth, logger: createLogger('silent'), mailer: smtpMailer('smtp://127.0.0.1:1', 'x <x@x.test>'), storage: memoryStorage(), appUrl });

@@ -7,6 +7,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly details?: ApiErrorDetail[],
+    /** Response headers that go with the error (Retry-After on a 503). */
+    readonly headers?: Record<string, string>,
   ) {
     super(message);
     this.name = 'AppError';

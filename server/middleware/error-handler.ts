@@ -15,7 +15,10 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     const send = (status: number, code: string, message: string, details?: unknown) =>
       res.status(status).json({ error: { code, message, ...(details ? { details } : {}) } });
-    if (err instanceof AppError) return send(err.status, err.code, err.message, err.details);
+    if (err instanceof AppError) {
+      if (err.headers) res.set(err.headers);
+      return send(err.status, err.code, err.message, err.details);
+    }
     if (err instanceof ZodError) {
       return send(400, 'VALIDATION_FAILED', 'Some fields need attention.', zodIssuesToDetails(err.issues));
     }
@@ -31,9 +34,14 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     }
     if (e.type === 'entity.parse.failed') return send(400, 'MALFORMED_JSON', 'The request body is not valid JSON.');
     if (e.type === 'encoding.unsupported') {
-      return send(415, 'UNSUPPORTED_ENCODING', 'The body is compressed in a way this server does not read; send it as is, or gzip, deflate or br.');
+      return send(
+        415,
+        'UNSUPPORTED_ENCODING',
+        'The body is compressed in a way this server does not read; send it as is, or gzip, deflate or br.',
+      );
     }
-    if (e.type === 'charset.unsupported') return send(415, 'UNSUPPORTED_CHARSET', 'The body is not in UTF-8; send JSON in UTF-8.');
+    if (e.type === 'charset.unsupported')
+      return send(415, 'UNSUPPORTED_CHARSET', 'The body is not in UTF-8; send JSON in UTF-8.');
     if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
       return send(e.status, 'BAD_REQUEST', 'The request could not be read.');
     }

@@ -54,13 +54,28 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     screen: () => import('./routes/project-quantity-watch'),
     summary: 'Forecast at completion against the contract quantity and the variation band.',
   },
-  { path: 'payments', label: 'Payments', screen: () => import('./routes/project-payments'), summary: 'Card and ACH payments of certified pay applications.' },
-  { path: 'waivers', label: 'Waivers', screen: () => import('./routes/project-waivers'), summary: 'Conditional and unconditional lien waivers tied to payments.' },
+  {
+    path: 'payments',
+    label: 'Payments',
+    screen: () => import('./routes/project-payments'),
+    summary: 'Card and ACH payments of certified pay applications.',
+  },
+  {
+    path: 'waivers',
+    label: 'Waivers',
+    screen: () => import('./routes/project-waivers'),
+    summary: 'Conditional and unconditional lien waivers tied to payments.',
+  },
   {
     path: 'people',
     label: 'People',
     screen: () => import('./routes/project-people'),
     summary: 'Members, their roles, and invitations.',
   },
-  { path: 'trail', label: 'Trail', screen: () => import('./routes/project-trail'), summary: 'Every change on this job: who, when, what, before and after.' },
+  {
+    path: 'trail',
+    label: 'Trail',
+    screen: () => import('./routes/project-trail'),
+    summary: 'Every change on this job: who, when, what, before and after.',
+  },
 ];

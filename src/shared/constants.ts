@@ -17,8 +17,8 @@ export type AccessRole = (typeof ACCESS_ROLES)[number];
 export const UNIT_SYSTEMS = ['us', 'metric'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-/** Pay units: US customary first, then metric. */
-export const PAY_UNITS = ['CY', 'LF', 'SY', 'TON', 'EA', 'LS', 'm3', 'm', 'm2', 't'] as const;
+/** Pay units: US customary first, then time (the same in either system), then metric. */
+export const PAY_UNITS = ['CY', 'LF', 'SY', 'TON', 'EA', 'LS', 'DAY', 'HR', 'm3', 'm', 'm2', 't'] as const;
 export type PayUnit = (typeof PAY_UNITS)[number];
 
 export const PAY_UNIT_LABELS: Record<PayUnit, string> = {
@@ -28,6 +28,8 @@ export const PAY_UNIT_LABELS: Record<PayUnit, string> = {
   TON: 'tons',
   EA: 'each',
   LS: 'lump sum',
+  DAY: 'days',
+  HR: 'hours',
   m3: 'cubic metres',
   m: 'metres',
   m2: 'square metres',
@@ -296,6 +298,9 @@ export const DEFAULT_PAY_DECIMALS: Record<PayUnit, number> = {
   TON: 2,
   EA: 0,
   LS: 2,
+  // Time-based work: half days and quarter hours (common practice, from memory).
+  DAY: 1,
+  HR: 2,
   m3: 1,
   m: 1,
   m2: 1,

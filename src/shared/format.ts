@@ -24,6 +24,9 @@ export const QUANTITY_DISPLAY_DECIMALS: Record<PayUnit, number> = {
   m: 2,
   EA: 0,
   LS: 2,
+  // Time-based work: tenths of a day, hundredths of an hour (common practice, from memory).
+  DAY: 1,
+  HR: 2,
 };
 
 /** Digits with thousands separators: 12345.678 with 2 decimals -> "12,345.68" (half away from zero). */

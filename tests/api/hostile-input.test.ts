@@ -59,7 +59,7 @@ const gridInputs = { unit: 'ft', spacingX: 25, spacingY: 25, depths: [[1, 1.5], 
 const ROUTES: Record<string, Spec> = {
   'POST /api/invitations/:token/accept': json('none', acceptInvitationSchema, () => ({ name: 'Rowan Pell', password: 'gravel-haul-road-77' }), 16 * 1024),
   'POST /api/webhooks/stripe': { reads: 'signed-raw', role: 'none' },
-  'POST /api/calc/:method': json('owner', gridSchema, () => gridInputs, 128 * MB),
+  'POST /api/calc/:method': json('owner', gridSchema, () => gridInputs, 32 * MB), // the grid method's limit (CALC_BODY_LIMITS)
   'POST /api/projects': json('general_contractor', createProjectSchema, (ids) => ({ name: 'North haul road', subcontractorCompanyId: ids.subCompany, ownerCompanyId: ids.ownerCompany, retainageBps: 500, swellPercent: 20, allowPartialPayments: true })),
   'PATCH /api/projects/:projectId': json('general_contractor', updateProjectSchema, () => ({ location: 'Mile 4', retainageBps: 1000, retainageReducedBps: null, paymentTermsDays: 30, shrinkagePercent: 10 })),
   'POST /api/projects/:projectId/bid-items': json('general_contractor', bidItemInputSchema, () => sampleBidItem({ itemNumber: 'H-1' })),

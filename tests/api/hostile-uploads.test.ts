@@ -23,7 +23,10 @@ import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setu
 // OWASP "CSV Injection" (cells starting = + - @ tab CR are neutralised); RFC 3629 section 3 (well-formed UTF-8)
 // and Unicode 15 section 23.8 (byte-order marks); Microsoft "Naming Files, Paths, and Namespaces" (device names).
 
-/** The routes that take a multipart form; every other route refuses one (415, server/middleware/json-bodies-only.ts). */
+/**
+ * The routes that take a multipart form; every other route refuses one (415, server/middleware/json-bodies-only.ts).
+ * POST /api/calc/surface (of `POST /api/calc/:method`) also takes one: its cases are at the end of this file.
+ */
 const UPLOAD_ROUTES = ['POST /api/tallies/:tallyId/evidence', 'POST /api/projects/:projectId/bid-items/import'];
 const HEADER = 'item_number,description,pay_unit,basis,unit_price,contract_quantity,major,method';
 
@@ -269,5 +272,33 @@ describe('path tricks in file names (ASVS 12.3.1, 12.3.2)', () => {
         expect(await saved()).toEqual(before);
       }
     }
+  });
+});
+
+describe('the survey upload of POST /api/calc/surface (streamed to a worker; nothing is stored)', () => {
+  const points = 'x,y,z\n0,0,1\n10,0,1\n0,10,1\n10,10,2\n';
+  const form = (boundary: string, ...parts: string[]) => `${parts.map((p) => `--${boundary}\r\n${p}`).join('\r\n')}\r\n--${boundary}--\r\n`;
+  const file = (name: string, body: string | Buffer) => `Content-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${body}`;
+  const unit = 'Content-Disposition: form-data; name="unit"\r\n\r\nft';
+  const send = (body: string | Buffer, boundary = 'x') => sub.post('/api/calc/surface').set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
+
+  it('computes a good form, and refuses a cut-off form, a third file, an unexpected field and a form with no boundary', async () => {
+    expect((await send(form('x', unit, file('existing', points), file('design', points)))).status).toBe(200);
+    await expectRefused(() => send(`--x\r\n${file('existing', points)}`), 400, 'UPLOAD_MALFORMED');
+    await expectRefused(() => send(form('x', unit, file('existing', points), file('design', points), file('design', points))), 400, 'UPLOAD_PART_COUNT');
+    await expectRefused(() => send(form('x', unit, file('existing', points), file('other', points))), 400, 'UPLOAD_UNEXPECTED_FILE');
+    await expectRefused(() => sub.post('/api/calc/surface').set('Content-Type', 'multipart/form-data').send(form('x', unit)), 400, 'UPLOAD_MALFORMED');
+  });
+
+  it('refuses a survey that is not UTF-8 text (UTF-16, a PNG) with the file named, and a gzip bomb with 413', async () => {
+    const utf16 = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(points, 'utf16le')]);
+    const bin = (b: Buffer) => Buffer.concat([Buffer.from(`--x\r\n${unit}\r\n--x\r\n${file('existing', '')}`), b, Buffer.from(`\r\n--x\r\n${file('design', points)}\r\n--x--\r\n`)]);
+    const res = await expectRefused(() => send(bin(utf16)), 400, 'VALIDATION_FAILED');
+    expect(res.body.error.details[0].path).toMatch(/^existing/);
+    await expectRefused(() => send(bin(tinyPng())), 400, 'VALIDATION_FAILED');
+    const bomb = gzipBomb(140 * 1024 * 1024); // past the upload limit of two 64 MB surveys
+    const big = await sub.post('/api/calc/surface').set('Content-Type', 'multipart/form-data; boundary=x').set('Content-Encoding', 'gzip').send(bomb);
+    expect(big.status).toBe(413);
+    expectErrorShape(big, 'gzip bomb');
   });
 });

@@ -61,27 +61,77 @@ const RULES: Record<string, Rule> = {
   'GET /api/projects/:projectId': { may: ALL },
   'PATCH /api/projects/:projectId': { may: CONTRACT, body: () => ({ retainageBps: 500 }) },
   'GET /api/projects/:projectId/bid-items': { may: ALL },
-  'POST /api/projects/:projectId/bid-items': { may: CONTRACT, body: () => ({ itemNumber: `N-${Math.random().toString(36).slice(2, 8)}`, description: 'Rock excavation', payUnit: 'CY', basis: 'bank', unitPriceCents: 4200, contractQuantity: 300, isMajor: false, method: 'end-area' }) },
-  'POST /api/projects/:projectId/bid-items/import': { may: CONTRACT, upload: { field: 'file', bytes: Buffer.from('item_number,description,pay_unit,unit_price,contract_quantity\nZ-1,Topsoil stripping,SY,1.25,4000\n'), name: 'items.csv' }, passes: [400] },
-  'PATCH /api/bid-items/:bidItemId': { may: CONTRACT, body: () => ({ isMajor: true }) },
+  'POST /api/projects/:projectId/bid-items': {
+    may: CONTRACT,
+    body: () => ({
+      itemNumber: `N-${Math.random().toString(36).slice(2, 8)}`,
+      description: 'Rock excavation',
+      payUnit: 'CY',
+      basis: 'bank',
+      unitPriceCents: 4200,
+      contractQuantity: 300,
+      isMajor: false,
+      method: 'end-area',
+    }),
+    passes: [409],
+  },
+  'POST /api/projects/:projectId/bid-items/import': {
+    may: CONTRACT,
+    upload: {
+      field: 'file',
+      bytes: Buffer.from(
+        'item_number,description,pay_unit,unit_price,contract_quantity\nZ-1,Topsoil stripping,SY,1.25,4000\n',
+      ),
+      name: 'items.csv',
+    },
+    passes: [400],
+  },
+  'PATCH /api/bid-items/:bidItemId': {
+    may: CONTRACT,
+    body: () => ({ isMajor: true, reason: 'Corrected after the lock' }),
+  },
   'DELETE /api/bid-items/:bidItemId': { may: CONTRACT, passes: [409] },
   'GET /api/projects/:projectId/change-orders': { may: ALL },
-  'POST /api/projects/:projectId/change-orders': { may: ['subcontractor', 'general_contractor'], body: (f) => ({ title: 'More rock', items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }] }) },
+  'POST /api/projects/:projectId/change-orders': {
+    may: ['subcontractor', 'general_contractor'],
+    body: (f) => ({
+      title: 'More rock',
+      items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }],
+    }),
+  },
   'GET /api/projects/:projectId/contract-quantities': { may: ALL },
   'GET /api/change-orders/:id': { may: ALL },
   // The owner decides too only on a project that asks for the owner's approval (not the home project).
   'POST /api/change-orders/:id/approve': { may: ['general_contractor'], body: () => ({ note: 'Agreed' }) },
   'POST /api/change-orders/:id/reject': { may: ['general_contractor'], body: () => ({ note: 'Not agreed' }) },
   'GET /api/projects/:projectId/variance': { may: ALL },
-  'PUT /api/bid-items/:bidItemId/forecast': { may: ['subcontractor', 'general_contractor'], body: () => ({ forecastQuantity: 1000 }) },
-  'POST /api/bid-items/:bidItemId/variance-change-order': { may: ['subcontractor', 'general_contractor'], passes: [409] },
+  'PUT /api/bid-items/:bidItemId/forecast': {
+    may: ['subcontractor', 'general_contractor'],
+    body: () => ({ forecastQuantity: 1000 }),
+  },
+  'POST /api/bid-items/:bidItemId/variance-change-order': {
+    may: ['subcontractor', 'general_contractor'],
+    passes: [409],
+  },
   'GET /api/projects/:projectId/invitations': { may: CONTRACT },
-  'POST /api/projects/:projectId/invitations': { may: CONTRACT, body: () => ({ email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`, role: 'owner' }) },
+  'POST /api/projects/:projectId/invitations': {
+    may: CONTRACT,
+    body: () => ({ email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`, role: 'owner' }),
+  },
   'DELETE /api/invitations/:id': { may: CONTRACT },
   'GET /api/projects/:projectId/audit': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
-  'POST /api/projects/:projectId/tallies': { may: SUB, body: (f) => ({ bidItemId: f.bidItemId, measuredOn: '2026-11-04', method: 'manual', quantity: 12, manualBasis: 'Counted at the stockpile' }) },
+  'POST /api/projects/:projectId/tallies': {
+    may: SUB,
+    body: (f) => ({
+      bidItemId: f.bidItemId,
+      measuredOn: '2026-11-04',
+      method: 'manual',
+      quantity: 12,
+      manualBasis: 'Counted at the stockpile',
+    }),
+  },
   'GET /api/tallies/:tallyId': { may: ALL },
   'PATCH /api/tallies/:tallyId': { may: SUB, body: () => ({ title: 'North cut' }) },
   'POST /api/tallies/:tallyId/ready': { may: SUB },
@@ -90,24 +140,55 @@ const RULES: Record<string, Rule> = {
   'GET /api/evidence/:evidenceId/download': { may: ALL },
   'DELETE /api/evidence/:evidenceId': { may: SUB },
   'GET /api/projects/:projectId/pay-apps': { may: ALL },
-  'POST /api/projects/:projectId/pay-apps': { may: SUB, body: () => ({ periodStart: '2027-01-01', periodEnd: '2027-01-31' }), passes: [409] },
+  'POST /api/projects/:projectId/pay-apps': {
+    may: SUB,
+    body: () => ({ periodStart: '2027-01-01', periodEnd: '2027-01-31' }),
+    passes: [409],
+  },
   'GET /api/pay-apps/:payAppId': { may: ALL },
   'POST /api/pay-apps/:payAppId/submit': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'draft' },
-  'POST /api/pay-apps/:payAppId/review': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'submitted', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, decision: 'approve' }] }) },
-  'POST /api/pay-apps/:payAppId/revise': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'returned', body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, action: 'accept' }] }) },
-  'POST /api/pay-apps/:payAppId/certify': { hiddenFrom: OWNER_SEES_CERTIFIED, may: ['general_contractor'], payApp: 'in_review', body: () => ({ expectedRevision: 0 }) },
-  'POST /api/disputes/:disputeId/comments': { may: ['subcontractor', 'general_contractor'], body: () => ({ body: 'Survey attached.' }) },
+  'POST /api/pay-apps/:payAppId/review': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: ['general_contractor'],
+    payApp: 'submitted',
+    body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, decision: 'approve' }] }),
+  },
+  'POST /api/pay-apps/:payAppId/revise': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: SUB,
+    payApp: 'returned',
+    body: (f) => ({ expectedRevision: 0, lines: [{ lineId: f.lineId, action: 'accept' }] }),
+  },
+  'POST /api/pay-apps/:payAppId/certify': {
+    hiddenFrom: OWNER_SEES_CERTIFIED,
+    may: ['general_contractor'],
+    payApp: 'in_review',
+    body: () => ({ expectedRevision: 0 }),
+  },
+  'POST /api/disputes/:disputeId/comments': {
+    may: ['subcontractor', 'general_contractor'],
+    body: () => ({ body: 'Survey attached.' }),
+  },
   'GET /api/pay-apps/:payAppId/export.pdf': { may: ALL },
   'GET /api/pay-apps/:payAppId/export.csv': { may: ALL },
   'POST /api/pay-apps/:payAppId/payments': { may: ['owner'], body: () => ({}) },
   'GET /api/pay-apps/:payAppId/payments': { may: ALL },
   'GET /api/projects/:projectId/payments': { may: ALL },
-  'POST /api/pay-apps/:payAppId/lien-waivers': { may: SUB, body: () => ({ kind: 'conditional_final', signedName: 'Dana Whitfield' }), passes: [409] },
+  'POST /api/pay-apps/:payAppId/lien-waivers': {
+    may: SUB,
+    body: () => ({ kind: 'conditional_final', signedName: 'Dana Whitfield' }),
+    passes: [409],
+  },
   'GET /api/projects/:projectId/lien-waivers': { may: ALL },
   'GET /api/lien-waivers/:waiverId/pdf': { may: ALL },
 };
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
-const OUTSIDE_ROLES = ['GET /api/health', 'GET /api/invitations/:token', 'POST /api/invitations/:token/accept', 'POST /api/webhooks/stripe'];
+const OUTSIDE_ROLES = [
+  'GET /api/health',
+  'GET /api/invitations/:token',
+  'POST /api/invitations/:token/accept',
+  'POST /api/webhooks/stripe',
+];
 
 let t: TestApp;
 let w: Awaited<ReturnType<typeof makeWorld>>;
@@ -127,19 +208,50 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
   const sub = w.people.subcontractor.id;
   const gc = w.people.general_contractor.id;
   const item = await makeBidItem(db, w.home.id);
-  const tally = await makeTally(db, { projectId: w.home.id, bidItemId: item.id, authorUserId: sub, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
-  const uploaded = await agents.subcontractor.post(`/api/tallies/${tally.id}/evidence`).attach('files', FILES.pdf, 'ticket.pdf');
+  const tally = await makeTally(db, {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    authorUserId: sub,
+    measuredOn: '2026-10-05',
+    quantity: 10,
+    status: 'draft',
+  });
+  const uploaded = await agents.subcontractor
+    .post(`/api/tallies/${tally.id}/evidence`)
+    .attach('files', FILES.pdf, 'ticket.pdf');
   const app = await makeCertifiedPayApp(db, w.home.id, sub, { number: ++serial, status: payAppStatus });
   const [line] = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, app.id)).limit(1);
-  const [dispute] = await db.insert(disputes).values({ payAppId: app.id, lineId: line!.id, revision: 0, reason: 'Short', counterQuantity: 1, openedByUserId: gc }).returning();
-  const [co] = await db.insert(changeOrders).values({ projectId: w.home.id, number: ++serial, title: 'CO', proposedByUserId: gc }).returning();
+  const [dispute] = await db
+    .insert(disputes)
+    .values({
+      payAppId: app.id,
+      lineId: line!.id,
+      revision: 0,
+      reason: 'Short',
+      counterQuantity: 1,
+      openedByUserId: gc,
+    })
+    .returning();
+  const [co] = await db
+    .insert(changeOrders)
+    .values({ projectId: w.home.id, number: ++serial, title: 'CO', proposedByUserId: gc })
+    .returning();
   const [invitation] = await db
     .insert(invitations)
-    .values({ projectId: w.home.id, email: `x${serial}@example.test`, role: 'owner', tokenHash: `h${serial}`, invitedByUserId: gc, expiresAt: new Date(Date.now() + 86_400_000) })
+    .values({
+      projectId: w.home.id,
+      email: `x${serial}@example.test`,
+      role: 'owner',
+      tokenHash: `h${serial}`,
+      invitedByUserId: gc,
+      expiresAt: new Date(Date.now() + 86_400_000),
+    })
     .returning();
   let waiverId = '00000000-0000-4000-8000-00000000beef';
   if (payAppStatus === 'certified') {
-    const waiver = await agents.subcontractor.post(`/api/pay-apps/${app.id}/lien-waivers`).send({ kind: 'conditional_progress', signedName: 'Dana Whitfield' });
+    const waiver = await agents.subcontractor
+      .post(`/api/pay-apps/${app.id}/lien-waivers`)
+      .send({ kind: 'conditional_progress', signedName: 'Dana Whitfield' });
     waiverId = waiver.body.waiver?.id ?? waiverId;
   }
   return {
@@ -162,11 +274,22 @@ function call(role: Role, route: string, f: Fixture) {
   const rule = RULES[route]!;
   const [method, template] = route.split(' ') as [string, string];
   const path = template
-    .replace(/(change-orders|invitations)\/:id/, (_m, kind: string) => `${kind}/${kind === 'change-orders' ? f.changeOrderId : f.invitationId}`)
+    .replace(
+      /(change-orders|invitations)\/:id/,
+      (_m, kind: string) => `${kind}/${kind === 'change-orders' ? f.changeOrderId : f.invitationId}`,
+    )
     .replace(/:(\w+)/g, (_m, name: string) => String(f[name as keyof Fixture]));
-  let req = (agents[role] as unknown as Record<string, (p: string) => request.Test>)[method.toLowerCase()]!(path).set('Origin', TEST_ORIGIN);
+  let req = (agents[role] as unknown as Record<string, (p: string) => request.Test>)[method.toLowerCase()]!(path).set(
+    'Origin',
+    TEST_ORIGIN,
+  );
   if (rule.upload) return req.attach(rule.upload.field, rule.upload.bytes, rule.upload.name);
-  if (route === 'POST /api/projects') return req.send({ name: 'Mill Creek outfall', subcontractorCompanyId: w.companies.sub.id, ownerCompanyId: w.companies.owner.id });
+  if (route === 'POST /api/projects')
+    return req.send({
+      name: 'Mill Creek outfall',
+      subcontractorCompanyId: w.companies.sub.id,
+      ownerCompanyId: w.companies.owner.id,
+    });
   if (method !== 'GET' && method !== 'DELETE') req = req.send(rule.body?.(f) ?? {});
   return req;
 }
@@ -193,7 +316,8 @@ describe('the role matrix', () => {
         const before = await writes();
         const res = await call(role, route, f);
         const expected = rule.hiddenFrom?.includes(role) ? 404 : 403;
-        if (res.status !== expected) refused.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+        if (res.status !== expected)
+          refused.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
         if ((await writes()) !== before) refused.push(`${route} as ${role}: wrote an audit event`);
       }
     }
@@ -206,7 +330,11 @@ describe('the role matrix', () => {
     for (const [route, rule] of Object.entries(RULES)) {
       for (const role of rule.may) {
         // Reads change nothing and share one set of objects; each write gets its own.
-        const res = await call(role, route, route.startsWith('GET') && !rule.payApp ? shared : await fixture(rule.payApp));
+        const res = await call(
+          role,
+          route,
+          route.startsWith('GET') && !rule.payApp ? shared : await fixture(rule.payApp),
+        );
         const through = (res.status >= 200 && res.status < 300) || (rule.passes ?? []).includes(res.status);
         if (!through) stopped.push(`${route} as ${role}: ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
       }
@@ -222,12 +350,23 @@ describe('the role matrix', () => {
       if (Array.isArray(value)) return value.forEach((v, i) => scan(v, `${where}[${i}]`));
       if (!value || typeof value !== 'object') return;
       for (const [key, v] of Object.entries(value)) {
-        if (/password|hash|token|secret|storageKey|sessionId$|ipAddress|userAgent|idempotency/i.test(key) && key !== 'stripeCheckoutSessionId') leaks.push(`${where}.${key}`);
+        if (
+          /password|hash|token|secret|storageKey|sessionId$|ipAddress|userAgent|idempotency/i.test(key) &&
+          key !== 'stripeCheckoutSessionId'
+        )
+          leaks.push(`${where}.${key}`);
         scan(v, `${where}.${key}`);
       }
     };
     for (const [route, rule] of Object.entries(RULES)) {
-      if (!route.startsWith('GET') || route.endsWith('.pdf') || route.endsWith('.csv') || route.endsWith('/download') || route.endsWith('/pdf')) continue;
+      if (
+        !route.startsWith('GET') ||
+        route.endsWith('.pdf') ||
+        route.endsWith('.csv') ||
+        route.endsWith('/download') ||
+        route.endsWith('/pdf')
+      )
+        continue;
       for (const role of rule.may) {
         const res = await call(role, route, f);
         scan(res.body, `${route} as ${role}`);

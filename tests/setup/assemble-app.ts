@@ -7,6 +7,7 @@ import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { startSmtpSink, type SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import { startLocalPayments } from '../../server/integrations/payments/local-payments';
 import { memoryStorage, type Storage } from '../../server/integrations/storage/storage';
+import type { ComputePool } from '../../server/lib/compute/compute-pool';
 import { createLogger } from '../../server/lib/logger';
 import type { Standin } from '../../stripe-standin/src/index';
 import { fastPasswordHasher } from './fast-password';
@@ -22,21 +23,32 @@ type Options = {
   /** Where uploads go; memory storage unless given (a test of the folder layout passes localStorage). */
   storage?: Storage;
   clientDir?: string;
+  /** Worker threads for heavy calculations; the shared pool unless given (a test of the limits passes its own). */
+  compute?: ComputePool;
 };
 
-export type AssembledApp = { app: Express; auth: Auth; mailbox: SmtpSink; storage: Storage; standin: Standin; close: () => Promise<void> };
+export type AssembledApp = {
+  app: Express;
+  auth: Auth;
+  mailbox: SmtpSink;
+  storage: Storage;
+  standin: Standin;
+  close: () => Promise<void>;
+};
 
 /**
  * The real app with the test integrations: fast password hashing, memory storage, the local SMTP sink and the
  * Stripe stand-in. Shared by the in-process API tests and the browser tests' server.
  */
 export async function assembleTestApp(o: Options): Promise<AssembledApp> {
+  const logger = createLogger(process.env.TEST_LOG_LEVEL ?? 'silent');
   const auth = createAuth({
+    logger,
     db: o.database.db,
     secret: 'test-secret-test-secret-test-secret-0123',
     baseURL: o.baseURL,
     trustedOrigins: o.trustedOrigins,
-    production: false,
+    secureCookies: false,
     passwordHasher: fastPasswordHasher,
   });
   const storage = o.storage ?? memoryStorage();
@@ -50,13 +62,14 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
   const app = createApp({
     database: o.database,
     auth,
-    logger: createLogger(process.env.TEST_LOG_LEVEL ?? 'silent'),
+    logger,
     mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
     storage,
     mailbox,
     payments,
     appUrl: o.baseURL,
     clientDir: o.clientDir,
+    compute: o.compute,
   });
   const close = async () => {
     await standin.close();

@@ -5,6 +5,7 @@ import type { Database } from '../../server/db/client';
 import type { SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import type { Standin } from '../../stripe-standin/src/index';
 import type { Storage } from '../../server/integrations/storage/storage';
+import type { ComputePool } from '../../server/lib/compute/compute-pool';
 import { assembleTestApp } from './assemble-app';
 import { createTestDatabase } from './test-db';
 
@@ -23,17 +24,19 @@ export type TestApp = {
 };
 
 /** The real app on a fresh test database, driven in-process by supertest. */
-export async function createTestApp(options: { storage?: Storage } = {}): Promise<TestApp> {
+export async function createTestApp(options: { storage?: Storage; compute?: ComputePool } = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const target: { app?: Express } = {};
   const built = await assembleTestApp({
     database,
     baseURL: TEST_ORIGIN,
     trustedOrigins: [TEST_ORIGIN],
-    webhookTarget: async (payload, headers) => (await request(target.app!).post('/api/webhooks/stripe').set(headers).send(payload)).status,
+    webhookTarget: async (payload, headers) =>
+      (await request(target.app!).post('/api/webhooks/stripe').set(headers).send(payload)).status,
     achSettleMs: Number.POSITIVE_INFINITY,
     retryDelaysMs: [50, 200],
     storage: options.storage,
+    compute: options.compute,
   });
   const { app, auth, mailbox, storage, standin } = built;
   target.app = app;

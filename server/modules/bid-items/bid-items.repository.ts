@@ -1,7 +1,7 @@
-import { and, count, eq, inArray } from 'drizzle-orm';
+import { and, count, eq, inArray, isNotNull, min } from 'drizzle-orm';
 import type { BidItemInput, UpdateBidItemInput } from '../../../src/shared/schemas/bid-item';
 import type { Executor } from '../../db/client';
-import { bidItems, changeOrderItems, payAppLines, tallies } from '../../db/schema';
+import { bidItems, changeOrderItems, payAppLines, payApps, tallies } from '../../db/schema';
 import type { BidItemRow } from './bid-items.presenter';
 
 export async function listBidItems(db: Executor, projectId: string): Promise<BidItemRow[]> {
@@ -17,7 +17,11 @@ export async function findBidItem(db: Executor, bidItemId: string): Promise<BidI
 export async function referencesTo(db: Executor, bidItemId: string) {
   const counted = async (table: typeof tallies | typeof payAppLines | typeof changeOrderItems) =>
     (await db.select({ n: count() }).from(table).where(eq(table.bidItemId, bidItemId)))[0]!.n;
-  return { tallies: await counted(tallies), payAppLines: await counted(payAppLines), changeOrderItems: await counted(changeOrderItems) };
+  return {
+    tallies: await counted(tallies),
+    payAppLines: await counted(payAppLines),
+    changeOrderItems: await counted(changeOrderItems),
+  };
 }
 
 export async function existingItemNumbers(db: Executor, projectId: string, itemNumbers: string[]): Promise<string[]> {
@@ -37,7 +41,23 @@ export async function insertBidItems(db: Executor, projectId: string, items: Bid
     .returning();
 }
 
-export async function updateBidItem(db: Executor, bidItemId: string, input: UpdateBidItemInput): Promise<BidItemRow> {
+/**
+ * The contract is set up until the project's first pay application is submitted, and locked from then on: the
+ * number of that application, or null while it is still being set up.
+ */
+export async function contractLockedSince(db: Executor, projectId: string): Promise<number | null> {
+  const [row] = await db
+    .select({ n: min(payApps.number) })
+    .from(payApps)
+    .where(and(eq(payApps.projectId, projectId), isNotNull(payApps.submittedAt)));
+  return row?.n ?? null;
+}
+
+export async function updateBidItem(
+  db: Executor,
+  bidItemId: string,
+  input: Omit<UpdateBidItemInput, 'reason'>,
+): Promise<BidItemRow> {
   const [row] = await db.update(bidItems).set(input).where(eq(bidItems.id, bidItemId)).returning();
   return row!;
 }

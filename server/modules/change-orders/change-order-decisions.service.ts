@@ -1,4 +1,3 @@
-import { eq } from 'drizzle-orm';
 import type { BidItemInput } from '../../../src/shared/schemas/bid-item';
 import type { ChangeOrderView } from '../../../src/shared/schemas/change-order';
 import type { Db, Executor } from '../../db/client';
@@ -7,12 +6,16 @@ import type { Actor } from '../../lib/actor';
 import { conflict, forbidden } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { checkChangeOrderItems } from './change-order-checks';
+import { loadContract, type LoadedContract } from './contract-quantities.repository';
 import { decisionSides, isFullyApproved, type ApprovalSide } from './change-orders.policy';
 import * as repo from './change-orders.repository';
 import { loadChangeOrder, presentContext, viewOf } from './change-orders.service';
 
 const stale = () =>
-  conflict('CHANGE_ORDER_DECIDED', 'This change order was decided by someone else meanwhile; reload it to see its status.');
+  conflict(
+    'CHANGE_ORDER_DECIDED',
+    'This change order was decided by someone else meanwhile; reload it to see its status.',
+  );
 
 async function loadForDecision(db: Db, actor: Actor, id: string) {
   const loaded = await loadChangeOrder(db, actor, id);
@@ -28,20 +31,30 @@ async function loadForDecision(db: Db, actor: Actor, id: string) {
   return { ...loaded, sides };
 }
 
-/** Applies an approved change order to the bid schedule: adds items, changes unit prices. */
-async function applyChanges(tx: Executor, changeOrderId: string, projectId: string) {
+/**
+ * Applies an approved change order: creates the items it adds. Quantity and price changes are not written to the
+ * bid items, which keep their original figures; the current contract is derived from the approved change orders
+ * (loadContract). Returns what changed, for the audit event.
+ */
+async function applyChanges(tx: Executor, changeOrderId: string, projectId: string, contract: LoadedContract) {
   const items = await repo.itemsOf(tx, [changeOrderId]);
   const applied: unknown[] = [];
   for (const item of items) {
     if (item.kind === 'add_item') {
       const input = item.newItem as BidItemInput;
-      const [created] = await tx.insert(bidItems).values({ ...input, projectId, addedByChangeOrderId: changeOrderId }).returning();
+      const [created] = await tx
+        .insert(bidItems)
+        .values({ ...input, projectId, addedByChangeOrderId: changeOrderId })
+        .returning();
       await repo.setItemBidItem(tx, item.id, created!.id);
       applied.push({ kind: item.kind, bidItemId: created!.id, itemNumber: input.itemNumber });
     } else if (item.kind === 'change_price' && item.bidItemId && item.newUnitPriceCents !== null) {
-      const [before] = await tx.select().from(bidItems).where(eq(bidItems.id, item.bidItemId));
-      await tx.update(bidItems).set({ unitPriceCents: item.newUnitPriceCents }).where(eq(bidItems.id, item.bidItemId));
-      applied.push({ kind: item.kind, bidItemId: item.bidItemId, from: before?.unitPriceCents, to: item.newUnitPriceCents });
+      applied.push({
+        kind: item.kind,
+        bidItemId: item.bidItemId,
+        from: contract.byId.get(item.bidItemId)?.unitPriceCents,
+        to: item.newUnitPriceCents,
+      });
     } else {
       applied.push({ kind: item.kind, bidItemId: item.bidItemId, quantityDelta: item.quantityDelta });
     }
@@ -58,7 +71,10 @@ export async function approveChangeOrder(db: Db, actor: Actor, id: string, note:
   const side: ApprovalSide | undefined = sides.find((s) => (s === 'gc' ? !row.gcApprovedAt : !row.ownerApprovedAt));
   if (!side) throw conflict('CHANGE_ORDER_ALREADY_APPROVED', 'Your side has already approved this change order.');
   const now = new Date();
-  const mark = side === 'gc' ? { gcApprovedByUserId: actor.userId, gcApprovedAt: now } : { ownerApprovedByUserId: actor.userId, ownerApprovedAt: now };
+  const mark =
+    side === 'gc'
+      ? { gcApprovedByUserId: actor.userId, gcApprovedAt: now }
+      : { ownerApprovedByUserId: actor.userId, ownerApprovedAt: now };
   return db.transaction(async (tx) => {
     const marked = await repo.updateIfProposed(tx, id, mark, side);
     if (!marked) throw stale();
@@ -69,8 +85,9 @@ export async function approveChangeOrder(db: Db, actor: Actor, id: string, note:
       const ctx = await presentContext(tx, project, []);
       const items = (await repo.itemsOf(tx, [id])).map((i) => ({ ...i, newItem: i.newItem as BidItemInput | null }));
       checkChangeOrderItems(items, ctx.bidItems, ctx.quantities);
+      const contractBefore = await loadContract(tx, project.id);
       after = (await repo.updateIfProposed(tx, id, { status: 'approved', decidedAt: now, decisionNote: note }))!;
-      applied = await applyChanges(tx, id, project.id);
+      applied = await applyChanges(tx, id, project.id, contractBefore);
     }
     await recordAudit(tx, {
       projectId: project.id,
@@ -89,7 +106,11 @@ export async function approveChangeOrder(db: Db, actor: Actor, id: string, note:
 export async function rejectChangeOrder(db: Db, actor: Actor, id: string, note: string): Promise<ChangeOrderView> {
   const { row, project, sides } = await loadForDecision(db, actor, id);
   return db.transaction(async (tx) => {
-    const after = await repo.updateIfProposed(tx, id, { status: 'rejected', decidedAt: new Date(), decisionNote: note });
+    const after = await repo.updateIfProposed(tx, id, {
+      status: 'rejected',
+      decidedAt: new Date(),
+      decisionNote: note,
+    });
     if (!after) throw stale();
     await recordAudit(tx, {
       projectId: project.id,

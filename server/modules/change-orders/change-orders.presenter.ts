@@ -13,6 +13,8 @@ import type { ChangeOrderItemRow, ChangeOrderRow } from './change-orders.reposit
 export type PresentContext = {
   bidItems: Map<string, BidItemRow>;
   quantities: Map<string, ContractQuantityView>;
+  /** Current unit price of each bid item (original, or the last approved price change). */
+  prices: Map<string, number>;
   names: Map<string, string>;
   ownerApprovalRequired: boolean;
 };
@@ -21,12 +23,17 @@ function presentItem(row: ChangeOrderItemRow, ctx: PresentContext): ChangeOrderI
   const newItem = (row.newItem as BidItemInput | null) ?? null;
   const bidItem = row.bidItemId ? ctx.bidItems.get(row.bidItemId) : undefined;
   const quantity = row.bidItemId ? (ctx.quantities.get(row.bidItemId)?.currentContractQuantity ?? 0) : 0;
-  const unitPriceCents = bidItem?.unitPriceCents ?? newItem?.unitPriceCents ?? 0;
+  const unitPriceCents = (row.bidItemId ? ctx.prices.get(row.bidItemId) : undefined) ?? newItem?.unitPriceCents ?? 0;
   let amountDeltaCents = 0;
-  if (row.kind === 'add_item' && newItem) amountDeltaCents = lineAmountCents(newItem.contractQuantity, newItem.unitPriceCents);
-  if (row.kind === 'change_quantity' && row.quantityDelta !== null) amountDeltaCents = lineAmountCents(row.quantityDelta, unitPriceCents);
+  if (row.kind === 'add_item' && newItem)
+    amountDeltaCents = lineAmountCents(newItem.contractQuantity, newItem.unitPriceCents);
+  if (row.kind === 'change_quantity' && row.quantityDelta !== null)
+    amountDeltaCents = lineAmountCents(row.quantityDelta, unitPriceCents);
   if (row.kind === 'change_price' && row.newUnitPriceCents !== null) {
-    amountDeltaCents = sumCents([lineAmountCents(quantity, row.newUnitPriceCents), -lineAmountCents(quantity, unitPriceCents)]);
+    amountDeltaCents = sumCents([
+      lineAmountCents(quantity, row.newUnitPriceCents),
+      -lineAmountCents(quantity, unitPriceCents),
+    ]);
   }
   return {
     id: row.id,

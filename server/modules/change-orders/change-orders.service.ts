@@ -1,4 +1,8 @@
-import type { ChangeOrderView, ContractQuantityView, CreateChangeOrderInput } from '../../../src/shared/schemas/change-order';
+import type {
+  ChangeOrderView,
+  ContractQuantityView,
+  CreateChangeOrderInput,
+} from '../../../src/shared/schemas/change-order';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
@@ -11,17 +15,18 @@ import { checkChangeOrderItems } from './change-order-checks';
 import { presentChangeOrder, type PresentContext } from './change-orders.presenter';
 import { canProposeChangeOrder } from './change-orders.policy';
 import * as repo from './change-orders.repository';
-import { contractQuantities } from './contract-quantities.repository';
+import { contractQuantities, loadContract, quantitiesOf } from './contract-quantities.repository';
 
 export async function presentContext(db: Executor, project: ProjectRow, userIds: string[]): Promise<PresentContext> {
-  const [items, quantities, names] = await Promise.all([
+  const [items, contract, names] = await Promise.all([
     listBidItems(db, project.id),
-    contractQuantities(db, project.id),
+    loadContract(db, project.id),
     repo.userNames(db, userIds),
   ]);
   return {
     bidItems: new Map(items.map((i) => [i.id, i])),
-    quantities,
+    quantities: quantitiesOf(contract),
+    prices: new Map(contract.items.map((i) => [i.bidItemId, i.unitPriceCents])),
     names,
     ownerApprovalRequired: project.ownerApprovesChangeOrders,
   };
@@ -43,7 +48,10 @@ export async function listChangeOrders(db: Db, actor: Actor, projectId: string):
   const { project } = await loadProjectAccess(db, actor, projectId);
   const rows = await repo.listChangeOrders(db, projectId);
   const [items, history, ctx] = await Promise.all([
-    repo.itemsOf(db, rows.map((r) => r.id)),
+    repo.itemsOf(
+      db,
+      rows.map((r) => r.id),
+    ),
     listProjectAudit(db, projectId, { objectType: 'change_order', limit: 10_000, offset: 0 }),
     presentContext(db, project, peopleOf(rows)),
   ]);
@@ -95,7 +103,14 @@ export async function proposeChangeOrder(
       objectType: 'change_order',
       objectId: row.id,
       action,
-      after: { number: row.number, title: row.title, reason: row.reason, status: row.status, items: input.items, note: row.reason },
+      after: {
+        number: row.number,
+        title: row.title,
+        reason: row.reason,
+        status: row.status,
+        items: input.items,
+        note: row.reason,
+      },
     });
     return viewOf(tx, project, row);
   });

@@ -1,48 +1,95 @@
-import { and, eq } from 'drizzle-orm';
-import { addDecimals } from '../../../src/shared/domain/rounding';
+import { and, asc, eq } from 'drizzle-orm';
+import {
+  currentContract,
+  type ContractChangeInput,
+  type ContractItemResult,
+  type ContractResult,
+} from '../../../src/shared/domain/contract';
 import type { ContractQuantityView } from '../../../src/shared/schemas/change-order';
 import type { Executor } from '../../db/client';
 import { bidItems, changeOrderItems, changeOrders } from '../../db/schema';
 
+export type LoadedContract = ContractResult & { byId: Map<string, ContractItemResult> };
+
 /**
- * Contract quantity of each bid item of a project = original + approved changes, in the item's pay unit.
- * An item added by a change order has no original quantity: its whole quantity is an approved change.
- * For other modules (pay applications, variance): call this rather than reading bid_items.contract_quantity.
+ * The project's contract as it stands (src/shared/domain/contract.ts): bid items hold their original quantity
+ * and price; approved change orders apply in the order they were approved. An item added by a change order has
+ * no original quantity: its whole quantity is that change order's change. Every module reads the contract here
+ * rather than from bid_items.
  */
-export async function contractQuantities(db: Executor, projectId: string): Promise<Map<string, ContractQuantityView>> {
-  const [items, deltas] = await Promise.all([
-    db
-      .select({ id: bidItems.id, quantity: bidItems.contractQuantity, addedBy: bidItems.addedByChangeOrderId })
-      .from(bidItems)
-      .where(eq(bidItems.projectId, projectId)),
-    db
-      .select({ bidItemId: changeOrderItems.bidItemId, delta: changeOrderItems.quantityDelta })
-      .from(changeOrderItems)
-      .innerJoin(changeOrders, eq(changeOrders.id, changeOrderItems.changeOrderId))
-      .where(
-        and(
-          eq(changeOrders.projectId, projectId),
-          eq(changeOrders.status, 'approved'),
-          eq(changeOrderItems.kind, 'change_quantity'),
-        ),
-      ),
-  ]);
-  const result = new Map<string, ContractQuantityView>();
-  for (const item of items) {
-    const original = item.addedBy ? 0 : item.quantity;
-    const added = item.addedBy ? item.quantity : 0;
-    result.set(item.id, { bidItemId: item.id, originalQuantity: original, approvedChangeQuantity: added, currentContractQuantity: item.quantity });
-  }
-  for (const { bidItemId, delta } of deltas) {
-    const entry = bidItemId ? result.get(bidItemId) : undefined;
-    if (!entry || delta === null) continue;
-    entry.approvedChangeQuantity = addDecimals(entry.approvedChangeQuantity, delta);
-    entry.currentContractQuantity = addDecimals(entry.originalQuantity, entry.approvedChangeQuantity);
-  }
-  return result;
+export async function loadContract(db: Executor, projectId: string): Promise<LoadedContract> {
+  const items = await db
+    .select({
+      id: bidItems.id,
+      quantity: bidItems.contractQuantity,
+      price: bidItems.unitPriceCents,
+      addedBy: bidItems.addedByChangeOrderId,
+    })
+    .from(bidItems)
+    .where(eq(bidItems.projectId, projectId))
+    .orderBy(asc(bidItems.itemNumber));
+  const rows = await db
+    .select({
+      number: changeOrders.number,
+      changeOrderId: changeOrders.id,
+      kind: changeOrderItems.kind,
+      bidItemId: changeOrderItems.bidItemId,
+      delta: changeOrderItems.quantityDelta,
+      price: changeOrderItems.newUnitPriceCents,
+    })
+    .from(changeOrderItems)
+    .innerJoin(changeOrders, eq(changeOrders.id, changeOrderItems.changeOrderId))
+    .where(and(eq(changeOrders.projectId, projectId), eq(changeOrders.status, 'approved')))
+    .orderBy(
+      asc(changeOrders.decidedAt),
+      asc(changeOrders.number),
+      asc(changeOrderItems.createdAt),
+      asc(changeOrderItems.id),
+    );
+  const added = new Map(items.filter((i) => i.addedBy).map((i) => [i.id, i]));
+  const changes: ContractChangeInput[] = rows.flatMap((r): ContractChangeInput[] => {
+    if (!r.bidItemId) return [];
+    if (r.kind === 'add_item') {
+      const item = added.get(r.bidItemId);
+      return item
+        ? [
+            {
+              changeOrderNumber: r.number,
+              kind: 'change_quantity',
+              bidItemId: r.bidItemId,
+              quantityDelta: item.quantity,
+            },
+          ]
+        : [];
+    }
+    if (r.kind === 'change_quantity' && r.delta !== null)
+      return [{ changeOrderNumber: r.number, kind: r.kind, bidItemId: r.bidItemId, quantityDelta: r.delta }];
+    if (r.kind === 'change_price' && r.price !== null)
+      return [{ changeOrderNumber: r.number, kind: r.kind, bidItemId: r.bidItemId, newUnitPriceCents: r.price }];
+    return [];
+  });
+  const result = currentContract(
+    items.map((i) => ({ id: i.id, originalQuantity: i.addedBy ? 0 : i.quantity, originalUnitPriceCents: i.price })),
+    changes,
+  );
+  return { ...result, byId: new Map(result.items.map((i) => [i.bidItemId, i])) };
 }
 
-/** The current contract quantity of one bid item (see contractQuantities). */
-export async function currentContractQuantity(db: Executor, projectId: string, bidItemId: string): Promise<number | undefined> {
-  return (await contractQuantities(db, projectId)).get(bidItemId)?.currentContractQuantity;
+/** Original, approved change and current contract quantity of each bid item (see loadContract). */
+export async function contractQuantities(db: Executor, projectId: string): Promise<Map<string, ContractQuantityView>> {
+  return quantitiesOf(await loadContract(db, projectId));
+}
+
+export function quantitiesOf(contract: LoadedContract): Map<string, ContractQuantityView> {
+  return new Map(
+    contract.items.map((i) => [
+      i.bidItemId,
+      {
+        bidItemId: i.bidItemId,
+        originalQuantity: i.originalQuantity,
+        approvedChangeQuantity: i.approvedChangeQuantity,
+        currentContractQuantity: i.contractQuantity,
+      },
+    ]),
+  );
 }

@@ -6,16 +6,26 @@ import type { Executor } from '../../db/client';
 import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
 import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
 import type { ProjectRow } from '../projects/projects.repository';
 import * as repo from './pay-apps.repository';
 
-export type CreatePayAppArgs = { project: ProjectRow; userId: string; periodStart: string; periodEnd: string; isFinal?: boolean };
+export type CreatePayAppArgs = {
+  project: ProjectRow;
+  userId: string;
+  periodStart: string;
+  periodEnd: string;
+  isFinal?: boolean;
+};
 
 /** "Less previous certified" and each bid item's line on the latest certified application. */
 async function previousOf(tx: Executor, projectId: string, number: number) {
   const last = await repo.latestFrozen(tx, projectId);
   const lines = last ? await repo.listLines(tx, last.id) : [];
-  return { byItem: new Map(lines.map((l) => [l.bidItemId, l])), certified: await repo.previousCertifiedCents(tx, projectId, number) };
+  return {
+    byItem: new Map(lines.map((l) => [l.bidItemId, l])),
+    certified: await repo.previousCertifiedCents(tx, projectId, number),
+  };
 }
 
 /**
@@ -27,28 +37,53 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   const { project, userId, periodStart, periodEnd } = args;
   const open = await repo.openPayApps(tx, project.id);
   if (open.length > 0) {
-    throw new AppError(409, 'PAY_APP_OPEN', `Pay application ${open[0]!.number} is still ${open[0]!.status.replace('_', ' ')}; it must be certified before the next period is billed.`);
+    throw new AppError(
+      409,
+      'PAY_APP_OPEN',
+      `Pay application ${open[0]!.number} is still ${open[0]!.status.replace('_', ' ')}; it must be certified before the next period is billed.`,
+    );
   }
   const last = await repo.lastNumberAndPeriod(tx, project.id);
   if (last.periodEnd && periodStart <= last.periodEnd) {
-    throw new AppError(409, 'PERIOD_OVERLAP', `The period must start after ${last.periodEnd}, the end of the previous pay application.`, [{ path: 'periodStart', message: `Start after ${last.periodEnd}` }]);
+    throw new AppError(
+      409,
+      'PERIOD_OVERLAP',
+      `The period must start after ${last.periodEnd}, the end of the previous pay application.`,
+      [{ path: 'periodStart', message: `Start after ${last.periodEnd}` }],
+    );
   }
   const number = last.number + 1;
   const items = await repo.projectBidItems(tx, project.id);
+  const contract = await loadContract(tx, project.id);
   const billed = await repo.readyTallies(tx, project.id, periodStart, periodEnd);
   const thisPeriod = new Map<string, number>();
   for (const t of billed) thisPeriod.set(t.bidItemId, addDecimals(thisPeriod.get(t.bidItemId) ?? 0, t.quantity));
   const prev = await previousOf(tx, project.id, number);
-  const bases: PayAppLineInput[] = items.map((item) => ({
-    unitPriceCents: item.unitPriceCents,
-    contractQuantity: item.contractQuantity,
-    previousQuantity: prev.byItem.get(item.id)?.toDateQuantity ?? 0,
-    thisPeriodQuantity: thisPeriod.get(item.id) ?? 0,
-  }));
+  // Each line takes the contract as it stands now (current quantity and price, shared contract function); the
+  // previous amount is the one certified, so a price change applies only to quantities paid after it.
+  const bases: PayAppLineInput[] = items.map((item) => {
+    const current = contract.byId.get(item.id)!;
+    const previous = prev.byItem.get(item.id);
+    return {
+      unitPriceCents: current.unitPriceCents,
+      contractQuantity: current.contractQuantity,
+      previousQuantity: previous?.toDateQuantity ?? 0,
+      thisPeriodQuantity: thisPeriod.get(item.id) ?? 0,
+      previousAmountCents: previous?.amountToDateCents,
+    };
+  });
   const computed = compute(bases, project, prev.certified);
   const [app] = await tx
     .insert(payApps)
-    .values({ projectId: project.id, number, periodStart, periodEnd, isFinal: args.isFinal ?? false, createdByUserId: userId, ...totalsOf(computed) })
+    .values({
+      projectId: project.id,
+      number,
+      periodStart,
+      periodEnd,
+      isFinal: args.isFinal ?? false,
+      createdByUserId: userId,
+      ...totalsOf(computed),
+    })
     .returning();
   if (items.length > 0) {
     await tx.insert(payAppLines).values(
@@ -59,8 +94,8 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
         itemNumber: item.itemNumber,
         description: item.description,
         payUnit: item.payUnit,
-        unitPriceCents: item.unitPriceCents,
-        contractQuantity: item.contractQuantity,
+        unitPriceCents: bases[i]!.unitPriceCents,
+        contractQuantity: bases[i]!.contractQuantity,
         previousQuantity: bases[i]!.previousQuantity,
         thisPeriodQuantity: bases[i]!.thisPeriodQuantity,
         ...lineColumns(computed.lines[i]!),
@@ -69,10 +104,29 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   }
   if (billed.length > 0) {
     const ids = billed.map((t) => t.id);
-    const marked = await tx.update(tallies).set({ status: 'billed', payAppId: app!.id }).where(and(inArray(tallies.id, ids), eq(tallies.status, 'ready'))).returning({ id: tallies.id });
-    if (marked.length !== ids.length) throw new AppError(409, 'TALLY_CHANGED', 'A tally of the period changed while the pay application was compiled; try again.');
+    const marked = await tx
+      .update(tallies)
+      .set({ status: 'billed', payAppId: app!.id })
+      .where(and(inArray(tallies.id, ids), eq(tallies.status, 'ready')))
+      .returning({ id: tallies.id });
+    if (marked.length !== ids.length)
+      throw new AppError(
+        409,
+        'TALLY_CHANGED',
+        'A tally of the period changed while the pay application was compiled; try again.',
+      );
   }
-  await tx.insert(payAppStatusHistory).values({ payAppId: app!.id, fromStatus: null, toStatus: 'draft', revision: 0, note: `Compiled from ${billed.length} tally(ies)`, actorUserId: userId, createdAt: new Date() });
+  await tx
+    .insert(payAppStatusHistory)
+    .values({
+      payAppId: app!.id,
+      fromStatus: null,
+      toStatus: 'draft',
+      revision: 0,
+      note: `Compiled from ${billed.length} tally(ies)`,
+      actorUserId: userId,
+      createdAt: new Date(),
+    });
   await recordAudit(tx, {
     projectId: project.id,
     actorUserId: userId,
@@ -91,10 +145,21 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
 function compute(lines: PayAppLineInput[], project: ProjectRow, previousCertified: number[]) {
   const reduction =
     project.retainageReducedBps !== null && project.retainageReductionAtBps !== null
-      ? { afterPercentComplete: project.retainageReductionAtBps / 100, reducedPercent: project.retainageReducedBps / 100 }
+      ? {
+          afterPercentComplete: project.retainageReductionAtBps / 100,
+          reducedPercent: project.retainageReducedBps / 100,
+        }
       : undefined;
   const previousCertifiedCents = sumCents(previousCertified);
-  return { ...payApplication({ retainagePercent: project.retainageBps / 100, previousCertifiedCents, lines, retainageReduction: reduction }), previousCertifiedCents };
+  return {
+    ...payApplication({
+      retainagePercent: project.retainageBps / 100,
+      previousCertifiedCents,
+      lines,
+      retainageReduction: reduction,
+    }),
+    previousCertifiedCents,
+  };
 }
 
 const lineColumns = (l: PayAppResult['lines'][number]) => ({
@@ -117,7 +182,12 @@ export function totalsOf(c: PayAppResult & { previousCertifiedCents: number }) {
 }
 
 /** Recomputes every line of an application from its quantities (after a revision took counter quantities). */
-export async function recomputeLines(tx: Executor, project: ProjectRow, app: { id: string; number: number }, quantities: Map<string, number>) {
+export async function recomputeLines(
+  tx: Executor,
+  project: ProjectRow,
+  app: { id: string; number: number },
+  quantities: Map<string, number>,
+) {
   const lines = await repo.listLines(tx, app.id);
   const prev = await previousOf(tx, project.id, app.number);
   const bases: PayAppLineInput[] = lines.map((l) => ({
@@ -125,10 +195,14 @@ export async function recomputeLines(tx: Executor, project: ProjectRow, app: { i
     contractQuantity: l.contractQuantity,
     previousQuantity: l.previousQuantity,
     thisPeriodQuantity: quantities.get(l.id) ?? l.thisPeriodQuantity,
+    previousAmountCents: l.previousAmountCents,
   }));
   const computed = compute(bases, project, prev.certified);
   for (const [i, l] of lines.entries()) {
-    await tx.update(payAppLines).set({ thisPeriodQuantity: bases[i]!.thisPeriodQuantity, ...lineColumns(computed.lines[i]!) }).where(eq(payAppLines.id, l.id));
+    await tx
+      .update(payAppLines)
+      .set({ thisPeriodQuantity: bases[i]!.thisPeriodQuantity, ...lineColumns(computed.lines[i]!) })
+      .where(eq(payAppLines.id, l.id));
   }
   return totalsOf(computed);
 }

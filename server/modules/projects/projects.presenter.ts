@@ -8,9 +8,19 @@ import type {
 } from '../../../src/shared/schemas/project';
 import type { ProjectRow } from './projects.repository';
 
-export type ProjectTotals = { contractSumCents: number; bidItemCount: number };
+export type ProjectTotals = {
+  originalContractSumCents: number;
+  approvedChangesCents: number;
+  contractSumCents: number;
+  contractLocked: boolean;
+  bidItemCount: number;
+};
 
-export function presentProjectSummary(row: ProjectRow, myRoles: AccessRole[], totals: ProjectTotals): ProjectSummaryView {
+export function presentProjectSummary(
+  row: ProjectRow,
+  myRoles: AccessRole[],
+  totals: ProjectTotals,
+): ProjectSummaryView {
   return {
     id: row.id,
     name: row.name,

@@ -2,7 +2,7 @@ import { and, desc, eq, inArray, or } from 'drizzle-orm';
 import type { ProjectRole } from '../../../src/shared/constants';
 import type { Executor } from '../../db/client';
 import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
-import { bidItems, companies, companyMembers, payApps, projectMembers, projects, user } from '../../db/schema';
+import { companies, companyMembers, payApps, projectMembers, projects, user } from '../../db/schema';
 
 export type ProjectRow = typeof projects.$inferSelect;
 
@@ -48,19 +48,6 @@ export async function rolesByProject(db: Executor, userId: string, projectIds: s
     .where(and(eq(projectMembers.userId, userId), inArray(projectMembers.projectId, projectIds)));
 }
 
-/** Quantity and price of every bid item of these projects, for contract sums computed with the money helpers. */
-export async function bidItemPrices(db: Executor, projectIds: string[]) {
-  if (projectIds.length === 0) return [];
-  return db
-    .select({
-      projectId: bidItems.projectId,
-      contractQuantity: bidItems.contractQuantity,
-      unitPriceCents: bidItems.unitPriceCents,
-    })
-    .from(bidItems)
-    .where(inArray(bidItems.projectId, projectIds));
-}
-
 export async function findCompanies(db: Executor, ids: string[]) {
   if (ids.length === 0) return [];
   return db.select().from(companies).where(inArray(companies.id, ids));
@@ -86,7 +73,12 @@ export async function listMembers(db: Executor, projectId: string) {
 /** Certified (frozen) pay applications of a project, newest first: their earned, retainage and paid cents. */
 export async function certifiedPayApps(db: Executor, projectId: string) {
   return db
-    .select({ number: payApps.number, earnedToDateCents: payApps.earnedToDateCents, retainageCents: payApps.retainageCents, paidCents: payApps.paidCents })
+    .select({
+      number: payApps.number,
+      earnedToDateCents: payApps.earnedToDateCents,
+      retainageCents: payApps.retainageCents,
+      paidCents: payApps.paidCents,
+    })
     .from(payApps)
     .where(and(eq(payApps.projectId, projectId), inArray(payApps.status, [...FROZEN_STATUSES])))
     .orderBy(desc(payApps.number));

@@ -1,5 +1,5 @@
 import type { ProjectRole } from '../../../src/shared/constants';
-import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
+import { sumCents } from '../../../src/shared/domain/money';
 import {
   PROJECT_DEFAULTS,
   type CreateProjectInput,
@@ -12,26 +12,36 @@ import { projectMembers, projects } from '../../db/schema';
 import type { Actor } from '../../lib/actor';
 import { forbidden, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
+import { contractLockedSince } from '../bid-items/bid-items.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
 import { eq } from 'drizzle-orm';
 import { loadProjectAccess } from './project-access';
 import { accessRoles, canCreateProject, canManageContract } from './projects.policy';
-import { presentCompany, presentProject, presentProjectSummary, presentSettings, type ProjectTotals } from './projects.presenter';
+import {
+  presentCompany,
+  presentProject,
+  presentProjectSummary,
+  presentSettings,
+  type ProjectTotals,
+} from './projects.presenter';
 import * as repo from './projects.repository';
 
+/** Original, approved changes and current contract sum of each project (the shared contract function). */
 async function totalsFor(db: Executor, projectIds: string[]): Promise<Map<string, ProjectTotals>> {
-  const rows = await repo.bidItemPrices(db, projectIds);
-  const byProject = new Map<string, number[]>();
-  for (const r of rows) {
-    const list = byProject.get(r.projectId) ?? [];
-    list.push(lineAmountCents(r.contractQuantity, r.unitPriceCents));
-    byProject.set(r.projectId, list);
+  const totals = new Map<string, ProjectTotals>();
+  // Sequential on purpose: inside a transaction the queries share one connection.
+  for (const id of projectIds) {
+    const contract = await loadContract(db, id);
+    const lockedSince = await contractLockedSince(db, id);
+    totals.set(id, {
+      originalContractSumCents: contract.originalContractSumCents,
+      approvedChangesCents: contract.approvedChangesCents,
+      contractSumCents: contract.contractSumCents,
+      contractLocked: lockedSince !== null,
+      bidItemCount: contract.items.length,
+    });
   }
-  return new Map(
-    projectIds.map((id) => {
-      const amounts = byProject.get(id) ?? [];
-      return [id, { contractSumCents: sumCents(amounts), bidItemCount: amounts.length }];
-    }),
-  );
+  return totals;
 }
 
 export async function listProjects(db: Db, actor: Actor): Promise<ProjectSummaryView[]> {

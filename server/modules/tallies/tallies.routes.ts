@@ -21,14 +21,14 @@ export function talliesRouter(ctx: AppContext): Router {
   });
   router.post('/projects/:projectId/tallies', async (req, res) => {
     const input = createTallySchema.parse(req.body);
-    res.status(201).json({ tally: await service.createTally(db, getActor(res), req.params.projectId, input) });
+    res.status(201).json({ tally: await service.createTally(db, getActor(res), req.params.projectId, input, ctx.compute) });
   });
   router.get('/tallies/:tallyId', async (req, res) => {
     res.json(await service.getTally(db, getActor(res), req.params.tallyId));
   });
   router.patch('/tallies/:tallyId', async (req, res) => {
     const patch = updateTallySchema.parse(req.body);
-    res.json({ tally: await service.updateTally(db, getActor(res), req.params.tallyId, patch) });
+    res.json({ tally: await service.updateTally(db, getActor(res), req.params.tallyId, patch, ctx.compute) });
   });
   router.post('/tallies/:tallyId/ready', async (req, res) => {
     res.json({ tally: await service.markReady(db, getActor(res), req.params.tallyId) });

@@ -6,6 +6,7 @@ import {
 } from '../../../src/shared/schemas/tally';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { AppError, validationFailed } from '../../lib/app-error';
 import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
@@ -74,10 +75,11 @@ async function computedColumns(
   db: Executor,
   project: ProjectRow,
   input: CreateTallyInput,
+  compute?: ComputePool,
   tallyId: string | null = null,
 ) {
   const item = await itemOnProject(db, project, input.bidItemId);
-  const result = computeTally(input, item, project);
+  const result = await computeTally(input, item, project, compute);
   const sanityReason = await sanityReasonFor(db, item, result.quantity, tallyId, input.sanityReason);
   return {
     sanityReason,
@@ -100,9 +102,9 @@ async function computedColumns(
   };
 }
 
-export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput) {
+export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput, compute?: ComputePool) {
   const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
-  const columns = await computedColumns(db, project, input);
+  const columns = await computedColumns(db, project, input, compute);
   const id = await db.transaction(async (tx) => {
     const row = await repo.insertTally(tx, { ...columns, projectId, authorUserId: actor.userId });
     await audit(tx, actor, projectId, row.id, 'tally.created', undefined, { ...columns, result: undefined });
@@ -122,7 +124,7 @@ function splitInputs(inputs: Record<string, unknown> | null) {
   return { inputs: rest as Record<string, unknown>, component, measuredBasis, density };
 }
 
-export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput) {
+export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput, compute?: ComputePool) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
   const t = row.tally;
@@ -137,7 +139,7 @@ export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: 
     ...patch,
   };
   // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
-  const columns = await computedColumns(db, project, createTallySchema.parse(merged), tallyId);
+  const columns = await computedColumns(db, project, createTallySchema.parse(merged), compute, tallyId);
   await db.transaction(async (tx) => {
     // The state being replaced is kept as a revision (same transaction: no edit without its history).
     await repo.insertRevision(tx, t, actor.userId);

@@ -3,6 +3,7 @@ import { billedQuantity } from '../../../src/shared/domain/billed-quantity';
 import { isDomainError } from '../../../src/shared/domain/domain-error';
 import type { CreateTallyInput, TallyResult } from '../../../src/shared/schemas/tally';
 import { AppError } from '../../lib/app-error';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { runWorksheet } from './worksheet-engine';
 
 export type PayItem = { itemNumber: string; payUnit: PayUnit; basis: MeasurementBasis };
@@ -17,8 +18,8 @@ type TallyQuantityInput = Pick<
  * The tally's quantity in the bid item's pay unit and basis, computed on the server with the same pure function
  * the worksheet preview uses (src/shared/domain/billed-quantity.ts); the client's number is never taken.
  */
-export function computeTally(input: TallyQuantityInput, item: PayItem, f: MaterialFactors): TallyResult {
-  const engine = input.method === 'manual' ? null : runWorksheet(input.method, input.inputs ?? {});
+export async function computeTally(input: TallyQuantityInput, item: PayItem, f: MaterialFactors, compute?: ComputePool): Promise<TallyResult> {
+  const engine = input.method === 'manual' ? null : await runWorksheet(input.method, input.inputs ?? {}, compute);
   try {
     const bill = billedQuantity(input.method, input.inputs ?? null, engine, item, f, {
       component: input.component,

@@ -1,11 +1,10 @@
 import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
-import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
 import { VARIANCE_BANDS, EARLY_WARNING_SHARE, isMajorItem } from '../../../src/shared/domain/variance';
 import type { VarianceRowView, VarianceView } from '../../../src/shared/schemas/variance';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { listBidItems } from '../bid-items/bid-items.repository';
-import { contractQuantities } from '../change-orders/contract-quantities.repository';
+import { loadContract, quantitiesOf } from '../change-orders/contract-quantities.repository';
 import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import * as repo from './variance.repository';
@@ -15,31 +14,50 @@ import { watchRow } from './variance-row';
 const PENDING_STATUSES = ['submitted', 'in_review', 'returned'] as const;
 
 export function clauseName(project: ProjectRow): string {
-  return project.variationPreset === 'custom' ? 'the contract’s own band' : VARIANCE_BANDS[project.variationPreset].source;
+  return project.variationPreset === 'custom'
+    ? 'the contract’s own band'
+    : VARIANCE_BANDS[project.variationPreset].source;
 }
 
 /** Every bid item of a project against its variation band. */
-export async function watchRows(db: Executor, project: ProjectRow): Promise<{ rows: VarianceRowView[]; originalContractAmountCents: number }> {
-  const [items, quantities, approved, pending, forecasts, open] = await Promise.all([
+export async function watchRows(
+  db: Executor,
+  project: ProjectRow,
+): Promise<{ rows: VarianceRowView[]; originalContractAmountCents: number }> {
+  const [items, contract, approved, pending, forecasts, open] = await Promise.all([
     listBidItems(db, project.id),
-    contractQuantities(db, project.id),
+    loadContract(db, project.id),
     repo.quantitiesByStatus(db, project.id, FROZEN_STATUSES),
     repo.quantitiesByStatus(db, project.id, PENDING_STATUSES),
     repo.listForecasts(db, project.id),
     repo.openQuantityChangeOrders(db, project.id),
   ]);
-  const originalAmount = (id: string, price: number) => lineAmountCents(quantities.get(id)?.originalQuantity ?? 0, price);
-  const originalContractAmountCents = sumCents(items.map((i) => originalAmount(i.id, i.unitPriceCents)));
-  const clause = { preset: project.variationPreset, custom: { overPercent: project.bandOverBps / 100, underPercent: project.bandUnderBps / 100 } };
+  const quantities = quantitiesOf(contract);
+  const originalAmount = (id: string) => contract.byId.get(id)?.originalAmountCents ?? 0;
+  const originalContractAmountCents = contract.originalContractSumCents;
+  const clause = {
+    preset: project.variationPreset,
+    custom: { overPercent: project.bandOverBps / 100, underPercent: project.bandUnderBps / 100 },
+  };
   const rows = items.map((item) => {
     const forecast = forecasts.find((f) => f.bidItemId === item.id);
+    // Priced at the current unit price (original, or the last approved price change).
     return watchRow(clause, {
-      item,
+      item: { ...item, unitPriceCents: contract.byId.get(item.id)!.unitPriceCents },
       quantity: quantities.get(item.id)!,
-      isMajor: item.isMajor || isMajorItem(originalAmount(item.id, item.unitPriceCents), originalContractAmountCents, project.majorItemThresholdBps / 100),
+      isMajor:
+        item.isMajor ||
+        isMajorItem(originalAmount(item.id), originalContractAmountCents, project.majorItemThresholdBps / 100),
       approvedToDate: approved.get(item.id) ?? 0,
       pending: pending.get(item.id) ?? 0,
-      forecast: forecast ? { quantity: forecast.quantity, note: forecast.note, updatedAt: forecast.updatedAt.toISOString(), updatedBy: forecast.updatedBy } : null,
+      forecast: forecast
+        ? {
+            quantity: forecast.quantity,
+            note: forecast.note,
+            updatedAt: forecast.updatedAt.toISOString(),
+            updatedBy: forecast.updatedBy,
+          }
+        : null,
       openChangeOrder: open.get(item.id) ?? null,
     });
   });
@@ -48,7 +66,10 @@ export async function watchRows(db: Executor, project: ProjectRow): Promise<{ ro
 
 export async function projectVariance(db: Db, actor: Actor, projectId: string): Promise<VarianceView> {
   const { project } = await loadProjectAccess(db, actor, projectId);
-  const [{ rows, originalContractAmountCents }, periods] = await Promise.all([watchRows(db, project), repo.earnedPeriods(db, projectId)]);
+  const [{ rows, originalContractAmountCents }, periods] = await Promise.all([
+    watchRows(db, project),
+    repo.earnedPeriods(db, projectId),
+  ]);
   return {
     preset: project.variationPreset,
     clause: clauseName(project),
@@ -58,4 +79,3 @@ export async function projectVariance(db: Db, actor: Actor, projectId: string): 
     periods,
   };
 }
-

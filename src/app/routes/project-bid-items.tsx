@@ -15,7 +15,12 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Bid schedule · Tallyard`}</title>
-      <BidSchedule projectId={projectId} units={project.units} canEdit={canEditBidSchedule(project)} />
+      <BidSchedule
+        projectId={projectId}
+        units={project.units}
+        canEdit={canEditBidSchedule(project)}
+        canPropose={project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor')}
+      />
     </>
   );
 }

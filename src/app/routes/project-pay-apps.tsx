@@ -13,7 +13,8 @@ export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
   const roles = project.myRoles;
-  const isOwnerOnly = roles.includes('owner') && !roles.some((r) => r === 'subcontractor' || r === 'general_contractor' || r === 'admin');
+  const isOwnerOnly =
+    roles.includes('owner') && !roles.some((r) => r === 'subcontractor' || r === 'general_contractor' || r === 'admin');
   return (
     <>
       <title>{`${project.name} · Pay apps · Tallyard`}</title>

@@ -2,6 +2,9 @@ import { DomainError, assertFinite, assertNonNegative } from './domain-error';
 import { fmt, type Trail } from './earthwork/trail';
 import { lineAmountCents, percentOfCents, subtractCents, sumCents, type Cents } from './money';
 import { addExact, decimalOf, pow10 } from './decimal';
+import { roundTo } from './rounding';
+
+const roundHalfAwayFromZero = (value: number) => roundTo(value, 0);
 
 export interface PayAppLineInput {
   unitPriceCents: Cents;
@@ -9,6 +12,12 @@ export interface PayAppLineInput {
   previousQuantity: number;
   /** May be negative to correct an earlier period, as long as the to-date quantity stays at or above 0. */
   thisPeriodQuantity: number;
+  /**
+   * Amount to date on the previous certified application, as certified (cents). Given, it stands as the previous
+   * amount whatever today's unit price is: a price change applies only to quantities paid after it. Absent, the
+   * previous amount is previous quantity x unit price.
+   */
+  previousAmountCents?: Cents;
 }
 
 export interface PayAppInput {
@@ -56,6 +65,9 @@ function checkLine(line: PayAppLineInput, i: number): void {
   assertNonNegative(line.contractQuantity, ['lines', i, 'contractQuantity']);
   assertNonNegative(line.previousQuantity, ['lines', i, 'previousQuantity']);
   assertFinite(line.thisPeriodQuantity, ['lines', i, 'thisPeriodQuantity']);
+  if (line.previousAmountCents !== undefined && !Number.isSafeInteger(line.previousAmountCents)) {
+    throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['lines', i, 'previousAmountCents']);
+  }
   if (line.previousQuantity + line.thisPeriodQuantity < 0) {
     throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', [
       'lines',
@@ -95,11 +107,21 @@ export function payApplication(input: PayAppInput): PayAppResult {
   const priced = input.lines.map((l, i) => {
     // Exact decimal sum (1.00005 + 0 stays 1.00005): the quantity is priced as given, rounded once to the cent.
     const toDateQuantity = addExact(l.previousQuantity, l.thisPeriodQuantity);
+    const previousAtPrice = lineAmountCents(l.previousQuantity, l.unitPriceCents, ['lines', i, 'previousQuantity']);
+    const toDateAtPrice = lineAmountCents(toDateQuantity, l.unitPriceCents, ['lines', i, 'thisPeriodQuantity']);
+    const previousAmountCents = l.previousAmountCents ?? previousAtPrice;
+    // This period at today's price = to date at today's price - previous at today's price (each rounded once),
+    // so with an unchanged price the amount to date is the to-date quantity x price rounded once. A correction
+    // (negative quantity) after a price change is taken back at the average price it was paid at.
+    const takenBack = previousAmountCents !== previousAtPrice && l.thisPeriodQuantity < 0 && l.previousQuantity > 0;
+    const amountToDateCents = takenBack
+      ? roundHalfAwayFromZero((previousAmountCents * toDateQuantity) / l.previousQuantity)
+      : sumCents([previousAmountCents, subtractCents(toDateAtPrice, previousAtPrice)]);
     return {
       toDateQuantity,
       contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents, ['lines', i, 'contractQuantity']),
-      previousAmountCents: lineAmountCents(l.previousQuantity, l.unitPriceCents, ['lines', i, 'previousQuantity']),
-      amountToDateCents: lineAmountCents(toDateQuantity, l.unitPriceCents, ['lines', i, 'thisPeriodQuantity']),
+      previousAmountCents,
+      amountToDateCents,
     };
   });
   const contractAmountCents = checkedSum(
@@ -144,7 +166,7 @@ export function payApplication(input: PayAppInput): PayAppResult {
   const currentDueCents = subtractCents(subtractCents(earnedToDateCents, retainageCents), input.previousCertifiedCents);
   const $ = (c: number) => `$${fmt(c / 100)}`;
   const trail: Trail = [
-    `${lines.length} lines: amount to date = (previous + this period) x unit price, rounded once to the cent per line`,
+    `${lines.length} lines: amount to date = previous amount as certified + this period at the current unit price (to date x price - previous x price, each rounded once to the cent)`,
     `Earned to date = sum of lines = ${$(earnedToDateCents)} of ${$(contractAmountCents)} contract${percentComplete === null ? '' : ` (${fmt(percentComplete, 2)} % complete)`}`,
     reduced
       ? `Retainage reduced to ${fmt(rate, 2)} % after ${fmt(reduction!.afterPercentComplete, 2)} % complete; per line, rounded once: ${$(retainageCents)}`

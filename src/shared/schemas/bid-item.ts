@@ -29,16 +29,44 @@ export const bidItemInputSchema = z
   .strict();
 export type BidItemInput = z.infer<typeof bidItemInputSchema>;
 
-export const updateBidItemSchema = bidItemInputSchema.partial().strict();
+/**
+ * A direct edit of a bid item. Once the contract is locked (its first pay application was submitted), only the
+ * description, the major-item flag and the measurement method may change, each with a reason.
+ */
+export const updateBidItemSchema = bidItemInputSchema
+  .partial()
+  .extend({ reason: z.string().trim().min(3, 'Say why it is corrected').max(2000).optional() })
+  .strict();
 export type UpdateBidItemInput = z.infer<typeof updateBidItemSchema>;
 
+/** Fields that change only through an approved change order once the contract is locked. */
+export const CONTRACT_FIELDS = ['itemNumber', 'payUnit', 'basis', 'unitPriceCents', 'contractQuantity'] as const;
+/** Fields that may still be corrected after the lock, with a reason. */
+export const CORRECTABLE_FIELDS = ['description', 'isMajor', 'method'] as const;
+
+/** `contractQuantity` and `unitPriceCents` are current (original + approved change orders, in order of approval). */
 export type BidItemView = BidItemInput & {
   id: string;
   projectId: string;
-  /** Contract amount = contract quantity x unit price, rounded to the cent once. */
+  originalQuantity: number;
+  originalUnitPriceCents: number;
+  /** Numbers of the approved change orders that touched the item (ascending). */
+  changeOrderNumbers: number[];
+  /** Original quantity x original unit price, rounded to the cent once. */
+  originalAmountCents: number;
+  /** Current contract quantity x current unit price, rounded to the cent once. */
   contractAmountCents: number;
   createdAt: string;
   updatedAt: string;
+};
+
+/** Whether the contract is locked and since which pay application. */
+export type ContractLockView = { locked: boolean; sincePayAppNumber: number | null };
+
+export type ContractSumsView = {
+  originalContractSumCents: number;
+  approvedChangesCents: number;
+  contractSumCents: number;
 };
 
 /** Column headers the bid schedule CSV import reads (first row), in this order in our template. */

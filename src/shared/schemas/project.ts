@@ -82,7 +82,14 @@ export type ProjectSummaryView = {
   contractNumber: string;
   units: (typeof UNIT_SYSTEMS)[number];
   myRoles: (typeof ACCESS_ROLES)[number][];
+  /** The bid schedule as set up, before any change order. */
+  originalContractSumCents: number;
+  /** Net of the approved change orders (current - original). */
+  approvedChangesCents: number;
+  /** The current contract sum: original + approved changes. */
   contractSumCents: number;
+  /** Whether the contract is locked (a pay application was submitted): it then changes by change order only. */
+  contractLocked: boolean;
   bidItemCount: number;
 };
 

@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { BidItemView } from '@/shared/schemas/bid-item';
+import type { BidItemView, ContractLockView, ContractSumsView } from '@/shared/schemas/bid-item';
 import { bidItemKeys } from './keys';
 
-export type BidSchedule = { bidItems: BidItemView[]; totals: { contractSumCents: number } };
+export type BidSchedule = { bidItems: BidItemView[]; totals: ContractSumsView; lock: ContractLockView };
 
 export function getBidItems(projectId: string): Promise<BidSchedule> {
   return api.get<BidSchedule>(`/api/projects/${encodeURIComponent(projectId)}/bid-items`);

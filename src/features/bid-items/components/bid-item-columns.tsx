@@ -1,5 +1,6 @@
 import { createColumnHelper } from '@tanstack/react-table';
-import { Pencil, Trash2 } from 'lucide-react';
+import { FilePlus2, Pencil, Trash2 } from 'lucide-react';
+import { Link } from 'react-router';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { formatMoney, formatQuantityNumber, isVolumeUnit, unitLabel } from '@/lib/format';
@@ -24,7 +25,22 @@ function UnitSuffix({ unit, per = false }: { unit: PayUnit; per?: boolean }) {
 /** Item numbers like "2", "10", "203-4" sort as people read them, not as plain text. */
 const naturalCompare = new Intl.Collator('en', { numeric: true, sensitivity: 'base' }).compare;
 
-export type RowActions = { onEdit: (item: BidItemView) => void; onDelete: (item: BidItemView) => void };
+/**
+ * Row commands: edit and delete while the contract is set up; once it is locked, a link to propose a change
+ * order for the item instead (`proposeHref`).
+ */
+export type RowActions =
+  | { locked?: false; onEdit: (item: BidItemView) => void; onDelete: (item: BidItemView) => void }
+  | { locked: true; proposeHref: (item: BidItemView) => string };
+
+/** "was 3,200 · CO 2, 3" under a current figure that approved change orders moved. */
+function WasLine({ was, numbers }: { was: string; numbers: number[] }) {
+  return (
+    <span className="block text-xs font-normal text-stone-500">
+      was {was} · CO {numbers.join(', ')}
+    </span>
+  );
+}
 
 export function bidItemColumns(actions: RowActions | undefined) {
   const columns = [
@@ -61,6 +77,12 @@ export function bidItemColumns(actions: RowActions | undefined) {
         <>
           {formatQuantityNumber(row.original.contractQuantity, row.original.payUnit)}
           <UnitSuffix unit={row.original.payUnit} />
+          {row.original.contractQuantity !== row.original.originalQuantity ? (
+            <WasLine
+              was={formatQuantityNumber(row.original.originalQuantity, row.original.payUnit)}
+              numbers={row.original.changeOrderNumbers}
+            />
+          ) : null}
         </>
       ),
     }),
@@ -72,6 +94,9 @@ export function bidItemColumns(actions: RowActions | undefined) {
         <>
           {formatMoney(row.original.unitPriceCents)}
           <UnitSuffix unit={row.original.payUnit} per />
+          {row.original.unitPriceCents !== row.original.originalUnitPriceCents ? (
+            <WasLine was={formatMoney(row.original.originalUnitPriceCents)} numbers={row.original.changeOrderNumbers} />
+          ) : null}
         </>
       ),
     }),
@@ -83,6 +108,27 @@ export function bidItemColumns(actions: RowActions | undefined) {
     }),
   ];
   if (!actions) return columns;
+  if (actions.locked) {
+    return [
+      ...columns,
+      column.display({
+        id: 'actions',
+        header: () => <span className="sr-only">Commands</span>,
+        cell: ({ row }) => (
+          <span className="flex justify-end">
+            <Link
+              to={actions.proposeHref(row.original)}
+              title="The contract is locked: propose a change order for this item"
+              aria-label={`Propose a change order for ${row.original.itemNumber}`}
+              className="inline-flex size-7 items-center justify-center rounded-md text-spruce-800 hover:bg-spruce-50"
+            >
+              <FilePlus2 aria-hidden className="size-4" />
+            </Link>
+          </span>
+        ),
+      }),
+    ];
+  }
   return [
     ...columns,
     column.display({

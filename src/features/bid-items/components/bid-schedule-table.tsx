@@ -17,12 +17,14 @@ import { SortHeader } from './sort-header';
 type BidScheduleTableProps = {
   items: readonly BidItemView[];
   contractSumCents: number;
+  /** Original and approved change order figures, shown above the current sum once change orders moved it. */
+  changes?: { originalContractSumCents: number; approvedChangesCents: number };
   filter: string;
   /** Edit and delete commands; omitted for people who only read the schedule. */
   actions?: RowActions;
 };
 
-export function BidScheduleTable({ items, contractSumCents, filter, actions }: BidScheduleTableProps) {
+export function BidScheduleTable({ items, contractSumCents, changes, filter, actions }: BidScheduleTableProps) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'itemNumber', desc: false }]);
   const columns = useMemo(() => bidItemColumns(actions), [actions]);
   const data = useMemo(() => [...items], [items]);
@@ -73,6 +75,7 @@ export function BidScheduleTable({ items, contractSumCents, filter, actions }: B
         shown={rows.map((row) => row.original)}
         totalCount={items.length}
         contractSumCents={contractSumCents}
+        changes={changes}
         columnCount={columns.length}
         trailingColumns={actions ? 1 : 0}
       />

@@ -7,6 +7,7 @@ type BidScheduleTotalsProps = {
   shown: readonly BidItemView[];
   totalCount: number;
   contractSumCents: number;
+  changes?: { originalContractSumCents: number; approvedChangesCents: number };
   columnCount: number;
   trailingColumns: number;
 };
@@ -19,6 +20,7 @@ export function BidScheduleTotals({
   shown,
   totalCount,
   contractSumCents,
+  changes,
   columnCount,
   trailingColumns,
 }: BidScheduleTotalsProps) {
@@ -35,9 +37,29 @@ export function BidScheduleTotals({
           {trailingColumns ? <TableCell colSpan={trailingColumns} /> : null}
         </tr>
       ) : null}
+      {changes && changes.approvedChangesCents !== 0 ? (
+        <>
+          <tr className="text-stone-700">
+            <TableCell colSpan={labelSpan}>Original contract sum</TableCell>
+            <TableCell className="num" data-testid="original-contract-sum">
+              {formatMoney(changes.originalContractSumCents)}
+            </TableCell>
+            {trailingColumns ? <TableCell colSpan={trailingColumns} /> : null}
+          </tr>
+          <tr className="text-stone-700">
+            <TableCell colSpan={labelSpan}>Approved change orders</TableCell>
+            <TableCell className="num" data-testid="approved-changes">
+              {changes.approvedChangesCents > 0 ? '+' : ''}
+              {formatMoney(changes.approvedChangesCents)}
+            </TableCell>
+            {trailingColumns ? <TableCell colSpan={trailingColumns} /> : null}
+          </tr>
+        </>
+      ) : null}
       <tr>
         <TableCell colSpan={labelSpan}>
-          Contract sum · {totalCount} {totalCount === 1 ? 'item' : 'items'}
+          {changes && changes.approvedChangesCents !== 0 ? 'Current contract sum' : 'Contract sum'} · {totalCount}{' '}
+          {totalCount === 1 ? 'item' : 'items'}
         </TableCell>
         <TableCell className="num" data-testid="contract-sum">
           {formatMoney(contractSumCents)}

@@ -1,6 +1,6 @@
 import { Plus } from 'lucide-react';
 import { useState } from 'react';
-import { Link, useNavigate } from 'react-router';
+import { Link, useNavigate, useSearchParams } from 'react-router';
 import { toast } from 'sonner';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -17,15 +17,24 @@ type Props = { projectId: string; canPropose: boolean; ownerApproves: boolean };
 /** The Change orders tab: every change order of the job, newest first, and the propose command. */
 export function ChangeOrderList({ projectId, canPropose, ownerApproves }: Props) {
   const list = useChangeOrders(projectId);
-  const [proposing, setProposing] = useState(false);
+  // ?propose=<bid item id> (or =new) arrives from the locked bid schedule: open the form for that item.
+  const [params, setParams] = useSearchParams();
+  const asked = canPropose ? params.get('propose') : null;
+  const [proposing, setProposing] = useState(asked !== null);
+  const [forItem] = useState(asked && asked !== 'new' ? asked : undefined);
   const navigate = useNavigate();
+  const close = () => {
+    setProposing(false);
+    if (params.has('propose')) setParams({}, { replace: true });
+  };
   if (list.isPending) return <LoadingState label="Loading change orders…" />;
   if (list.isError) return <ErrorState error={list.error} onRetry={() => void list.refetch()} />;
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="max-w-2xl text-stone-600">
-          Added bid items and changed quantities or unit prices. The contract quantity of an item is its original quantity plus its approved changes.
+          Added bid items and changed quantities or unit prices. The contract quantity of an item is its original
+          quantity plus its approved changes.
           {ownerApproves ? ' On this job the owner approves change orders too.' : ''}
         </p>
         {canPropose ? (
@@ -53,25 +62,37 @@ export function ChangeOrderList({ projectId, canPropose, ownerApproves }: Props)
               <TableRow key={co.id}>
                 <TableCell className="num">{co.number}</TableCell>
                 <TableCell>
-                  <Link to={co.id} className="text-spruce-800 font-medium underline-offset-2 hover:underline">{co.title}</Link>
+                  <Link to={co.id} className="font-medium text-spruce-800 underline-offset-2 hover:underline">
+                    {co.title}
+                  </Link>
                 </TableCell>
                 <TableCell className="text-stone-700">{co.items.map((i) => i.itemNumber).join(', ')}</TableCell>
                 <TableCell className="num">{formatMoney(co.amountDeltaCents)}</TableCell>
-                <TableCell><Badge tone={STATUS_BADGES[co.status].tone}>{STATUS_BADGES[co.status].label}</Badge></TableCell>
-                <TableCell className="text-stone-700">{co.proposedBy.name} · {formatDate(co.createdAt)}</TableCell>
+                <TableCell>
+                  <Badge tone={STATUS_BADGES[co.status].tone}>{STATUS_BADGES[co.status].label}</Badge>
+                </TableCell>
+                <TableCell className="text-stone-700">
+                  {co.proposedBy.name} · {formatDate(co.createdAt)}
+                </TableCell>
               </TableRow>
             ))}
           </TableBody>
         </Table>
       )}
-      <Dialog open={proposing} onClose={() => setProposing(false)} title="Propose a change order" className="w-[min(44rem,calc(100vw-2rem))]">
+      <Dialog
+        open={proposing}
+        onClose={close}
+        title="Propose a change order"
+        className="w-[min(44rem,calc(100vw-2rem))]"
+      >
         <ProposeForm
           projectId={projectId}
-          onCancel={() => setProposing(false)}
+          bidItemId={forItem}
+          onCancel={close}
           onProposed={(co) => {
             toast.success(`Proposed change order ${co.number}`);
             setProposing(false);
-            void navigate(co.id);
+            void navigate(`/projects/${encodeURIComponent(projectId)}/change-orders/${co.id}`);
           }}
         />
       </Dialog>

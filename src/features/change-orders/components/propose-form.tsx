@@ -12,17 +12,17 @@ import { useProposeChangeOrder, useScheduleItems } from '../api/change-orders';
 import { ChangeItemFields } from './change-item-fields';
 import { blankItem, proposeFormSchema, type ProposeFormOutput, type ProposeFormValues } from './propose-form-schema';
 
-type Props = { projectId: string; onProposed: (co: ChangeOrderView) => void; onCancel: () => void };
+type Props = { projectId: string; bidItemId?: string; onProposed: (co: ChangeOrderView) => void; onCancel: () => void };
 
 /** Title, reason and one or more changes; the server checks the schedule (no quantity below zero). */
-export function ProposeForm({ projectId, onProposed, onCancel }: Props) {
+export function ProposeForm({ projectId, bidItemId, onProposed, onCancel }: Props) {
   const items = useScheduleItems(projectId);
   const propose = useProposeChangeOrder(projectId);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<ProposeFormValues, unknown, ProposeFormOutput>({
     resolver: zodResolver(proposeFormSchema),
     mode: 'onTouched',
-    defaultValues: { title: '', reason: '', items: [blankItem()] },
+    defaultValues: { title: '', reason: '', items: [blankItem('change_quantity', bidItemId)] },
   });
   const changes = useFieldArray({ control: form.control, name: 'items' });
   const { errors, isSubmitting } = form.formState;
@@ -39,10 +39,23 @@ export function ProposeForm({ projectId, onProposed, onCancel }: Props) {
   return (
     <form noValidate onSubmit={submit} aria-label="Propose a change order" className="flex flex-col gap-3">
       <Field label="Title" error={errors.title?.message}>
-        {(c) => <Input autoFocus placeholder="e.g. Extra unsuitable below the east pad" {...c} {...form.register('title')} />}
+        {(c) => (
+          <Input autoFocus placeholder="e.g. Extra unsuitable below the east pad" {...c} {...form.register('title')} />
+        )}
       </Field>
-      <Field label="Reason" error={errors.reason?.message} hint="What happened in the field, and where it is documented">
-        {(c) => <textarea rows={2} className="rounded-md border border-stone-300 px-2.5 py-1.5 text-sm" {...c} {...form.register('reason')} />}
+      <Field
+        label="Reason"
+        error={errors.reason?.message}
+        hint="What happened in the field, and where it is documented"
+      >
+        {(c) => (
+          <textarea
+            rows={2}
+            className="rounded-md border border-stone-300 px-2.5 py-1.5 text-sm"
+            {...c}
+            {...form.register('reason')}
+          />
+        )}
       </Field>
       {changes.fields.map((field, index) => (
         <ChangeItemFields
@@ -59,8 +72,12 @@ export function ProposeForm({ projectId, onProposed, onCancel }: Props) {
       </Button>
       {formError ? <Alert>{formError}</Alert> : null}
       <div className="flex justify-end gap-2 border-t border-stone-200 pt-3">
-        <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        <Button type="submit" disabled={isSubmitting}>{isSubmitting ? 'Proposing…' : 'Propose change order'}</Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Proposing…' : 'Propose change order'}
+        </Button>
       </div>
     </form>
   );

@@ -12,8 +12,26 @@ export function ProjectOverview({ project }: { project: ProjectView }) {
   return (
     <div className="flex flex-col gap-5">
       <dl className="grid grid-cols-2 gap-3 md:grid-cols-4">
-        <Stat label="Contract sum" value={formatMoney(project.contractSumCents)} note="Original bid schedule" />
-        <Stat label="Earned to date" value={formatMoney(project.money.earnedToDateCents)} note="Latest certified pay app" />
+        <Stat
+          label="Original contract sum"
+          value={formatMoney(project.originalContractSumCents)}
+          note="Bid schedule as set up"
+        />
+        <Stat
+          label="Approved change orders"
+          value={`${project.approvedChangesCents > 0 ? '+' : ''}${formatMoney(project.approvedChangesCents)}`}
+          note="Net of approved change orders"
+        />
+        <Stat
+          label="Current contract sum"
+          value={formatMoney(project.contractSumCents)}
+          note={project.contractLocked ? 'Locked: changes by change order only' : 'Contract being set up'}
+        />
+        <Stat
+          label="Earned to date"
+          value={formatMoney(project.money.earnedToDateCents)}
+          note="Latest certified pay app"
+        />
         <Stat label="Retainage held" value={formatMoney(project.money.retainageHeldCents)} note="Withheld to date" />
         <Stat label="Paid to date" value={formatMoney(project.money.paidToDateCents)} note="Settled payments" />
         <Stat label="Bid items" value={project.bidItemCount} />
