@@ -35,6 +35,12 @@ import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
 import { paymentsRouter, stripeWebhookRouter } from './modules/payments/payments.routes';
 import { lienWaiversRouter } from './modules/lien-waivers/lien-waivers.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
+import { haulTicketsRouter } from './modules/haul-tickets/haul-tickets.routes';
+import { measurementProfilesRouter } from './modules/measurement-profiles/measurement-profiles.routes';
+import { scaleTicketsRouter } from './modules/scale-tickets/scale-tickets.routes';
+import { forceAccountRouter } from './modules/force-account/force-account.routes';
+import { payAdjustmentsRouter } from './modules/pay-adjustments/pay-adjustments.routes';
+import { storedMaterialsRouter } from './modules/stored-materials/stored-materials.routes';
 import type { AppContext } from './app-context';
 
 export type AppDeps = {
@@ -138,6 +144,9 @@ export function createApp(deps: AppDeps): Express {
   );
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
   app.use('/api', paymentsRouter(ctx), lienWaiversRouter(ctx));
+  // Measurement and payment provisions (issue 15).
+  app.use('/api', measurementProfilesRouter(ctx), haulTicketsRouter(ctx), scaleTicketsRouter(ctx));
+  app.use('/api', forceAccountRouter(ctx), storedMaterialsRouter(ctx), payAdjustmentsRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

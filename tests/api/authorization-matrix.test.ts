@@ -5,6 +5,7 @@ import { auditEvents, changeOrders, disputes, invitations, payAppLines, tallyEvi
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { makeChangeOrder, makeDailySheet, makeStoredMaterial } from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 
@@ -70,6 +71,26 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/pay-apps/:payAppId/lien-waivers': 'project',
   'GET /api/projects/:projectId/lien-waivers': 'project',
   'GET /api/lien-waivers/:waiverId/pdf': 'project',
+  // Measurement and payment provisions (issue 15).
+  'GET /api/projects/:projectId/measurement-profiles': 'project',
+  'PUT /api/bid-items/:bidItemId/measurement-profile': 'project',
+  'GET /api/projects/:projectId/trucks': 'project',
+  'POST /api/projects/:projectId/trucks': 'project',
+  'GET /api/projects/:projectId/truck-tickets': 'project',
+  'POST /api/projects/:projectId/truck-tickets': 'project',
+  'POST /api/projects/:projectId/truck-tickets/import': 'project',
+  'GET /api/projects/:projectId/material-sources': 'project',
+  'POST /api/projects/:projectId/material-sources': 'project',
+  'GET /api/projects/:projectId/scale-tickets': 'project',
+  'POST /api/projects/:projectId/scale-tickets': 'project',
+  'GET /api/projects/:projectId/daily-sheets': 'project',
+  'POST /api/projects/:projectId/daily-sheets': 'project',
+  'POST /api/daily-sheets/:sheetId/sign': 'project',
+  'GET /api/projects/:projectId/stored-materials': 'project',
+  'POST /api/projects/:projectId/stored-materials': 'project',
+  'POST /api/stored-materials/:storedMaterialId/movements': 'project',
+  'GET /api/projects/:projectId/pay-adjustments': 'project',
+  'POST /api/projects/:projectId/pay-adjustments': 'project',
 };
 
 let t: TestApp;
@@ -106,6 +127,8 @@ beforeAll(async () => {
     token: 'not-a-token',
     method: 'grid',
     'change-orders/:id': co!.id,
+    sheetId: (await makeDailySheet(db, w.home.id, (await makeChangeOrder(db, w.home.id, gc)).id, gc)).id,
+    storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
     'invitations/:id': invitation!.id,
   };
 });

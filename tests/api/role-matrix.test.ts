@@ -6,6 +6,7 @@ import { auditEvents, changeOrders, disputes, invitations, payAppLines } from '.
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { FILES, makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { makeChangeOrder, makeDailySheet, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { eq } from 'drizzle-orm';
@@ -21,6 +22,9 @@ const ROLES: Role[] = ['subcontractor', 'general_contractor', 'owner', 'admin'];
 const ALL = ROLES;
 const CONTRACT: Role[] = ['general_contractor', 'admin'];
 const SUB: Role[] = ['subcontractor'];
+const FIELD: Role[] = ['subcontractor', 'general_contractor'];
+const TRUCK_TICKET = { deliveredOn: '2026-05-04', truckLabel: 'T-12', material: 'Select borrow', source: 'Hollis pit', loadedAt: 'Face 2', deliveredTo: 'Sta 14+00', loadCheckerInitials: 'RB', deliveryCheckerInitials: 'MK' };
+const TRUCK_TICKET_CSV = 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
 
 type Fixture = {
   projectId: string;
@@ -35,6 +39,12 @@ type Fixture = {
   waiverId: string;
   method: string;
   token: string;
+  truckItemId: string;
+  weightItemId: string;
+  sourceId: string;
+  approvedChangeOrderId: string;
+  sheetId: string;
+  storedMaterialId: string;
 };
 type Rule = {
   may: Role[];
@@ -181,6 +191,27 @@ const RULES: Record<string, Rule> = {
   },
   'GET /api/projects/:projectId/lien-waivers': { may: ALL },
   'GET /api/lien-waivers/:waiverId/pdf': { may: ALL },
+  // Measurement and payment provisions (issue 15): the contract side sets how an item is paid; either contractor
+  // keeps the field records; the owner reads them.
+  'GET /api/projects/:projectId/measurement-profiles': { may: ALL },
+  'PUT /api/bid-items/:bidItemId/measurement-profile': { may: CONTRACT, body: () => ({ profile: 'truck_measure' }) },
+  'GET /api/projects/:projectId/trucks': { may: ALL },
+  'POST /api/projects/:projectId/trucks': { may: FIELD, body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }) },
+  'GET /api/projects/:projectId/truck-tickets': { may: ALL },
+  'POST /api/projects/:projectId/truck-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }) },
+  'POST /api/projects/:projectId/truck-tickets/import': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, csv: TRUCK_TICKET_CSV }) },
+  'GET /api/projects/:projectId/material-sources': { may: ALL },
+  'POST /api/projects/:projectId/material-sources': { may: FIELD, body: () => ({ name: `Pit ${++serial}`, weighedLoads: [{ netTons: 18.42, volumeCy: 12.5 }, { netTons: 19.1, volumeCy: 13 }, { netTons: 18.75, volumeCy: 12.7 }] }) },
+  'GET /api/projects/:projectId/scale-tickets': { may: ALL },
+  'GET /api/projects/:projectId/daily-sheets': { may: ALL },
+  'POST /api/projects/:projectId/daily-sheets': { may: FIELD, body: (f) => ({ changeOrderId: f.approvedChangeOrderId, workedOn: '2026-06-09', description: 'Muck removal', labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }], equipment: [], materials: [], markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 } }) },
+  'POST /api/daily-sheets/:sheetId/sign': { may: FIELD },
+  'GET /api/projects/:projectId/stored-materials': { may: ALL },
+  'POST /api/projects/:projectId/stored-materials': { may: FIELD, body: (f) => ({ bidItemId: f.bidItemId, description: '24 in RCP', unit: 'LF', unitCostCents: 5840, neededQuantity: 400, storedAt: 'East yard' }) },
+  'POST /api/stored-materials/:storedMaterialId/movements': { may: FIELD, body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }) },
+  'GET /api/projects/:projectId/pay-adjustments': { may: ALL },
+  'POST /api/projects/:projectId/pay-adjustments': { may: CONTRACT, body: () => ({ kind: 'liquidated_damages', appliesOn: '2026-11-30', description: 'Late', daysOverrun: 2, dailyCents: 285_000 }) },
+  'POST /api/projects/:projectId/scale-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.weightItemId, sourceId: f.sourceId, ticketNumber: `S-${++serial}`, weighedOn: '2026-05-04', grossTons: 33.85, tareTons: 13.85, material: 'Base', scaleCheckerInitials: 'JT', deliveryCheckerInitials: 'MK' }) },
 };
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
 const OUTSIDE_ROLES = [
@@ -247,6 +278,7 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
       expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
+  const approved = await makeChangeOrder(db, w.home.id, gc);
   let waiverId = '00000000-0000-4000-8000-00000000beef';
   if (payAppStatus === 'certified') {
     const waiver = await agents.subcontractor
@@ -267,6 +299,12 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     waiverId,
     method: 'grid',
     token: 'x',
+    truckItemId: (await makeProfiledItem(db, w.home.id, 'truck_measure')).id,
+    weightItemId: (await makeProfiledItem(db, w.home.id, 'weight', { payUnit: 'TON' })).id,
+    sourceId: (await makeSource(db, w.home.id)).id,
+    approvedChangeOrderId: approved.id,
+    sheetId: (await makeDailySheet(db, w.home.id, approved.id, gc)).id,
+    storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
   };
 }
 
