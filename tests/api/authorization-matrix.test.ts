@@ -45,6 +45,7 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/projects/:projectId/invitations': 'project',
   'DELETE /api/invitations/:id': 'project',
   'GET /api/projects/:projectId/audit': 'project',
+  'GET /api/projects/:projectId/audit.csv': 'project',
   'GET /api/pay-apps/:payAppId/audit': 'project',
   'GET /api/projects/:projectId/tallies': 'project',
   'POST /api/projects/:projectId/tallies': 'project',

@@ -130,6 +130,7 @@ const RULES: Record<string, Rule> = {
   },
   'DELETE /api/invitations/:id': { may: CONTRACT },
   'GET /api/projects/:projectId/audit': { may: ALL },
+  'GET /api/projects/:projectId/audit.csv': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
   'POST /api/projects/:projectId/tallies': {

@@ -1,4 +1,4 @@
-import { and, count, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gte, inArray, lte, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import { auditEvents, disputes, payAppLines, user } from '../../db/schema';
 
@@ -34,15 +34,39 @@ function select(db: Executor, where: SQL | undefined) {
 export async function listProjectAudit(
   db: Executor,
   projectId: string,
-  opts: { objectType?: string | undefined; limit: number; offset: number },
+  opts: TrailFilter & { limit: number; offset: number },
 ): Promise<{ rows: AuditRow[]; total: number }> {
   const where = and(
     eq(auditEvents.projectId, projectId),
     opts.objectType ? eq(auditEvents.objectType, opts.objectType) : undefined,
+    opts.person ? eq(auditEvents.actorUserId, opts.person) : undefined,
+    opts.from ? gte(auditEvents.createdAt, new Date(opts.from)) : undefined,
+    opts.to ? lte(auditEvents.createdAt, new Date(opts.to)) : undefined,
   );
-  const rows = await select(db, where).orderBy(desc(auditEvents.createdAt), desc(auditEvents.id)).limit(opts.limit).offset(opts.offset);
+  const rows = await select(db, where)
+    .orderBy(desc(auditEvents.createdAt), desc(auditEvents.id))
+    .limit(opts.limit)
+    .offset(opts.offset);
   const [total] = await db.select({ n: count() }).from(auditEvents).where(where);
   return { rows, total: total?.n ?? 0 };
+}
+
+export type TrailFilter = {
+  objectType?: string | undefined;
+  person?: string | undefined;
+  from?: string | undefined;
+  to?: string | undefined;
+};
+
+/** People who acted on the project's trail, for the person filter. */
+export async function projectActors(db: Executor, projectId: string): Promise<{ userId: string; name: string }[]> {
+  const rows = await db
+    .selectDistinct({ userId: user.id, name: user.name })
+    .from(auditEvents)
+    .innerJoin(user, eq(user.id, auditEvents.actorUserId))
+    .where(eq(auditEvents.projectId, projectId))
+    .orderBy(user.name);
+  return rows;
 }
 
 export async function projectObjectTypes(db: Executor, projectId: string): Promise<string[]> {
@@ -67,7 +91,10 @@ export async function listObjectAudit(
 ): Promise<AuditRow[]> {
   const own = and(eq(auditEvents.objectType, objectType), eq(auditEvents.objectId, objectId));
   const parts = parentKey
-    ? or(sql`${auditEvents.after} ->> ${parentKey} = ${objectId}`, sql`${auditEvents.before} ->> ${parentKey} = ${objectId}`)
+    ? or(
+        sql`${auditEvents.after} ->> ${parentKey} = ${objectId}`,
+        sql`${auditEvents.before} ->> ${parentKey} = ${objectId}`,
+      )
     : undefined;
   return select(db, and(eq(auditEvents.projectId, projectId), parts ? or(own, parts) : own)).orderBy(
     desc(auditEvents.createdAt),
@@ -77,8 +104,14 @@ export async function listObjectAudit(
 
 /** A pay application's trail: its own events, its lines' and disputes' events, and rows that name it as payAppId. */
 export async function listPayAppAudit(db: Executor, projectId: string, payAppId: string): Promise<AuditRow[]> {
-  const disputeIds = db.select({ id: sql<string>`${disputes.id}::text` }).from(disputes).where(eq(disputes.payAppId, payAppId));
-  const lineIds = db.select({ id: sql<string>`${payAppLines.id}::text` }).from(payAppLines).where(eq(payAppLines.payAppId, payAppId));
+  const disputeIds = db
+    .select({ id: sql<string>`${disputes.id}::text` })
+    .from(disputes)
+    .where(eq(disputes.payAppId, payAppId));
+  const lineIds = db
+    .select({ id: sql<string>`${payAppLines.id}::text` })
+    .from(payAppLines)
+    .where(eq(payAppLines.payAppId, payAppId));
   const where = or(
     and(eq(auditEvents.objectType, 'pay_app'), eq(auditEvents.objectId, payAppId)),
     and(eq(auditEvents.objectType, 'dispute'), inArray(auditEvents.objectId, disputeIds)),
@@ -86,5 +119,8 @@ export async function listPayAppAudit(db: Executor, projectId: string, payAppId:
     sql`${auditEvents.after} ->> 'payAppId' = ${payAppId}`,
     sql`${auditEvents.before} ->> 'payAppId' = ${payAppId}`,
   );
-  return select(db, and(eq(auditEvents.projectId, projectId), where)).orderBy(desc(auditEvents.createdAt), desc(auditEvents.id));
+  return select(db, and(eq(auditEvents.projectId, projectId), where)).orderBy(
+    desc(auditEvents.createdAt),
+    desc(auditEvents.id),
+  );
 }
