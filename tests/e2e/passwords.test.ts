@@ -60,7 +60,7 @@ describe('passwords in the browser', () => {
     await signInWith(page, 'sub@tallyard.test', 'tallyard-demo');
     await page.getByText('That e-mail and password do not match an account.').waitFor();
     await signInWith(page, 'sub@tallyard.test', 'borrow-pit-lift-2027');
-    await page.waitForURL('**/jobs');
+    await page.waitForURL('**/inbox');
     await page.close();
   }, 120_000);
 
