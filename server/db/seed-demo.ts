@@ -3,6 +3,7 @@ import type { CompanyKind } from '../../src/shared/constants';
 import type { Auth } from '../auth';
 import type { Storage } from '../integrations/storage/storage';
 import { seedPayCycle } from './demo/seed-pay-cycle';
+import { seedProvisions } from './demo/seed-provisions';
 import type { Db } from './client';
 import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from './demo/demo-data';
 import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
@@ -21,7 +22,9 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
       .from(projects)
       .where(eq(projects.name, DEMO_PROJECT.name))
       .limit(1);
-    return project ? seedPayCycle(db, storage, project.id) : false;
+    if (!project) return false;
+    const cycle = await seedPayCycle(db, storage, project.id);
+    return (await seedProvisions(db, project.id)) || cycle;
   }
 
   // Hashed before the transaction (scrypt is slow); the demo people are created with everything else in it.
@@ -72,5 +75,6 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
     return projectId;
   });
   await seedPayCycle(db, storage, projectId);
+  await seedProvisions(db, projectId);
   return true;
 }

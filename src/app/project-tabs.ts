@@ -37,6 +37,12 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
   },
   {
+    path: 'pay-basis',
+    label: 'Pay basis',
+    screen: () => import('./routes/project-pay-basis'),
+    summary: 'How each item is measured and paid, with its loads, scale tickets, time-and-materials days, stored materials and deductions.',
+  },
+  {
     path: 'pay-apps',
     label: 'Pay apps',
     screen: () => import('./routes/project-pay-apps'),

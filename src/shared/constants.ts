@@ -278,7 +278,7 @@ export const MEASUREMENT_PROFILE_LABELS: Record<MeasurementProfile, string> = {
   worksheet: 'Measured on a worksheet',
   truck_measure: 'Counted loads (truck register)',
   weight: 'Weighed (scale tickets)',
-  lump_sum: 'Lump sum by percent',
+  lump_sum: 'Lump sum (percent or stages)',
   force_account: 'Time and materials (force account)',
 };
 

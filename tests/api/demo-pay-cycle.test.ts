@@ -30,8 +30,9 @@ describe('demo pay cycle (invented data)', () => {
     expect(over.map((r: { itemNumber: string }) => r.itemNumber)).toEqual(['203']);
     expect(over[0].openChangeOrder).not.toBeNull();
     expect(watch.body.periods).toHaveLength(3);
-    const cos = await t.database.db.select().from(changeOrders);
-    expect(cos.map((c) => c.status)).toEqual(['proposed']);
+    const cos = await t.database.db.select().from(changeOrders).orderBy(changeOrders.number);
+    // The drafted variance change order; the approved one authorises the demo's time-and-materials work (issue 15).
+    expect(cos.map((c) => c.status)).toEqual(['proposed', 'approved']);
   });
 
   it('is idempotent: a second run adds nothing', async () => {

@@ -14,7 +14,7 @@ import { bidItems, companies, companyMembers, emailOutbox, payApps, user } from 
 import { markPaid } from './demo-payment';
 import { DEMO_DISPUTE, DEMO_FORECASTS, DEMO_PAY_CYCLE, type DemoPeriod } from './pay-cycle-data';
 
-async function actorOf(db: Db, email: string): Promise<Actor> {
+export async function actorOf(db: Db, email: string): Promise<Actor> {
   const [row] = await db
     .select({ id: user.id, name: user.name, email: user.email, companyId: companies.id, kind: companies.kind, companyName: companies.name, isAdmin: companyMembers.isAdmin })
     .from(user)
