@@ -31,6 +31,10 @@ export type AppContext = {
 export type RecentAuth = {
   /** Takes the typed password out of the body now; the returned check runs after the route's access checks. */
   take: (req: Request, res: Response) => ConfirmRecentAuth;
-  /** A payment of more than this many cents needs a recent sign-in (or the password again). */
+  /**
+   * Paying needs a recent sign-in (or the password again) when this payment and the application's other payments
+   * started within `paymentWindowHours` (open, processing or succeeded) come to more than this many cents.
+   */
   paymentAboveCents: number;
+  paymentWindowHours: number;
 };

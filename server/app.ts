@@ -27,6 +27,7 @@ import { devMailboxRouter } from './modules/dev/mailbox.routes';
 import { inboxRouter } from './modules/inbox/inbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
+import { membersRouter } from './modules/members/members.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
@@ -62,13 +63,15 @@ export type AppDeps = {
   /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
   payments?: Payments;
   /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
-  reauth?: { withinMinutes?: number; paymentAboveCents?: number };
+  reauth?: { withinMinutes?: number; paymentAboveCents?: number; paymentWindowHours?: number };
   /** Worker threads for heavy calculations; the process's shared pool (default limits) unless given. */
   compute?: ComputePool;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
 export const DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS = 1_000_000;
+/** The threshold applies to the total paid on one application over this many hours, so splitting does not avoid it. */
+export const DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS = 24;
 
 export const JSON_BODY_LIMIT = '1mb';
 /** better-auth's bodies are a few short fields (server/lib/auth-hooks.ts limits each one). */
@@ -91,6 +94,7 @@ export function createApp(deps: AppDeps): Express {
     recentAuth: {
       take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
+      paymentWindowHours: deps.reauth?.paymentWindowHours ?? DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS,
     },
     compute,
   };
@@ -132,7 +136,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
-  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db), inboxRouter(db));
+  app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use(
     '/api',

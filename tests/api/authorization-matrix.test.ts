@@ -11,7 +11,7 @@ import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setu
 
 // OWASP API Security Top 10 (2023) API1 (object level) and API5 (function level) authorization; OWASP ASVS
 // 4.0.3 section 4.1 and 4.2: every route says who may reach it, and a person of another project reads nothing.
-type Scope = 'public' | 'signed-in' | 'project';
+type Scope = 'public' | 'signed-in' | 'project' | 'company';
 /** Every route the app registers. A new route without an entry here fails the first test. */
 const ROUTES: Record<string, Scope> = {
   'GET /api/health': 'public',
@@ -44,6 +44,9 @@ const ROUTES: Record<string, Scope> = {
   'GET /api/projects/:projectId/invitations': 'project',
   'POST /api/projects/:projectId/invitations': 'project',
   'DELETE /api/invitations/:id': 'project',
+  'DELETE /api/projects/:projectId/members/:userId': 'project',
+  'GET /api/companies/:companyId/members': 'company',
+  'DELETE /api/companies/:companyId/members/:userId': 'company',
   'GET /api/projects/:projectId/audit': 'project',
   'GET /api/projects/:projectId/audit.csv': 'project',
   'GET /api/pay-apps/:payAppId/audit': 'project',
@@ -127,6 +130,8 @@ beforeAll(async () => {
     waiverId: '00000000-0000-4000-8000-000000000009',
     token: 'not-a-token',
     method: 'grid',
+    userId: w.people.subcontractor.id,
+    companyId: w.companies.sub.id,
     'change-orders/:id': co!.id,
     sheetId: (await makeDailySheet(db, w.home.id, (await makeChangeOrder(db, w.home.id, gc)).id, gc)).id,
     storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
@@ -177,7 +182,8 @@ describe('the authorization matrix', () => {
   it("never lets a member of another project see that this project's objects exist, and writes nothing", async () => {
     const outsider = await signedInAgent(t.app, w.outsider.email);
     const before = await writes();
-    for (const route of registeredRoutes(t.app).filter((r) => ROUTES[r] === 'project')) {
+    // A company's own routes (its people) answer the same to anyone outside the company.
+    for (const route of registeredRoutes(t.app).filter((r) => ROUTES[r] === 'project' || ROUTES[r] === 'company')) {
       const res = await send(outsider, route);
       const absent = await send(outsider, route, true);
       // 404, or a body refused by its schema before any lookup: either way the same answer as for an id that

@@ -37,7 +37,7 @@ import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setu
 // Expectation for each refusal: 400 (413 for a body beyond the limit, 415 for a body that is not JSON), the error
 // shape {error:{code,message,details?}}, never 5xx, no row written anywhere, and Object.prototype untouched.
 
-type Role = 'subcontractor' | 'general_contractor' | 'owner' | 'none';
+type Role = 'subcontractor' | 'general_contractor' | 'owner' | 'owner_admin' | 'none';
 type Ids = Record<string, string>;
 /**
  * How a route reads its body. `json`: parsed by the app's JSON parser and checked by `schema` (the oracle: a body it
@@ -83,10 +83,29 @@ const ROUTES: Record<string, Spec> = {
   'POST /api/change-orders/:id/reject': json('general_contractor', rejectChangeOrderSchema, () => ({ note: 'Not in the contract' })),
   'PUT /api/bid-items/:bidItemId/forecast': json('general_contractor', forecastInputSchema, () => ({ forecastQuantity: 1100, note: 'Survey of the cut' })),
   'POST /api/bid-items/:bidItemId/variance-change-order': none('general_contractor'),
-  'POST /api/projects/:projectId/invitations': json('general_contractor', createInvitationSchema, () => ({ email: 'inspector@example.test', role: 'owner' })),
-  'DELETE /api/invitations/:id': none('general_contractor'),
-  'POST /api/projects/:projectId/tallies': json('subcontractor', createTallySchema, (ids) => ({ bidItemId: ids.bidItemId, measuredOn: '2026-10-06', title: 'Grid at the pond', method: 'grid', inputs: gridInputs, component: 'cut', measuredBasis: 'bank' })),
-  'PATCH /api/tallies/:tallyId': json('subcontractor', updateTallySchema, () => ({ title: 'Tape check', method: 'manual', quantity: 42.5, manualBasis: 'Measured with a tape at the toe', measuredOn: '2026-10-07' })),
+  'POST /api/projects/:projectId/invitations': json('owner_admin', createInvitationSchema, () => ({
+    email: 'inspector@example.test',
+    role: 'owner',
+  })),
+  'DELETE /api/invitations/:id': none('owner_admin'),
+  'DELETE /api/projects/:projectId/members/:userId': none('owner_admin'),
+  'DELETE /api/companies/:companyId/members/:userId': none('owner_admin'),
+  'POST /api/projects/:projectId/tallies': json('subcontractor', createTallySchema, (ids) => ({
+    bidItemId: ids.bidItemId,
+    measuredOn: '2026-10-06',
+    title: 'Grid at the pond',
+    method: 'grid',
+    inputs: gridInputs,
+    component: 'cut',
+    measuredBasis: 'bank',
+  })),
+  'PATCH /api/tallies/:tallyId': json('subcontractor', updateTallySchema, () => ({
+    title: 'Tape check',
+    method: 'manual',
+    quantity: 42.5,
+    manualBasis: 'Measured with a tape at the toe',
+    measuredOn: '2026-10-07',
+  })),
   'POST /api/tallies/:tallyId/ready': none('subcontractor'),
   'DELETE /api/tallies/:tallyId': none('subcontractor'),
   'POST /api/tallies/:tallyId/evidence': { reads: 'multipart', role: 'subcontractor' },
@@ -101,7 +120,10 @@ const ROUTES: Record<string, Spec> = {
   'POST /api/pay-apps/:payAppId/certify': json('general_contractor', payAppActionSchema, () => ({ expectedRevision: 0, note: 'Certified' })),
   'POST /api/disputes/:disputeId/comments': json('subcontractor', disputeCommentSchema, () => ({ body: 'Truck tickets attached' })),
   'POST /api/pay-apps/:payAppId/payments': json('owner', createPaymentSchema, () => ({ partialAmountCents: 10_000 })),
-  'POST /api/pay-apps/:payAppId/lien-waivers': json('subcontractor', issueLienWaiverSchema, () => ({ kind: 'conditional_progress', signedName: 'Dana Ruiz' })),
+  'POST /api/pay-apps/:payAppId/lien-waivers': json('subcontractor', issueLienWaiverSchema, (ids) => ({
+    kind: 'conditional_progress',
+    signedName: ids.subName,
+  })),
   // Measurement and payment provisions (issue 15).
   'PUT /api/bid-items/:bidItemId/measurement-profile': json('general_contractor', setMeasurementProfileSchema, () => ({ profile: 'plan_quantity', payDecimals: 1, stage: 'interim', settings: { percentComplete: 40, substantialErrorPercent: 5, substantialErrorCents: 500_000 } })),
   'POST /api/projects/:projectId/trucks': json('subcontractor', createTruckSchema, () => ({ label: 'T-12', hauler: 'Orchard Haul', bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' })),
@@ -163,6 +185,10 @@ beforeAll(async () => {
     invitationId: invitation!.id,
     subCompany: w.companies.sub.id,
     ownerCompany: w.companies.owner.id,
+    companyId: w.companies.owner.id,
+    userId: w.people.owner.id,
+    // Waivers are signed under the account's own name (the factories name a person after the e-mail).
+    subName: w.people.subcontractor.email.split('@')[0]!,
     truckItemId: (await makeProfiledItem(db, w.home.id, 'truck_measure')).id,
     weightItemId: (await makeProfiledItem(db, w.home.id, 'weight', { payUnit: 'TON' })).id,
     sourceId: (await makeSource(db, w.home.id)).id,
@@ -175,6 +201,7 @@ beforeAll(async () => {
     subcontractor: await signedInAgent(t.app, w.people.subcontractor.email),
     general_contractor: await signedInAgent(t.app, w.people.general_contractor.email),
     owner: await signedInAgent(t.app, w.people.owner.email),
+    owner_admin: await signedInAgent(t.app, w.people.owner_admin.email),
   };
   baseline = await fingerprint(db);
 });

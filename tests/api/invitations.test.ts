@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents, companyMembers, invitations } from '../../server/db/schema';
 import { smtpMailer } from '../../server/integrations/mailer/mailer';
-import { makeWorld } from '../setup/factories';
+import { makeUser, makeWorld } from '../setup/factories';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -18,8 +18,13 @@ const as = (who: keyof typeof w.people | 'outsider') =>
   signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
 const anonymous = () => request.agent(t.app).set('Origin', TEST_ORIGIN);
 
-/** Invites and returns the token from the accept link of the caught e-mail. */
-async function invite(email: string, role = 'subcontractor', who: keyof typeof w.people = 'general_contractor') {
+/** Invites (by the admin of the seat's company) and returns the token from the accept link of the caught e-mail. */
+const ADMIN_OF = { subcontractor: 'subcontractor_admin', general_contractor: 'admin', owner: 'owner_admin' } as const;
+async function invite(
+  email: string,
+  role: keyof typeof ADMIN_OF = 'subcontractor',
+  who: keyof typeof w.people = ADMIN_OF[role],
+) {
   t.mailbox.clear();
   const res = await (await as(who)).post(`/api/projects/${w.home.id}/invitations`).send({ email, role });
   expect(res.status).toBe(201);
@@ -47,7 +52,7 @@ describe('invitations: sending', () => {
     expect(
       (
         await (
-          await as('admin')
+          await as('owner_admin')
         )
           .post(`/api/projects/${w.home.id}/invitations`)
           .send({ email: 'a1@example.test', role: 'owner' })
@@ -125,12 +130,26 @@ describe('invitations: accepting', () => {
     expect((await anonymous().get(`/api/invitations/${token}`)).body.invitation.hasAccount).toBe(true);
     expect((await anonymous().post(`/api/invitations/${token}/accept`).send({})).status).toBe(401);
     expect((await (await as('owner')).post(`/api/invitations/${token}/accept`).send({})).status).toBe(403);
+    // Signed in as itself, a person of another company still cannot take the owner's seat (seats tied to companies).
     const outsider = await as('outsider');
     expect((await outsider.get(`/api/projects/${w.home.id}`)).status).toBe(404);
-    expect((await outsider.post(`/api/invitations/${token}/accept`).send({})).status).toBe(200);
-    expect((await outsider.get(`/api/projects/${w.home.id}`)).status).toBe(200);
+    const refused = await outsider.post(`/api/invitations/${token}/accept`).send({});
+    expect({ status: refused.status, code: refused.body.error.code }).toEqual({
+      status: 409,
+      code: 'INVITEE_OF_ANOTHER_COMPANY',
+    });
+    expect((await outsider.get(`/api/projects/${w.home.id}`)).status).toBe(404);
     const [company] = await t.database.db.select().from(companyMembers).where(eq(companyMembers.userId, w.outsider.id));
     expect(company!.companyId).toBe(w.companies.otherGc.id);
+  });
+
+  it('seats an existing account of the seat company once it signs in as itself', async () => {
+    const colleague = await makeUser(t.database.db, t.auth, w.companies.owner.id);
+    const { token } = await invite(colleague.email, 'owner');
+    const agent = await signedInAgent(t.app, colleague.email);
+    expect((await agent.get(`/api/projects/${w.home.id}`)).status).toBe(404);
+    expect((await agent.post(`/api/invitations/${token}/accept`).send({})).status).toBe(200);
+    expect((await agent.get(`/api/projects/${w.home.id}`)).body.project.myRoles).toEqual(['owner']);
   });
 
   it('answers 410 after expiry and 404 for an unknown or revoked token', async () => {
@@ -146,7 +165,7 @@ describe('invitations: accepting', () => {
     ).toBe(410);
     expect((await anonymous().get('/api/invitations/not-a-real-token-at-all-000')).status).toBe(404);
     const second = await invite('revoked@example.test');
-    const gc = await as('general_contractor');
+    const gc = await as('subcontractor_admin');
     const list = await gc.get(`/api/projects/${w.home.id}/invitations`);
     expect(list.body.invitations.find((i: { id: string }) => i.id === invitation.id).state).toBe('expired');
     expect((await gc.delete(`/api/invitations/${second.invitation.id}`)).status).toBe(204);

@@ -78,8 +78,9 @@ export async function makeBidItem(db: Db, projectId: string, overrides: Partial<
 }
 
 /**
- * Two projects with their own companies and people: `home`, on which each role has one person plus a company
- * admin of the general contractor, and `foreign`, whose general contractor is an outsider to `home`.
+ * Two projects with their own companies and people: `home`, on which each role has one person of its seat's
+ * company, plus an admin of each of the three companies (`admin` is the general contractor's), and `foreign`,
+ * whose general contractor is an outsider to `home`.
  */
 export async function makeWorld(db: Db, auth: Auth) {
   const sub = await makeCompany(db, 'subcontractor');
@@ -91,6 +92,8 @@ export async function makeWorld(db: Db, auth: Auth) {
     general_contractor: await makeUser(db, auth, gc.id),
     owner: await makeUser(db, auth, owner.id),
     admin: await makeUser(db, auth, gc.id, { isAdmin: true }),
+    subcontractor_admin: await makeUser(db, auth, sub.id, { isAdmin: true }),
+    owner_admin: await makeUser(db, auth, owner.id, { isAdmin: true }),
   };
   for (const role of ['subcontractor', 'general_contractor', 'owner'] as const) {
     await addMember(db, home.id, people[role].id, role);

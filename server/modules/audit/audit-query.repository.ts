@@ -1,6 +1,7 @@
-import { and, count, desc, eq, gte, inArray, lte, or, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gte, inArray, lte, not, or, sql, type SQL } from 'drizzle-orm';
+import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
 import type { Executor } from '../../db/client';
-import { auditEvents, disputes, payAppLines, user } from '../../db/schema';
+import { auditEvents, disputes, payAppLines, payApps, user } from '../../db/schema';
 
 const columns = {
   id: auditEvents.id,
@@ -30,11 +31,44 @@ function select(db: Executor, where: SQL | undefined) {
   return db.select(columns).from(auditEvents).leftJoin(user, eq(user.id, auditEvents.actorUserId)).where(where);
 }
 
-/** One page of a project's trail, newest first (id breaks ties within one transaction). */
+/** Mail about the contractors' hand-offs before certification (their failures are events of the trail). */
+const PRE_CERTIFICATION_MAIL = ['pay_app.submitted', 'pay_app.returned'];
+
+/**
+ * Events a viewer who sees pay applications only once certified (the owner's side) must not read: those of the
+ * project's applications not yet certified (their lines, disputes, and rows naming them as payAppId), and failed
+ * mail of the hand-offs before certification. Each test is made false rather than null, so NOT keeps other rows.
+ */
+function aboutUncertified(projectId: string): SQL {
+  const hidden = sql`(select ${payApps.id}::text from ${payApps} where ${payApps.projectId} = ${projectId} and ${payApps.status} not in (${sql.join(
+    FROZEN_STATUSES.map((s) => sql`${s}`),
+    sql`, `,
+  )}))`;
+  const hiddenApps = sql`(select ${payApps.id} from ${payApps} where ${payApps.projectId} = ${projectId} and ${payApps.status} not in (${sql.join(
+    FROZEN_STATUSES.map((s) => sql`${s}`),
+    sql`, `,
+  )}))`;
+  return sql`(
+    (${auditEvents.objectType} = 'pay_app' and ${auditEvents.objectId} in ${hidden})
+    or (${auditEvents.objectType} = 'dispute' and ${auditEvents.objectId} in (select ${disputes.id}::text from ${disputes} where ${disputes.payAppId} in ${hiddenApps}))
+    or (${auditEvents.objectType} = 'pay_app_line' and ${auditEvents.objectId} in (select ${payAppLines.id}::text from ${payAppLines} where ${payAppLines.payAppId} in ${hiddenApps}))
+    or coalesce(${auditEvents.after} ->> 'payAppId' in ${hidden}, false)
+    or coalesce(${auditEvents.before} ->> 'payAppId' in ${hidden}, false)
+    or (${auditEvents.objectType} = 'email' and coalesce(${auditEvents.after} ->> 'template' in (${sql.join(
+      PRE_CERTIFICATION_MAIL.map((t) => sql`${t}`),
+      sql`, `,
+    )}), false))
+  )`;
+}
+
+/**
+ * One page of a project's trail, newest first (id breaks ties within one transaction). `certifiedOnly` leaves out
+ * what concerns applications not yet certified, for a viewer who sees applications only once certified.
+ */
 export async function listProjectAudit(
   db: Executor,
   projectId: string,
-  opts: TrailFilter & { limit: number; offset: number },
+  opts: TrailFilter & { limit: number; offset: number; certifiedOnly?: boolean },
 ): Promise<{ rows: AuditRow[]; total: number }> {
   const where = and(
     eq(auditEvents.projectId, projectId),
@@ -42,6 +76,7 @@ export async function listProjectAudit(
     opts.person ? eq(auditEvents.actorUserId, opts.person) : undefined,
     opts.from ? gte(auditEvents.createdAt, new Date(opts.from)) : undefined,
     opts.to ? lte(auditEvents.createdAt, new Date(opts.to)) : undefined,
+    opts.certifiedOnly ? not(aboutUncertified(projectId)) : undefined,
   );
   const rows = await select(db, where)
     .orderBy(desc(auditEvents.createdAt), desc(auditEvents.id))
@@ -69,11 +104,11 @@ export async function projectActors(db: Executor, projectId: string): Promise<{ 
   return rows;
 }
 
-export async function projectObjectTypes(db: Executor, projectId: string): Promise<string[]> {
+export async function projectObjectTypes(db: Executor, projectId: string, certifiedOnly = false): Promise<string[]> {
   const rows = await db
     .selectDistinct({ objectType: auditEvents.objectType })
     .from(auditEvents)
-    .where(eq(auditEvents.projectId, projectId))
+    .where(and(eq(auditEvents.projectId, projectId), certifiedOnly ? not(aboutUncertified(projectId)) : undefined))
     .orderBy(auditEvents.objectType);
   return rows.map((r) => r.objectType);
 }

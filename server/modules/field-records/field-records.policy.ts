@@ -1,19 +1,18 @@
 import type { AccessRole } from '../../../src/shared/constants';
+import { canManageContract } from '../projects/projects.policy';
 
 /**
- * Measurement and payment provisions (issue 15). How an item is paid is a contract term: the general contractor
- * (or a company admin, who manages the contract as the general contractor does) sets it. Field records (trucks,
+ * Measurement and payment provisions (issue 15). How an item is paid is a contract term: the general contractor's
+ * side (its seat or its company's admin, `canManageContract`) sets it. Field records (trucks,
  * tickets, sources, daily sheets, stored materials) are kept by either contractor; the owner reads them.
- * Deductions and adjustments are the payer's side of the contract: the general contractor or an admin.
+ * Deductions and adjustments are the payer's side of the contract: the general contractor's side.
  */
-export const canSetMeasurementProfile = (roles: AccessRole[]) =>
-  roles.includes('general_contractor') || roles.includes('admin');
+export const canSetMeasurementProfile = (roles: AccessRole[]) => canManageContract(roles);
 
 export const canKeepFieldRecords = (roles: AccessRole[]) =>
   roles.includes('subcontractor') || roles.includes('general_contractor');
 
-export const canRecordAdjustment = (roles: AccessRole[]) =>
-  roles.includes('general_contractor') || roles.includes('admin');
+export const canRecordAdjustment = (roles: AccessRole[]) => canManageContract(roles);
 
 export type SigningSide = 'contractor' | 'gc';
 

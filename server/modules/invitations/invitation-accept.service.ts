@@ -1,6 +1,5 @@
 import { fromNodeHeaders } from 'better-auth/node';
 import type { IncomingHttpHeaders } from 'node:http';
-import type { ProjectRole } from '../../../src/shared/constants';
 import type { AcceptInvitationInput, InvitationPreview } from '../../../src/shared/schemas/invitation';
 import type { Auth } from '../../auth';
 import type { Db } from '../../db/client';
@@ -8,7 +7,10 @@ import { companyMembers, projectMembers } from '../../db/schema';
 import { AppError, conflict, forbidden, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { insertAccount, prepareAccount, type PreparedAccount } from '../accounts/accounts.service';
+import { seatCompanyId } from '../projects/projects.policy';
+import { memberRoles } from '../projects/projects.repository';
 import { hashToken, TOKEN_SHAPE } from './invitation-token';
+import { checkSeat } from './seat-rules';
 import * as repo from './invitations.repository';
 
 type Found = NonNullable<Awaited<ReturnType<typeof repo.findByTokenHash>>>;
@@ -42,13 +44,6 @@ export async function previewInvitation(db: Db, token: string): Promise<Invitati
   };
 }
 
-const partyCompany = (p: Found['project'], role: ProjectRole) =>
-  role === 'subcontractor'
-    ? p.subcontractorCompanyId
-    : role === 'general_contractor'
-      ? p.generalContractorCompanyId
-      : p.ownerCompanyId;
-
 /** A new person's account, checked and hashed before the transaction (accepting proves the address: the link was e-mailed to it). */
 async function newAccount(auth: Auth, email: string, input: AcceptInvitationInput): Promise<PreparedAccount> {
   const problems = [];
@@ -74,7 +69,9 @@ async function signInNew(auth: Auth, email: string, password: string, headers: I
 
 /**
  * Accepts an invitation: creates the account (name + password) or, when the e-mail already has one, requires
- * being signed in as it. Adds the project role and, for a person without a company, the role's company.
+ * being signed in as it. The seat rules hold again here: a person of another company cannot take the seat, and
+ * nobody takes a second seat on a job (409; a unique index on the project and person backs it against a race).
+ * Adds the seat and, for a person without a company, the company that fills the seat.
  */
 export async function acceptInvitation(
   db: Db,
@@ -99,15 +96,33 @@ export async function acceptInvitation(
     prepared = await newAccount(auth, invitation.email, input);
     userId = prepared.id;
   }
+  if (existing) {
+    const company = await repo.companyOf(db, userId);
+    checkSeat(project, invitation.role, invitation.email, {
+      companyId: company?.companyId ?? null,
+      seats: await memberRoles(db, project.id, userId),
+    });
+  }
   await db.transaction(async (tx) => {
     if (!(await repo.markAccepted(tx, invitation.id)))
       throw conflict('INVITATION_USED', 'This invitation was already accepted.');
     if (prepared) await insertAccount(tx, prepared);
-    if (!(await repo.hasRole(tx, project.id, userId, invitation.role))) {
-      await tx.insert(projectMembers).values({ projectId: project.id, userId, role: invitation.role });
-    }
     const company = await repo.companyOf(tx, userId);
-    const joinedCompany = company ? null : partyCompany(project, invitation.role);
+    checkSeat(project, invitation.role, invitation.email, {
+      companyId: company?.companyId ?? null,
+      seats: await memberRoles(tx, project.id, userId),
+    });
+    const inserted = await tx
+      .insert(projectMembers)
+      .values({ projectId: project.id, userId, role: invitation.role })
+      .onConflictDoNothing()
+      .returning();
+    if (inserted.length === 0)
+      throw conflict(
+        'ALREADY_HOLDS_SEAT',
+        `${invitation.email} already holds a seat on this job; one person holds one role on a job.`,
+      );
+    const joinedCompany = company ? null : seatCompanyId(project, invitation.role);
     if (joinedCompany) await tx.insert(companyMembers).values({ userId, companyId: joinedCompany, isAdmin: false });
     await recordAudit(tx, {
       projectId: project.id,
