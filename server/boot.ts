@@ -5,6 +5,7 @@ import { createApp } from './app';
 import { createAuth } from './auth';
 import type { Database } from './db/client';
 import { runMigrations } from './db/migrate';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from './db/demo/demo-data';
 import { seedDemo } from './db/seed-demo';
 import { smtpMailer } from './integrations/mailer/mailer';
 import { startSmtpSink } from './integrations/mailer/smtp-sink';
@@ -77,6 +78,14 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
     logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
+    // The demo's sign-ins, so a first start says where to go and who to be (same pino line format as the rest).
+    if (demo) {
+      const emails = DEMO_PEOPLE.map((p) => p.email);
+      logger.info(
+        { url: baseURL, signIns: emails },
+        `Open ${baseURL} and sign in as ${emails.join(', ')} (password ${DEMO_PASSWORD})`,
+      );
+    }
   });
 
   let closing = false;
