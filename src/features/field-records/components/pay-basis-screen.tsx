@@ -7,7 +7,7 @@ type Roles = readonly string[];
 
 /** How each item is measured and paid, with the field records behind the quantities. */
 export function PayBasisScreen({ projectId, myRoles }: { projectId: string; myRoles: Roles }) {
-  const contractSide = myRoles.includes('general_contractor') || myRoles.includes('admin');
+  const contractSide = myRoles.includes('general_contractor') || myRoles.includes('general_contractor_admin');
   const fieldSide = myRoles.includes('subcontractor') || myRoles.includes('general_contractor');
   return (
     <div className="flex flex-col gap-5">
