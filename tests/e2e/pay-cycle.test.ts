@@ -196,6 +196,9 @@ describe('pay cycle in the browser', () => {
 
     // A demo application left returned goes back through the subcontractor first.
     if (app.status === 'returned') {
+      // No answer is chosen for the subcontractor: it takes each counter quantity here.
+      const takes = sub.getByRole('radio', { name: /Take the counter quantity/ });
+      for (let i = 0; i < (await takes.count()); i++) await takes.nth(i).check();
       await sub.getByRole('button', { name: `Save revision ${app.revision + 1}` }).click();
       await statusIs(sub, number, 'Draft');
       app = await detailOf(sub, app.id);
@@ -259,6 +262,9 @@ describe('pay cycle in the browser', () => {
     expect(await sub.getByRole('button', { name: `Save revision ${app.revision + 1}`, exact: true }).isDisabled()).toBe(
       true,
     );
+    // Any other open dispute (the demo's own) takes its counter quantity.
+    const takes = sub.getByRole('radio', { name: /Take the counter quantity/ });
+    for (let i = 0; i < (await takes.count()); i++) await takes.nth(i).check();
     const proposed = Math.floor(line.thisPeriodQuantity * 0.95);
     await answer.getByRole('radio', { name: 'Propose another quantity' }).check();
     await answer.getByLabel(`Quantity this period (${line.payUnit})`).fill(String(proposed));
