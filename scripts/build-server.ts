@@ -1,6 +1,5 @@
 import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { build, type Plugin } from 'esbuild';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
@@ -25,7 +24,9 @@ function newestMtime(entry: string): number {
 
 /**
  * Each module keeps its own `import.meta.url` (its source file's), so the files it finds beside itself (the
- * migrations, the common-password list, fonts through createRequire) resolve as they do under tsx.
+ * migrations, the common-password list, fonts through createRequire) resolve as they do under tsx. The URL is
+ * worked out at run time from the bundle's own place (the folder above dist-server/) and the source's path
+ * relative to the project, so the bundle holds no absolute path of the machine that built it.
  */
 const sourceUrls: Plugin = {
   name: 'source-import-meta-url',
@@ -33,8 +34,10 @@ const sourceUrls: Plugin = {
     b.onLoad({ filter: /\.ts$/ }, async (args) => {
       const { readFile } = await import('node:fs/promises');
       const code = await readFile(args.path, 'utf8');
+      const relative = path.relative(ROOT, args.path).split(path.sep).join('/');
+      const root = `import.meta.url.slice(0, import.meta.url.lastIndexOf('/${path.basename(OUT_DIR)}/') + 1)`;
       return {
-        contents: code.replaceAll('import.meta.url', JSON.stringify(pathToFileURL(args.path).href)),
+        contents: code.replaceAll('import.meta.url', `new URL(${JSON.stringify(relative)}, ${root}).href`),
         loader: 'ts',
       };
     });
@@ -54,16 +57,27 @@ export async function buildServerIfStale(force = false): Promise<boolean> {
   )
     return false;
   console.log('Building the server (dist-server/)...');
-  rmSync(OUT_DIR, { recursive: true, force: true });
+  await bundleServer(OUT_DIR);
+  return true;
+}
+
+/** esbuild into outDir (a folder named dist-server: the bundle finds the project as its parent). */
+export async function bundleServer(outDir: string): Promise<void> {
+  rmSync(outDir, { recursive: true, force: true });
   await build({
     absWorkingDir: ROOT,
     entryPoints: [
       { in: 'server/index.ts', out: 'index' },
       { in: 'server/lib/compute/compute-task.ts', out: 'compute-task' },
     ],
-    // The pool starts the bundled worker (plain JavaScript) instead of the tsx loader it uses under tsx.
-    define: { __TALLYARD_COMPUTE_WORKER__: JSON.stringify(COMPUTE_WORKER_BUNDLE) },
-    outdir: OUT_DIR,
+    // The pool starts the bundled worker (plain JavaScript) instead of the tsx loader it uses under tsx; its place
+    // is given relative to the pool's own module, never as this machine's absolute path.
+    define: {
+      __TALLYARD_COMPUTE_WORKER__: JSON.stringify(
+        path.relative(path.join(ROOT, 'server/lib/compute'), path.join(outDir, 'compute-task.js')).split(path.sep).join('/'),
+      ),
+    },
+    outdir: outDir,
     // Modules imported with import() (the Stripe stand-in) become chunks of their own, loaded when first used.
     splitting: true,
     chunkNames: 'chunks/[name]-[hash]',
@@ -76,7 +90,6 @@ export async function buildServerIfStale(force = false): Promise<boolean> {
     logLevel: 'warning',
     plugins: [sourceUrls],
   });
-  return true;
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) await buildServerIfStale(process.argv.includes('--force'));

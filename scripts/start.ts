@@ -7,8 +7,13 @@ import { buildIfStale } from './build';
 await buildIfStale();
 const server = spawn(process.execPath, [SERVER_BUNDLE], {
   stdio: 'inherit',
-  // The demo command: the Mailbox page shows the mail the local sink catches (`npm run serve` leaves it off).
-  env: { ...process.env, NODE_ENV: process.env.NODE_ENV ?? 'production', MAILBOX: process.env.MAILBOX ?? 'on' },
+  // With neither DATABASE_URL nor SMTP_URL this is the demo on the embedded database: a labelled demo Mailbox
+  // and the local Stripe stand-in. Otherwise a real deployment, which production refuses to start half set up.
+  env: {
+    ...process.env,
+    NODE_ENV: process.env.NODE_ENV ?? 'production',
+    TALLYARD_DEMO: process.env.TALLYARD_DEMO ?? (process.env.DATABASE_URL || process.env.SMTP_URL ? 'off' : 'on'),
+  },
 });
 // The server closes cleanly on either signal (and ignores a second one); pass them on and leave with its code.
 for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => server.kill(signal));

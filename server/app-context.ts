@@ -7,6 +7,7 @@ import type { ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
 import type { ConfirmRecentAuth } from './middleware/require-recent-auth';
 import type { Outbox } from './modules/notifications/outbox';
+import type { MailboxKind } from './modules/dev/mailbox.routes';
 
 /** What a module's routes and services need from the app, built once by createApp. */
 export type AppContext = {
@@ -17,6 +18,8 @@ export type AppContext = {
   /** The app's public origin, for links in e-mails. */
   appUrl: string;
   mailbox?: SmtpSink;
+  /** How the Mailbox page is labelled (development unless the embedded demo). */
+  mailboxKind?: MailboxKind;
   /** Online payment (Stripe's SDK, or the local stand-in); absent when the server has none configured. */
   payments?: Payments;
   /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
@@ -28,6 +31,10 @@ export type AppContext = {
 export type RecentAuth = {
   /** Takes the typed password out of the body now; the returned check runs after the route's access checks. */
   take: (req: Request, res: Response) => ConfirmRecentAuth;
-  /** A payment of more than this many cents needs a recent sign-in (or the password again). */
+  /**
+   * Paying needs a recent sign-in (or the password again) when this payment and the application's other payments
+   * started within `paymentWindowHours` (open, processing or succeeded) come to more than this many cents.
+   */
   paymentAboveCents: number;
+  paymentWindowHours: number;
 };

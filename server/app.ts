@@ -6,6 +6,7 @@ import type { Auth } from './auth';
 import type { Database } from './db/client';
 import type { Mailer } from './integrations/mailer/mailer';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
+import type { MailboxKind } from './modules/dev/mailbox.routes';
 import type { Payments } from './integrations/payments/payments';
 import type { Storage } from './integrations/storage/storage';
 import { sharedComputePool, type ComputePool } from './lib/compute/compute-pool';
@@ -16,7 +17,8 @@ import { csrfGuard } from './middleware/csrf-guard';
 import { jsonBodiesOnly } from './middleware/json-bodies-only';
 import { requireActor } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
-import { securityHeaders } from './middleware/security-headers';
+import { noStore, securityHeaders } from './middleware/security-headers';
+import { endAgedSessions } from './middleware/session-age';
 import { refuseUnstorableText } from './middleware/storable-text';
 import { auditRouter } from './modules/audit/audit.routes';
 import { bidItemsRouter } from './modules/bid-items/bid-items.routes';
@@ -25,6 +27,7 @@ import { devMailboxRouter } from './modules/dev/mailbox.routes';
 import { inboxRouter } from './modules/inbox/inbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
 import { meRouter } from './modules/me/me.routes';
+import { membersRouter } from './modules/members/members.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
@@ -33,6 +36,12 @@ import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
 import { paymentsRouter, stripeWebhookRouter } from './modules/payments/payments.routes';
 import { lienWaiversRouter } from './modules/lien-waivers/lien-waivers.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
+import { haulTicketsRouter } from './modules/haul-tickets/haul-tickets.routes';
+import { measurementProfilesRouter } from './modules/measurement-profiles/measurement-profiles.routes';
+import { scaleTicketsRouter } from './modules/scale-tickets/scale-tickets.routes';
+import { forceAccountRouter } from './modules/force-account/force-account.routes';
+import { payAdjustmentsRouter } from './modules/pay-adjustments/pay-adjustments.routes';
+import { storedMaterialsRouter } from './modules/stored-materials/stored-materials.routes';
 import type { AppContext } from './app-context';
 
 export type AppDeps = {
@@ -41,8 +50,12 @@ export type AppDeps = {
   logger: Logger;
   mailer: Mailer;
   storage: Storage;
-  /** The local SMTP sink when no SMTP_URL is set: the development Mailbox page lists what it caught. */
+  /**
+   * The local SMTP sink whose catch the Mailbox page shows (each person their own mail): in development, and in
+   * the demo `npm start` runs on the embedded database (labelled so). Absent everywhere else.
+   */
   mailbox?: SmtpSink;
+  mailboxKind?: MailboxKind;
   /** The app's public origin, for links in e-mails. */
   appUrl: string;
   /** Folder of the built client (dist/); served with a fallback to index.html when it exists. */
@@ -50,15 +63,19 @@ export type AppDeps = {
   /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
   payments?: Payments;
   /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
-  reauth?: { withinMinutes?: number; paymentAboveCents?: number };
+  reauth?: { withinMinutes?: number; paymentAboveCents?: number; paymentWindowHours?: number };
   /** Worker threads for heavy calculations; the process's shared pool (default limits) unless given. */
   compute?: ComputePool;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
 export const DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS = 1_000_000;
+/** The threshold applies to the total paid on one application over this many hours, so splitting does not avoid it. */
+export const DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS = 24;
 
 export const JSON_BODY_LIMIT = '1mb';
+/** better-auth's bodies are a few short fields (server/lib/auth-hooks.ts limits each one). */
+export const AUTH_BODY_LIMIT = '16kb';
 
 /** Builds the Express app without listening, so tests drive it in-process. */
 export function createApp(deps: AppDeps): Express {
@@ -72,10 +89,12 @@ export function createApp(deps: AppDeps): Express {
     logger,
     appUrl: deps.appUrl,
     mailbox: deps.mailbox,
+    mailboxKind: deps.mailboxKind ?? 'development',
     payments: deps.payments,
     recentAuth: {
       take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
+      paymentWindowHours: deps.reauth?.paymentWindowHours ?? DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS,
     },
     compute,
   };
@@ -83,6 +102,7 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders());
+  app.use('/api', noStore);
 
   app.get('/api/health', (_req, res) => {
     res.json({ status: 'ok', database: database.kind });
@@ -95,9 +115,20 @@ export function createApp(deps: AppDeps): Express {
   // Accepting creates an account or a membership without a session yet: it needs our own Origin as well.
   const csrf = csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]);
   app.use('/api/invitations', csrf);
-  app.use('/api', publicInvitationsRouter(ctx, auth));
-  // better-auth reads its own bodies: mount it before the JSON parser.
-  app.all('/api/auth/{*splat}', clientIpForAuth, toNodeHandler(auth));
+  app.use('/api', clientIpForAuth, publicInvitationsRouter(ctx, auth));
+  // better-auth's routes: bodies parsed here with the app's size limit (better-auth reads req.body when it is
+  // set), sessions past the absolute limit ended first, and a requested reset link sent once the answer is out.
+  app.post('/api/auth/request-password-reset', (_req, res, next) => {
+    res.on('finish', () => void ctx.outbox.flush());
+    next();
+  });
+  app.all(
+    '/api/auth/{*splat}',
+    clientIpForAuth,
+    express.json({ limit: AUTH_BODY_LIMIT }),
+    endAgedSessions(auth, db),
+    toNodeHandler(auth),
+  );
 
   app.use('/api', requireActor(auth, db));
   // The calculation API parses its own (larger) bodies, large ones in worker threads; everything else is limited
@@ -105,11 +136,21 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
-  app.use('/api', meRouter(db), projectsRouter(db), bidItemsRouter(db), inboxRouter(db));
+  app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
-  app.use('/api', changeOrdersRouter(ctx), varianceRouter(ctx), invitationsRouter(ctx), auditRouter(db), devMailboxRouter(ctx));
+  app.use(
+    '/api',
+    changeOrdersRouter(ctx),
+    varianceRouter(ctx),
+    invitationsRouter(ctx),
+    auditRouter(db),
+    devMailboxRouter(ctx),
+  );
   app.use('/api', talliesRouter(ctx), payAppsRouter(ctx));
   app.use('/api', paymentsRouter(ctx), lienWaiversRouter(ctx));
+  // Measurement and payment provisions (issue 15).
+  app.use('/api', measurementProfilesRouter(ctx), haulTicketsRouter(ctx), scaleTicketsRouter(ctx));
+  app.use('/api', forceAccountRouter(ctx), storedMaterialsRouter(ctx), payAdjustmentsRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

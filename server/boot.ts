@@ -5,19 +5,26 @@ import { createApp } from './app';
 import { createAuth } from './auth';
 import type { Database } from './db/client';
 import { runMigrations } from './db/migrate';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from './db/demo/demo-data';
 import { seedDemo } from './db/seed-demo';
 import { smtpMailer } from './integrations/mailer/mailer';
 import { startSmtpSink } from './integrations/mailer/smtp-sink';
 import { configurePayments } from './integrations/payments/configure';
 import { localStorage } from './integrations/storage/storage';
-import type { Env } from './env';
+import { isDemo, type Env } from './env';
 import { authSecret, type DataDirLayout } from './lib/data-dir';
 import type { Logger } from './lib/logger';
 import { appOrigins } from './lib/origins';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
-export type BootArgs = { env: Env; logger: Logger; layout: DataDirLayout; database: Database; unlock: () => Promise<void> };
+export type BootArgs = {
+  env: Env;
+  logger: Logger;
+  layout: DataDirLayout;
+  database: Database;
+  unlock: () => Promise<void>;
+};
 
 /** migrate -> seed -> createApp -> listen, on a database server/index.ts has opened; SIGTERM and SIGINT close cleanly. */
 export async function boot({ env, logger, layout, database, unlock }: BootArgs): Promise<void> {
@@ -31,19 +38,29 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     secret: authSecret(layout, env.BETTER_AUTH_SECRET),
     baseURL,
     trustedOrigins,
-    production: env.NODE_ENV === 'production' && baseURL.startsWith('https:'),
+    secureCookies: baseURL.startsWith('https:'),
+    logger,
   });
   const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
   const storage = localStorage(layout.uploads);
   if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');
 
+  // Without SMTP_URL (development, tests, the demo: production refuses to start without it) a local sink
+  // catches the mail; the Mailbox page shows each signed-in person their own, in development and the demo only.
+  const demo = isDemo(env);
   const mailbox = env.SMTP_URL ? undefined : await startSmtpSink();
   const mailer = smtpMailer(env.SMTP_URL ?? mailbox!.url, env.MAIL_FROM);
-  // The Mailbox page shows every caught message to any signed-in person (invitation links included): a development
-  // and demo aid (`npm start` turns it on). In production without SMTP_URL mail is still caught, but no page shows it.
-  const showMailbox = env.MAILBOX === 'on' || (env.MAILBOX === 'auto' && env.NODE_ENV !== 'production');
-  if (mailbox && showMailbox) logger.info('no SMTP_URL: mail goes to the local sink (Mailbox page)');
-  if (mailbox && !showMailbox) logger.warn('no SMTP_URL in production: mail is caught locally and nobody receives it; set SMTP_URL');
+  const showMailbox = mailbox && (env.NODE_ENV === 'development' || demo);
+  if (demo)
+    logger.warn(
+      'demo mode: mail stays in the demo Mailbox and payments go to the local Stripe stand-in; not for real use',
+    );
+  else if (mailbox)
+    logger.info(
+      showMailbox
+        ? 'no SMTP_URL: mail goes to the local sink (Mailbox page)'
+        : 'no SMTP_URL: mail goes to the local sink',
+    );
   const payments = await configurePayments(env, logger);
   const app = createApp({
     database,
@@ -52,6 +69,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     mailer,
     storage,
     mailbox: showMailbox ? mailbox : undefined,
+    mailboxKind: demo ? 'demo' : 'development',
     payments: payments.payments,
     appUrl: baseURL,
     reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
@@ -60,6 +78,14 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
     logger.info({ url: baseURL, database: database.kind }, `Tallyard is listening on ${baseURL}`);
+    // The demo's sign-ins, so a first start says where to go and who to be (same pino line format as the rest).
+    if (demo) {
+      const emails = DEMO_PEOPLE.map((p) => p.email);
+      logger.info(
+        { url: baseURL, signIns: emails },
+        `Open ${baseURL} and sign in as ${emails.join(', ')} (password ${DEMO_PASSWORD})`,
+      );
+    }
   });
 
   let closing = false;

@@ -11,15 +11,21 @@ const envSchema = z.object({
     .optional(),
   BETTER_AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   APP_URL: z.url().optional(),
-  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://').optional(),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://')
+    .optional(),
   MAIL_FROM: z.string().default('Tallyard <no-reply@tallyard.test>'),
   STRIPE_SECRET_KEY: z.string().optional(),
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
-  /** The Mailbox page (every caught message, to any signed-in person): `auto` shows it outside production. */
-  MAILBOX: z.enum(['auto', 'on', 'off']).default('auto'),
+  /**
+   * The demo `npm start` runs on the embedded database (`npm start` sets it unless DATABASE_URL or SMTP_URL is
+   * given): mail stays in the local sink (a labelled demo Mailbox), payments go to the local Stripe stand-in.
+   */
+  TALLYARD_DEMO: z.enum(['on', 'off']).default('off'),
   SEED_DEMO: z.enum(['auto', 'always', 'never']).default('auto'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
@@ -35,4 +41,35 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Tallyard cannot start: the configuration has problems:\n${lines.join('\n')}`);
   }
   return parsed.data;
+}
+
+/** What production needs to be a real deployment, and why; listed together when missing. */
+const PRODUCTION_NEEDS: [keyof Env, string][] = [
+  ['APP_URL', 'the public https address people open (links in e-mails, the trusted origin, Secure cookies)'],
+  ['SMTP_URL', 'the mail server for invitations and password reset links (without it nobody receives them)'],
+  ['STRIPE_SECRET_KEY', "Stripe's secret key (the local Stripe stand-in moves no money and runs only in the demo)"],
+  ['STRIPE_WEBHOOK_SECRET', "the signing secret of Stripe's webhook to /api/webhooks/stripe"],
+];
+
+/** True for the embedded-database demo `npm start` runs (mailbox, stand-in and no APP_URL allowed). */
+export const isDemo = (env: Env) => env.TALLYARD_DEMO === 'on' && !env.DATABASE_URL;
+
+/**
+ * Refuses to start a production server that is not set up as a real deployment: every missing setting is
+ * listed with what it is for. The demo (`npm start` on the embedded database) is exempt.
+ */
+export function assertDeployable(env: Env): void {
+  if (env.TALLYARD_DEMO === 'on' && env.DATABASE_URL) {
+    throw new Error(
+      'Tallyard cannot start: TALLYARD_DEMO=on runs only on the embedded database; unset it (or DATABASE_URL).',
+    );
+  }
+  if (env.NODE_ENV !== 'production' || isDemo(env)) return;
+  const missing = PRODUCTION_NEEDS.filter(([key]) => !env[key]);
+  if (missing.length === 0) return;
+  const lines = missing.map(([key, why]) => `  - ${key}: ${why}`);
+  throw new Error(
+    `Tallyard cannot start in production: these settings are missing:\n${lines.join('\n')}\n` +
+      'Set them (see README, "Configuration"), or run the demo with `npm start` on the embedded database.',
+  );
 }

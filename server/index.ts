@@ -1,7 +1,8 @@
 import { openDatabase } from './db/client';
-import { loadEnv } from './env';
+import { assertDeployable, loadEnv } from './env';
 import { dataDirLayout, lockDataDir } from './lib/data-dir';
 import { createLogger } from './lib/logger';
+import { installTestHooks } from './lib/test-hooks';
 
 /**
  * env -> lock -> db -> migrate -> seed -> createApp -> listen. The database opens while the rest of the server's
@@ -10,9 +11,11 @@ import { createLogger } from './lib/logger';
  */
 async function main() {
   const env = loadEnv();
+  assertDeployable(env);
   const logger = createLogger(env.LOG_LEVEL);
   const layout = dataDirLayout(env.DATA_DIR);
   const unlock = env.DATABASE_URL ? async () => {} : await lockDataDir(layout);
+  installTestHooks(env);
   const opening = openDatabase(env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db });
   opening.catch(() => {}); // awaited below, after the import; this only keeps a failure from counting as unhandled meanwhile
   const { boot } = await import('./boot');

@@ -11,7 +11,7 @@ export async function ensureBuilt(): Promise<void> {
   await buildServerIfStale();
 }
 
-/** The built app as `npm start` runs it (`node dist-server/index.js`, production), on this data folder. */
+/** The built app as `npm start` runs the demo (`node dist-server/index.js`, production, embedded), on this data folder. */
 export function startBuiltServer(dataDir: string, port: number) {
-  return startServerProcess(dataDir, port, { NODE_ENV: 'production' }, [SERVER_BUNDLE]);
+  return startServerProcess(dataDir, port, { NODE_ENV: 'production', TALLYARD_DEMO: 'on' }, [SERVER_BUNDLE]);
 }

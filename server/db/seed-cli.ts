@@ -21,8 +21,12 @@ const auth = createAuth({
   secret: authSecret(layout, env.BETTER_AUTH_SECRET),
   baseURL,
   trustedOrigins,
-  production: false,
+  secureCookies: false,
 });
-console.log((await seedDemo(database.db, auth, localStorage(layout.uploads))) ? 'Seeded the demo project.' : 'The demo project is already there.');
+console.log(
+  (await seedDemo(database.db, auth, localStorage(layout.uploads)))
+    ? 'Seeded the demo project.'
+    : 'The demo project is already there.',
+);
 await database.close();
 await unlock();

@@ -3,10 +3,12 @@ import type { CompanyKind } from '../../src/shared/constants';
 import type { Auth } from '../auth';
 import type { Storage } from '../integrations/storage/storage';
 import { seedPayCycle } from './demo/seed-pay-cycle';
+import { seedProvisions } from './demo/seed-provisions';
 import type { Db } from './client';
 import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from './demo/demo-data';
 import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
 import { recordAudit } from '../modules/audit/audit.repository';
+import { insertAccount, prepareAccount } from '../modules/accounts/accounts.service';
 
 /**
  * Seeds the demo scenario once. Returns false when the demo is already there (idempotent: a marker is the
@@ -15,19 +17,26 @@ import { recordAudit } from '../modules/audit/audit.repository';
 export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<boolean> {
   const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'gc@tallyard.test')).limit(1);
   if (existing) {
-    const [project] = await db.select({ id: projects.id }).from(projects).where(eq(projects.name, DEMO_PROJECT.name)).limit(1);
-    return project ? seedPayCycle(db, storage, project.id) : false;
+    const [project] = await db
+      .select({ id: projects.id })
+      .from(projects)
+      .where(eq(projects.name, DEMO_PROJECT.name))
+      .limit(1);
+    if (!project) return false;
+    const cycle = await seedPayCycle(db, storage, project.id);
+    return (await seedProvisions(db, project.id)) || cycle;
   }
 
-  const userIds = new Map<string, string>();
-  for (const person of DEMO_PEOPLE) {
-    const created = await auth.api.signUpEmail({
-      body: { email: person.email, password: DEMO_PASSWORD, name: person.name },
-    });
-    userIds.set(person.email, created.user.id);
-  }
+  // Hashed before the transaction (scrypt is slow); the demo people are created with everything else in it.
+  const accounts = await Promise.all(
+    DEMO_PEOPLE.map((person) =>
+      prepareAccount(auth, { email: person.email, name: person.name, password: DEMO_PASSWORD, emailVerified: true }),
+    ),
+  );
+  const userIds = new Map(accounts.map((a) => [a.email, a.id]));
 
   const projectId = await db.transaction(async (tx) => {
+    for (const prepared of accounts) await insertAccount(tx, prepared);
     const companyIds = {} as Record<CompanyKind, string>;
     for (const [kind, name] of Object.entries(DEMO_COMPANIES) as [CompanyKind, string][]) {
       const [row] = await tx.insert(companies).values({ kind, name }).returning({ id: companies.id });
@@ -50,7 +59,9 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
     const projectId = project!.id;
     for (const person of DEMO_PEOPLE) {
       if (!person.projectRole) continue;
-      await tx.insert(projectMembers).values({ projectId, userId: userIds.get(person.email)!, role: person.projectRole });
+      await tx
+        .insert(projectMembers)
+        .values({ projectId, userId: userIds.get(person.email)!, role: person.projectRole });
     }
     await tx.insert(bidItems).values(DEMO_BID_ITEMS.map((i) => ({ ...i, projectId })));
     await recordAudit(tx, {
@@ -64,5 +75,6 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
     return projectId;
   });
   await seedPayCycle(db, storage, projectId);
+  await seedProvisions(db, projectId);
   return true;
 }

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import { ZodError } from 'zod';
+import { isDomainError } from '../../src/shared/domain/domain-error';
 import { zodIssuesToDetails } from '../../src/shared/schemas/api-error';
 import { AppError } from '../lib/app-error';
 import type { Logger } from '../lib/logger';
@@ -19,6 +20,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       if (err.headers) res.set(err.headers);
       return send(err.status, err.code, err.message, err.details);
     }
+    // The engine's refusals that reach a route (an amount beyond a safe integer of cents, say) are the client's
+    // input, never a 500: 400 with the engine's code and field paths.
+    if (isDomainError(err)) return send(400, err.code, err.message, err.issues);
     if (err instanceof ZodError) {
       return send(400, 'VALIDATION_FAILED', 'Some fields need attention.', zodIssuesToDetails(err.issues));
     }

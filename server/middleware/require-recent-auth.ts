@@ -55,7 +55,7 @@ export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res:
     return async () => {
       const actor = getActor(res);
       if (typeof typed === 'string' && typed.length > 0) {
-        const wait = guard.retryAfter(actor.userId);
+        const wait = guard.retryAfter(actor.userId, req.ip ?? 'unknown');
         if (wait > 0) {
           throw new AppError(429, 'REAUTH_BACKOFF', `Too many wrong passwords. Try again in ${wait} seconds.`);
         }
@@ -64,12 +64,12 @@ export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res:
           .then((r) => r.status === true)
           .catch(() => false);
         if (!ok) {
-          guard.recordFailure(actor.userId);
+          guard.recordFailure(actor.userId, req.ip ?? 'unknown');
           throw new AppError(403, 'REAUTH_FAILED', 'That password is not right. Enter your Tallyard password.', [
             { path: REAUTH_FIELD, message: 'Wrong password.' },
           ]);
         }
-        guard.recordSuccess(actor.userId);
+        guard.recordSuccess(actor.userId, req.ip ?? 'unknown');
         return;
       }
       const age = now() - getSessionInfo(res).createdAt.getTime();

@@ -30,3 +30,9 @@ export function securityHeaders(production = process.env.NODE_ENV === 'productio
     referrerPolicy: { policy: 'same-origin' },
   });
 }
+
+/** Answers of the API are never kept by a browser or a proxy: they carry people's data (OWASP ASVS 4.0.3 8.2.1). */
+export const noStore: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};

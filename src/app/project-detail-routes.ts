@@ -5,5 +5,9 @@ import { RouteError } from './layout/route-error';
 export const PROJECT_DETAIL_ROUTES: RouteObject[] = [
   { path: 'tallies/:tallyId', lazy: () => import('./routes/project-tally'), ErrorBoundary: RouteError },
   { path: 'pay-apps/:payAppId', lazy: () => import('./routes/project-pay-app'), ErrorBoundary: RouteError },
-  { path: 'change-orders/:changeOrderId', lazy: () => import('./routes/project-change-order'), ErrorBoundary: RouteError },
+  {
+    path: 'change-orders/:changeOrderId',
+    lazy: () => import('./routes/project-change-order'),
+    ErrorBoundary: RouteError,
+  },
 ];

@@ -37,6 +37,12 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
   },
   {
+    path: 'pay-basis',
+    label: 'Pay basis',
+    screen: () => import('./routes/project-pay-basis'),
+    summary: 'How each item is measured and paid, with its loads, scale tickets, time-and-materials days, stored materials and deductions.',
+  },
+  {
     path: 'pay-apps',
     label: 'Pay apps',
     screen: () => import('./routes/project-pay-apps'),
@@ -54,13 +60,28 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     screen: () => import('./routes/project-quantity-watch'),
     summary: 'Forecast at completion against the contract quantity and the variation band.',
   },
-  { path: 'payments', label: 'Payments', screen: () => import('./routes/project-payments'), summary: 'Card and ACH payments of certified pay applications.' },
-  { path: 'waivers', label: 'Waivers', screen: () => import('./routes/project-waivers'), summary: 'Conditional and unconditional lien waivers tied to payments.' },
+  {
+    path: 'payments',
+    label: 'Payments',
+    screen: () => import('./routes/project-payments'),
+    summary: 'Card and ACH payments of certified pay applications.',
+  },
+  {
+    path: 'waivers',
+    label: 'Waivers',
+    screen: () => import('./routes/project-waivers'),
+    summary: 'Conditional and unconditional lien waivers tied to payments.',
+  },
   {
     path: 'people',
     label: 'People',
     screen: () => import('./routes/project-people'),
     summary: 'Members, their roles, and invitations.',
   },
-  { path: 'trail', label: 'Trail', screen: () => import('./routes/project-trail'), summary: 'Every change on this job: who, when, what, before and after.' },
+  {
+    path: 'trail',
+    label: 'Trail',
+    screen: () => import('./routes/project-trail'),
+    summary: 'Every change on this job: who, when, what, before and after.',
+  },
 ];

@@ -20,6 +20,18 @@ function tabRoute(tab: ProjectTab): RouteObject {
 export const routes: RouteObject[] = [
   { path: '/sign-in', lazy: () => import('./routes/sign-in'), ErrorBoundary: RouteError, HydrateFallback: PageLoading },
   {
+    path: '/forgot-password',
+    lazy: () => import('./routes/forgot-password'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
+  {
+    path: '/reset-password',
+    lazy: () => import('./routes/reset-password'),
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+  },
+  {
     path: '/invitations/:token',
     lazy: () => import('./routes/invitation-accept'),
     ErrorBoundary: RouteError,
@@ -36,6 +48,7 @@ export const routes: RouteObject[] = [
       { path: 'inbox', lazy: () => import('./routes/inbox'), ErrorBoundary: RouteError },
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
       { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
+      { path: 'account/password', lazy: () => import('./routes/account-password'), ErrorBoundary: RouteError },
       {
         path: 'projects/:projectId',
         lazy: () => import('./routes/project-shell'),

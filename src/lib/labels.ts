@@ -11,14 +11,18 @@ export const ROLE_LABELS: Record<AccessRole, string> = {
   subcontractor: 'Subcontractor',
   general_contractor: 'General contractor',
   owner: 'Owner',
-  admin: 'Admin',
+  subcontractor_admin: "Subcontractor's admin",
+  general_contractor_admin: "General contractor's admin",
+  owner_admin: "Owner's admin",
 };
 
 export const ROLE_TONES: Record<AccessRole, 'spruce' | 'clay' | 'neutral'> = {
   general_contractor: 'spruce',
   subcontractor: 'clay',
   owner: 'neutral',
-  admin: 'neutral',
+  subcontractor_admin: 'neutral',
+  general_contractor_admin: 'neutral',
+  owner_admin: 'neutral',
 };
 
 export const BASIS_LABELS: Record<MeasurementBasis, string> = {

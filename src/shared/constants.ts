@@ -10,8 +10,21 @@ export type CompanyKind = (typeof COMPANY_KINDS)[number];
 export const PROJECT_ROLES = ['subcontractor', 'general_contractor', 'owner'] as const;
 export type ProjectRole = (typeof PROJECT_ROLES)[number];
 
-/** Effective roles a policy checks: a project role, or `admin` for an admin of a party company. */
-export const ACCESS_ROLES = [...PROJECT_ROLES, 'admin'] as const;
+/**
+ * A company admin's role on a project whose party seat its company holds: it manages that company's people on the
+ * job (invitations, removals), and nothing of another company. Only the general contractor's admin also manages
+ * the contract.
+ */
+export const ADMIN_ROLES = ['subcontractor_admin', 'general_contractor_admin', 'owner_admin'] as const;
+export type AdminRole = (typeof ADMIN_ROLES)[number];
+export const ADMIN_ROLE_OF: Record<CompanyKind, AdminRole> = {
+  subcontractor: 'subcontractor_admin',
+  general_contractor: 'general_contractor_admin',
+  owner: 'owner_admin',
+};
+
+/** Effective roles a policy checks: a project role, or the admin role of the admin of a party company. */
+export const ACCESS_ROLES = [...PROJECT_ROLES, ...ADMIN_ROLES] as const;
 export type AccessRole = (typeof ACCESS_ROLES)[number];
 
 export const UNIT_SYSTEMS = ['us', 'metric'] as const;
@@ -278,7 +291,7 @@ export const MEASUREMENT_PROFILE_LABELS: Record<MeasurementProfile, string> = {
   worksheet: 'Measured on a worksheet',
   truck_measure: 'Counted loads (truck register)',
   weight: 'Weighed (scale tickets)',
-  lump_sum: 'Lump sum by percent',
+  lump_sum: 'Lump sum (percent or stages)',
   force_account: 'Time and materials (force account)',
 };
 

@@ -5,12 +5,13 @@ import { auditEvents, changeOrders, disputes, invitations, payAppLines, tallyEvi
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { makeChangeOrder, makeDailySheet, makeStoredMaterial } from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 
 // OWASP API Security Top 10 (2023) API1 (object level) and API5 (function level) authorization; OWASP ASVS
 // 4.0.3 section 4.1 and 4.2: every route says who may reach it, and a person of another project reads nothing.
-type Scope = 'public' | 'signed-in' | 'project';
+type Scope = 'public' | 'signed-in' | 'project' | 'company';
 /** Every route the app registers. A new route without an entry here fails the first test. */
 const ROUTES: Record<string, Scope> = {
   'GET /api/health': 'public',
@@ -43,7 +44,11 @@ const ROUTES: Record<string, Scope> = {
   'GET /api/projects/:projectId/invitations': 'project',
   'POST /api/projects/:projectId/invitations': 'project',
   'DELETE /api/invitations/:id': 'project',
+  'DELETE /api/projects/:projectId/members/:userId': 'project',
+  'GET /api/companies/:companyId/members': 'company',
+  'DELETE /api/companies/:companyId/members/:userId': 'company',
   'GET /api/projects/:projectId/audit': 'project',
+  'GET /api/projects/:projectId/audit.csv': 'project',
   'GET /api/pay-apps/:payAppId/audit': 'project',
   'GET /api/projects/:projectId/tallies': 'project',
   'POST /api/projects/:projectId/tallies': 'project',
@@ -72,6 +77,26 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/pay-apps/:payAppId/lien-waivers': 'project',
   'GET /api/projects/:projectId/lien-waivers': 'project',
   'GET /api/lien-waivers/:waiverId/pdf': 'project',
+  // Measurement and payment provisions (issue 15).
+  'GET /api/projects/:projectId/measurement-profiles': 'project',
+  'PUT /api/bid-items/:bidItemId/measurement-profile': 'project',
+  'GET /api/projects/:projectId/trucks': 'project',
+  'POST /api/projects/:projectId/trucks': 'project',
+  'GET /api/projects/:projectId/truck-tickets': 'project',
+  'POST /api/projects/:projectId/truck-tickets': 'project',
+  'POST /api/projects/:projectId/truck-tickets/import': 'project',
+  'GET /api/projects/:projectId/material-sources': 'project',
+  'POST /api/projects/:projectId/material-sources': 'project',
+  'GET /api/projects/:projectId/scale-tickets': 'project',
+  'POST /api/projects/:projectId/scale-tickets': 'project',
+  'GET /api/projects/:projectId/daily-sheets': 'project',
+  'POST /api/projects/:projectId/daily-sheets': 'project',
+  'POST /api/daily-sheets/:sheetId/sign': 'project',
+  'GET /api/projects/:projectId/stored-materials': 'project',
+  'POST /api/projects/:projectId/stored-materials': 'project',
+  'POST /api/stored-materials/:storedMaterialId/movements': 'project',
+  'GET /api/projects/:projectId/pay-adjustments': 'project',
+  'POST /api/projects/:projectId/pay-adjustments': 'project',
 };
 
 let t: TestApp;
@@ -136,7 +161,11 @@ beforeAll(async () => {
     waiverId: '00000000-0000-4000-8000-000000000009',
     token: 'not-a-token',
     method: 'grid',
+    userId: w.people.subcontractor.id,
+    companyId: w.companies.sub.id,
     'change-orders/:id': co!.id,
+    sheetId: (await makeDailySheet(db, w.home.id, (await makeChangeOrder(db, w.home.id, gc)).id, gc)).id,
+    storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
     'invitations/:id': invitation!.id,
   };
 });
@@ -192,7 +221,8 @@ describe('the authorization matrix', () => {
   it("never lets a member of another project see that this project's objects exist, and writes nothing", async () => {
     const outsider = await signedInAgent(t.app, w.outsider.email);
     const before = await writes();
-    for (const route of registeredRoutes(t.app).filter((r) => ROUTES[r] === 'project')) {
+    // A company's own routes (its people) answer the same to anyone outside the company.
+    for (const route of registeredRoutes(t.app).filter((r) => ROUTES[r] === 'project' || ROUTES[r] === 'company')) {
       const res = await send(outsider, route);
       const absent = await send(outsider, route, true);
       // 404, or a body refused by its schema before any lookup: either way the same answer as for an id that

@@ -11,6 +11,8 @@ import {
   payApps,
   payments,
   projects,
+  companyMembers,
+  user,
 } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
@@ -59,6 +61,10 @@ beforeAll(async () => {
   const gc = world.people.general_contractor.id;
   const app = (number: number, status: PayAppStatus, projectId = world.home.id) =>
     makeCertifiedPayApp(db, projectId, sub, { number, status });
+  // Waivers are signed under the account's own name; the outsider administers its general contractor company, so it
+  // follows the invitations to that company's seat on its own job.
+  await db.update(user).set({ name: 'Dana Whitfield' }).where(eq(user.id, sub));
+  await db.update(companyMembers).set({ isAdmin: true }).where(eq(companyMembers.userId, world.outsider.id));
   ids.draft = (await app(1, 'draft')).id;
   ids.submitted = (await app(2, 'submitted')).id;
   ids.inReview = (await app(3, 'in_review')).id;
@@ -108,7 +114,7 @@ beforeAll(async () => {
   const invite = (email: string, projectId: string, expiresAt: Date) =>
     db
       .insert(invitations)
-      .values({ projectId, email, role: 'owner', tokenHash: `inbox-${email}`, invitedByUserId: gc, expiresAt })
+      .values({ projectId, email, role: 'general_contractor', tokenHash: `inbox-${email}`, invitedByUserId: gc, expiresAt })
       .returning();
   ids.invitation = (await invite('new.owner@example.test', world.home.id, new Date(Date.now() + 7 * DAY)))[0]!.id;
   ids.expiredInvitation = (await invite('late.owner@example.test', world.home.id, new Date(Date.now() - DAY)))[0]!.id;
@@ -166,7 +172,7 @@ describe('GET /api/inbox', () => {
     expect(v.counts.byKind).toEqual({ pay_app_submit: 1, pay_app_answer: 1, waiver_sign: 3 });
   });
 
-  it('the general contractor: review the submitted, certify the one in review, decide the change order, follow invitations', async () => {
+  it('the general contractor: review the submitted, certify the one in review, decide the change order', async () => {
     const v = await inboxOf(agents.general_contractor);
     expect(find(v, ids.submitted)).toMatchObject({ kind: 'pay_app_review', title: 'Review pay application 2' });
     expect(find(v, ids.inReview)).toMatchObject({ kind: 'pay_app_certify', title: 'Certify pay application 3' });
@@ -175,15 +181,8 @@ describe('GET /api/inbox', () => {
       title: 'Decide change order 1: Extra rock',
       href: `/projects/${world.home.id}/change-orders/${ids.changeOrder}`,
     });
-    expect(find(v, ids.invitation)).toMatchObject({
-      kind: 'invitation_pending',
-      title: 'Invitation to new.owner@example.test not accepted yet',
-      overdue: false,
-    });
-    expect(find(v, ids.expiredInvitation)).toMatchObject({
-      title: 'Invitation to late.owner@example.test expired: send a new one',
-      overdue: true,
-    });
+    // Invitations are followed by the admin of the seat's company, not by a person of the seat (issue 10).
+    expect(find(v, ids.invitation)).toBeUndefined();
     expect(find(v, `unconditional_progress:${ids.paid}`)).toMatchObject({
       kind: 'waiver_request',
       title: 'Ask for the unconditional progress waiver on pay application 7',
@@ -240,9 +239,23 @@ describe('GET /api/inbox', () => {
     }
   });
 
-  it('the admin of the general contractor follows the invitations and takes no pay application step', async () => {
+  it('the admin of the general contractor follows the invitations to its seat and takes no pay application step', async () => {
     const v = await inboxOf(agents.admin);
     expect(v.entries.map((e) => e.kind).sort()).toEqual(['invitation_pending', 'invitation_pending']);
+    expect(find(v, ids.invitation)).toMatchObject({
+      kind: 'invitation_pending',
+      title: 'Invitation to new.owner@example.test not accepted yet',
+      overdue: false,
+    });
+    expect(find(v, ids.expiredInvitation)).toMatchObject({
+      title: 'Invitation to late.owner@example.test expired: send a new one',
+      overdue: true,
+    });
+  });
+
+  it("another company's admin does not follow the general contractor's invitations", async () => {
+    const v = await inboxOf(await signedInAgent(t.app, world.people.owner_admin.email));
+    expect(v.entries.filter((e) => e.kind === 'invitation_pending')).toEqual([]);
   });
 
   it('another job’s items never appear, and the outsider sees only its own job', async () => {

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { lienWaivers, projects } from '../../server/db/schema';
+import { lienWaivers, projects, user } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { confirm, startPayment } from '../setup/payment-flow';
@@ -21,6 +21,8 @@ beforeAll(async () => {
   world = await makeWorld(t.database.db, t.auth);
   // A California job: its waivers must name Civil Code sections 8132 to 8138 (reference.md).
   await t.database.db.update(projects).set({ state: 'CA' }).where(eq(projects.id, world.home.id));
+  // Waivers are signed under the signer's account name: the subcontractor's person is Dana Whitfield.
+  await t.database.db.update(user).set({ name: 'Dana Whitfield' }).where(eq(user.id, world.people.subcontractor.id));
   sub = await signedInAgent(t.app, world.people.subcontractor.email);
   owner = await signedInAgent(t.app, world.people.owner.email);
 });
@@ -97,7 +99,8 @@ describe('lien waivers', () => {
     const noName = await issue(app.id, { kind: 'conditional_progress', signedName: ' ' });
     expect(noName.status).toBe(400);
     expect(noName.body.error.details[0].path).toBe('signedName');
-    for (const role of ['owner', 'general_contractor', 'admin'] as const) {
+    // The subcontractor company's admin holds no seat here: it does not sign either.
+    for (const role of ['owner', 'general_contractor', 'admin', 'subcontractor_admin'] as const) {
       const agent = await signedInAgent(t.app, world.people[role].email);
       expect((await agent.post(`/api/pay-apps/${app.id}/lien-waivers`).send({ kind: 'conditional_progress', signedName: 'X Y' })).status, role).toBe(403);
     }

@@ -192,11 +192,19 @@ describe('who may pay, what, and how much', () => {
     expect(await t.database.db.select().from(payments).where(eq(payments.payAppId, app.id))).toHaveLength(0);
   });
 
-  it.each(['draft', 'submitted', 'in_review', 'returned', 'paid'] as const)('refuses a %s application with 409 PAY_APP_NOT_PAYABLE', async (status) => {
+  it.each(['paid'] as const)('refuses a %s application with 409 PAY_APP_NOT_PAYABLE', async (status) => {
     const app = await newApp({ status });
     const res = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('PAY_APP_NOT_PAYABLE');
+  });
+
+  // The owner sees an application only once certified: before that, paying it answers as for one that does not exist.
+  it.each(['draft', 'submitted', 'in_review', 'returned'] as const)('answers the owner 404 for a %s application and charges nothing', async (status) => {
+    const app = await newApp({ status });
+    const res = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
+    expect(res.status).toBe(404);
+    expect(await t.database.db.select().from(payments).where(eq(payments.payAppId, app.id))).toHaveLength(0);
   });
 
   it('partial amounts: refused unless the project allows them, never above the balance, then the rest', async () => {

@@ -35,7 +35,9 @@ describe('GET /api/projects', () => {
 
   it('shows a company admin the projects of the company as admin', async () => {
     const res = await (await as('admin')).get('/api/projects');
-    expect(res.body.projects.map((p: { name: string; myRoles: string[] }) => [p.name, p.myRoles])).toEqual([['Home', ['admin']]]);
+    expect(res.body.projects.map((p: { name: string; myRoles: string[] }) => [p.name, p.myRoles])).toEqual([
+      ['Home', ['general_contractor_admin']],
+    ]);
   });
 });
 

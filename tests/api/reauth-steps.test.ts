@@ -1,9 +1,10 @@
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS } from '../../server/app';
-import { auditEvents, payApps, payments, session } from '../../server/db/schema';
+import { auditEvents, payApps, payments, projects, session } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
-import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { allowPartialPayments, makeCertifiedPayApp } from '../setup/payment-factories';
+import { confirm, startPayment } from '../setup/payment-flow';
 import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
 
 /** Every flag of the application, acknowledged: these tests certify after looking at them. */
@@ -121,5 +122,26 @@ describe('paying a certified application', () => {
     expect(app.currentDueCents).toBe(450_000);
     const res = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
     expect(res.status, JSON.stringify(res.body)).toBe(201);
+  });
+  it('counts the total paid on the application within the window: two payments just under the threshold ask the second time', async () => {
+    const owner = await signedInAgent(t.app, w.people.owner.email);
+    await ageSessions(w.people.owner.id, 11);
+    await allowPartialPayments(t.database.db, w.home.id);
+    try {
+      // 2,000 CY x $12.00 = $24,000.00, less 10% retainage = $21,600.00 due (by hand): room for two payments of $9,999.99.
+      const app = await newApp('certified', [{ quantity: 2000, unitPriceCents: 1200 }]);
+      expect(app.currentDueCents).toBe(2_160_000);
+      // $9,999.99 is at or below the $10,000.00 threshold: no password the first time.
+      const first = await startPayment(owner, app.id, { partialAmountCents: 999_999 });
+      await confirm(t.standin, first.sessionId, { card: '4242 4242 4242 4242' });
+      const asked = await owner.post(`/api/pay-apps/${app.id}/payments`).send({ partialAmountCents: 999_999 });
+      expect(asked.status, JSON.stringify(asked.body)).toBe(403);
+      expect(asked.body.error.code).toBe('REAUTH_REQUIRED');
+      expect(await paymentCount(app.id)).toBe(1);
+      const ok = await owner.post(`/api/pay-apps/${app.id}/payments`).send({ partialAmountCents: 999_999, reauthPassword: TEST_PASSWORD });
+      expect(ok.status, JSON.stringify(ok.body)).toBe(201);
+    } finally {
+      await t.database.db.update(projects).set({ allowPartialPayments: false }).where(eq(projects.id, w.home.id));
+    }
   });
 });

@@ -2,25 +2,48 @@ import { count } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PayAppStatus } from '../../src/shared/constants';
-import { auditEvents, changeOrders, disputes, invitations, payAppLines } from '../../server/db/schema';
+import {
+  auditEvents,
+  changeOrders,
+  companyMembers,
+  disputes,
+  invitations,
+  payAppLines,
+  projectMembers,
+  user,
+} from '../../server/db/schema';
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { FILES, makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { makeChangeOrder, makeDailySheet, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { eq } from 'drizzle-orm';
 
 // OWASP API Security Top 10 (2023) API5, broken function level authorization, and API1, object level; OWASP ASVS
 // 4.0.3 section 4.1.3 (least privilege) and 4.2.1. The product brief's roles: the subcontractor measures, bills and
-// signs waivers; the general contractor manages the contract, reviews and certifies; the owner pays; a company
-// admin manages the contract and its people as the general contractor does. Each route is called by each role
+// signs waivers; the general contractor manages the contract, reviews and certifies; the owner pays; each party
+// company's admin manages its own company's people (its seat's invitations and removals), and only the general
+// contractor's admin (`admin`) also manages the contract. Each route is called by each role
 // with a body that passes validation, so the answer is the role rule's and not the schema's: a role that may not
 // gets 403 and nothing is written; a role that may gets past authorization (a 2xx, or the listed state answer).
-type Role = 'subcontractor' | 'general_contractor' | 'owner' | 'admin';
-const ROLES: Role[] = ['subcontractor', 'general_contractor', 'owner', 'admin'];
+type Role = 'subcontractor' | 'general_contractor' | 'owner' | 'admin' | 'subcontractor_admin' | 'owner_admin';
+const ROLES: Role[] = ['subcontractor', 'general_contractor', 'owner', 'admin', 'subcontractor_admin', 'owner_admin'];
 const ALL = ROLES;
 const CONTRACT: Role[] = ['general_contractor', 'admin'];
 const SUB: Role[] = ['subcontractor'];
+/** Each party company's admin, for its own seat's people. */
+const ADMINS: Role[] = ['admin', 'subcontractor_admin', 'owner_admin'];
+const SEAT_OF: Partial<Record<Role, string>> = {
+  admin: 'general_contractor',
+  subcontractor_admin: 'subcontractor',
+  owner_admin: 'owner',
+};
+/** A company's own people list and removals: another company's people do not see the company at all. */
+const NOT_OF_SUB_COMPANY: Role[] = ['general_contractor', 'owner', 'admin', 'owner_admin'];
+const FIELD: Role[] = ['subcontractor', 'general_contractor'];
+const TRUCK_TICKET = { deliveredOn: '2026-05-04', truckLabel: 'T-12', material: 'Select borrow', source: 'Hollis pit', loadedAt: 'Face 2', deliveredTo: 'Sta 14+00', loadCheckerInitials: 'RB', deliveryCheckerInitials: 'MK' };
+const TRUCK_TICKET_CSV = 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
 
 type Fixture = {
   projectId: string;
@@ -37,12 +60,21 @@ type Fixture = {
   waiverId: string;
   method: string;
   token: string;
+  /** A person of the subcontractor company seated on the project, for the removal routes. */
+  userId: string;
+  companyId: string;
+  truckItemId: string;
+  weightItemId: string;
+  sourceId: string;
+  approvedChangeOrderId: string;
+  sheetId: string;
+  storedMaterialId: string;
 };
 type Rule = {
   may: Role[];
   /** The pay application's state the step needs (default certified). */
   payApp?: PayAppStatus;
-  body?: (f: Fixture) => object;
+  body?: (f: Fixture, role: Role) => object;
   upload?: { field: string; bytes: Buffer; name: string };
   /** Answers other than 2xx that still show the role got through (a state the fixture cannot reach cheaply). */
   passes?: number[];
@@ -50,7 +82,7 @@ type Rule = {
   hiddenFrom?: Role[];
 };
 // The owner sees pay applications once certified (product brief, roles): an earlier one is not there for the owner.
-const OWNER_SEES_CERTIFIED: Role[] = ['owner'];
+const OWNER_SEES_CERTIFIED: Role[] = ['owner', 'owner_admin'];
 
 const RULES: Record<string, Rule> = {
   'POST /api/calc/:method': { may: ALL, body: () => ({ points: [], cellSize: 10 }), passes: [400] },
@@ -115,13 +147,21 @@ const RULES: Record<string, Rule> = {
     may: ['subcontractor', 'general_contractor'],
     passes: [409],
   },
-  'GET /api/projects/:projectId/invitations': { may: CONTRACT },
+  'GET /api/projects/:projectId/invitations': { may: ADMINS },
   'POST /api/projects/:projectId/invitations': {
-    may: CONTRACT,
-    body: () => ({ email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`, role: 'owner' }),
+    may: ADMINS,
+    body: (_f, role) => ({
+      email: `new-${Math.random().toString(36).slice(2, 8)}@example.test`,
+      role: SEAT_OF[role] ?? 'owner',
+    }),
   },
-  'DELETE /api/invitations/:id': { may: CONTRACT },
+  // The fixture's invitation is to the owner seat: the owner's admin revokes it.
+  'DELETE /api/invitations/:id': { may: ['owner_admin'] },
+  'DELETE /api/projects/:projectId/members/:userId': { may: ['subcontractor_admin'] },
+  'GET /api/companies/:companyId/members': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
+  'DELETE /api/companies/:companyId/members/:userId': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'GET /api/projects/:projectId/audit': { may: ALL },
+  'GET /api/projects/:projectId/audit.csv': { may: ALL },
   'GET /api/pay-apps/:payAppId/audit': { may: ALL },
   'GET /api/projects/:projectId/tallies': { may: ALL },
   'POST /api/projects/:projectId/tallies': {
@@ -189,11 +229,32 @@ const RULES: Record<string, Rule> = {
   'GET /api/projects/:projectId/payments': { may: ALL },
   'POST /api/pay-apps/:payAppId/lien-waivers': {
     may: SUB,
-    body: () => ({ kind: 'conditional_final', signedName: 'Dana Whitfield' }),
+    body: (_f, role) => ({ kind: 'conditional_final', signedName: accountName(role) }),
     passes: [409],
   },
   'GET /api/projects/:projectId/lien-waivers': { may: ALL },
   'GET /api/lien-waivers/:waiverId/pdf': { may: ALL },
+  // Measurement and payment provisions (issue 15): the contract side sets how an item is paid; either contractor
+  // keeps the field records; the owner reads them.
+  'GET /api/projects/:projectId/measurement-profiles': { may: ALL },
+  'PUT /api/bid-items/:bidItemId/measurement-profile': { may: CONTRACT, body: () => ({ profile: 'truck_measure' }) },
+  'GET /api/projects/:projectId/trucks': { may: ALL },
+  'POST /api/projects/:projectId/trucks': { may: FIELD, body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }) },
+  'GET /api/projects/:projectId/truck-tickets': { may: ALL },
+  'POST /api/projects/:projectId/truck-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }) },
+  'POST /api/projects/:projectId/truck-tickets/import': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, csv: TRUCK_TICKET_CSV }) },
+  'GET /api/projects/:projectId/material-sources': { may: ALL },
+  'POST /api/projects/:projectId/material-sources': { may: FIELD, body: () => ({ name: `Pit ${++serial}`, weighedLoads: [{ netTons: 18.42, volumeCy: 12.5 }, { netTons: 19.1, volumeCy: 13 }, { netTons: 18.75, volumeCy: 12.7 }] }) },
+  'GET /api/projects/:projectId/scale-tickets': { may: ALL },
+  'GET /api/projects/:projectId/daily-sheets': { may: ALL },
+  'POST /api/projects/:projectId/daily-sheets': { may: FIELD, body: (f) => ({ changeOrderId: f.approvedChangeOrderId, workedOn: '2026-06-09', description: 'Muck removal', labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }], equipment: [], materials: [], markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 } }) },
+  'POST /api/daily-sheets/:sheetId/sign': { may: FIELD },
+  'GET /api/projects/:projectId/stored-materials': { may: ALL },
+  'POST /api/projects/:projectId/stored-materials': { may: FIELD, body: (f) => ({ bidItemId: f.bidItemId, description: '24 in RCP', unit: 'LF', unitCostCents: 5840, neededQuantity: 400, storedAt: 'East yard' }) },
+  'POST /api/stored-materials/:storedMaterialId/movements': { may: FIELD, body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }) },
+  'GET /api/projects/:projectId/pay-adjustments': { may: ALL },
+  'POST /api/projects/:projectId/pay-adjustments': { may: CONTRACT, body: () => ({ kind: 'liquidated_damages', appliesOn: '2026-11-30', description: 'Late', daysOverrun: 2, dailyCents: 285_000 }) },
+  'POST /api/projects/:projectId/scale-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.weightItemId, sourceId: f.sourceId, ticketNumber: `S-${++serial}`, weighedOn: '2026-05-04', grossTons: 33.85, tareTons: 13.85, material: 'Base', scaleCheckerInitials: 'JT', deliveryCheckerInitials: 'MK' }) },
 };
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
 const OUTSIDE_ROLES = [
@@ -207,6 +268,8 @@ let t: TestApp;
 let w: Awaited<ReturnType<typeof makeWorld>>;
 const agents = {} as Record<Role, ReturnType<typeof request.agent>>;
 let serial = 100;
+/** The factories name each person after their e-mail's local part. */
+const accountName = (role: Role) => w.people[role].email.split('@')[0]!;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -262,11 +325,16 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
       expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
+  const approved = await makeChangeOrder(db, w.home.id, gc);
   let waiverId = '00000000-0000-4000-8000-00000000beef';
+  const userId = `crew-${serial}`;
+  await db.insert(user).values({ id: userId, name: `Crew ${serial}`, email: `crew-${serial}@example.test` });
+  await db.insert(companyMembers).values({ userId, companyId: w.companies.sub.id });
+  await db.insert(projectMembers).values({ projectId: w.home.id, userId, role: 'subcontractor' });
   if (payAppStatus === 'certified') {
     const waiver = await agents.subcontractor
       .post(`/api/pay-apps/${app.id}/lien-waivers`)
-      .send({ kind: 'conditional_progress', signedName: 'Dana Whitfield' });
+      .send({ kind: 'conditional_progress', signedName: accountName('subcontractor') });
     waiverId = waiver.body.waiver?.id ?? waiverId;
   }
   return {
@@ -283,6 +351,14 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     waiverId,
     method: 'grid',
     token: 'x',
+    userId,
+    companyId: w.companies.sub.id,
+    truckItemId: (await makeProfiledItem(db, w.home.id, 'truck_measure')).id,
+    weightItemId: (await makeProfiledItem(db, w.home.id, 'weight', { payUnit: 'TON' })).id,
+    sourceId: (await makeSource(db, w.home.id)).id,
+    approvedChangeOrderId: approved.id,
+    sheetId: (await makeDailySheet(db, w.home.id, approved.id, gc)).id,
+    storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
   };
 }
 
@@ -306,7 +382,7 @@ function call(role: Role, route: string, f: Fixture) {
       subcontractorCompanyId: w.companies.sub.id,
       ownerCompanyId: w.companies.owner.id,
     });
-  if (method !== 'GET' && method !== 'DELETE') req = req.send(rule.body?.(f) ?? {});
+  if (method !== 'GET' && method !== 'DELETE') req = req.send(rule.body?.(f, role) ?? {});
   return req;
 }
 

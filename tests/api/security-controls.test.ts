@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { session } from '../../server/db/schema';
-import { makeWorld } from '../setup/factories';
+import { makeUser, makeWorld } from '../setup/factories';
 import { createTestApp, signedInAgent, TEST_ORIGIN, TEST_PASSWORD, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -13,10 +13,17 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const newProject = () => ({ name: 'Csrf check', subcontractorCompanyId: world.companies.sub.id, ownerCompanyId: world.companies.owner.id });
+const newProject = () => ({
+  name: 'Csrf check',
+  subcontractorCompanyId: world.companies.sub.id,
+  ownerCompanyId: world.companies.owner.id,
+});
 
 async function sessionCookie(email: string): Promise<string> {
-  const res = await request(t.app).post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).send({ email, password: TEST_PASSWORD });
+  const res = await request(t.app)
+    .post('/api/auth/sign-in/email')
+    .set('Origin', TEST_ORIGIN)
+    .send({ email, password: TEST_PASSWORD });
   expect(res.status).toBe(200);
   return (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
 }
@@ -41,7 +48,11 @@ describe('CSRF protection on the app routes (ASVS 4.0.3 4.2.2; OWASP CSRF cheat 
 
   it('refuses a POST with the session cookie from another origin with 403 CSRF_REJECTED', async () => {
     const cookie = await sessionCookie(world.people.general_contractor.email);
-    const res = await request(t.app).post('/api/projects').set('Cookie', cookie).set('Origin', 'https://evil.example').send(newProject());
+    const res = await request(t.app)
+      .post('/api/projects')
+      .set('Cookie', cookie)
+      .set('Origin', 'https://evil.example')
+      .send(newProject());
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('CSRF_REJECTED');
     expect(res.body.error.message).toMatch(/another site/);
@@ -64,12 +75,19 @@ describe('CSRF protection on the app routes (ASVS 4.0.3 4.2.2; OWASP CSRF cheat 
   it('lets GET through without an Origin, and a same-origin fetch-metadata POST', async () => {
     const cookie = await sessionCookie(world.people.general_contractor.email);
     expect((await request(t.app).get('/api/projects').set('Cookie', cookie)).status).toBe(200);
-    const same = await request(t.app).post('/api/projects').set('Cookie', cookie).set('Sec-Fetch-Site', 'same-origin').send(newProject());
+    const same = await request(t.app)
+      .post('/api/projects')
+      .set('Cookie', cookie)
+      .set('Sec-Fetch-Site', 'same-origin')
+      .send(newProject());
     expect(same.status).toBe(201);
   });
 
   it('refuses accepting an invitation from another site, before any session exists', async () => {
-    const res = await request(t.app).post('/api/invitations/some-token/accept').set('Origin', 'https://evil.example').send({ name: 'X', password: 'gravel-and-loam-2026' });
+    const res = await request(t.app)
+      .post('/api/invitations/some-token/accept')
+      .set('Origin', 'https://evil.example')
+      .send({ name: 'X', password: 'gravel-and-loam-2026' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('CSRF_REJECTED');
   });
@@ -81,17 +99,24 @@ describe('CSRF protection on the app routes (ASVS 4.0.3 4.2.2; OWASP CSRF cheat 
 });
 
 describe('passwords (ASVS 4.0.3 2.1.1 length, 2.1.7 breached and common passwords)', () => {
-  const signUp = (password: string) =>
-    request(t.app).post('/api/auth/sign-up/email').set('Origin', TEST_ORIGIN).send({ email: `pw-${Math.random()}@example.test`, password, name: 'Pw' });
+  // Public sign-up is off: a new password is chosen by changing it (here), on reset, or accepting an invitation.
+  let email: string;
+  beforeAll(async () => {
+    ({ email } = await makeUser(t.database.db, t.auth, world.companies.sub.id));
+  });
+  const changeTo = async (newPassword: string) =>
+    (await signedInAgent(t.app, email))
+      .post('/api/auth/change-password')
+      .send({ currentPassword: TEST_PASSWORD, newPassword });
 
   it('refuses a password shorter than 12 characters', async () => {
-    const res = await signUp('short-pw-11');
+    const res = await changeTo('short-pw-11');
     expect(res.status).toBe(400);
   });
 
   it('refuses a common password of 12 or more characters with a clear message', async () => {
     for (const pw of ['password1234', 'QWERTYUIOPAS', 'aaaaaaaaaaaaaa']) {
-      const res = await signUp(pw);
+      const res = await changeTo(pw);
       expect(res.status).toBe(400);
       expect(res.body.code).toBe('PASSWORD_NOT_ALLOWED');
       expect(res.body.message).toMatch(/common passwords/);
@@ -99,13 +124,16 @@ describe('passwords (ASVS 4.0.3 2.1.1 length, 2.1.7 breached and common password
   });
 
   it('accepts a long uncommon password', async () => {
-    expect((await signUp('gravel-basin-quarry-71')).status).toBe(200);
+    expect((await changeTo('gravel-basin-quarry-71')).status).toBe(200);
   });
 });
 
 describe('session cookie and lifetimes (ASVS 4.0.3 3.4.1-3.4.3, 3.3.2)', () => {
   it('sets the session cookie HttpOnly and SameSite=Lax', async () => {
-    const res = await request(t.app).post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).send({ email: world.people.owner.email, password: TEST_PASSWORD });
+    const res = await request(t.app)
+      .post('/api/auth/sign-in/email')
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: world.people.owner.email, password: TEST_PASSWORD });
     const cookie = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.includes('session_token'))!;
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
@@ -126,7 +154,10 @@ describe('session cookie and lifetimes (ASVS 4.0.3 3.4.1-3.4.3, 3.3.2)', () => {
   it('ends an idle session once its expiry passes', async () => {
     const agent = await signedInAgent(t.app, world.people.subcontractor.email);
     const db = t.database.db;
-    await db.update(session).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(session.userId, world.people.subcontractor.id));
+    await db
+      .update(session)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(session.userId, world.people.subcontractor.id));
     expect((await agent.get('/api/projects')).status).toBe(401);
   });
 });

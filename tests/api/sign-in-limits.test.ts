@@ -31,33 +31,57 @@ describe('per-account limit on failed sign-ins (ASVS 4.0.3 2.2.1)', () => {
     expect((await signIn(other.email, TEST_PASSWORD)).status).toBe(200);
   });
 
+  it('cannot be used to lock the real person out: the right password from another address still signs in', async () => {
+    const company = await makeCompany(t.database.db, 'owner');
+    const { email } = await makeUser(t.database.db, t.auth, company.id);
+    // 'trust proxy' is loopback: supertest's requests come from loopback, so X-Forwarded-For names the client here.
+    const attacker = { 'X-Forwarded-For': '203.0.113.66' };
+    for (let i = 0; i < FREE_FAILURES + 3; i++)
+      expect((await signIn(email, 'wrong-password-here', attacker)).status).toBeGreaterThanOrEqual(401);
+    expect((await signIn(email, TEST_PASSWORD, attacker)).status).toBe(429);
+    const res = await signIn(email, TEST_PASSWORD, { 'X-Forwarded-For': '198.51.100.23' });
+    expect(res.status).toBe(200);
+  });
+
   it('doubles the wait per failure up to a minute and caps failures at 100 an hour', () => {
     const now = 0;
     const guard = createSignInGuard(() => now);
-    for (let i = 0; i < FREE_FAILURES; i++) guard.recordFailure('a@x.test');
-    expect(guard.retryAfter('A@X.test')).toBe(1);
-    guard.recordFailure('a@x.test');
-    expect(guard.retryAfter('a@x.test')).toBe(2);
-    for (let i = 0; i < 20; i++) guard.recordFailure('a@x.test');
-    expect(guard.retryAfter('a@x.test')).toBe(60);
-    guard.recordSuccess('a@x.test');
-    expect(guard.retryAfter('a@x.test')).toBe(0);
+    const ip = '198.51.100.1';
+    for (let i = 0; i < FREE_FAILURES; i++) guard.recordFailure('a@x.test', ip);
+    expect(guard.retryAfter('A@X.test', ip)).toBe(1);
+    guard.recordFailure('a@x.test', ip);
+    expect(guard.retryAfter('a@x.test', ip)).toBe(2);
+    for (let i = 0; i < 20; i++) guard.recordFailure('a@x.test', ip);
+    expect(guard.retryAfter('a@x.test', ip)).toBe(60);
+    guard.recordSuccess('a@x.test', ip);
+    expect(guard.retryAfter('a@x.test', ip)).toBe(0);
   });
 
-  it('refuses the account for the rest of the hour at 100 failures in a rolling hour', () => {
+  it('refuses the account for the rest of the hour at 100 failures in a rolling hour, from every address without a recent sign-in', () => {
     let now = 0;
     const guard = createSignInGuard(() => now);
+    const attacker = (i: number) => `203.0.113.${i % 200}`;
     for (let i = 0; i < MAX_FAILURES_PER_HOUR - 1; i++) {
-      guard.recordFailure('b@x.test');
-      guard.recordSuccess('b@x.test'); // ends the back-off, not the hourly count
+      guard.recordFailure('b@x.test', attacker(i));
       now += 1000;
     }
-    expect(guard.retryAfter('b@x.test')).toBe(0);
-    guard.recordFailure('b@x.test');
-    guard.recordSuccess('b@x.test');
-    expect(guard.retryAfter('b@x.test')).toBe(3600 - (MAX_FAILURES_PER_HOUR - 1));
+    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
+    guard.recordFailure('b@x.test', attacker(MAX_FAILURES_PER_HOUR));
+    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(3600 - (MAX_FAILURES_PER_HOUR - 1));
     now = 3600_001;
-    expect(guard.retryAfter('b@x.test')).toBe(0);
+    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
+  });
+
+  it("keeps the owner's usual address open while the account is at its hourly ceiling", () => {
+    let now = 0;
+    const guard = createSignInGuard(() => now);
+    guard.recordSuccess('c@x.test', '192.0.2.7'); // the owner signed in from here earlier
+    for (let i = 0; i < MAX_FAILURES_PER_HOUR; i++) {
+      guard.recordFailure('c@x.test', `203.0.113.${i % 200}`);
+      now += 10;
+    }
+    expect(guard.retryAfter('c@x.test', '198.51.100.9')).toBeGreaterThan(0);
+    expect(guard.retryAfter('c@x.test', '192.0.2.7')).toBe(0);
   });
 });
 
@@ -68,7 +92,7 @@ describe("better-auth's per-IP rate limit", () => {
       secret: 'test-secret-test-secret-test-secret-0123',
       baseURL: TEST_ORIGIN,
       trustedOrigins: [TEST_ORIGIN],
-      production: false,
+      secureCookies: false,
       rateLimit: true,
     });
     const app = createApp({

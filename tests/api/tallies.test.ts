@@ -12,24 +12,61 @@ beforeAll(async () => {
   t = await createTestApp();
   w = await makeWorld(t.database.db, t.auth);
   const db = t.database.db;
+  // Large contract quantities: these tests post many tallies per item and stay clear of the sanity limits
+  // (tested on their own in tally-revisions.test.ts).
+  const big = { contractQuantity: 1_000_000 };
   items = {
-    cut: await makeBidItem(db, w.home.id, { itemNumber: 'T-1', payUnit: 'CY', basis: 'bank' }),
-    loose: await makeBidItem(db, w.home.id, { itemNumber: 'T-2', payUnit: 'CY', basis: 'loose', method: 'grid' }),
-    metric: await makeBidItem(db, w.home.id, { itemNumber: 'T-3', payUnit: 'm3', basis: 'bank' }),
-    lf: await makeBidItem(db, w.home.id, { itemNumber: 'T-4', payUnit: 'LF', basis: 'bank', method: 'trench' }),
-    ton: await makeBidItem(db, w.home.id, { itemNumber: 'T-5', payUnit: 'TON', basis: 'bank', method: 'manual' }),
-    fill: await makeBidItem(db, w.home.id, { itemNumber: 'T-6', payUnit: 'CY', basis: 'compacted' }),
+    cut: await makeBidItem(db, w.home.id, { itemNumber: 'T-1', payUnit: 'CY', basis: 'bank', ...big }),
+    loose: await makeBidItem(db, w.home.id, {
+      itemNumber: 'T-2',
+      payUnit: 'CY',
+      basis: 'loose',
+      method: 'grid',
+      ...big,
+    }),
+    metric: await makeBidItem(db, w.home.id, { itemNumber: 'T-3', payUnit: 'm3', basis: 'bank', ...big }),
+    lf: await makeBidItem(db, w.home.id, { itemNumber: 'T-4', payUnit: 'LF', basis: 'bank', method: 'trench', ...big }),
+    ton: await makeBidItem(db, w.home.id, {
+      itemNumber: 'T-5',
+      payUnit: 'TON',
+      basis: 'bank',
+      method: 'manual',
+      ...big,
+    }),
+    fill: await makeBidItem(db, w.home.id, { itemNumber: 'T-6', payUnit: 'CY', basis: 'compacted', ...big }),
   };
 });
 afterAll(() => t.close());
 
-const as = (who: keyof typeof w.people | 'outsider') => signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
+const as = (who: keyof typeof w.people | 'outsider') =>
+  signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
 const url = () => `/api/projects/${w.home.id}/tallies`;
 // US Navy EO training manual (NAVEDTRA 14081) example, reference.md section 1: A1 = 50, A2 = 70 sq ft, 100 ft apart.
-const navy = { unit: 'ft', stations: [{ station: 1000, cutArea: 50, fillArea: 0 }, { station: 1100, cutArea: 70, fillArea: 0 }] };
+const navy = {
+  unit: 'ft',
+  stations: [
+    { station: 1000, cutArea: 50, fillArea: 0 },
+    { station: 1100, cutArea: 70, fillArea: 0 },
+  ],
+};
 // Grid example, reference.md section 1: 3 x 3 nodes at 50 ft, 20,000 cu ft = 740.74 CY.
-const grid = { unit: 'ft', spacingX: 50, spacingY: 50, depths: [[1, 1.5, 2], [1.5, 2, 2.5], [2, 2.5, 3]] };
-const endArea = (bidItemId: string, extra: object = {}) => ({ bidItemId, measuredOn: '2026-10-15', method: 'end-area', inputs: navy, ...extra });
+const grid = {
+  unit: 'ft',
+  spacingX: 50,
+  spacingY: 50,
+  depths: [
+    [1, 1.5, 2],
+    [1.5, 2, 2.5],
+    [2, 2.5, 3],
+  ],
+};
+const endArea = (bidItemId: string, extra: object = {}) => ({
+  bidItemId,
+  measuredOn: '2026-10-15',
+  method: 'end-area',
+  inputs: navy,
+  ...extra,
+});
 
 describe('tallies: the server computes the quantity in the bid item unit and basis', () => {
   it('bills the cut of an end-area worksheet in bank CY: 222.22 CY (Navy EO manual example)', async () => {
@@ -47,7 +84,11 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
   });
 
   it('converts bank to loose with the project swell (25 %): 740.74 x 1.25 = 925.93 CY, shown in the trail', async () => {
-    const res = await (await as('subcontractor')).post(url()).send({ bidItemId: items.loose.id, measuredOn: '2026-10-16', method: 'grid', inputs: grid });
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(url())
+      .send({ bidItemId: items.loose.id, measuredOn: '2026-10-16', method: 'grid', inputs: grid });
     expect(res.status).toBe(201);
     // loose = bank x (1 + swell): Nichols and Day, Moving the Earth, p. 2.51 (reference.md section 3)
     expect(res.body.tally.quantity).toBeCloseTo((20000 / 27) * 1.25, 3);
@@ -56,8 +97,16 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
 
   it('bills a fill in compacted measure and converts a bank cut to compacted with the shrinkage (10 %)', async () => {
     const agent = await as('subcontractor');
-    const fill = { unit: 'ft', stations: [{ station: 0, cutArea: 0, fillArea: 27 }, { station: 100, cutArea: 0, fillArea: 27 }] };
-    const a = await agent.post(url()).send({ bidItemId: items.fill.id, measuredOn: '2026-10-16', method: 'end-area', inputs: fill });
+    const fill = {
+      unit: 'ft',
+      stations: [
+        { station: 0, cutArea: 0, fillArea: 27 },
+        { station: 100, cutArea: 0, fillArea: 27 },
+      ],
+    };
+    const a = await agent
+      .post(url())
+      .send({ bidItemId: items.fill.id, measuredOn: '2026-10-16', method: 'end-area', inputs: fill });
     expect(a.body.tally.quantity).toBeCloseTo(100, 4);
     const b = await agent.post(url()).send(endArea(items.fill.id, { component: 'cut' }));
     // compacted = bank x (1 - shrinkage), reference.md section 3
@@ -71,15 +120,30 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
   });
 
   it('takes the run lengths for an LF item from trench runs', async () => {
-    const inputs = { unit: 'ft', protection: 'box', runs: [{ length: 100, depth: 6, bottomWidth: 11 }, { length: 40.5, depth: 4, bottomWidth: 3 }] };
-    const res = await (await as('subcontractor')).post(url()).send({ bidItemId: items.lf.id, measuredOn: '2026-10-17', method: 'trench', inputs });
+    const inputs = {
+      unit: 'ft',
+      protection: 'box',
+      runs: [
+        { length: 100, depth: 6, bottomWidth: 11 },
+        { length: 40.5, depth: 4, bottomWidth: 3 },
+      ],
+    };
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(url())
+      .send({ bidItemId: items.lf.id, measuredOn: '2026-10-17', method: 'trench', inputs });
     expect(res.status).toBe(201);
     expect(res.body.tally.quantity).toBe(140.5);
   });
 
   it('computes a boxed trench volume: 100 x 11 x 6 ft = 6,600 cu ft = 244.44 CY (Measuring Excavation and Sitework, ch. 3)', async () => {
     const inputs = { unit: 'ft', protection: 'box', runs: [{ length: 100, depth: 6, bottomWidth: 11 }] };
-    const res = await (await as('subcontractor')).post(url()).send({ bidItemId: items.cut.id, measuredOn: '2026-10-17', method: 'trench', inputs });
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(url())
+      .send({ bidItemId: items.cut.id, measuredOn: '2026-10-17', method: 'trench', inputs });
     expect(res.body.tally.quantity).toBeCloseTo(6600 / 27, 4);
   });
 
@@ -89,17 +153,37 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('UNIT_MISMATCH');
     expect(bad.body.error.message).toMatch(/TON/);
-    const ok = await agent.post(url()).send({ bidItemId: items.ton.id, measuredOn: '2026-10-18', method: 'manual', quantity: 412.35, manualBasis: 'Scale tickets 4410-4452 from the quarry' });
+    const ok = await agent
+      .post(url())
+      .send({
+        bidItemId: items.ton.id,
+        measuredOn: '2026-10-18',
+        method: 'manual',
+        quantity: 412.35,
+        manualBasis: 'Scale tickets 4410-4452 from the quarry',
+      });
     expect(ok.status).toBe(201);
     expect(ok.body.tally.quantity).toBe(412.35);
   });
 
   it('answers 400 with field paths for a manual tally without basis and for bad worksheet inputs', async () => {
     const agent = await as('subcontractor');
-    const noBasis = await agent.post(url()).send({ bidItemId: items.ton.id, measuredOn: '2026-10-18', method: 'manual', quantity: 3 });
+    const noBasis = await agent
+      .post(url())
+      .send({ bidItemId: items.ton.id, measuredOn: '2026-10-18', method: 'manual', quantity: 3 });
     expect(noBasis.status).toBe(400);
     expect(noBasis.body.error.details.map((d: { path: string }) => d.path)).toContain('manualBasis');
-    const badStations = await agent.post(url()).send(endArea(items.cut.id, { inputs: { unit: 'ft', stations: [{ station: 10, cutArea: 5, fillArea: 0 }, { station: 5, cutArea: 5, fillArea: 0 }] } }));
+    const badStations = await agent.post(url()).send(
+      endArea(items.cut.id, {
+        inputs: {
+          unit: 'ft',
+          stations: [
+            { station: 10, cutArea: 5, fillArea: 0 },
+            { station: 5, cutArea: 5, fillArea: 0 },
+          ],
+        },
+      }),
+    );
     expect(badStations.status).toBe(400);
     expect(badStations.body.error.details[0].path).toBe('inputs.stations.1.station');
     const badDate = await agent.post(url()).send(endArea(items.cut.id, { measuredOn: '2026-02-30' }));
@@ -127,7 +211,9 @@ describe('tallies: who may do what, and the draft life', () => {
     const agent = await as('subcontractor');
     const { body } = await agent.post(url()).send(endArea(items.cut.id));
     const id = body.tally.id;
-    const patched = await agent.patch(`/api/tallies/${id}`).send({ inputs: { ...navy, stations: [navy.stations[0], { station: 1200, cutArea: 70, fillArea: 0 }] } });
+    const patched = await agent
+      .patch(`/api/tallies/${id}`)
+      .send({ inputs: { ...navy, stations: [navy.stations[0], { station: 1200, cutArea: 70, fillArea: 0 }] } });
     expect(patched.status).toBe(200);
     expect(patched.body.tally.quantity).toBeCloseTo(444.4444, 4);
     expect((await (await as('general_contractor')).post(`/api/tallies/${id}/ready`)).status).toBe(403);
@@ -167,12 +253,19 @@ describe('tallies: evidence files', () => {
   });
   const upload = async (...files: [Buffer, string, string?][]) => {
     let req = (await as('subcontractor')).post(`/api/tallies/${tallyId}/evidence`);
-    for (const [bytes, name, contentType] of files) req = req.attach('files', bytes, contentType ? { filename: name, contentType } : name);
+    for (const [bytes, name, contentType] of files)
+      req = req.attach('files', bytes, contentType ? { filename: name, contentType } : name);
     return req;
   };
 
   it('stores PDF, PNG, JPEG, CSV and LandXML files whose content matches their type', async () => {
-    const res = await upload([FILES.pdf, 'survey.pdf'], [FILES.png, 'photo.png'], [FILES.jpeg, 'pit.jpg'], [FILES.csv, 'sections.csv'], [FILES.landxml, 'ground.xml']);
+    const res = await upload(
+      [FILES.pdf, 'survey.pdf'],
+      [FILES.png, 'photo.png'],
+      [FILES.jpeg, 'pit.jpg'],
+      [FILES.csv, 'sections.csv'],
+      [FILES.landxml, 'ground.xml'],
+    );
     expect(res.status).toBe(201);
     expect(res.body.evidence.map((e: { kind: string }) => e.kind)).toEqual(['pdf', 'image', 'image', 'csv', 'landxml']);
     const detail = await (await as('owner')).get(`/api/tallies/${tallyId}`);
@@ -182,12 +275,27 @@ describe('tallies: evidence files', () => {
 
   it('refuses content that does not match the declared type, naming each file, and saves none of the upload', async () => {
     const before = (await t.database.db.select().from(tallyEvidence).where(eq(tallyEvidence.tallyId, tallyId))).length;
-    const res = await upload([FILES.pdf, 'good.pdf'], [Buffer.from('hello, not a pdf'), 'fake.pdf'], [Buffer.from('<root/>'), 'plain.xml'], [FILES.png, 'photo.jpg'], [Buffer.from([0xff, 0xfe, 0x00, 0x41]), 'bad.csv'], [FILES.pdf, 'run.exe']);
+    const res = await upload(
+      [FILES.pdf, 'good.pdf'],
+      [Buffer.from('hello, not a pdf'), 'fake.pdf'],
+      [Buffer.from('<root/>'), 'plain.xml'],
+      [FILES.png, 'photo.jpg'],
+      [Buffer.from([0xff, 0xfe, 0x00, 0x41]), 'bad.csv'],
+      [FILES.pdf, 'run.exe'],
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('EVIDENCE_REJECTED');
-    expect(res.body.error.details.map((d: { path: string }) => d.path)).toEqual(['files.1', 'files.2', 'files.3', 'files.4', 'files.5']);
+    expect(res.body.error.details.map((d: { path: string }) => d.path)).toEqual([
+      'files.1',
+      'files.2',
+      'files.3',
+      'files.4',
+      'files.5',
+    ]);
     expect(res.body.error.details[1].message).toMatch(/LandXML/);
-    expect((await t.database.db.select().from(tallyEvidence).where(eq(tallyEvidence.tallyId, tallyId))).length).toBe(before);
+    expect((await t.database.db.select().from(tallyEvidence).where(eq(tallyEvidence.tallyId, tallyId))).length).toBe(
+      before,
+    );
   });
 
   it('refuses a declared type that contradicts the extension', async () => {
@@ -202,7 +310,9 @@ describe('tallies: evidence files', () => {
     expect(ev.fileName).toBe('pass_wd_.csv');
     const dl = await (await as('general_contractor')).get(ev.downloadUrl);
     expect(dl.status).toBe(200);
-    expect(dl.headers['content-disposition']).toBe(`attachment; filename="pass_wd_.csv"; filename*=UTF-8''pass_wd_.csv`);
+    expect(dl.headers['content-disposition']).toBe(
+      `attachment; filename="pass_wd_.csv"; filename*=UTF-8''pass_wd_.csv`,
+    );
     expect(dl.headers['content-type']).toMatch(/text\/csv/);
     expect(dl.text).toBe(FILES.csv.toString('utf8'));
     expect((await (await as('outsider')).get(ev.downloadUrl)).status).toBe(404);

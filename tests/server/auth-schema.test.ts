@@ -8,9 +8,20 @@ import { createTestDatabase } from '../setup/test-db';
 describe('better-auth tables', () => {
   it('has every column better-auth expects, written by hand in server/db/schema/auth.ts', async () => {
     const database = await createTestDatabase();
-    const auth = createAuth({ db: database.db, secret: 'x'.repeat(32), baseURL: 'http://localhost:3000', trustedOrigins: [], production: false });
+    const auth = createAuth({
+      db: database.db,
+      secret: 'x'.repeat(32),
+      baseURL: 'http://localhost:3000',
+      trustedOrigins: [],
+      secureCookies: false,
+    });
     const expected = getAuthTables(auth.options);
-    const tables = { user: schema.user, session: schema.session, account: schema.account, verification: schema.verification };
+    const tables = {
+      user: schema.user,
+      session: schema.session,
+      account: schema.account,
+      verification: schema.verification,
+    };
     for (const [key, table] of Object.entries(expected)) {
       const ours = tables[key as keyof typeof tables];
       expect(ours, `table ${key}`).toBeDefined();

@@ -162,7 +162,7 @@ describe.skipIf(skipReason)(
         secret: 'backup-test-secret-backup-test-secret-00',
         baseURL: 'http://localhost:3000',
         trustedOrigins: [],
-        production: false,
+        secureCookies: false,
         passwordHasher: fastPasswordHasher,
       });
       // The demo scenario through the real services: pay applications (paid, certified, in review), payments,

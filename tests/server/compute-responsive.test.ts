@@ -55,7 +55,7 @@ function multipart(boundary: string, unit: string, files: Record<string, Buffer>
 // A responsiveness check, not a speed budget: the server must keep answering while a worker computes. The worst
 // health round trip is compared with the bound; the calculation itself may take as long as it takes.
 describe('the built server stays responsive while the largest allowed calculation runs', () => {
-  it('answers /api/health within 50 ms throughout a two-million-point surface upload and calculation', async () => {
+  it('keeps /api/health answering throughout a two-million-point surface upload and calculation (p99 within 50 ms over idle)', async () => {
     const server = await startServerProcess(dataDir, await freePort(), { SEED_DEMO: 'always' }, [SERVER_BUNDLE]);
     try {
       const cookie = await signInCookie(server.url, 'sub@tallyard.test', DEMO_PASSWORD);

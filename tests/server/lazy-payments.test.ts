@@ -27,7 +27,10 @@ describe('the local Stripe stand-in starts with the first payment call', () => {
   it('starts nothing until asked, then once for calls made at the same time', async () => {
     const lazy = counted();
     expect(lazy.starts).toHaveLength(0);
-    const [a, b] = await Promise.all([lazy.payments.createCheckout(checkout('lazy-1')), lazy.payments.createCheckout(checkout('lazy-2'))]);
+    const [a, b] = await Promise.all([
+      lazy.payments.createCheckout(checkout('lazy-1')),
+      lazy.payments.createCheckout(checkout('lazy-2')),
+    ]);
     expect(lazy.starts).toHaveLength(1);
     expect((await lazy.payments.retrieveSession(a.sessionId)).status).toBe('open');
     expect(b.sessionId).not.toBe(a.sessionId);
@@ -36,7 +39,12 @@ describe('the local Stripe stand-in starts with the first payment call', () => {
 
   it('refuses every webhook before the start (no secret exists yet), and checks signatures with the secret after it', async () => {
     const lazy = counted();
-    const body = JSON.stringify({ id: 'evt_1', object: 'event', type: 'checkout.session.completed', data: { object: {} } });
+    const body = JSON.stringify({
+      id: 'evt_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: {} },
+    });
     expect(() => lazy.payments.constructEvent(body, 't=1,v1=00')).toThrow(/not started/);
     await lazy.payments.createCheckout(checkout('lazy-3'));
     const secret = lazy.starts[0]!.webhookSecret;

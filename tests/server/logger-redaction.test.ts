@@ -43,7 +43,21 @@ describe('log redaction', () => {
       'request received',
     );
     const out = text();
-    for (const secret of ['SECRET-1', 'SECRET-2', 'SECRET-3', 'SECRET-4', 'SECRET-5', 'SECRET-6', 'SECRET-7', 'SECRET-8', 'TOKEN-9', 'SECRET-10', '4242424242424242', '000123456789', '110000000']) {
+    for (const secret of [
+      'SECRET-1',
+      'SECRET-2',
+      'SECRET-3',
+      'SECRET-4',
+      'SECRET-5',
+      'SECRET-6',
+      'SECRET-7',
+      'SECRET-8',
+      'TOKEN-9',
+      'SECRET-10',
+      '4242424242424242',
+      '000123456789',
+      '110000000',
+    ]) {
       expect(out).not.toContain(secret);
     }
     expect(out).toContain('[redacted]');
@@ -54,5 +68,74 @@ describe('log redaction', () => {
 
   it('cuts token-like query parameters from URLs', () => {
     expect(redactUrl('/verify?token=abc&x=1&signature=zz')).toBe('/verify?token=[redacted]&x=1&signature=[redacted]');
+  });
+});
+
+describe("better-auth's own log lines", () => {
+  it('go through pino (not stderr) without e-mail addresses or query parameters', async () => {
+    const { createAuth } = await import('../../server/auth');
+    const { authLogger } = await import('../../server/lib/auth-logger');
+    const { logger, text } = capture();
+    const log = authLogger(logger).log!;
+    const failed = new Error(
+      'Failed query: insert into "user" ("email") values ($1)\nparams: victim@example.test,abc123',
+    );
+    log('error', 'Failed to create user', failed);
+    log('info', 'Sign-up attempt for existing email: victim@example.test');
+    expect(text()).toContain('Failed to create user');
+    expect(text()).toContain('"component":"better-auth"');
+    expect(text()).not.toContain('victim@example.test');
+    expect(text()).not.toContain('abc123');
+    // Wired into createAuth: its logger is ours, not better-auth's console logger.
+    const auth = createAuth({
+      db: {} as never,
+      secret: 'x'.repeat(32),
+      baseURL: 'http://localhost:3000',
+      trustedOrigins: [],
+      secureCookies: false,
+      logger,
+    });
+    expect(auth.options.logger?.log).toBeTypeOf('function');
+    expect(authLogger(undefined)).toEqual({ disabled: true });
+  });
+});
+
+describe("better-auth's refusals", () => {
+  it('print nothing on stderr or stdout of their own', async () => {
+    const { createTestApp, TEST_ORIGIN } = await import('../setup/test-app');
+    const { default: request } = await import('supertest');
+    const t = await createTestApp();
+    const written: string[] = [];
+    const spies: (() => void)[] = [process.stderr, process.stdout].map((stream) => {
+      const original = stream.write.bind(stream);
+      stream.write = ((chunk: unknown, ...rest: unknown[]) => {
+        written.push(String(chunk));
+        return (original as (...a: unknown[]) => boolean)(chunk, ...rest);
+      }) as typeof stream.write;
+      return () => {
+        stream.write = original;
+      };
+    });
+    for (const method of ['log', 'info', 'warn', 'error', 'debug'] as const) {
+      const original = console[method];
+      console[method] = (...args: unknown[]) => void written.push(args.map(String).join(' '));
+      spies.push(() => {
+        console[method] = original;
+      });
+    }
+    try {
+      await request(t.app)
+        .post('/api/auth/sign-in/email')
+        .set('Origin', TEST_ORIGIN)
+        .send({ email: 'someone@example.test', password: 'not-the-password' });
+      await request(t.app)
+        .post('/api/auth/sign-up/email')
+        .set('Origin', TEST_ORIGIN)
+        .send({ email: 'someone@example.test', password: 'password1234', name: 'S' });
+    } finally {
+      spies.forEach((restore) => restore());
+      await t.close();
+    }
+    expect(written.join('')).not.toMatch(/Better Auth|someone@example\.test/);
   });
 });

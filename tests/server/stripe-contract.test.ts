@@ -25,9 +25,16 @@ describe('SDK contract against the local stand-in', () => {
     expect(made.sessionId).toMatch(/^cs_test_/);
     expect((await local.payments.createCheckout(input('contract-1'))).sessionId).toBe(made.sessionId);
     const session = await local.payments.retrieveSession(made.sessionId);
-    expect(session).toMatchObject({ status: 'open', paymentStatus: 'unpaid', amountTotal: 1_362_190, metadata: { payAppId: 'pa', paymentId: 'pm' } });
+    expect(session).toMatchObject({
+      status: 'open',
+      paymentStatus: 'unpaid',
+      amountTotal: 1_362_190,
+      metadata: { payAppId: 'pa', paymentId: 'pm' },
+    });
     // Stripe: an idempotency key reused with other parameters is an idempotency_error.
-    await expect(local.payments.createCheckout({ ...input('contract-1'), amountCents: 5 })).rejects.toThrow(/same parameters/);
+    await expect(local.payments.createCheckout({ ...input('contract-1'), amountCents: 5 })).rejects.toThrow(
+      /same parameters/,
+    );
   });
 
   it('expires an open session once; expiring it again is refused', async () => {
@@ -43,18 +50,27 @@ describe('SDK contract against the local stand-in', () => {
 });
 
 const mockUrl = process.env.STRIPE_MOCK_URL;
-describe.skipIf(!mockUrl)('SDK contract against stripe-mock (set STRIPE_MOCK_URL, e.g. `docker compose up stripe-mock`)', () => {
-  let payments: Payments;
-  beforeAll(() => {
-    const url = new URL(mockUrl ?? 'http://localhost:12111');
-    payments = stripePayments({ secretKey: 'sk_test_123', webhookSecret: 'whsec_test', host: url.hostname, port: Number(url.port), protocol: url.protocol === 'https:' ? 'https' : 'http' });
-  });
+describe.skipIf(!mockUrl)(
+  'SDK contract against stripe-mock (set STRIPE_MOCK_URL, e.g. `docker compose up stripe-mock`)',
+  () => {
+    let payments: Payments;
+    beforeAll(() => {
+      const url = new URL(mockUrl ?? 'http://localhost:12111');
+      payments = stripePayments({
+        secretKey: 'sk_test_123',
+        webhookSecret: 'whsec_test',
+        host: url.hostname,
+        port: Number(url.port),
+        protocol: url.protocol === 'https:' ? 'https' : 'http',
+      });
+    });
 
-  // stripe-mock answers from fixtures and keeps no state: only the shapes are checked.
-  it('creates, retrieves and expires a checkout session', async () => {
-    const made = await payments.createCheckout(input(`mock-${Date.now()}`));
-    expect(made.sessionId).toMatch(/^cs_/);
-    expect((await payments.retrieveSession(made.sessionId)).id).toMatch(/^cs_/);
-    await payments.expireSession(made.sessionId);
-  });
-});
+    // stripe-mock answers from fixtures and keeps no state: only the shapes are checked.
+    it('creates, retrieves and expires a checkout session', async () => {
+      const made = await payments.createCheckout(input(`mock-${Date.now()}`));
+      expect(made.sessionId).toMatch(/^cs_/);
+      expect((await payments.retrieveSession(made.sessionId)).id).toMatch(/^cs_/);
+      await payments.expireSession(made.sessionId);
+    });
+  },
+);

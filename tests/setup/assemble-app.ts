@@ -41,12 +41,14 @@ export type AssembledApp = {
  * Stripe stand-in. Shared by the in-process API tests and the browser tests' server.
  */
 export async function assembleTestApp(o: Options): Promise<AssembledApp> {
+  const logger = createLogger(process.env.TEST_LOG_LEVEL ?? 'silent');
   const auth = createAuth({
+    logger,
     db: o.database.db,
     secret: 'test-secret-test-secret-test-secret-0123',
     baseURL: o.baseURL,
     trustedOrigins: o.trustedOrigins,
-    production: false,
+    secureCookies: false,
     passwordHasher: fastPasswordHasher,
   });
   const storage = o.storage ?? memoryStorage();
@@ -60,7 +62,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
   const app = createApp({
     database: o.database,
     auth,
-    logger: createLogger(process.env.TEST_LOG_LEVEL ?? 'silent'),
+    logger,
     mailer: smtpMailer(mailbox.url, 'Tallyard <no-reply@tallyard.test>'),
     storage,
     mailbox,

@@ -4,6 +4,7 @@ import type { BidItemInput } from '../../src/shared/schemas/bid-item';
 import { PROJECT_DEFAULTS } from '../../src/shared/schemas/project';
 import type { Auth } from '../../server/auth';
 import type { Db } from '../../server/db/client';
+import { insertAccount, prepareAccount } from '../../server/modules/accounts/accounts.service';
 import { bidItems, companies, companyMembers, projectMembers, projects } from '../../server/db/schema';
 import { TEST_PASSWORD } from './test-app';
 
@@ -12,10 +13,25 @@ export async function makeCompany(db: Db, kind: CompanyKind, name = `${kind} ${r
   return row!;
 }
 
-export async function makeUser(db: Db, auth: Auth, companyId: string, opts: { isAdmin?: boolean; email?: string } = {}) {
+export async function makeUser(
+  db: Db,
+  auth: Auth,
+  companyId: string,
+  opts: { isAdmin?: boolean; email?: string } = {},
+) {
   const email = opts.email ?? `${randomUUID().slice(0, 8)}@example.test`;
-  const { user } = await auth.api.signUpEmail({ body: { email, password: TEST_PASSWORD, name: email.split('@')[0]! } });
-  await db.insert(companyMembers).values({ userId: user.id, companyId, isAdmin: opts.isAdmin ?? false });
+  // Public sign-up is off: people are made the way the app makes them (server/modules/accounts).
+  const prepared = await prepareAccount(auth, {
+    email,
+    password: TEST_PASSWORD,
+    name: email.split('@')[0]!,
+    emailVerified: true,
+  });
+  const user = await db.transaction(async (tx) => {
+    const made = await insertAccount(tx, prepared);
+    await tx.insert(companyMembers).values({ userId: made.id, companyId, isAdmin: opts.isAdmin ?? false });
+    return made;
+  });
   return { id: user.id, email };
 }
 
@@ -54,13 +70,17 @@ export const sampleBidItem = (overrides: Partial<BidItemInput> = {}): BidItemInp
 });
 
 export async function makeBidItem(db: Db, projectId: string, overrides: Partial<BidItemInput> = {}) {
-  const [row] = await db.insert(bidItems).values({ ...sampleBidItem(overrides), projectId }).returning();
+  const [row] = await db
+    .insert(bidItems)
+    .values({ ...sampleBidItem(overrides), projectId })
+    .returning();
   return row!;
 }
 
 /**
- * Two projects with their own companies and people: `home`, on which each role has one person plus a company
- * admin of the general contractor, and `foreign`, whose general contractor is an outsider to `home`.
+ * Two projects with their own companies and people: `home`, on which each role has one person of its seat's
+ * company, plus an admin of each of the three companies (`admin` is the general contractor's), and `foreign`,
+ * whose general contractor is an outsider to `home`.
  */
 export async function makeWorld(db: Db, auth: Auth) {
   const sub = await makeCompany(db, 'subcontractor');
@@ -72,6 +92,8 @@ export async function makeWorld(db: Db, auth: Auth) {
     general_contractor: await makeUser(db, auth, gc.id),
     owner: await makeUser(db, auth, owner.id),
     admin: await makeUser(db, auth, gc.id, { isAdmin: true }),
+    subcontractor_admin: await makeUser(db, auth, sub.id, { isAdmin: true }),
+    owner_admin: await makeUser(db, auth, owner.id, { isAdmin: true }),
   };
   for (const role of ['subcontractor', 'general_contractor', 'owner'] as const) {
     await addMember(db, home.id, people[role].id, role);
@@ -79,7 +101,11 @@ export async function makeWorld(db: Db, auth: Auth) {
   const otherGc = await makeCompany(db, 'general_contractor');
   const otherSub = await makeCompany(db, 'subcontractor');
   const otherOwner = await makeCompany(db, 'owner');
-  const foreign = await makeProject(db, { subcontractor: otherSub.id, general_contractor: otherGc.id, owner: otherOwner.id }, 'Foreign');
+  const foreign = await makeProject(
+    db,
+    { subcontractor: otherSub.id, general_contractor: otherGc.id, owner: otherOwner.id },
+    'Foreign',
+  );
   const outsider = await makeUser(db, auth, otherGc.id);
   await addMember(db, foreign.id, outsider.id, 'general_contractor');
   return { companies: { sub, gc, owner, otherGc, otherSub, otherOwner }, home, foreign, people, outsider };

@@ -23,7 +23,7 @@ import {
   type DemoPeriod,
 } from './pay-cycle-data';
 
-async function actorOf(db: Db, email: string): Promise<Actor> {
+export async function actorOf(db: Db, email: string): Promise<Actor> {
   const [row] = await db
     .select({
       id: user.id,
@@ -90,15 +90,8 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   const itemIds = new Map(items.map((i) => [i.itemNumber, i.id]));
   const outboxBefore = new Set((await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id));
   // The seed acts for the demo people without sessions: nothing to re-authenticate.
-  const noReauth = { take: () => async () => {}, paymentAboveCents: Number.MAX_SAFE_INTEGER };
-  const ctx: AppContext = {
-    db,
-    storage,
-    outbox: { flush: async () => {} },
-    logger: createLogger('silent'),
-    appUrl: '',
-    recentAuth: noReauth,
-  };
+  const noReauth = { take: () => async () => {}, paymentAboveCents: Number.MAX_SAFE_INTEGER, paymentWindowHours: 0 };
+  const ctx: AppContext = { db, storage, outbox: { flush: async () => {} }, logger: createLogger('silent'), appUrl: '', recentAuth: noReauth };
 
   for (const [index, period] of DEMO_PAY_CYCLE.entries()) {
     await tallyPeriod(db, storage, sub, projectId, period, itemIds);

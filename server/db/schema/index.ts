@@ -9,3 +9,5 @@ export * from './change-orders';
 export * from './emails';
 export * from './payments';
 export * from './pay-app-relations';
+export * from './provisions-tickets';
+export * from './provisions-accounts';

@@ -52,7 +52,8 @@ export const projectMembers = pgTable(
     role: projectRole('role').notNull(),
     ...timestamps,
   },
-  (t) => [unique('project_members_project_user_role').on(t.projectId, t.userId, t.role), index().on(t.userId)],
+  // One person holds one party seat on a project (product brief, people and roles).
+  (t) => [unique('project_members_project_user').on(t.projectId, t.userId), index().on(t.userId)],
 );
 
 /** An invitation to join a project with a role; the token is stored hashed. */

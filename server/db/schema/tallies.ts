@@ -1,4 +1,16 @@
-import { date, index, integer, jsonb, numeric, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
+import {
+  date,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { TALLY_STATUSES } from '../../../src/shared/constants';
 import { user } from './auth';
 import { bidItems, measurementMethod } from './bid-items';
@@ -30,6 +42,8 @@ export const tallies = pgTable(
     quantity: numeric('quantity', { precision: 16, scale: 4, mode: 'number' }).notNull(),
     /** Required for a manual quantity: the written basis of the number. */
     manualBasis: text('manual_basis'),
+    /** Why a quantity past the sanity limits (2x the remaining or 10x the contract quantity) is right, when it is. */
+    sanityReason: text('sanity_reason'),
     status: tallyStatus('status').notNull().default('draft'),
     payAppId: uuid('pay_app_id'),
     authorUserId: text('author_user_id')
@@ -38,6 +52,37 @@ export const tallies = pgTable(
     ...timestamps,
   },
   (t) => [index().on(t.projectId, t.measuredOn), index().on(t.bidItemId), index().on(t.payAppId)],
+);
+
+/** A draft's earlier state, kept each time it is saved again: its inputs, result and quantity as they were. */
+export const tallyRevisions = pgTable(
+  'tally_revisions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    tallyId: uuid('tally_id')
+      .notNull()
+      .references(() => tallies.id, { onDelete: 'cascade' }),
+    /** 1 for the first saved state, then 2, 3... */
+    revision: integer('revision').notNull(),
+    bidItemId: uuid('bid_item_id')
+      .notNull()
+      .references(() => bidItems.id),
+    measuredOn: date('measured_on', { mode: 'string' }).notNull(),
+    title: text('title').notNull(),
+    method: measurementMethod('method').notNull(),
+    inputs: jsonb('inputs'),
+    result: jsonb('result'),
+    quantity: numeric('quantity', { precision: 16, scale: 4, mode: 'number' }).notNull(),
+    manualBasis: text('manual_basis'),
+    /** Who saved the change that replaced this state. */
+    replacedByUserId: text('replaced_by_user_id')
+      .notNull()
+      .references(() => user.id),
+    /** When this state had been saved (the tally's updated_at then). */
+    savedAt: timestamp('saved_at', { withTimezone: true }).notNull(),
+    ...timestamps,
+  },
+  (t) => [unique().on(t.tallyId, t.revision)],
 );
 
 /** A file backing a tally; bytes live in the storage integration under `storageKey`. */
@@ -77,4 +122,3 @@ export const forecasts = pgTable('forecasts', {
     .references(() => user.id),
   ...timestamps,
 });
-

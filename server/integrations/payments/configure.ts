@@ -1,4 +1,4 @@
-import type { Env } from '../../env';
+import { isDemo, type Env } from '../../env';
 import type { Logger } from '../../lib/logger';
 import type { LocalPayments } from './local-payments';
 import type { Payments } from './payments';
@@ -8,24 +8,44 @@ import type { Payments } from './payments';
  * this process, its webhooks sent to this server's own /api/webhooks/stripe. The stand-in (and the Stripe SDK
  * with it) starts with the first payment call rather than at boot: loading them is a large part of the start-up.
  */
-export async function configurePayments(env: Env, logger: Logger): Promise<{ payments: Payments; close: () => Promise<void> }> {
+export async function configurePayments(
+  env: Env,
+  logger: Logger,
+): Promise<{ payments: Payments; close: () => Promise<void> }> {
   if (env.STRIPE_SECRET_KEY) {
-    if (!env.STRIPE_WEBHOOK_SECRET) throw new Error('Tallyard cannot start: STRIPE_SECRET_KEY is set but STRIPE_WEBHOOK_SECRET is not.');
+    if (!env.STRIPE_WEBHOOK_SECRET)
+      throw new Error('Tallyard cannot start: STRIPE_SECRET_KEY is set but STRIPE_WEBHOOK_SECRET is not.');
     const { stripePayments } = await import('./stripe-payments');
-    return { payments: stripePayments({ secretKey: env.STRIPE_SECRET_KEY, webhookSecret: env.STRIPE_WEBHOOK_SECRET }), close: async () => {} };
+    return {
+      payments: stripePayments({ secretKey: env.STRIPE_SECRET_KEY, webhookSecret: env.STRIPE_WEBHOOK_SECRET }),
+      close: async () => {},
+    };
+  }
+  if (env.NODE_ENV === 'production' && !isDemo(env)) {
+    throw new Error(
+      'Tallyard cannot start in production without STRIPE_SECRET_KEY: the local Stripe stand-in moves no money and runs only in the demo.',
+    );
   }
   const host = env.HOST === '0.0.0.0' || env.HOST === '::' ? '127.0.0.1' : env.HOST;
-  logger.info('no STRIPE_SECRET_KEY: payments go to the local Stripe stand-in (no real money moves), started with the first payment');
+  logger.info(
+    'no STRIPE_SECRET_KEY: payments go to the local Stripe stand-in (no real money moves), started with the first payment',
+  );
   return lazyLocalPayments(async () => {
     const { startLocalPayments } = await import('./local-payments');
-    const local = await startLocalPayments({ webhookTarget: `http://${host}:${env.PORT}/api/webhooks/stripe`, achSettleMs: 15_000 });
+    const local = await startLocalPayments({
+      webhookTarget: `http://${host}:${env.PORT}/api/webhooks/stripe`,
+      achSettleMs: 15_000,
+    });
     logger.info({ url: local.standin.url }, 'the local Stripe stand-in is listening');
     return local;
   });
 }
 
 /** Payments through the local stand-in, started once on the first call that needs it. */
-export function lazyLocalPayments(start: () => Promise<LocalPayments>): { payments: Payments; close: () => Promise<void> } {
+export function lazyLocalPayments(start: () => Promise<LocalPayments>): {
+  payments: Payments;
+  close: () => Promise<void>;
+} {
   let starting: Promise<LocalPayments> | undefined;
   let started: LocalPayments | undefined;
   const local = () =>
@@ -47,5 +67,8 @@ export function lazyLocalPayments(start: () => Promise<LocalPayments>): { paymen
       return started.payments.constructEvent(rawBody, signature);
     },
   };
-  return { payments, close: async () => (starting ? (await starting.catch(() => undefined))?.standin.close() : undefined) };
+  return {
+    payments,
+    close: async () => (starting ? (await starting.catch(() => undefined))?.standin.close() : undefined),
+  };
 }

@@ -5,11 +5,11 @@ import { Piscina } from 'piscina';
 import { AppError } from '../app-error';
 import type { ComputeOutcome, ComputeTask } from './compute-protocol';
 
-/** Set by scripts/build-server.ts: the bundled worker beside the bundled server. Undefined under tsx. */
+/** Set by scripts/build-server.ts: the bundled worker beside the bundled server, relative to this module. Undefined under tsx. */
 declare const __TALLYARD_COMPUTE_WORKER__: string | undefined;
 
 function workerFile(): string {
-  if (typeof __TALLYARD_COMPUTE_WORKER__ !== 'undefined') return __TALLYARD_COMPUTE_WORKER__;
+  if (typeof __TALLYARD_COMPUTE_WORKER__ !== 'undefined') return fileURLToPath(new URL(__TALLYARD_COMPUTE_WORKER__, import.meta.url));
   return fileURLToPath(new URL('./compute-worker.mjs', import.meta.url));
 }
 

@@ -9,6 +9,7 @@ import {
   type UpdateBidItemInput,
 } from '../../../src/shared/schemas/bid-item';
 import type { Db, Executor } from '../../db/client';
+import { lineAmountProblem } from '../../../src/shared/schemas/money-limits';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
@@ -129,6 +130,8 @@ async function loadForChange(db: Db, actor: Actor, bidItemId: string) {
 export async function updateBidItem(db: Db, actor: Actor, bidItemId: string, input: UpdateBidItemInput) {
   const before = await loadForChange(db, actor, bidItemId);
   const { reason, ...changes } = input;
+  const tooLarge = lineAmountProblem(changes.contractQuantity ?? before.contractQuantity, changes.unitPriceCents ?? before.unitPriceCents);
+  if (tooLarge) throw validationFailed([{ path: changes.contractQuantity !== undefined ? 'contractQuantity' : 'unitPriceCents', message: tooLarge }]);
   return db.transaction(async (tx) => {
     const since = await repo.contractLockedSince(tx, before.projectId);
     const contract = await loadContract(tx, before.projectId);

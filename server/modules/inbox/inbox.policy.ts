@@ -1,10 +1,10 @@
-import type { AccessRole, InboxKind, LienWaiverKind, PayAppStatus, PaymentStatus } from '../../../src/shared/constants';
+import type { AccessRole, InboxKind, LienWaiverKind, PayAppStatus, PaymentStatus, ProjectRole } from '../../../src/shared/constants';
 import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-app-status';
 import { decisionSides } from '../change-orders/change-orders.policy';
 import { canIssueWaiver, waiverOptions } from '../lien-waivers/lien-waivers.policy';
 import { mayTake } from '../pay-apps/pay-apps.policy';
 import { balanceCents, canPay, PAYABLE_STATUSES } from '../payments/payments.policy';
-import { canManagePeople } from '../projects/projects.policy';
+import { canManagePeople, managedSeat } from '../projects/projects.policy';
 
 /**
  * The person's own move on a pay application, read from the transition table: the first of these actions that
@@ -82,5 +82,5 @@ export function changeOrderWaits(
   );
 }
 
-/** Unaccepted invitations are followed by those who manage the project's people. */
-export const followsInvitations = (roles: AccessRole[]) => canManagePeople(roles);
+/** Unaccepted invitations are followed by the admin of the company whose seat they fill. */
+export const followsInvitations = (roles: AccessRole[], seat: ProjectRole) => canManagePeople(roles) && managedSeat(roles) === seat;

@@ -127,7 +127,7 @@ export async function inboxFor(db: Db, actor: Actor, now = new Date()): Promise<
 
   for (const inv of invitations) {
     const scope = scopes.get(inv.projectId)!;
-    if (!followsInvitations(scope.roles)) continue;
+    if (!followsInvitations(scope.roles, inv.role)) continue;
     const expired = inv.expiresAt.getTime() <= now.getTime();
     add(scope, {
       id: `invitation_pending:${inv.id}`,

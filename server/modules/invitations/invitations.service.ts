@@ -1,3 +1,4 @@
+import type { ProjectRole } from '../../../src/shared/constants';
 import type { CreateInvitationInput, InvitationView } from '../../../src/shared/schemas/invitation';
 import type { AppContext } from '../../app-context';
 import type { Db } from '../../db/client';
@@ -7,28 +8,49 @@ import { AppError, conflict, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { enqueueEmail } from '../notifications/outbox';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canManagePeople } from '../projects/projects.policy';
+import { canManagePeople, managedSeat } from '../projects/projects.policy';
+import { memberRoles } from '../projects/projects.repository';
+import { SEAT_NAMES } from './seat-rules';
 import { eq } from 'drizzle-orm';
 import { invitationMail } from './invitation-email';
 import { newInvitationToken } from './invitation-token';
 import { presentInvitation } from './invitations.presenter';
 import * as repo from './invitations.repository';
 
+/** A party company's admin sees the invitations to its own company's seat. */
 export async function listInvitations(db: Db, actor: Actor, projectId: string): Promise<InvitationView[]> {
-  await loadProjectAccess(db, actor, projectId, canManagePeople);
-  return (await repo.listInvitations(db, projectId)).map((r) => presentInvitation(r.invitation, r.invitedBy));
+  const { roles } = await loadProjectAccess(db, actor, projectId, canManagePeople);
+  const seat = managedSeat(roles)!;
+  return (await repo.listInvitations(db, projectId))
+    .filter((r) => r.invitation.role === seat)
+    .map((r) => presentInvitation(r.invitation, r.invitedBy));
 }
 
+const otherSeat = (actor: Actor, seat: ProjectRole, role: ProjectRole) =>
+  new AppError(
+    403,
+    'SEAT_OF_ANOTHER_COMPANY',
+    `As an admin of ${actor.companyName ?? 'your company'} you manage the ${SEAT_NAMES[seat]} seat of this job; the ${SEAT_NAMES[role]} seat is filled by its own company's admin.`,
+  );
+
 /**
- * A company admin of a party company or the general contractor invites someone by e-mail with a role. The mail
- * is queued in the same transaction and sent after commit.
+ * A party company's admin invites someone by e-mail to its own company's seat (the subcontractor's admin to the
+ * subcontractor seat, and so on). The company of an existing account is checked when the invitation is accepted,
+ * so this answer never tells an admin which company another address belongs to. The mail is queued in the same
+ * transaction and sent after commit.
  */
 export async function createInvitation(ctx: AppContext, actor: Actor, projectId: string, input: CreateInvitationInput) {
   const { db } = ctx;
-  const { project } = await loadProjectAccess(db, actor, projectId, canManagePeople);
+  const { project, roles } = await loadProjectAccess(db, actor, projectId, canManagePeople);
+  const seat = managedSeat(roles)!;
+  if (input.role !== seat) throw otherSeat(actor, seat, input.role);
   const existing = await repo.findUserByEmail(db, input.email);
-  if (existing && (await repo.hasRole(db, projectId, existing.id, input.role))) {
-    throw conflict('ALREADY_MEMBER', `${input.email} already holds this role on this job.`);
+  const seats = existing ? await memberRoles(db, projectId, existing.id) : [];
+  if (seats.length > 0) {
+    throw conflict(
+      'ALREADY_HOLDS_SEAT',
+      `${input.email} already holds the ${SEAT_NAMES[seats[0]!]} seat of this job; one person holds one role on a job.`,
+    );
   }
   if (await repo.pendingFor(db, projectId, input.email, input.role)) {
     throw conflict('INVITATION_PENDING', `${input.email} already has an open invitation for this role; revoke it to send a new one.`);
@@ -60,10 +82,13 @@ export async function createInvitation(ctx: AppContext, actor: Actor, projectId:
 export async function revokeInvitation(db: Db, actor: Actor, id: string): Promise<void> {
   const row = isUuid(id) ? await repo.findInvitation(db, id) : undefined;
   if (!row) throw notFound('The invitation');
-  await loadProjectAccess(db, actor, row.projectId, canManagePeople).catch((err: unknown) => {
+  const { roles } = await loadProjectAccess(db, actor, row.projectId, canManagePeople).catch((err: unknown) => {
     throw err instanceof AppError && err.status === 404 ? notFound('The invitation') : err;
   });
-  if (row.acceptedAt) throw conflict('INVITATION_USED', 'This invitation was already accepted; remove the person instead.');
+  const seat = managedSeat(roles)!;
+  if (row.role !== seat) throw otherSeat(actor, seat, row.role);
+  if (row.acceptedAt)
+    throw conflict('INVITATION_USED', 'This invitation was already accepted; remove the person instead.');
   await db.transaction(async (tx) => {
     await tx.delete(invitations).where(eq(invitations.id, id));
     await recordAudit(tx, {

@@ -2,10 +2,11 @@ import { isFrozen } from '../../../src/shared/domain/pay-app-status';
 import type { IssueLienWaiverInput, LienWaiverView, ProjectLienWaiversView } from '../../../src/shared/schemas/payment';
 import type { AppContext } from '../../app-context';
 import type { Actor } from '../../lib/actor';
-import { AppError, notFound } from '../../lib/app-error';
+import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../projects/projects.policy';
+import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { findPayApp } from '../payments/payments.repository';
 import { renderWaiverPdf } from './lien-waiver-pdf';
 import { canIssueWaiver, waiverOptions } from './lien-waivers.policy';
@@ -16,10 +17,13 @@ const rethrowAs = (what: string) => (err: unknown) => {
   throw err instanceof AppError && err.status === 404 ? notFound(what) : err;
 };
 
+/** The pay application with the same visibility as the application itself: hidden from the owner's side until certified. */
 async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule = canReadProject) {
   const app = isUuid(payAppId) ? await findPayApp(ctx.db, payAppId) : undefined;
   if (!app) throw notFound('The pay application');
-  const access = await loadProjectAccess(ctx.db, actor, app.projectId, rule).catch(rethrowAs('The pay application'));
+  const access = await loadProjectAccess(ctx.db, actor, app.projectId).catch(rethrowAs('The pay application'));
+  if (!canSeePayApp(access.roles, app.status)) throw notFound('The pay application');
+  if (!rule(access.roles)) throw forbidden();
   return { app, ...access };
 }
 
@@ -36,12 +40,38 @@ export async function listForProject(ctx: AppContext, actor: Actor, projectId: s
   return { state: project.state, payApps, waivers: waivers.map((w) => presentWaiver(w, numbers.get(w.payAppId) ?? 0)) };
 }
 
+const sameName = (a: string, b: string) =>
+  a.normalize('NFC').replace(/\s+/g, ' ').trim().toLowerCase() ===
+  b.normalize('NFC').replace(/\s+/g, ' ').trim().toLowerCase();
+
+/**
+ * The signer: a person of the subcontractor company holding its seat (accessRoles counts a seat only while the
+ * person belongs to the company that fills it), signing under the name of their own account. The typed name is
+ * the act of signing and must be that name; the waiver records the account's name, never free text.
+ */
+function signerName(actor: Actor, project: { subcontractorCompanyId: string }, typed: string): string {
+  if (actor.companyId !== project.subcontractorCompanyId)
+    throw new AppError(
+      403,
+      'SIGNER_NOT_OF_SUBCONTRACTOR',
+      'Only a person of the subcontractor company signs its lien waivers.',
+    );
+  if (!sameName(typed, actor.name)) {
+    throw validationFailed(
+      [{ path: 'signedName', message: `Type your name as it is on your account (${actor.name}) to sign.` }],
+      'The typed name is not the name of your account.',
+    );
+  }
+  return actor.name;
+}
+
 /**
  * The subcontractor issues one waiver: the form must be allowed now (unconditional only after the payment
  * settled), the PDF is rendered and stored, then the row and its audit event are written in one transaction.
  */
 export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: string, input: IssueLienWaiverInput): Promise<LienWaiverView> {
   const { app, project } = await loadPayApp(ctx, actor, payAppId, canIssueWaiver);
+  const signedName = signerName(actor, project, input.signedName);
   const issued = await repo.listWaivers(ctx.db, { payAppId });
   const option = waiverOptions(app, await repo.paymentsOf(ctx.db, app.id), issued).find((o) => o.kind === input.kind);
   if (!option) throw new AppError(409, 'WAIVER_NOT_ALLOWED', `This is ${app.isFinal ? 'the final' : 'a progress'} application: use the ${app.isFinal ? 'final' : 'progress'} waiver forms.`);
@@ -53,16 +83,35 @@ export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: strin
     repo.companyName(ctx.db, project.ownerCompanyId),
   ]);
   const pdf = await renderWaiverPdf({
-    kind: input.kind, state: project.state, project: project.name, location: project.location, claimant, customer, owner,
-    payAppNumber: app.number, amountCents: option.amountCents, throughDate: app.periodEnd, signedName: input.signedName,
-    signedByEmail: actor.email, signedAt, paymentRef: option.paymentId,
+    kind: input.kind,
+    state: project.state,
+    project: project.name,
+    location: project.location,
+    claimant,
+    customer,
+    owner,
+    payAppNumber: app.number,
+    amountCents: option.amountCents,
+    throughDate: app.periodEnd,
+    signedName,
+    signedByEmail: actor.email,
+    signedAt,
+    paymentRef: option.paymentId,
   });
   const stored = await ctx.storage.put(pdf, 'lien-waivers');
   try {
     const row = await ctx.db.transaction(async (tx) => {
       const row = await repo.insertWaiver(tx, {
-        projectId: app.projectId, payAppId: app.id, paymentId: option.paymentId, kind: input.kind, amountCents: option.amountCents,
-        throughDate: app.periodEnd, signedName: input.signedName, signedByUserId: actor.userId, signedAt, storageKey: stored.key,
+        projectId: app.projectId,
+        payAppId: app.id,
+        paymentId: option.paymentId,
+        kind: input.kind,
+        amountCents: option.amountCents,
+        throughDate: app.periodEnd,
+        signedName,
+        signedByUserId: actor.userId,
+        signedAt,
+        storageKey: stored.key,
       });
       await recordAudit(tx, {
         projectId: app.projectId, actorUserId: actor.userId, objectType: 'lien_waiver', objectId: row.id, action: 'lien_waiver.issued',

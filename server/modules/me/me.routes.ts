@@ -1,12 +1,10 @@
 import { Router } from 'express';
-import { asc } from 'drizzle-orm';
 import type { MeView } from '../../../src/shared/schemas/project';
 import type { Db } from '../../db/client';
-import { companies } from '../../db/schema';
 import { getActor } from '../../lib/actor';
-import { presentCompany } from '../projects/projects.presenter';
+import { listCompanies } from '../companies/companies.service';
 
-/** Who is signed in, and the companies a general contractor can pick when setting up a project. */
+/** Who is signed in, and the companies the person may see (their own, their jobs', and what a new job can name). */
 export function meRouter(db: Db): Router {
   const router = Router();
   router.get('/me', (_req, res) => {
@@ -22,9 +20,7 @@ export function meRouter(db: Db): Router {
     res.json(body);
   });
   router.get('/companies', async (_req, res) => {
-    getActor(res);
-    const rows = await db.select().from(companies).orderBy(asc(companies.name));
-    res.json({ companies: rows.map(presentCompany) });
+    res.json({ companies: await listCompanies(db, getActor(res)) });
   });
   return router;
 }

@@ -45,6 +45,20 @@ const audit = (tx: Executor, actor: Actor, app: repo.PayAppRow, action: string, 
 
 const state = (a: repo.PayAppRow) => ({ status: a.status, revision: a.revision, currentDueCents: a.currentDueCents });
 
+/**
+ * Separation of duties (product brief): whoever submitted an application, at any revision, does not review or
+ * certify it, even after moving to the general contractor's seat.
+ */
+async function refuseSubmitter(ctx: AppContext, actor: Actor, app: repo.PayAppRow) {
+  if ((await repo.submitterIds(ctx.db, app.id)).includes(actor.userId)) {
+    throw new AppError(
+      403,
+      'SUBMITTER_CANNOT_REVIEW',
+      `You submitted pay application ${app.number}; another person of the general contractor reviews and certifies it.`,
+    );
+  }
+}
+
 /** Runs the change in one transaction, then sends the mail it queued (never inside the transaction). */
 async function commit(ctx: AppContext, payAppId: string, work: (tx: Executor) => Promise<void>) {
   await ctx.db.transaction(work);
@@ -82,6 +96,7 @@ export async function certifyPayApp(
 ) {
   const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
   const to = checkAction(app, 'certify', roles, input.expectedRevision);
+  await refuseSubmitter(ctx, actor, app);
   const lines = await repo.listLines(ctx.db, app.id);
   const unapproved = lines.filter((l) => l.reviewStatus !== 'approved');
   if (unapproved.length > 0) {
@@ -159,6 +174,7 @@ export async function reviewPayApp(ctx: AppContext, actor: Actor, payAppId: stri
       to: checkAction({ ...app, status: reviewFrom }, 'return', roles, input.expectedRevision),
     });
   if (steps.length === 0) checkAction(app, 'return', roles, input.expectedRevision); // in_review, approvals only: same checks
+  await refuseSubmitter(ctx, actor, app);
   const lines = new Map((await repo.listLines(ctx.db, app.id)).map((l) => [l.id, l]));
   const seen = new Set<string>();
   const bad = input.lines.flatMap((l, i) => {

@@ -7,10 +7,21 @@ export const canCreatePayApp = (roles: AccessRole[]) => roles.includes('subcontr
 /** Whether the person's roles may take this action, from the transition table. */
 export const mayTake = (action: PayAppAction, roles: AccessRole[]) => PAY_APP_TRANSITIONS[action].by.some((r) => r !== 'system' && roles.includes(r));
 
-/** The owner sees certified applications (and later states) only; the contractors see every status. */
+const CONTRACTOR_SIDE: readonly AccessRole[] = [
+  'subcontractor',
+  'general_contractor',
+  'subcontractor_admin',
+  'general_contractor_admin',
+];
+
+/**
+ * The owner's side (its seat and its admin) sees certified applications (and later states) only; the two
+ * contractors' sides see every status. Everything that names an application (its audit, payments, exports,
+ * waivers, the project trail) follows this rule.
+ */
 export function canSeePayApp(roles: AccessRole[], status: PayAppStatus): boolean {
-  if (roles.some((r) => r === 'subcontractor' || r === 'general_contractor' || r === 'admin')) return true;
-  return roles.includes('owner') && isFrozen(status);
+  if (roles.some((r) => CONTRACTOR_SIDE.includes(r))) return true;
+  return roles.length > 0 && isFrozen(status);
 }
 
 /** Dispute threads are between the two contractors. */

@@ -46,7 +46,15 @@ export function presentLine(l: PayAppDetailRow['lines'][number]): PayAppLineView
 }
 
 export function presentHistory(h: PayAppDetailRow['history'][number]): PayAppDetail['history'][number] {
-  return { id: h.id, fromStatus: h.fromStatus, toStatus: h.toStatus, revision: h.revision, note: h.note, actor: h.actor?.name ?? null, createdAt: h.createdAt.toISOString() };
+  return {
+    id: h.id,
+    fromStatus: h.fromStatus,
+    toStatus: h.toStatus,
+    revision: h.revision,
+    note: h.note,
+    actor: h.actor?.name ?? null,
+    createdAt: h.createdAt.toISOString(),
+  };
 }
 
 export function presentDispute(d: PayAppDetailRow['disputes'][number]): DisputeView {
@@ -63,7 +71,12 @@ export function presentDispute(d: PayAppDetailRow['disputes'][number]): DisputeV
     resolvedBy: d.resolvedBy?.name ?? null,
     createdAt: d.createdAt.toISOString(),
     resolvedAt: d.resolvedAt?.toISOString() ?? null,
-    comments: d.comments.map((c) => ({ id: c.id, author: c.author.name, body: c.body, createdAt: c.createdAt.toISOString() })),
+    comments: d.comments.map((c) => ({
+      id: c.id,
+      author: c.author.name,
+      body: c.body,
+      createdAt: c.createdAt.toISOString(),
+    })),
   };
 }
 

@@ -117,6 +117,15 @@ export async function openDisputes(db: Executor, payAppId: string): Promise<Disp
     .where(and(eq(disputes.payAppId, payAppId), eq(disputes.status, 'open')));
 }
 
+/** Everyone who submitted any revision of the application (its status history). */
+export async function submitterIds(db: Executor, payAppId: string): Promise<string[]> {
+  const rows = await db
+    .selectDistinct({ id: payAppStatusHistory.actorUserId })
+    .from(payAppStatusHistory)
+    .where(and(eq(payAppStatusHistory.payAppId, payAppId), eq(payAppStatusHistory.toStatus, 'submitted')));
+  return rows.flatMap((r) => (r.id ? [r.id] : []));
+}
+
 /** E-mail addresses of the people holding `role` on the project. */
 export async function addressesOf(db: Executor, projectId: string, role: ProjectRole): Promise<string[]> {
   const rows = await db

@@ -20,12 +20,23 @@ export function presentPayment(row: PaymentRow, payAppNumber: number, history: H
     createdAt: row.createdAt.toISOString(),
     history: history
       .filter((h) => h.paymentId === row.id)
-      .map((h) => ({ fromStatus: h.fromStatus, toStatus: h.toStatus, note: h.note, createdAt: h.createdAt.toISOString() })),
+      .map((h) => ({
+        fromStatus: h.fromStatus,
+        toStatus: h.toStatus,
+        note: h.note,
+        createdAt: h.createdAt.toISOString(),
+      })),
   };
 }
 
-export function presentPayApp(app: PayAppRow, payments: PaymentRow[], allowPartialPayments: boolean): PayablePayAppView {
-  const processing = sumCents(payments.filter((p) => p.payAppId === app.id && p.status === 'processing').map((p) => p.amountCents));
+export function presentPayApp(
+  app: PayAppRow,
+  payments: PaymentRow[],
+  allowPartialPayments: boolean,
+): PayablePayAppView {
+  const processing = sumCents(
+    payments.filter((p) => p.payAppId === app.id && p.status === 'processing').map((p) => p.amountCents),
+  );
   const balance = balanceCents(app, processing);
   return {
     id: app.id,

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, sql } from 'drizzle-orm';
 import type { PaymentStatus, ProjectRole } from '../../../src/shared/constants';
 import { sumCents } from '../../../src/shared/domain/money';
 import type { Executor } from '../../db/client';
@@ -23,6 +23,15 @@ export const listPayments = (db: Executor, where: { payAppId?: string; projectId
     .from(payments)
     .where(where.payAppId ? eq(payments.payAppId, where.payAppId) : eq(payments.projectId, where.projectId!))
     .orderBy(desc(payments.createdAt));
+
+/** Cents of the application's payments started since `since` that are open, processing or paid (not failed or ended). */
+export async function recentPaymentCents(db: Executor, payAppId: string, since: Date): Promise<number> {
+  const [row] = await db
+    .select({ cents: sql<string>`coalesce(sum(${payments.amountCents}), 0)` })
+    .from(payments)
+    .where(and(eq(payments.payAppId, payAppId), gte(payments.createdAt, since), inArray(payments.status, ['created', 'processing', 'succeeded'])));
+  return Number(row?.cents ?? 0);
+}
 
 export async function historyOf(db: Executor, paymentIds: string[]): Promise<HistoryRow[]> {
   if (paymentIds.length === 0) return [];

@@ -4,21 +4,26 @@ import type { AppContext } from '../../app-context';
 import type { Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
-import { AppError, notFound, validationFailed } from '../../lib/app-error';
+import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isFrozen } from '../../../src/shared/domain/pay-app-status';
+import { sumCents } from '../../../src/shared/domain/money';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../projects/projects.policy';
+import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { balanceCents, canPay, chargeAmount, PAYABLE_STATUSES } from './payments.policy';
 import { presentPayApp, presentPayment } from './payments.presenter';
 import * as repo from './payments.repository';
 
+/** The pay application with the same visibility as the application itself: hidden from the owner's side until certified. */
 async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule = canReadProject) {
   const app = isUuid(payAppId) ? await repo.findPayApp(ctx.db, payAppId) : undefined;
   if (!app) throw notFound('The pay application');
-  const access = await loadProjectAccess(ctx.db, actor, app.projectId, rule).catch((err: unknown) => {
+  const access = await loadProjectAccess(ctx.db, actor, app.projectId).catch((err: unknown) => {
     throw err instanceof AppError && err.status === 404 ? notFound('The pay application') : err;
   });
+  if (!canSeePayApp(access.roles, app.status)) throw notFound('The pay application');
+  if (!rule(access.roles)) throw forbidden();
   return { app, ...access };
 }
 
@@ -96,7 +101,10 @@ export async function startPayment(ctx: AppContext, actor: Actor, payAppId: stri
   const preview = await repo.findPayApp(ctx.db, payAppId);
   const previewBalance = preview ? balanceCents(preview, await repo.processingCentsOf(ctx.db, preview.id)) : 0;
   const previewAmount = chargeAmount(previewBalance, project.allowPartialPayments, input.partialAmountCents);
-  if (previewAmount.ok && previewAmount.amountCents > ctx.recentAuth.paymentAboveCents) await confirmRecentAuth?.();
+  // The threshold is on the total paid on this application within the window: two payments just under it ask too.
+  const since = new Date(Date.now() - ctx.recentAuth.paymentWindowHours * 3_600_000);
+  const earlier = await repo.recentPaymentCents(ctx.db, payAppId, since);
+  if (previewAmount.ok && sumCents([earlier, previewAmount.amountCents]) > ctx.recentAuth.paymentAboveCents) await confirmRecentAuth?.();
   const payment = await ctx.db.transaction(async (tx) => {
     const app = (await repo.findPayApp(tx, payAppId, true))!;
     const balance = balanceCents(app, await repo.processingCentsOf(tx, app.id));

@@ -1,4 +1,10 @@
-import type { AccessRole, ProjectRole } from '../../../src/shared/constants';
+import {
+  ADMIN_ROLE_OF,
+  ADMIN_ROLES,
+  type AccessRole,
+  type AdminRole,
+  type ProjectRole,
+} from '../../../src/shared/constants';
 import type { Actor } from '../../lib/actor';
 
 /** The parts of a project its access rules look at. */
@@ -8,23 +14,51 @@ export type ProjectParties = {
   ownerCompanyId: string;
 };
 
+/** The company whose people hold a party seat of the project. */
+export function seatCompanyId(project: ProjectParties, role: ProjectRole): string {
+  if (role === 'subcontractor') return project.subcontractorCompanyId;
+  if (role === 'general_contractor') return project.generalContractorCompanyId;
+  return project.ownerCompanyId;
+}
+
+/** The seat a company fills on a project, or null when the company is not one of its three parties. */
+export function seatOfCompany(project: ProjectParties, companyId: string | null): ProjectRole | null {
+  if (!companyId) return null;
+  if (companyId === project.subcontractorCompanyId) return 'subcontractor';
+  if (companyId === project.generalContractorCompanyId) return 'general_contractor';
+  if (companyId === project.ownerCompanyId) return 'owner';
+  return null;
+}
+
 /**
- * Effective roles of an actor on a project: the roles the person was given on it, plus `admin` when the person
- * administers one of the project's three companies.
+ * Effective roles of an actor on a project. A seat counts only while the person belongs to the company that fills
+ * it (someone who left the company keeps no power through an old row), and the admin of a party company gets that
+ * company's admin role: it manages its own company's people, never another company's, and never the contract
+ * unless it is the general contractor's.
  */
 export function accessRoles(actor: Actor, project: ProjectParties, memberRoles: ProjectRole[]): AccessRole[] {
-  const roles: AccessRole[] = [...new Set(memberRoles)];
-  const parties = [project.subcontractorCompanyId, project.generalContractorCompanyId, project.ownerCompanyId];
-  if (actor.isAdmin && actor.companyId && parties.includes(actor.companyId)) roles.push('admin');
+  const seat = seatOfCompany(project, actor.companyId);
+  const roles: AccessRole[] = [...new Set(memberRoles)].filter((r) => r === seat);
+  if (seat && actor.isAdmin) roles.push(ADMIN_ROLE_OF[seat]);
   return roles;
 }
 
+export const isAdminRole = (role: AccessRole): role is AdminRole => (ADMIN_ROLES as readonly string[]).includes(role);
+
 export const canReadProject = (roles: AccessRole[]) => roles.length > 0;
 
-/** Contract settings and the bid schedule belong to the general contractor's side. */
-export const canManageContract = (roles: AccessRole[]) => roles.includes('general_contractor') || roles.includes('admin');
+/** Contract settings (prices, retainage, approval rules) and the bid schedule belong to the general contractor's side. */
+export const canManageContract = (roles: AccessRole[]) =>
+  roles.includes('general_contractor') || roles.includes('general_contractor_admin');
 
-export const canManagePeople = canManageContract;
+/** People are managed by their own company's admin: each party admin invites and removes its company's people. */
+export const canManagePeople = (roles: AccessRole[]) => roles.some(isAdminRole);
+
+/** The seat whose people an admin manages (its company's), or null for someone who is no admin here. */
+export function managedSeat(roles: AccessRole[]): ProjectRole | null {
+  const admin = roles.find(isAdminRole);
+  return admin ? (admin.replace(/_admin$/, '') as ProjectRole) : null;
+}
 
 /** Projects are set up by a general contractor's people (or its admin). */
 export const canCreateProject = (actor: Actor) => actor.companyKind === 'general_contractor';

@@ -60,6 +60,7 @@ export async function listMembers(db: Executor, projectId: string) {
       name: user.name,
       email: user.email,
       role: projectMembers.role,
+      companyId: companies.id,
       companyName: companies.name,
     })
     .from(projectMembers)

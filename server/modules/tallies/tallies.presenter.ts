@@ -1,5 +1,11 @@
-import type { EvidenceKind, EvidenceView, TallyResult, TallyView } from '../../../src/shared/schemas/tally';
-import type { EvidenceRow, TallyJoined } from './tallies.repository';
+import type {
+  EvidenceKind,
+  EvidenceView,
+  TallyResult,
+  TallyRevisionView,
+  TallyView,
+} from '../../../src/shared/schemas/tally';
+import type { EvidenceRow, RevisionRow, TallyJoined } from './tallies.repository';
 
 export function presentTally(row: TallyJoined, evidenceCount: number): TallyView {
   const { tally } = row;
@@ -14,6 +20,7 @@ export function presentTally(row: TallyJoined, evidenceCount: number): TallyView
     result: (tally.result as TallyResult | null) ?? null,
     quantity: tally.quantity,
     manualBasis: tally.manualBasis,
+    sanityReason: tally.sanityReason,
     status: tally.status,
     payAppId: tally.payAppId,
     author: { id: tally.authorUserId, name: row.authorName },
@@ -35,5 +42,21 @@ export function presentEvidence(row: EvidenceRow, uploadedBy: string): EvidenceV
     uploadedBy,
     createdAt: row.createdAt.toISOString(),
     downloadUrl: `/api/evidence/${row.id}/download`,
+  };
+}
+
+export function presentRevision(row: RevisionRow, replacedBy: string): TallyRevisionView {
+  return {
+    revision: row.revision,
+    savedAt: row.savedAt.toISOString(),
+    replacedAt: row.createdAt.toISOString(),
+    replacedBy,
+    measuredOn: row.measuredOn,
+    title: row.title,
+    method: row.method,
+    bidItemId: row.bidItemId,
+    quantity: row.quantity,
+    inputs: (row.inputs as Record<string, unknown> | null) ?? null,
+    trail: (row.result as TallyResult | null)?.trail ?? [],
   };
 }

@@ -1,10 +1,11 @@
-import { and, asc, count, desc, eq, gte, inArray, lte, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, lte, ne, sum, type SQL } from 'drizzle-orm';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
-import { bidItems, payApps, tallies, tallyEvidence, user } from '../../db/schema';
+import { bidItems, payApps, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
 
 export type TallyRow = typeof tallies.$inferSelect;
 export type EvidenceRow = typeof tallyEvidence.$inferSelect;
+export type RevisionRow = typeof tallyRevisions.$inferSelect;
 export type TallyJoined = {
   tally: TallyRow;
   bidItem: Pick<typeof bidItems.$inferSelect, 'id' | 'itemNumber' | 'description' | 'payUnit' | 'basis'>;
@@ -13,12 +14,22 @@ export type TallyJoined = {
 
 const joinedColumns = {
   tally: tallies,
-  bidItem: { id: bidItems.id, itemNumber: bidItems.itemNumber, description: bidItems.description, payUnit: bidItems.payUnit, basis: bidItems.basis },
+  bidItem: {
+    id: bidItems.id,
+    itemNumber: bidItems.itemNumber,
+    description: bidItems.description,
+    payUnit: bidItems.payUnit,
+    basis: bidItems.basis,
+  },
   authorName: user.name,
 };
 
 function joined(db: Executor) {
-  return db.select(joinedColumns).from(tallies).innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId)).innerJoin(user, eq(user.id, tallies.authorUserId));
+  return db
+    .select(joinedColumns)
+    .from(tallies)
+    .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
+    .innerJoin(user, eq(user.id, tallies.authorUserId));
 }
 
 export async function listTallies(db: Executor, projectId: string, q: TallyListQuery): Promise<TallyJoined[]> {
@@ -27,7 +38,9 @@ export async function listTallies(db: Executor, projectId: string, q: TallyListQ
   if (q.bidItemId) where.push(eq(tallies.bidItemId, q.bidItemId));
   if (q.from) where.push(gte(tallies.measuredOn, q.from));
   if (q.to) where.push(lte(tallies.measuredOn, q.to));
-  return joined(db).where(and(...where)).orderBy(desc(tallies.measuredOn), asc(bidItems.itemNumber));
+  return joined(db)
+    .where(and(...where))
+    .orderBy(desc(tallies.measuredOn), asc(bidItems.itemNumber));
 }
 
 export async function findTally(db: Executor, tallyId: string): Promise<TallyJoined | undefined> {
@@ -37,7 +50,11 @@ export async function findTally(db: Executor, tallyId: string): Promise<TallyJoi
 
 export async function evidenceCounts(db: Executor, tallyIds: string[]): Promise<Map<string, number>> {
   if (tallyIds.length === 0) return new Map();
-  const rows = await db.select({ tallyId: tallyEvidence.tallyId, n: count() }).from(tallyEvidence).where(inArray(tallyEvidence.tallyId, tallyIds)).groupBy(tallyEvidence.tallyId);
+  const rows = await db
+    .select({ tallyId: tallyEvidence.tallyId, n: count() })
+    .from(tallyEvidence)
+    .where(inArray(tallyEvidence.tallyId, tallyIds))
+    .groupBy(tallyEvidence.tallyId);
   return new Map(rows.map((r) => [r.tallyId, r.n]));
 }
 
@@ -52,7 +69,12 @@ export async function listEvidence(db: Executor, tallyId: string) {
 
 export async function findEvidence(db: Executor, evidenceId: string) {
   const [row] = await db
-    .select({ evidence: tallyEvidence, projectId: tallies.projectId, tallyStatus: tallies.status, payAppId: tallies.payAppId })
+    .select({
+      evidence: tallyEvidence,
+      projectId: tallies.projectId,
+      tallyStatus: tallies.status,
+      payAppId: tallies.payAppId,
+    })
     .from(tallyEvidence)
     .innerJoin(tallies, eq(tallies.id, tallyEvidence.tallyId))
     .where(eq(tallyEvidence.id, evidenceId))
@@ -72,21 +94,76 @@ export async function insertTally(db: Executor, values: typeof tallies.$inferIns
 }
 
 /** Updates a tally only while it still has the status the caller saw; undefined when it changed meanwhile. */
-export async function updateTallyIf(db: Executor, tallyId: string, status: TallyRow['status'], values: Partial<typeof tallies.$inferInsert>) {
-  const [row] = await db.update(tallies).set(values).where(and(eq(tallies.id, tallyId), eq(tallies.status, status))).returning();
+export async function updateTallyIf(
+  db: Executor,
+  tallyId: string,
+  status: TallyRow['status'],
+  values: Partial<typeof tallies.$inferInsert>,
+) {
+  const [row] = await db
+    .update(tallies)
+    .set(values)
+    .where(and(eq(tallies.id, tallyId), eq(tallies.status, status)))
+    .returning();
   return row;
 }
 
 export async function deleteTallyIfDraft(db: Executor, tallyId: string): Promise<boolean> {
-  const rows = await db.delete(tallies).where(and(eq(tallies.id, tallyId), eq(tallies.status, 'draft'))).returning({ id: tallies.id });
+  const rows = await db
+    .delete(tallies)
+    .where(and(eq(tallies.id, tallyId), eq(tallies.status, 'draft')))
+    .returning({ id: tallies.id });
   return rows.length > 0;
 }
 
-export async function insertEvidence(db: Executor, values: (typeof tallyEvidence.$inferInsert)[]): Promise<EvidenceRow[]> {
+export async function insertEvidence(
+  db: Executor,
+  values: (typeof tallyEvidence.$inferInsert)[],
+): Promise<EvidenceRow[]> {
   if (values.length === 0) return [];
   return db.insert(tallyEvidence).values(values).returning();
 }
 
 export async function deleteEvidence(db: Executor, evidenceId: string): Promise<void> {
   await db.delete(tallyEvidence).where(eq(tallyEvidence.id, evidenceId));
+}
+
+/** Quantity of an item's tallies other than `exceptTallyId` (null: all of them). */
+export async function talliedQuantity(db: Executor, bidItemId: string, exceptTallyId: string | null): Promise<number> {
+  const where = exceptTallyId
+    ? and(eq(tallies.bidItemId, bidItemId), ne(tallies.id, exceptTallyId))
+    : eq(tallies.bidItemId, bidItemId);
+  const [row] = await db
+    .select({ total: sum(tallies.quantity) })
+    .from(tallies)
+    .where(where);
+  return Number(row?.total ?? 0);
+}
+
+/** Keeps the tally's current state as its next revision (1, 2, ...). */
+export async function insertRevision(db: Executor, t: TallyRow, replacedByUserId: string): Promise<void> {
+  const [last] = await db.select({ n: count() }).from(tallyRevisions).where(eq(tallyRevisions.tallyId, t.id));
+  await db.insert(tallyRevisions).values({
+    tallyId: t.id,
+    revision: (last?.n ?? 0) + 1,
+    bidItemId: t.bidItemId,
+    measuredOn: t.measuredOn,
+    title: t.title,
+    method: t.method,
+    inputs: t.inputs,
+    result: t.result,
+    quantity: t.quantity,
+    manualBasis: t.manualBasis,
+    replacedByUserId,
+    savedAt: t.updatedAt,
+  });
+}
+
+export async function listRevisions(db: Executor, tallyId: string) {
+  return db
+    .select({ revision: tallyRevisions, replacedBy: user.name })
+    .from(tallyRevisions)
+    .innerJoin(user, eq(user.id, tallyRevisions.replacedByUserId))
+    .where(eq(tallyRevisions.tallyId, tallyId))
+    .orderBy(desc(tallyRevisions.revision));
 }

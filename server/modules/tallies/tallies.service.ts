@@ -7,14 +7,15 @@ import {
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import type { ComputePool } from '../../lib/compute/compute-pool';
-import { validationFailed } from '../../lib/app-error';
+import { AppError, validationFailed } from '../../lib/app-error';
+import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
 import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
 import { canWriteTallies, isEditableTally } from './tallies.policy';
-import { presentEvidence, presentTally } from './tallies.presenter';
+import { presentEvidence, presentRevision, presentTally } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
@@ -32,7 +33,8 @@ export async function listTallies(db: Db, actor: Actor, projectId: string, query
 export async function getTally(db: Db, actor: Actor, tallyId: string) {
   const { row } = await loadTallyAccess(db, actor, tallyId);
   const evidence = (await listEvidence(db, tallyId)).map((e) => presentEvidence(e.evidence, e.uploadedBy));
-  return { tally: presentTally(row, evidence.length), evidence };
+  const revisions = (await repo.listRevisions(db, tallyId)).map((r) => presentRevision(r.revision, r.replacedBy));
+  return { tally: presentTally(row, evidence.length), evidence, revisions };
 }
 
 async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: string) {
@@ -43,11 +45,44 @@ async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: strin
   return item;
 }
 
+/**
+ * A quantity past the sanity limits (src/shared/domain/tally-sanity.ts) is saved only with a written reason;
+ * without one the answer is 400 SANITY_REASON_REQUIRED on the field `sanityReason`, and nothing is saved.
+ */
+async function sanityReasonFor(
+  db: Executor,
+  item: { id: string; contractQuantity: number; payUnit: string },
+  quantity: number,
+  tallyId: string | null,
+  reason: string | null | undefined,
+) {
+  const concerns = sanityConcerns({
+    quantity,
+    contractQuantity: item.contractQuantity,
+    talliedElsewhere: await repo.talliedQuantity(db, item.id, tallyId),
+    payUnit: item.payUnit,
+  });
+  if (concerns.length === 0) return null;
+  if (!reason || reason.length < 10) {
+    const message = `${concerns.join('; ')}. Check the inputs; if the quantity is right, say why (at least 10 characters).`;
+    throw new AppError(400, 'SANITY_REASON_REQUIRED', message, [{ path: 'sanityReason', message }]);
+  }
+  return reason;
+}
+
 /** The stored columns for a tally: the server's own computation, never a number sent by the client. */
-async function computedColumns(db: Executor, project: ProjectRow, input: CreateTallyInput, compute?: ComputePool) {
+async function computedColumns(
+  db: Executor,
+  project: ProjectRow,
+  input: CreateTallyInput,
+  compute?: ComputePool,
+  tallyId: string | null = null,
+) {
   const item = await itemOnProject(db, project, input.bidItemId);
   const result = await computeTally(input, item, project, compute);
+  const sanityReason = await sanityReasonFor(db, item, result.quantity, tallyId, input.sanityReason);
   return {
+    sanityReason,
     bidItemId: item.id,
     measuredOn: input.measuredOn,
     title: input.title,
@@ -104,8 +139,10 @@ export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: 
     ...patch,
   };
   // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
-  const columns = await computedColumns(db, project, createTallySchema.parse(merged), compute);
+  const columns = await computedColumns(db, project, createTallySchema.parse(merged), compute, tallyId);
   await db.transaction(async (tx) => {
+    // The state being replaced is kept as a revision (same transaction: no edit without its history).
+    await repo.insertRevision(tx, t, actor.userId);
     const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
     if (!updated) throw tallyNotDraft('no longer a draft');
     await audit(

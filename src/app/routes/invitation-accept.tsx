@@ -8,7 +8,7 @@ export function Component() {
     <main id="main" className="flex min-h-screen items-start justify-center bg-stone-100 px-4 py-16">
       <title>Invitation · Tallyard</title>
       <div className="w-full max-w-md">
-        <p className="text-spruce-900 mb-6 text-center text-2xl font-semibold tracking-tight">Tallyard</p>
+        <p className="mb-6 text-center text-2xl font-semibold tracking-tight text-spruce-900">Tallyard</p>
         <div className="rounded-lg border border-stone-200 bg-white p-6 shadow-sm">
           <AcceptInvitation token={token} onJoined={(projectId) => window.location.assign(`/projects/${projectId}`)} />
         </div>

@@ -15,7 +15,9 @@ export function Component() {
   return (
     <div className="flex flex-col gap-3">
       <title>{`${project.name} · Change order · Tallyard`}</title>
-      <Link to=".." relative="path" className="text-spruce-700 text-xs underline-offset-2 hover:underline">← All change orders</Link>
+      <Link to=".." relative="path" className="text-xs text-spruce-700 underline-offset-2 hover:underline">
+        ← All change orders
+      </Link>
       <ChangeOrderDetail id={changeOrderId} roles={project.myRoles} />
     </div>
   );

@@ -16,7 +16,11 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Change orders · Tallyard`}</title>
-      <ChangeOrderList projectId={projectId} canPropose={canPropose} ownerApproves={project.ownerApprovesChangeOrders} />
+      <ChangeOrderList
+        projectId={projectId}
+        canPropose={canPropose}
+        ownerApproves={project.ownerApprovesChangeOrders}
+      />
     </>
   );
 }

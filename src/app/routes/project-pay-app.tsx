@@ -15,7 +15,11 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Pay application · Tallyard`}</title>
-      <PayAppDetailScreen payAppId={payAppId} isSub={project.myRoles.includes('subcontractor')} isGc={project.myRoles.includes('general_contractor')} />
+      <PayAppDetailScreen
+        payAppId={payAppId}
+        isSub={project.myRoles.includes('subcontractor')}
+        isGc={project.myRoles.includes('general_contractor')}
+      />
     </>
   );
 }

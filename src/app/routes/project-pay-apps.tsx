@@ -13,7 +13,7 @@ export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
   const roles = project.myRoles;
-  const isOwnerOnly = roles.includes('owner') && !roles.some((r) => r === 'subcontractor' || r === 'general_contractor' || r === 'admin');
+  const isOwnerOnly = roles.every((r) => r === 'owner' || r === 'owner_admin');
   return (
     <>
       <title>{`${project.name} · Pay apps · Tallyard`}</title>

@@ -17,7 +17,11 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Tally · Tallyard`}</title>
-      <TallyDetail tallyId={tallyId} canWrite={project.myRoles.includes('subcontractor')} payAppStatusOf={(id) => payApps.find((a) => a.id === id)?.status} />
+      <TallyDetail
+        tallyId={tallyId}
+        canWrite={project.myRoles.includes('subcontractor')}
+        payAppStatusOf={(id) => payApps.find((a) => a.id === id)?.status}
+      />
     </>
   );
 }

@@ -1,5 +1,6 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { projectWaiversQueryOptions, WaiversScreen } from '@/features/lien-waivers';
+import { useMe } from '@/features/auth/api/get-me';
 import { useProject } from '@/features/projects/api/get-project';
 import { queryClient } from '@/lib/query-client';
 
@@ -11,10 +12,15 @@ export function loader({ params }: LoaderFunctionArgs) {
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
+  const me = useMe();
   return (
     <>
       <title>{`${project.name} · Waivers · Tallyard`}</title>
-      <WaiversScreen projectId={projectId} canIssue={project.myRoles.includes('subcontractor')} />
+      <WaiversScreen
+        projectId={projectId}
+        canIssue={project.myRoles.includes('subcontractor')}
+        signerName={me.user.name}
+      />
     </>
   );
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { TrailChange, TrailObject } from '../trail-words';
 
 export const AUDIT_PAGE_SIZE_MAX = 200;
 
@@ -12,12 +13,26 @@ export const auditQuerySchema = z
       .trim()
       .regex(/^[a-z_]{1,40}$/, 'Use an object type such as change_order or pay_app')
       .optional(),
+    /** Only this person's events (a user id from the trail's people list). */
+    person: z.string().trim().min(1).max(64).optional(),
+    /** From and to (ISO instants, with offset): the client sends the person's local day bounds. */
+    from: z.iso.datetime({ offset: true }).optional(),
+    to: z.iso.datetime({ offset: true }).optional(),
   })
-  .strict();
+  .strict()
+  .refine((q) => !q.from || !q.to || Date.parse(q.from) <= Date.parse(q.to), {
+    message: 'The start date is after the end date',
+    path: ['from'],
+  });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
 export type AuditEventView = {
   id: number;
+  /** The event in the product's words, with `{object}` where the object's name goes (a link on screen). */
+  sentence: string;
+  object: TrailObject;
+  /** The changed values, labelled and formatted with their units; never ids or field codes. */
+  changes: TrailChange[];
   at: string;
   actor: { userId: string; name: string } | null;
   objectType: string;
@@ -34,4 +49,6 @@ export type AuditPage = {
   total: number;
   /** Object types present on the project, for the filter. */
   objectTypes: string[];
+  /** People who appear on the project's trail, for the filter. */
+  people: { userId: string; name: string }[];
 };

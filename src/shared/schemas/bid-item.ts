@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { MEASUREMENT_BASES, MEASUREMENT_METHODS, PAY_UNITS } from '../constants';
+import { lineAmountWithinLimit } from './money-limits';
 
 /** Largest unit price accepted: $10,000,000.00 per unit, in cents. */
 export const MAX_UNIT_PRICE_CENTS = 1_000_000_000;
 /** Largest contract quantity accepted, in the pay unit. */
 export const MAX_CONTRACT_QUANTITY = 1e9;
 
-export const bidItemInputSchema = z
+/** The fields of a bid item, each bounded on its own (the update schema takes any of them). */
+const bidItemFields = z
   .object({
     itemNumber: z
       .string()
@@ -27,13 +29,17 @@ export const bidItemInputSchema = z
     method: z.enum(MEASUREMENT_METHODS),
   })
   .strict();
+/** A bid item: its fields, and a line amount (quantity x unit price) within MAX_LINE_AMOUNT_CENTS. */
+export const bidItemInputSchema = bidItemFields.superRefine(
+  lineAmountWithinLimit<z.infer<typeof bidItemFields>>((v) => v.contractQuantity, (v) => v.unitPriceCents, 'contractQuantity'),
+);
 export type BidItemInput = z.infer<typeof bidItemInputSchema>;
 
 /**
  * A direct edit of a bid item. Once the contract is locked (its first pay application was submitted), only the
  * description, the major-item flag and the measurement method may change, each with a reason.
  */
-export const updateBidItemSchema = bidItemInputSchema
+export const updateBidItemSchema = bidItemFields
   .partial()
   .extend({ reason: z.string().trim().min(3, 'Say why it is corrected').max(2000).optional() })
   .strict();

@@ -72,8 +72,12 @@ export type ProjectMemberView = {
   name: string;
   email: string;
   role: (typeof PROJECT_ROLES)[number];
+  companyId: string | null;
   companyName: string | null;
 };
+
+/** A person of the signed-in admin's company (the company's own people list). */
+export type CompanyMemberView = { userId: string; name: string; email: string; isAdmin: boolean };
 
 export type ProjectSummaryView = {
   id: string;

@@ -49,6 +49,8 @@ const tallyFields = {
   /** Manual quantity, in the bid item's pay unit and basis. */
   quantity: z.number().finite().min(0, 'A quantity cannot be negative').max(MAX_TALLY_QUANTITY).nullish(),
   manualBasis: z.string().trim().max(4000).nullish(),
+  /** Why a quantity past the sanity limits is right; asked for only when the server finds one. */
+  sanityReason: z.string().trim().max(2000).nullish(),
 };
 
 function checkMethod(
@@ -87,6 +89,21 @@ export const tallyListQuerySchema = z.object({
 });
 export type TallyListQuery = z.infer<typeof tallyListQuerySchema>;
 
+/** An earlier saved state of a draft, newest first in a tally's history. */
+export type TallyRevisionView = {
+  revision: number;
+  savedAt: string;
+  replacedAt: string;
+  replacedBy: string;
+  measuredOn: string;
+  title: string;
+  method: MeasurementMethod;
+  bidItemId: string;
+  quantity: number;
+  inputs: Record<string, unknown> | null;
+  trail: string[];
+};
+
 export type EvidenceKind = 'csv' | 'pdf' | 'image' | 'landxml';
 
 export type EvidenceView = {
@@ -123,6 +140,8 @@ export type TallyView = {
   result: TallyResult | null;
   quantity: number;
   manualBasis: string | null;
+  /** The reason given for a quantity past the sanity limits, if one was needed. */
+  sanityReason: string | null;
   status: TallyStatus;
   payAppId: string | null;
   author: { id: string; name: string };

@@ -1,5 +1,6 @@
 export const auditKeys = {
   all: ['audit'] as const,
-  project: (projectId: string, page: number, objectType: string) => [...auditKeys.all, 'project', projectId, page, objectType] as const,
+  project: (projectId: string, page: number, filter: object) =>
+    [...auditKeys.all, 'project', projectId, page, filter] as const,
   payApp: (payAppId: string) => [...auditKeys.all, 'pay-app', payAppId] as const,
 };

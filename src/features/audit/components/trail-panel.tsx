@@ -4,7 +4,13 @@ import { usePayAppTrail } from '../api/get-trail';
 import { TrailTable } from './trail-table';
 
 /** The trail of one pay application (its own events, its lines' and disputes'), for its detail screen. */
-export function TrailPanel({ payAppId, title = 'Trail of this pay application' }: { payAppId: string; title?: string }) {
+export function TrailPanel({
+  payAppId,
+  title = 'Trail of this pay application',
+}: {
+  payAppId: string;
+  title?: string;
+}) {
   const trail = usePayAppTrail(payAppId);
   return (
     <Card>

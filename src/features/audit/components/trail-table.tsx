@@ -4,9 +4,10 @@ import { Button } from '@/components/ui/button';
 import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import type { AuditEventView } from '@/shared/schemas/audit';
 import { ChangeDiff } from './change-diff';
-import { actionLabel, formatTime, objectLabel } from './trail-words';
+import { TrailSentence } from './trail-sentence';
+import { formatTime } from './trail-words';
 
-/** Events newest first; each row opens to show its before and after. */
+/** Events newest first, each as a sentence in local time; each row opens to show its before and after. */
 export function TrailTable({ events, label = 'Trail' }: { events: readonly AuditEventView[]; label?: string }) {
   const [open, setOpen] = useState<ReadonlySet<number>>(new Set());
   const toggle = (id: number) =>
@@ -20,10 +21,11 @@ export function TrailTable({ events, label = 'Trail' }: { events: readonly Audit
     <Table aria-label={label}>
       <TableHead>
         <tr>
-          <TableHeaderCell className="w-8"><span className="sr-only">Details</span></TableHeaderCell>
+          <TableHeaderCell className="w-8">
+            <span className="sr-only">Details</span>
+          </TableHeaderCell>
           <TableHeaderCell>When</TableHeaderCell>
           <TableHeaderCell>Who</TableHeaderCell>
-          <TableHeaderCell>Object</TableHeaderCell>
           <TableHeaderCell>What happened</TableHeaderCell>
         </tr>
       </TableHead>
@@ -45,18 +47,18 @@ export function TrailTable({ events, label = 'Trail' }: { events: readonly Audit
                   </Button>
                 </TableCell>
                 <TableCell className="whitespace-nowrap text-stone-700">{formatTime(event.at)}</TableCell>
-                <TableCell>{event.actor?.name ?? <span className="text-stone-500">System</span>}</TableCell>
-                <TableCell>
-                  {objectLabel(event.objectType)}{' '}
-                  <span className="font-mono text-xs text-stone-500" title={event.objectId}>{event.objectId.slice(0, 8)}</span>
+                <TableCell className="whitespace-nowrap">
+                  {event.actor?.name ?? <span className="text-stone-500">Tallyard</span>}
                 </TableCell>
-                <TableCell>{actionLabel(event.action)}</TableCell>
+                <TableCell className="min-w-64">
+                  <TrailSentence event={event} />
+                </TableCell>
               </TableRow>
               {expanded ? (
                 <tr className="bg-stone-50">
                   <td />
-                  <td colSpan={4} className="px-3 py-2">
-                    <ChangeDiff before={event.before} after={event.after} />
+                  <td colSpan={3} className="px-3 py-2">
+                    <ChangeDiff changes={event.changes} />
                   </td>
                 </tr>
               ) : null}

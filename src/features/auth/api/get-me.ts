@@ -21,7 +21,7 @@ export function useMe() {
   return useSuspenseQuery(meQueryOptions()).data;
 }
 
-/** Company admins and general contractors set up jobs and edit bid schedules. */
+/** People of a general contractor company (its admin included) set up jobs. */
 export function canCreateJobs(me: MeView): boolean {
-  return me.isAdmin || me.company?.kind === 'general_contractor';
+  return me.company?.kind === 'general_contractor';
 }

@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
+import { Link } from 'react-router';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
@@ -43,6 +44,14 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
         <Button type="submit" disabled={signIn.isPending} className="w-full">
           {signIn.isPending ? 'Signing in…' : 'Sign in'}
         </Button>
+        {/* Pressing the link must not blur the e-mail field first: its error would push the link away mid-click. */}
+        <Link
+          to="/forgot-password"
+          onMouseDown={(event) => event.preventDefault()}
+          className="self-center text-sm font-medium text-spruce-700 underline-offset-2 hover:underline"
+        >
+          Forgot your password?
+        </Link>
       </form>
       <DemoSignIns onPick={fillDemo} />
     </div>

@@ -1,4 +1,5 @@
-import { LogOut } from 'lucide-react';
+import { KeyRound, LogOut } from 'lucide-react';
+import { Link } from 'react-router';
 import { Button } from '@/components/ui/button';
 import { COMPANY_KIND_LABELS } from '@/lib/labels';
 import { useMe } from '../api/get-me';
@@ -17,6 +18,13 @@ export function UserMenu() {
           {me.isAdmin ? ' · admin' : ''}
         </p>
       </div>
+      <Link
+        to="/account/password"
+        className="inline-flex items-center gap-1 rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white"
+      >
+        <KeyRound aria-hidden className="size-3.5" />
+        Password
+      </Link>
       <Button
         variant="ghost"
         size="sm"

@@ -7,6 +7,7 @@ import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } fro
 import { errorMessage } from '@/lib/api-client';
 import { formatDate } from '@/lib/format';
 import { ROLE_LABELS } from '@/lib/labels';
+import type { ProjectRole } from '@/shared/constants';
 import type { InvitationState } from '@/shared/schemas/invitation';
 import { useInvitations, useRevokeInvitation } from '../api/invitations';
 import { InviteForm } from './invite-form';
@@ -17,17 +18,21 @@ const STATE_BADGES: Record<InvitationState, { label: string; tone: 'spruce' | 'c
   expired: { label: 'Expired', tone: 'neutral' },
 };
 
-/** For people who manage the job: send invitations, see who joined, revoke links not yet used. */
-export function InvitationsPanel({ projectId }: { projectId: string }) {
+/** For a company's admin: invite its people to its seat on the job, see who joined, revoke links not yet used. */
+export function InvitationsPanel({ projectId, seat }: { projectId: string; seat: ProjectRole }) {
   const list = useInvitations(projectId);
   const revoke = useRevokeInvitation();
   return (
     <Card>
       <CardHeader>
-        <CardTitle>Invitations</CardTitle>
+        <CardTitle>Invitations to the {ROLE_LABELS[seat].toLowerCase()} seat</CardTitle>
       </CardHeader>
       <CardBody className="flex flex-col gap-4">
-        <InviteForm projectId={projectId} />
+        <p className="text-sm text-stone-600">
+          You invite people of your own company. The other companies on this job fill their seats through their own
+          admins.
+        </p>
+        <InviteForm projectId={projectId} seat={seat} />
         {list.isPending ? (
           <LoadingState label="Loading invitations…" />
         ) : list.isError ? (

@@ -7,22 +7,25 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { optionsOf, Select } from '@/components/ui/select';
 import { errorMessage } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { ROLE_LABELS } from '@/lib/labels';
-import { PROJECT_ROLES } from '@/shared/constants';
+import type { ProjectRole } from '@/shared/constants';
 import { createInvitationSchema, type CreateInvitationInput } from '@/shared/schemas/invitation';
 import { useInvite } from '../api/invitations';
 
-/** Invite someone to the job by e-mail with a role; the e-mail carries a one-time link valid for 7 days. */
-export function InviteForm({ projectId }: { projectId: string }) {
+/**
+ * Invite someone of the admin's own company to its seat on the job by e-mail; the e-mail carries a one-time link
+ * valid for 7 days. The seat is the company's (a subcontractor's admin fills the subcontractor seat), so it is shown,
+ * not chosen.
+ */
+export function InviteForm({ projectId, seat }: { projectId: string; seat: ProjectRole }) {
   const invite = useInvite(projectId);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<CreateInvitationInput>({
     resolver: zodResolver(createInvitationSchema),
     mode: 'onTouched',
-    defaultValues: { email: '', role: 'subcontractor' },
+    defaultValues: { email: '', role: seat },
   });
   const { errors, isSubmitting } = form.formState;
   const submit = form.handleSubmit(async (input) => {
@@ -42,7 +45,7 @@ export function InviteForm({ projectId }: { projectId: string }) {
         {(control) => <Input type="email" autoComplete="off" placeholder="name@company.com" {...control} {...form.register('email')} />}
       </Field>
       <Field label="Role on this job" error={errors.role?.message} className="w-56">
-        {(control) => <Select {...control} {...form.register('role')} options={optionsOf(PROJECT_ROLES, (r) => ROLE_LABELS[r])} />}
+        {(control) => <Input {...control} readOnly value={ROLE_LABELS[seat]} className="bg-stone-50" />}
       </Field>
       <Button type="submit" disabled={isSubmitting} className="mt-5">
         <Send aria-hidden />

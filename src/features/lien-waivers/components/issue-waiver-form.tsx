@@ -12,8 +12,23 @@ import { LIEN_WAIVER_TITLES } from '@/shared/domain/lien-waiver-text';
 import { issueLienWaiverSchema, type IssueLienWaiverInput, type WaiverOptionView } from '@/shared/schemas/payment';
 import { useIssueWaiver } from '../api/issue-waiver';
 
-/** Signing by typing the name: the server records the name, the time and the signed-in person. */
-export function IssueWaiverForm({ projectId, payAppId, option, onDone }: { projectId: string; payAppId: string; option: WaiverOptionView; onDone: () => void }) {
+/**
+ * Signing by typing one's own name as it is on the account: the server checks it is that name and records the
+ * account's name, the time and the signed-in person.
+ */
+export function IssueWaiverForm({
+  projectId,
+  payAppId,
+  option,
+  signerName,
+  onDone,
+}: {
+  projectId: string;
+  payAppId: string;
+  option: WaiverOptionView;
+  signerName: string;
+  onDone: () => void;
+}) {
   const issue = useIssueWaiver(projectId, payAppId);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<IssueLienWaiverInput>({
@@ -35,7 +50,12 @@ export function IssueWaiverForm({ projectId, payAppId, option, onDone }: { proje
       <p className="text-sm">
         {LIEN_WAIVER_TITLES[option.kind]} for <strong className="tabular-nums">{formatMoney(option.amountCents)}</strong>.
       </p>
-      <Field label="Type your full name to sign" error={form.formState.errors.signedName?.message} hint="Your typed name, the time and your sign-in are recorded on the waiver." className="max-w-sm">
+      <Field
+        label="Type your full name to sign"
+        error={form.formState.errors.signedName?.message}
+        hint={`Type ${signerName}, the name on your account. The waiver records that name, the time and your sign-in.`}
+        className="max-w-sm"
+      >
         {(control) => <Input {...control} autoComplete="name" {...form.register('signedName')} />}
       </Field>
       {formError ? <Alert>{formError}</Alert> : null}

@@ -31,7 +31,19 @@ function IssuedList({ waivers }: { waivers: LienWaiverView[] }) {
   );
 }
 
-function AppWaivers({ projectId, app, waivers, canIssue }: { projectId: string; app: AppEntry; waivers: LienWaiverView[]; canIssue: boolean }) {
+function AppWaivers({
+  projectId,
+  app,
+  waivers,
+  canIssue,
+  signerName,
+}: {
+  projectId: string;
+  app: AppEntry;
+  waivers: LienWaiverView[];
+  canIssue: boolean;
+  signerName: string;
+}) {
   const [signing, setSigning] = useState<string | null>(null);
   return (
     <Card aria-label={`Waivers for pay application ${app.number}`}>
@@ -51,7 +63,13 @@ function AppWaivers({ projectId, app, waivers, canIssue }: { projectId: string; 
                 <p className="text-xs text-stone-600">{LIEN_WAIVER_SUMMARIES[o.kind]}</p>
                 {o.allowed ? (
                   signing === o.kind ? (
-                    <IssueWaiverForm projectId={projectId} payAppId={app.id} option={o} onDone={() => setSigning(null)} />
+                    <IssueWaiverForm
+                      projectId={projectId}
+                      payAppId={app.id}
+                      option={o}
+                      signerName={signerName}
+                      onDone={() => setSigning(null)}
+                    />
                   ) : (
                     <div>
                       <Button size="sm" onClick={() => setSigning(o.kind)}>
@@ -72,7 +90,16 @@ function AppWaivers({ projectId, app, waivers, canIssue }: { projectId: string; 
 }
 
 /** The Waivers tab: the statutory notice, then per certified application its waivers and (for the subcontractor) what may be issued. */
-export function WaiversScreen({ projectId, canIssue }: { projectId: string; canIssue: boolean }) {
+/** `signerName`: the signed-in person's account name, under which a waiver is signed. */
+export function WaiversScreen({
+  projectId,
+  canIssue,
+  signerName,
+}: {
+  projectId: string;
+  canIssue: boolean;
+  signerName: string;
+}) {
   const query = useProjectWaivers(projectId);
   if (query.isPending) return <LoadingState label="Loading waivers…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
@@ -87,7 +114,16 @@ export function WaiversScreen({ projectId, canIssue }: { projectId: string; canI
       {payApps.length === 0 ? (
         <EmptyState title="No certified pay applications yet">Waivers can be issued once an application is certified.</EmptyState>
       ) : (
-        payApps.map((a) => <AppWaivers key={a.id} projectId={projectId} app={a} waivers={waivers} canIssue={canIssue} />)
+        payApps.map((a) => (
+          <AppWaivers
+            key={a.id}
+            projectId={projectId}
+            app={a}
+            waivers={waivers}
+            canIssue={canIssue}
+            signerName={signerName}
+          />
+        ))
       )}
     </div>
   );

@@ -1,5 +1,6 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { ProjectRole } from '@/shared/constants';
 import type { ProjectView } from '@/shared/schemas/project';
 import { projectKeys } from './keys';
 
@@ -16,7 +17,13 @@ export function useProject(projectId: string) {
   return useSuspenseQuery(projectQueryOptions(projectId)).data;
 }
 
-/** General contractors and admins edit the bid schedule; everyone else on the project reads it. */
+/** The general contractor's side (its seat and its admin) edits the bid schedule; everyone else reads it. */
 export function canEditBidSchedule(project: Pick<ProjectView, 'myRoles'>): boolean {
-  return project.myRoles.includes('general_contractor') || project.myRoles.includes('admin');
+  return project.myRoles.includes('general_contractor') || project.myRoles.includes('general_contractor_admin');
+}
+
+/** The seat whose people the signed-in admin invites and removes here (its own company's), or null. */
+export function managedSeat(project: Pick<ProjectView, 'myRoles'>): ProjectRole | null {
+  const admin = project.myRoles.find((r) => r.endsWith('_admin'));
+  return admin ? (admin.replace(/_admin$/, '') as ProjectRole) : null;
 }

@@ -1,3 +1,4 @@
+import { niceTicks } from '@/components/ui/nice-ticks';
 import {
   Bar,
   BarChart,
@@ -69,6 +70,13 @@ export function WatchCharts({ view }: { view: VarianceView }) {
     earned: p.earnedToDateCents / 100,
     end: p.periodEnd,
   }));
+  // Round ticks: the variance (both signs), earned dollars, and quantity to date with the 100 % contract line in view.
+  const varianceAxis = niceTicks(
+    Math.min(0, ...variance.map((d) => d.variance)),
+    Math.max(0, ...variance.map((d) => d.variance)),
+  );
+  const earnedAxis = niceTicks(0, Math.max(0, ...earned.map((d) => d.earned)));
+  const toDateAxis = niceTicks(0, Math.max(100, ...toDate.map((d) => d.approved + d.pending)));
   return (
     <div className="grid gap-4 lg:grid-cols-3">
       <ChartCard
@@ -79,7 +87,7 @@ export function WatchCharts({ view }: { view: VarianceView }) {
         <BarChart data={variance} margin={{ left: -10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="item" tick={AXIS} />
-          <YAxis tick={AXIS} unit=" %" />
+          <YAxis tick={AXIS} unit=" %" domain={varianceAxis.domain} ticks={varianceAxis.ticks} />
           <Tooltip formatter={(v) => [formatPercent(Number(v), 1), 'Variance']} />
           <ReferenceLine y={0} stroke="#7a7367" />
           <Bar dataKey="variance" name="Variance">
@@ -97,7 +105,12 @@ export function WatchCharts({ view }: { view: VarianceView }) {
         <LineChart data={earned} margin={{ left: 10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="period" tick={AXIS} />
-          <YAxis tick={AXIS} tickFormatter={(v: number) => `$${Math.round(v / 1000)}k`} />
+          <YAxis
+            tick={AXIS}
+            domain={earnedAxis.domain}
+            ticks={earnedAxis.ticks}
+            tickFormatter={(v: number) => `$${Math.round(v / 1000)}k`}
+          />
           <Tooltip formatter={(v) => [formatMoney(Math.round(Number(v) * 100)), 'Earned to date']} />
           <Line type="monotone" dataKey="earned" stroke="#1f5040" strokeWidth={2} dot={{ r: 3 }} />
         </LineChart>
@@ -110,7 +123,7 @@ export function WatchCharts({ view }: { view: VarianceView }) {
         <BarChart data={toDate} margin={{ left: -10, right: 8 }}>
           <CartesianGrid stroke="#eeece7" vertical={false} />
           <XAxis dataKey="item" tick={AXIS} />
-          <YAxis tick={AXIS} unit=" %" />
+          <YAxis tick={AXIS} unit=" %" domain={toDateAxis.domain} ticks={toDateAxis.ticks} />
           <Tooltip formatter={(v, name) => [formatPercent(Number(v), 1), name]} />
           <Legend wrapperStyle={{ fontSize: 11 }} />
           <ReferenceLine

@@ -6,7 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { errorMessage } from '@/lib/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import type { BidItemView } from '@/shared/schemas/bid-item';
 import { isoDateSchema } from '@/shared/schemas/tally';
@@ -16,9 +16,10 @@ import { BillLine } from './billing-bar';
 const saveSchema = z.object({
   measuredOn: isoDateSchema,
   title: z.string().trim().max(200, 'At most 200 characters'),
+  sanityReason: z.string().trim().max(2000, 'At most 2,000 characters'),
 });
 export type SaveTallyValues = z.infer<typeof saveSchema>;
-const FIELDS = ['measuredOn', 'title'] as const;
+const FIELDS = ['measuredOn', 'title', 'sanityReason'] as const;
 
 function today(): string {
   const d = new Date();
@@ -38,9 +39,11 @@ type SaveTallyFormProps = {
 /** Measured-on date and title for the tally, with what it bills and the files that go with it. */
 export function SaveTallyForm({ item, preview, files, start, updating, onSave, onCancel }: SaveTallyFormProps) {
   const [formError, setFormError] = useState<string | null>(null);
+  // The server asks for a reason when the quantity is past the sanity limits (SANITY_REASON_REQUIRED).
+  const [needsReason, setNeedsReason] = useState(false);
   const form = useForm<SaveTallyValues>({
     resolver: zodResolver(saveSchema),
-    defaultValues: { measuredOn: start.measuredOn ?? today(), title: start.title ?? '' },
+    defaultValues: { measuredOn: start.measuredOn ?? today(), title: start.title ?? '', sanityReason: '' },
   });
   const { errors, isSubmitting } = form.formState;
 
@@ -49,6 +52,7 @@ export function SaveTallyForm({ item, preview, files, start, updating, onSave, o
     try {
       await onSave(values);
     } catch (error) {
+      if (error instanceof ApiError && error.code === 'SANITY_REASON_REQUIRED') setNeedsReason(true);
       const leftover = applyServerErrors(error, form.setError, FIELDS);
       setFormError(leftover.length ? leftover.join('; ') : errorMessage(error));
     }
@@ -65,6 +69,22 @@ export function SaveTallyForm({ item, preview, files, start, updating, onSave, o
       <Field label="Title" error={errors.title?.message} hint="Optional, e.g. where and what was measured">
         {(c) => <Input {...c} {...form.register('title')} />}
       </Field>
+      {needsReason ? (
+        <Field
+          label="This quantity is unusual: why is it right?"
+          error={errors.sanityReason?.message}
+          hint="Recorded with the tally for the reviewer"
+        >
+          {(c) => (
+            <textarea
+              {...c}
+              rows={3}
+              className="w-full rounded-md border border-stone-300 px-2.5 py-1.5 text-sm"
+              {...form.register('sanityReason')}
+            />
+          )}
+        </Field>
+      ) : null}
       <div className="text-xs text-stone-700">
         <p className="font-medium">Evidence</p>
         {files.length ? (

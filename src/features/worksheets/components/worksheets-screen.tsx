@@ -106,7 +106,7 @@ function Worksheets({
   const Screen = WORKSHEET_SCREENS[method];
   const tallyUrl = (id: string) => `/projects/${projectId}/tallies/${id}`;
 
-  const onSave = async (values: { measuredOn: string; title: string }) => {
+  const onSave = async ({ sanityReason, ...values }: { measuredOn: string; title: string; sanityReason: string }) => {
     if (!item || !current?.inputs) return;
     const body = {
       bidItemId: item.id,
@@ -116,6 +116,7 @@ function Worksheets({
       ...(options.component ? { component: options.component } : {}),
       ...(options.measuredBasis ? { measuredBasis: options.measuredBasis } : {}),
       ...(options.density ? { density: options.density } : {}),
+      ...(sanityReason ? { sanityReason } : {}),
     };
     const { tally: result, evidence } = await save.mutateAsync({
       tallyId: tally?.status === 'draft' ? tally.id : null,

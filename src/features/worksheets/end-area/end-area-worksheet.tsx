@@ -10,7 +10,7 @@ import { stationValue, StationsTable, type StationRow } from '../components/stat
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { issueAt } from '../lib/live-calc';
 import { useJsonValue } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { fmt2, unitLabels } from '../lib/units';
 import { AreaProfileChart } from './area-profile-chart';
@@ -26,11 +26,23 @@ const rowsOf = (worked: readonly WorkedSection[]): StationRow[] =>
 function start(initial: Record<string, unknown> | null, unit: LengthUnit) {
   if (initial) {
     const i = initial as Partial<EndAreaForm>;
-    return { text: '', worked: [], form: { formula: i.formula ?? 'average-end-area', zeroAreaEnds: i.zeroAreaEnds ?? 'average', stations: i.stations ?? [] } };
+    return {
+      text: '',
+      worked: [],
+      form: {
+        formula: i.formula ?? 'average-end-area',
+        zeroAreaEnds: i.zeroAreaEnds ?? 'average',
+        stations: i.stations ?? [],
+      },
+    };
   }
   const text = sampleSectionCsv(unit);
   const { worked } = readSections(text, unit);
-  return { text, worked, form: { formula: 'average-end-area', zeroAreaEnds: 'average', stations: rowsOf(worked) } as EndAreaForm };
+  return {
+    text,
+    worked,
+    form: { formula: 'average-end-area', zeroAreaEnds: 'average', stations: rowsOf(worked) } as EndAreaForm,
+  };
 }
 
 export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
@@ -56,7 +68,7 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
     }
   };
   const register = (i: number, cell: keyof StationRow) =>
-    form.register(`stations.${i}.${cell}`, cell === 'station' ? { setValueAs: stationValue } : { valueAsNumber: true });
+    form.register(`stations.${i}.${cell}`, cell === 'station' ? { setValueAs: stationValue } : NUMBER_INPUT);
   const spacing = result?.spacing;
 
   return (
@@ -71,26 +83,60 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             accept=".csv,.txt,.xml,.landxml"
             rows={4}
           />
-          <FileIssues issues={fileIssues} fileLabel="Cross sections" after="The stations below stay as they were until the file reads without problems." />
+          <FileIssues
+            issues={fileIssues}
+            fileLabel="Cross sections"
+            after="The stations below stay as they were until the file reads without problems."
+          />
           <div className="grid grid-cols-2 gap-3">
             <Field label="Formula" error={issueAt(issues, 'formula')}>
-              {(c) => <Select {...c} {...form.register('formula')} options={[{ value: 'average-end-area', label: 'Average end area' }, { value: 'prismoidal', label: 'Prismoidal (odd stations, equal pairs)' }]} />}
+              {(c) => (
+                <Select
+                  {...c}
+                  {...form.register('formula')}
+                  options={[
+                    { value: 'average-end-area', label: 'Average end area' },
+                    { value: 'prismoidal', label: 'Prismoidal (odd stations, equal pairs)' },
+                  ]}
+                />
+              )}
             </Field>
             <Field label="Where one end area is zero">
-              {(c) => <Select {...c} {...form.register('zeroAreaEnds')} options={[{ value: 'average', label: 'Average the ends' }, { value: 'pyramid', label: 'Pyramid rule (A L / 3)' }]} />}
+              {(c) => (
+                <Select
+                  {...c}
+                  {...form.register('zeroAreaEnds')}
+                  options={[
+                    { value: 'average', label: 'Average the ends' },
+                    { value: 'pyramid', label: 'Pyramid rule (A L / 3)' },
+                  ]}
+                />
+              )}
             </Field>
           </div>
-          <StationsTable unit={unit} rows={stations.fields} values={values.stations} issues={issues} register={register} onRemove={stations.remove} onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })} />
+          <StationsTable
+            unit={unit}
+            rows={stations.fields}
+            values={values.stations}
+            issues={issues}
+            register={register}
+            onRemove={stations.remove}
+            onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })}
+          />
         </WorksheetForm>
       }
       result={
         <ResultPanel
           issues={issues}
-          figures={result ? [
-            { label: 'Cut (bank)', value: result.cut, unit: u.volume, strong: true },
-            { label: 'Fill (compacted)', value: result.fill, unit: u.volume, strong: true },
-            { label: 'Net (cut − fill)', value: result.net, unit: u.volume },
-          ] : undefined}
+          figures={
+            result
+              ? [
+                  { label: 'Cut (bank)', value: result.cut, unit: u.volume, strong: true },
+                  { label: 'Fill (compacted)', value: result.fill, unit: u.volume, strong: true },
+                  { label: 'Net (cut − fill)', value: result.net, unit: u.volume },
+                ]
+              : undefined
+          }
           picture={
             result ? (
               <div className="space-y-4">
@@ -103,7 +149,14 @@ export function EndAreaWorksheet({ unit, initial, onInputs }: WorksheetProps) {
         >
           {spacing ? (
             <p className="text-xs text-stone-700">
-              Spacing check: {spacing.flaggedCount === 0 ? 'no segment is long for its change in area' : `${spacing.flaggedCount} segment(s) long for their change in area (over ${fmt2(spacing.maxSpacing)} ${u.length})`}. {spacing.dropEveryOther ? `Dropping every other section moves the net by ${fmt2(spacing.dropEveryOther.netChange)} ${u.volume}.` : ''}
+              Spacing check:{' '}
+              {spacing.flaggedCount === 0
+                ? 'no segment is long for its change in area'
+                : `${spacing.flaggedCount} segment(s) long for their change in area (over ${fmt2(spacing.maxSpacing)} ${u.length})`}
+              .{' '}
+              {spacing.dropEveryOther
+                ? `Dropping every other section moves the net by ${fmt2(spacing.dropEveryOther.netChange)} ${u.volume}.`
+                : ''}
             </p>
           ) : null}
         </ResultPanel>

@@ -10,7 +10,7 @@ import { ResultPanel } from '../components/result-panel';
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { issueAt, useDebounced, useLiveCalc } from '../lib/live-calc';
 import { useJsonValue, useReportInputs } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
 import { gridDepths, type GridEntry } from './grid-source';
 import { HeatMap } from './heat-map';
@@ -79,7 +79,7 @@ export function GridWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   );
   useReportInputs(input, parsed.issues.length === 0 ? result : null, onInputs);
   const u = unitLabels(unit);
-  const n = { valueAsNumber: true } as const;
+  const n = NUMBER_INPUT;
 
   return (
     <WorksheetColumns

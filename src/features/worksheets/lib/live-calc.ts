@@ -1,20 +1,48 @@
 import { useEffect, useMemo, useState } from 'react';
-import type { CalcMethod } from '@/shared/constants';
+import type { CalcMethod, LengthUnit } from '@/shared/constants';
+import { formatStation } from '@/shared/domain/earthwork/units';
+import { formatNumber } from '@/shared/format';
 import { runCalc, type CalcResult } from '@/shared/domain/calc';
 import { isDomainError, type DomainIssue } from '@/shared/domain/domain-error';
 
 export type LiveOutcome<M extends CalcMethod> =
-  | { result: CalcResult<M>; issues: [] }
-  | { result: null; issues: DomainIssue[] };
+  { result: CalcResult<M>; issues: [] } | { result: null; issues: DomainIssue[] };
 
-/** zod's words for an empty number box, put the way a person would. */
-function friendly(issue: DomainIssue): DomainIssue {
-  const message = /received NaN|expected number/i.test(issue.message) ? 'Enter a number' : issue.message;
-  return { path: issue.path, message };
+/** zod's words put the way a person would: an empty box, text that is not a number, a number too large. */
+export function friendly(issue: DomainIssue): DomainIssue {
+  const m = issue.message;
+  if (/expected number, received string/i.test(m)) return { path: issue.path, message: 'Not a number' };
+  const big = /too big: expected number to be <=?\s*([\d.e+]+)/i.exec(m);
+  if (big) return { path: issue.path, message: `Must be at most ${formatNumber(Number(big[1]), 0)}` };
+  const small = /too small: expected number to be >=?\s*(-?[\d.e+]+)/i.exec(m);
+  if (small) return { path: issue.path, message: `Must be at least ${formatNumber(Number(small[1]), 0)}` };
+  if (/received (NaN|null|undefined)|expected number/i.test(m)) return { path: issue.path, message: 'Enter a number' };
+  return issue;
+}
+
+/** Stations typed twice, named by station and rows (row numbers from 1), before the engine's "must increase". */
+function duplicateStations(method: CalcMethod, input: unknown): DomainIssue[] {
+  if (method !== 'end-area' && method !== 'mass-haul') return [];
+  const body = input as { unit?: LengthUnit; stations?: { station?: unknown }[] } | null;
+  const seen = new Map<number, number>();
+  const issues: DomainIssue[] = [];
+  (body?.stations ?? []).forEach((row, i) => {
+    if (typeof row?.station !== 'number' || !Number.isFinite(row.station)) return;
+    const first = seen.get(row.station);
+    if (first === undefined) seen.set(row.station, i);
+    else
+      issues.push({
+        path: `stations.${i}.station`,
+        message: `Station ${formatStation(row.station, body?.unit ?? 'ft')} appears twice, in rows ${first + 1} and ${i + 1}`,
+      });
+  });
+  return issues;
 }
 
 /** Runs the shared engine (the server runs the same function); bad input comes back as issues with paths. */
 export function computeCalc<M extends CalcMethod>(method: M, input: unknown): LiveOutcome<M> {
+  const twice = duplicateStations(method, input);
+  if (twice.length) return { result: null, issues: twice };
   try {
     return { result: runCalc(method, input), issues: [] };
   } catch (error) {

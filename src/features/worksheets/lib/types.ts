@@ -1,4 +1,5 @@
 import type { LengthUnit } from '@/shared/constants';
+import { readTypedNumber } from '@/shared/parse-number';
 import type { ReportInputs } from './stable';
 
 /** The eight worksheets, in the order the picker lists them. */
@@ -23,3 +24,7 @@ export type WorksheetProps = {
   /** Called with the engine inputs and result whenever they give one, and nulls while they do not. */
   onInputs: ReportInputs;
 };
+
+/** Registration options of a number box: thousands separators accepted, text that is not a number kept as text (the
+ * schema then says "Not a number"), an empty box NaN ("Enter a number"). */
+export const NUMBER_INPUT = { setValueAs: readTypedNumber } as const;

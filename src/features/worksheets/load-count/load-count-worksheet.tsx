@@ -11,7 +11,7 @@ import { RemoveRowButton, WorksheetColumns, WorksheetForm } from '../components/
 import { parseNumberTable, type FileIssue } from '../lib/csv';
 import { issueAt } from '../lib/live-calc';
 import { useJsonValue } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { ConvertCard } from './convert-card';
@@ -43,7 +43,7 @@ export function LoadCountWorksheet({ unit, initial, defaults, onInputs }: Worksh
   const [csv, setCsv] = useState('');
   const [fileIssues, setFileIssues] = useState<FileIssue[]>([]);
   const u = unitLabels(unit);
-  const n = { valueAsNumber: true } as const;
+  const n = NUMBER_INPUT;
 
   const readTickets = (text: string) => {
     setCsv(text);

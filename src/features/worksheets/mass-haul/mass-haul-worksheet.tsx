@@ -9,12 +9,19 @@ import { stationValue, StationsTable, type StationRow } from '../components/stat
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { issueAt } from '../lib/live-calc';
 import { useJsonValue } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { MassHaulChart } from './mass-haul-chart';
 
-type MassHaulForm = { kind: MassHaulFactorKind; percent: number; freeHaul: number; balanceLine: number; price: number; stations: StationRow[] };
+type MassHaulForm = {
+  kind: MassHaulFactorKind;
+  percent: number;
+  freeHaul: number;
+  balanceLine: number;
+  price: number;
+  stations: StationRow[];
+};
 
 /** An invented quarter-mile of haul road: a cut hill, a fill hollow, and a cut rise again. */
 function sampleStations(unit: LengthUnit): StationRow[] {
@@ -25,7 +32,13 @@ function sampleStations(unit: LengthUnit): StationRow[] {
 }
 
 export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: WorksheetProps) {
-  const i = (initial ?? {}) as { stations?: StationRow[]; factor?: { kind: MassHaulFactorKind; percent: number }; freeHaul?: number; balanceLine?: number; overhaulPriceCents?: number };
+  const i = (initial ?? {}) as {
+    stations?: StationRow[];
+    factor?: { kind: MassHaulFactorKind; percent: number };
+    freeHaul?: number;
+    balanceLine?: number;
+    overhaulPriceCents?: number;
+  };
   const form = useForm<MassHaulForm>({
     defaultValues: {
       kind: i.factor?.kind ?? 'shrinkage',
@@ -48,7 +61,7 @@ export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: Workshe
   });
   const { result, issues } = useWorksheetCalc('mass-haul', input, onInputs, 150);
   const u = unitLabels(unit);
-  const n = { valueAsNumber: true } as const;
+  const n = NUMBER_INPUT;
   const register = (k: number, cell: keyof StationRow) =>
     form.register(`stations.${k}.${cell}`, cell === 'station' ? { setValueAs: stationValue } : n);
   const ou = unit === 'ft' ? 'station-yd' : 'station-m3';
@@ -59,30 +72,76 @@ export function MassHaulWorksheet({ unit, initial, defaults, onInputs }: Workshe
         <WorksheetForm label="Mass haul">
           <div className="grid grid-cols-2 gap-3">
             <Field label="Fill adjusted by">
-              {(c) => <Select {...c} {...form.register('kind')} options={[{ value: 'shrinkage', label: 'Shrinkage (earth)' }, { value: 'swell', label: 'Swell (rock)' }]} />}
+              {(c) => (
+                <Select
+                  {...c}
+                  {...form.register('kind')}
+                  options={[
+                    { value: 'shrinkage', label: 'Shrinkage (earth)' },
+                    { value: 'swell', label: 'Swell (rock)' },
+                  ]}
+                />
+              )}
             </Field>
-            <NumberField label="Factor" unit="%" error={issueAt(issues, 'factor.percent')} registration={form.register('percent', n)} />
-            <NumberField label="Free haul" unit={u.length} error={issueAt(issues, 'freeHaul')} registration={form.register('freeHaul', n)} />
-            <NumberField label="Balance line" unit={u.volume} error={issueAt(issues, 'balanceLine')} registration={form.register('balanceLine', n)} />
-            <NumberField label="Overhaul price" unit={`$ per ${ou}`} hint="Optional" error={issueAt(issues, 'overhaulPriceCents')} registration={form.register('price', n)} />
+            <NumberField
+              label="Factor"
+              unit="%"
+              error={issueAt(issues, 'factor.percent')}
+              registration={form.register('percent', n)}
+            />
+            <NumberField
+              label="Free haul"
+              unit={u.length}
+              error={issueAt(issues, 'freeHaul')}
+              registration={form.register('freeHaul', n)}
+            />
+            <NumberField
+              label="Balance line"
+              unit={u.volume}
+              error={issueAt(issues, 'balanceLine')}
+              registration={form.register('balanceLine', n)}
+            />
+            <NumberField
+              label="Overhaul price"
+              unit={`$ per ${ou}`}
+              hint="Optional"
+              error={issueAt(issues, 'overhaulPriceCents')}
+              registration={form.register('price', n)}
+            />
           </div>
-          <StationsTable unit={unit} rows={stations.fields} values={values.stations} issues={issues} register={register} onRemove={stations.remove} onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })} />
+          <StationsTable
+            unit={unit}
+            rows={stations.fields}
+            values={values.stations}
+            issues={issues}
+            register={register}
+            onRemove={stations.remove}
+            onAdd={() => stations.append({ station: NaN, cutArea: 0, fillArea: 0 })}
+          />
         </WorksheetForm>
       }
       result={
         <ResultPanel
           issues={issues}
-          figures={result ? [
-            { label: 'Overhaul', value: result.overhaul, unit: result.overhaulUnit, strong: true },
-            { label: 'Overhaul volume', value: result.overhaulVolume, unit: u.volume },
-            { label: 'Haul', value: result.haul, unit: result.overhaulUnit },
-            { label: 'Waste', value: result.waste, unit: u.volume },
-            { label: 'Borrow', value: result.borrow, unit: u.volume },
-          ] : undefined}
+          figures={
+            result
+              ? [
+                  { label: 'Overhaul', value: result.overhaul, unit: result.overhaulUnit, strong: true },
+                  { label: 'Overhaul volume', value: result.overhaulVolume, unit: u.volume },
+                  { label: 'Haul', value: result.haul, unit: result.overhaulUnit },
+                  { label: 'Waste', value: result.waste, unit: u.volume },
+                  { label: 'Borrow', value: result.borrow, unit: u.volume },
+                ]
+              : undefined
+          }
           picture={result ? <MassHaulChart result={result} unit={unit} /> : null}
           trail={result?.trail}
         >
-          {result?.overhaulAmountCents != null ? <p className="text-sm text-stone-800">Overhaul amount: <span className="num font-semibold">{formatMoney(result.overhaulAmountCents)}</span></p> : null}
+          {result?.overhaulAmountCents != null ? (
+            <p className="text-sm text-stone-800">
+              Overhaul amount: <span className="num font-semibold">{formatMoney(result.overhaulAmountCents)}</span>
+            </p>
+          ) : null}
         </ResultPanel>
       }
     />

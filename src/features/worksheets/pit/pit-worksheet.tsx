@@ -5,7 +5,7 @@ import { ResultPanel } from '../components/result-panel';
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { issueAt } from '../lib/live-calc';
 import { useJsonValue } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { PitDrawing } from './pit-drawing';
@@ -33,11 +33,20 @@ function fromInitial(initial: Record<string, unknown> | null, unit: LengthUnit):
 export function PitWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const form = useForm<PitForm>({ defaultValues: fromInitial(initial, unit) });
   const values = useWatch({ control: form.control }) as PitForm;
+  // Text that is not a number goes to the schema ("Not a number"); only an empty box means vertical sides.
   const { sideSlope, ...rest } = values;
-  const input = useJsonValue({ unit, ...rest, ...(Number.isFinite(sideSlope) && sideSlope > 0 ? { sideSlope } : {}) });
+  const input = useJsonValue({
+    unit,
+    ...rest,
+    ...((sideSlope as unknown) !== null && typeof (sideSlope as unknown) === 'string'
+      ? { sideSlope }
+      : Number.isFinite(sideSlope) && sideSlope > 0
+        ? { sideSlope }
+        : {}),
+  });
   const { result, issues } = useWorksheetCalc('pit', input, onInputs);
   const u = unitLabels(unit);
-  const n = { valueAsNumber: true } as const;
+  const n = NUMBER_INPUT;
   return (
     <WorksheetColumns
       inputs={

@@ -3,7 +3,13 @@ import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
-import { SOIL_CLASSES, TRENCH_PROTECTIONS, type LengthUnit, type SoilClass, type TrenchProtection } from '@/shared/constants';
+import {
+  SOIL_CLASSES,
+  TRENCH_PROTECTIONS,
+  type LengthUnit,
+  type SoilClass,
+  type TrenchProtection,
+} from '@/shared/constants';
 import { dualLength } from '@/shared/domain/earthwork/trench-slopes';
 import { Cautions } from '../components/cautions';
 import { NumberCell } from '../components/number-field';
@@ -11,7 +17,7 @@ import { ResultPanel } from '../components/result-panel';
 import { RemoveRowButton, WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import { issueAt } from '../lib/live-calc';
 import { useJsonValue } from '../lib/stable';
-import type { WorksheetProps } from '../lib/types';
+import { NUMBER_INPUT, type WorksheetProps } from '../lib/types';
 import { useWorksheetCalc } from '../lib/use-worksheet-calc';
 import { unitLabels } from '../lib/units';
 import { TrenchDrawing } from './trench-drawing';
@@ -34,9 +40,16 @@ const SOIL_LABELS: Record<SoilClass, string> = {
 
 /** Sample runs of an invented storm line. */
 function sample(unit: LengthUnit): TrenchForm {
-  const runs = unit === 'ft'
-    ? [{ length: 240, depth: 6.5, bottomWidth: 4 }, { length: 80, depth: 4, bottomWidth: 3 }]
-    : [{ length: 72, depth: 2, bottomWidth: 1.2 }, { length: 25, depth: 1.2, bottomWidth: 0.9 }];
+  const runs =
+    unit === 'ft'
+      ? [
+          { length: 240, depth: 6.5, bottomWidth: 4 },
+          { length: 80, depth: 4, bottomWidth: 3 },
+        ]
+      : [
+          { length: 72, depth: 2, bottomWidth: 1.2 },
+          { length: 25, depth: 1.2, bottomWidth: 0.9 },
+        ];
   return { protection: 'slope', soilClass: 'B', runs };
 }
 
@@ -56,7 +69,7 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const u = unitLabels(unit);
   const { result, issues } = outcome;
   const deepest = result ? result.runs.reduce((best, r, i) => (r.depth > result.runs[best]!.depth ? i : best), 0) : 0;
-  const numeric = { valueAsNumber: true } as const;
+  const numeric = NUMBER_INPUT;
 
   return (
     <WorksheetColumns
@@ -64,11 +77,25 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
         <WorksheetForm label="Trench runs">
           <div className="grid grid-cols-2 gap-3">
             <Field label="Protection" error={issueAt(issues, 'protection')}>
-              {(c) => <Select {...c} {...form.register('protection')} options={TRENCH_PROTECTIONS.map((p) => ({ value: p, label: PROTECTION_LABELS[p] }))} />}
-            </Field>
-            <Field label="Soil class (OSHA App. A)" error={issueAt(issues, 'soilClass')} hint={values.protection === 'box' ? 'Not needed in a box' : undefined}>
               {(c) => (
-                <Select {...c} {...form.register('soilClass')} options={SOIL_CLASSES.map((s) => ({ value: s, label: SOIL_LABELS[s] }))}>
+                <Select
+                  {...c}
+                  {...form.register('protection')}
+                  options={TRENCH_PROTECTIONS.map((p) => ({ value: p, label: PROTECTION_LABELS[p] }))}
+                />
+              )}
+            </Field>
+            <Field
+              label="Soil class (OSHA App. A)"
+              error={issueAt(issues, 'soilClass')}
+              hint={values.protection === 'box' ? 'Not needed in a box' : undefined}
+            >
+              {(c) => (
+                <Select
+                  {...c}
+                  {...form.register('soilClass')}
+                  options={SOIL_CLASSES.map((s) => ({ value: s, label: SOIL_LABELS[s] }))}
+                >
                   <option value="">Not classified</option>
                 </Select>
               )}
@@ -87,10 +114,14 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             <tbody>
               {runs.fields.map((field, i) => (
                 <tr key={field.id} className="align-top">
-                  <td className="num pt-2 text-stone-600">{i + 1}</td>
+                  <td className="pt-2 num text-stone-600">{i + 1}</td>
                   {(['length', 'depth', 'bottomWidth'] as const).map((name) => (
                     <td key={name} className="pt-1 pr-2">
-                      <NumberCell label={`Run ${i + 1} ${name === 'bottomWidth' ? 'bottom width' : name}`} error={issueAt(issues, `runs.${i}.${name}`)} registration={form.register(`runs.${i}.${name}`, numeric)} />
+                      <NumberCell
+                        label={`Run ${i + 1} ${name === 'bottomWidth' ? 'bottom width' : name}`}
+                        error={issueAt(issues, `runs.${i}.${name}`)}
+                        registration={form.register(`runs.${i}.${name}`, numeric)}
+                      />
                     </td>
                   ))}
                   <td className="pt-1">
@@ -100,7 +131,11 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
               ))}
             </tbody>
           </table>
-          <Button variant="secondary" size="sm" onClick={() => runs.append({ length: NaN, depth: NaN, bottomWidth: NaN })}>
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={() => runs.append({ length: NaN, depth: NaN, bottomWidth: NaN })}
+          >
             <Plus aria-hidden /> Add run
           </Button>
           <Cautions
@@ -117,12 +152,26 @@ export function TrenchWorksheet({ unit, initial, onInputs }: WorksheetProps) {
       result={
         <ResultPanel
           issues={issues}
-          figures={result ? [
-            { label: 'Excavation', value: result.volume, unit: u.volume, strong: true },
-            { label: 'Runs', whole: true, value: result.runs.length, unit: 'runs' },
-            { label: 'Side slope', value: result.slope, unit: 'H per V' },
-          ] : undefined}
-          picture={result ? <TrenchDrawing run={result.runs[deepest]!} index={deepest} slope={result.slope} benched={result.protection === 'bench'} unit={unit} /> : null}
+          figures={
+            result
+              ? [
+                  { label: 'Excavation', value: result.volume, unit: u.volume, strong: true },
+                  { label: 'Runs', whole: true, value: result.runs.length, unit: 'runs' },
+                  { label: 'Side slope', value: result.slope, unit: 'H per V' },
+                ]
+              : undefined
+          }
+          picture={
+            result ? (
+              <TrenchDrawing
+                run={result.runs[deepest]!}
+                index={deepest}
+                slope={result.slope}
+                benched={result.protection === 'bench'}
+                unit={unit}
+              />
+            ) : null
+          }
           trail={result?.trail}
         />
       }

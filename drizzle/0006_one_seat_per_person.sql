@@ -1,0 +1,2 @@
+ALTER TABLE "project_members" DROP CONSTRAINT "project_members_project_user_role";--> statement-breakpoint
+ALTER TABLE "project_members" ADD CONSTRAINT "project_members_project_user" UNIQUE("project_id","user_id");

@@ -1,0 +1,20 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { PayBasisScreen, profilesQuery } from '@/features/field-records';
+import { useProject } from '@/features/projects/api/get-project';
+import { queryClient } from '@/lib/query-client';
+
+export function loader({ params }: LoaderFunctionArgs) {
+  void queryClient.prefetchQuery(profilesQuery(params.projectId ?? ''));
+  return null;
+}
+
+export function Component() {
+  const { projectId = '' } = useParams();
+  const project = useProject(projectId);
+  return (
+    <>
+      <title>{`${project.name} · Pay basis · Tallyard`}</title>
+      <PayBasisScreen projectId={projectId} myRoles={project.myRoles} />
+    </>
+  );
+}

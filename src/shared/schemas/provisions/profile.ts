@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import {
+  MAX_PAY_DECIMALS,
+  MEASUREMENT_PROFILES,
+  MEASUREMENT_STAGES,
+  type MeasurementProfile,
+  type MeasurementStage,
+} from '../../constants';
+import { centsField, percentField, textField } from './fields';
+
+const stageSchema = z.object({ name: textField(120, 'A stage name'), percentOfItem: percentField }).strict();
+const stepSchema = z.object({ contractEarnedPercent: percentField, mobilizationPercent: percentField }).strict();
+
+/** Settings a profile reads; each is optional and checked against the profile by the server. */
+export const profileSettingsSchema = z
+  .object({
+    /** plan_quantity and lump_sum: percent complete to date. */
+    percentComplete: percentField.optional(),
+    /** lump_sum by stages: the schedule (adds up to 100 %) and the indexes of the stages done. */
+    stages: z.array(stageSchema).max(50).optional(),
+    completedStages: z.array(z.number().int().min(0).max(49)).max(50).optional(),
+    /** plan_quantity: the substantial error test (FDOT 9-3.2.1 defaults: 5 %, $5,000). */
+    substantialErrorPercent: percentField.optional(),
+    substantialErrorCents: centsField.optional(),
+    /** lump_sum mobilization: steps tied to the percent of the original contract earned. */
+    mobilizationSteps: z.array(stepSchema).max(20).optional(),
+  })
+  .strict();
+export type ProfileSettings = z.infer<typeof profileSettingsSchema>;
+
+export const setMeasurementProfileSchema = z
+  .object({
+    profile: z.enum(MEASUREMENT_PROFILES),
+    payDecimals: z.number().int().min(0).max(MAX_PAY_DECIMALS).optional(),
+    stage: z.enum(MEASUREMENT_STAGES).default('interim'),
+    settings: profileSettingsSchema.default({}),
+  })
+  .strict();
+export type SetMeasurementProfileInput = z.infer<typeof setMeasurementProfileSchema>;
+
+export interface MeasurementProfileView {
+  bidItemId: string;
+  itemNumber: string;
+  description: string;
+  payUnit: string;
+  profile: MeasurementProfile;
+  profileLabel: string;
+  payDecimals: number;
+  measuredDecimals: number;
+  stage: MeasurementStage;
+  settings: ProfileSettings;
+  /** True when the item has no saved profile (a worksheet at the unit's default). */
+  isDefault: boolean;
+  /** What the profile earns to date where it is computed from settings (plan quantity, lump sum), in cents. */
+  earnedCents: number | null;
+}

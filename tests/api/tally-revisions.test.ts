@@ -1,0 +1,114 @@
+import { createHash } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { makeBidItem, makeWorld } from '../setup/factories';
+import { auditActions } from '../setup/pay-cycle-factories';
+import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
+
+let t: TestApp;
+let w: Awaited<ReturnType<typeof makeWorld>>;
+beforeAll(async () => {
+  t = await createTestApp();
+  w = await makeWorld(t.database.db, t.auth);
+});
+afterAll(() => t.close());
+
+const sub = () => signedInAgent(t.app, w.people.subcontractor.email);
+const url = () => `/api/projects/${w.home.id}/tallies`;
+// US Navy EO training manual (NAVEDTRA 14081), reference.md section 1: 50 and 70 sq ft, 100 ft apart = 222.22 CY.
+const navy = {
+  unit: 'ft',
+  stations: [
+    { station: 1000, cutArea: 50, fillArea: 0 },
+    { station: 1100, cutArea: 70, fillArea: 0 },
+  ],
+};
+const longer = {
+  unit: 'ft',
+  stations: [
+    { station: 1000, cutArea: 50, fillArea: 0 },
+    { station: 1200, cutArea: 70, fillArea: 0 },
+  ],
+};
+
+describe('a draft tally edited in its worksheet keeps its earlier inputs as a revision', () => {
+  it('saves revision 1 with the first inputs and quantity, revision 2 with the second, newest first', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 100_000 });
+    const agent = await sub();
+    const created = await agent
+      .post(url())
+      .send({ bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy, title: 'North cut' });
+    const id = created.body.tally.id;
+    await agent.patch(`/api/tallies/${id}`).send({ inputs: longer });
+    const second = await agent.patch(`/api/tallies/${id}`).send({ inputs: navy, title: 'North cut, checked' });
+    expect(second.status).toBe(200);
+    const detail = await (await signedInAgent(t.app, w.people.general_contractor.email)).get(`/api/tallies/${id}`);
+    expect(detail.body.revisions.map((r: { revision: number }) => r.revision)).toEqual([2, 1]);
+    const [r2, r1] = detail.body.revisions;
+    expect(r1).toMatchObject({ quantity: 222.2222, title: 'North cut', inputs: navy, replacedBy: expect.any(String) });
+    expect(r2).toMatchObject({ quantity: 444.4444, inputs: longer });
+    expect(r1.trail.at(-1)).toMatch(/^Bills 222\.2222 CY bank/);
+    expect(await auditActions(t.database.db, id)).toEqual(['tally.created', 'tally.updated', 'tally.updated']);
+  });
+});
+
+describe('sanity limits before saving', () => {
+  it('asks for a reason past 10 x the contract quantity (400 SANITY_REASON_REQUIRED on sanityReason), saves nothing, then records the reason', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 20 });
+    const agent = await sub();
+    const body = { bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy };
+    const refused = await agent.post(url()).send(body);
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.code).toBe('SANITY_REASON_REQUIRED');
+    expect(refused.body.error.details[0]).toMatchObject({
+      path: 'sanityReason',
+      message: expect.stringMatching(/more than 10 times the contract quantity \(20\.00 CY\)/),
+    });
+    expect((await agent.get(url()).query({ bidItemId: item.id })).body.tallies).toHaveLength(0);
+    const reason = 'Plan quantity was for one culvert; three were built under the field order';
+    const ok = await agent.post(url()).send({ ...body, sanityReason: reason });
+    expect(ok.status).toBe(201);
+    expect(ok.body.tally.sanityReason).toBe(reason);
+  });
+
+  it('asks past twice the remaining quantity (contract less the item’s other tallies), and not below it', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 300 });
+    const agent = await sub();
+    const body = { bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy };
+    expect((await agent.post(url()).send(body)).status).toBe(201); // 222.22 of 300: remaining was 300
+    const second = await agent.post(url()).send(body); // remaining 77.78, twice that 155.56 < 222.22
+    expect(second.body.error.code).toBe('SANITY_REASON_REQUIRED');
+    expect(second.body.error.message).toMatch(/more than twice the quantity left on the item \(77\.78 CY/);
+  });
+
+  it('refuses a reason shorter than 10 characters', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 1 });
+    const res = await (
+      await sub()
+    )
+      .post(url())
+      .send({ bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy, sanityReason: 'ok' });
+    expect(res.body.error.code).toBe('SANITY_REASON_REQUIRED');
+  });
+});
+
+describe('a file loaded into a worksheet becomes the tally evidence', () => {
+  it('stores the CSV the worksheet read with its SHA-256 (checked with node:crypto)', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 100_000 });
+    const agent = await sub();
+    const csv = Buffer.from('station,cut_area,fill_area\n10+00,50,0\n11+00,70,0\n');
+    const created = await agent
+      .post(url())
+      .send({ bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy });
+    const up = await agent
+      .post(`/api/tallies/${created.body.tally.id}/evidence`)
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' });
+    expect(up.status).toBe(201);
+    expect(up.body.evidence[0]).toMatchObject({
+      fileName: 'north-sections.csv',
+      kind: 'csv',
+      sha256: createHash('sha256').update(csv).digest('hex'),
+    });
+    const detail = await agent.get(`/api/tallies/${created.body.tally.id}`);
+    expect(detail.body.tally.evidenceCount).toBe(1);
+  });
+});
