@@ -6,24 +6,34 @@
 import { spawnSync } from 'node:child_process';
 
 type Vuln = { name: string; severity: string; fixAvailable: boolean | object; via: unknown[] };
-const run = spawnSync('npm', ['audit', '--json', '--audit-level=high'], { encoding: 'utf8' });
+// A closed network makes npm retry for minutes: one try, a short fetch timeout, and a hard stop at 90 s.
+const run = spawnSync('npm', ['audit', '--json', '--audit-level=high', '--fetch-retries=0', '--fetch-timeout=20000'], {
+  encoding: 'utf8',
+  timeout: 90_000,
+});
 let report: { vulnerabilities?: Record<string, Vuln>; error?: { summary?: string } };
 try {
-  report = JSON.parse(run.stdout || '{}');
+  report = run.error ? { error: { summary: run.error.message } } : JSON.parse(run.stdout || '{}');
 } catch {
   report = { error: { summary: run.stderr.trim() || 'unreadable output' } };
 }
 if (report.error || !report.vulnerabilities) {
-  console.log(`== npm audit: the audit service could not be reached (${report.error?.summary ?? run.stderr.trim()}); skipped`);
+  console.log(
+    `== npm audit: the audit service could not be reached (${report.error?.summary ?? run.stderr.trim()}); skipped`,
+  );
   process.exit(0);
 }
 const serious = Object.values(report.vulnerabilities).filter((v) => v.severity === 'high' || v.severity === 'critical');
 const fixable = serious.filter((v) => v.fixAvailable !== false);
 for (const v of serious) {
-  console.log(`  ${v.severity}: ${v.name}${v.fixAvailable === false ? ' (no fix available yet: reported only)' : ' (fix available)'}`);
+  console.log(
+    `  ${v.severity}: ${v.name}${v.fixAvailable === false ? ' (no fix available yet: reported only)' : ' (fix available)'}`,
+  );
 }
 if (fixable.length > 0) {
-  console.error(`== npm audit: ${fixable.length} high or critical advisories with a fix; run npm audit fix or update them`);
+  console.error(
+    `== npm audit: ${fixable.length} high or critical advisories with a fix; run npm audit fix or update them`,
+  );
   process.exit(1);
 }
 console.log(`== npm audit: no high or critical advisory with a fix (${serious.length} without a fix reported)`);

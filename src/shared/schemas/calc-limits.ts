@@ -16,6 +16,9 @@ export const CALC_LIMITS = {
   /** Points per surface survey. */
   surfacePoints: 1_000_000,
   payAppLines: 5_000,
+  /** Corners of one pay-limit polygon (outer boundary or void) of a surface comparison, and voids in all. */
+  payLimitCorners: 10_000,
+  payLimitVoids: 1_000,
   /** Largest magnitude of any coordinate, dimension or quantity: keeps products finite and digits meaningful. */
   maxMagnitude: 1e9,
   /** Largest swell percent accepted (well-blasted rock is about 65 %). */

@@ -134,10 +134,19 @@ export const massHaulSchema = z.strictObject({
   zeroAreaEnds: z.enum(ZERO_AREA_END_RULES).optional(),
 });
 
+const payRing = z
+  .array(z.tuple([finite, finite]))
+  .min(3, 'At least 3 corners')
+  .max(CALC_LIMITS.payLimitCorners, `At most ${CALC_LIMITS.payLimitCorners} corners`);
+
 export const surfaceSchema = z.strictObject({
   unit,
   existing: pointRows(3, 3, CALC_LIMITS.surfacePoints),
   design: pointRows(3, 3, CALC_LIMITS.surfacePoints),
+  /** Plan polygons [x, y]: only the area inside `outer` and outside every void is measured. */
+  payLimits: z
+    .strictObject({ outer: payRing.optional(), voids: z.array(payRing).max(CALC_LIMITS.payLimitVoids).optional() })
+    .optional(),
 });
 
 export const varianceSchema = z.strictObject({

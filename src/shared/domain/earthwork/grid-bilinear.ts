@@ -25,15 +25,22 @@ function rationalPiece(p0: number, p1: number, d0: number, d1: number, v0: numbe
   const D0 = d0 + d1 * v0;
   const D1 = d0 + d1 * v1;
   const len = v1 - v0;
-  if (Math.abs(D1 - D0) <= 0.25 * Math.min(D0, D1)) {
+  const closed = closedForm(p0, p1, d0, d1, D0, D1, len);
+  if (Math.abs(D1 - D0) <= 0.25 * Math.min(D0, D1) || !Number.isFinite(closed)) {
     let sum = 0;
     for (let k = 0; k < 16; k++) {
       const v = v0 + ((GL_X[k]! + 1) * len) / 2;
       const p = p0 + p1 * v;
-      sum += (GL_W[k]! * p * p) / (d0 + d1 * v);
+      const d = d0 + d1 * v;
+      if (d > 0) sum += (GL_W[k]! * p * p) / d;
     }
     return (sum * len) / 4;
   }
+  return closed;
+}
+
+/** The logarithm form of the same integral (see rationalPiece). */
+function closedForm(p0: number, p1: number, d0: number, d1: number, D0: number, D1: number, len: number): number {
   // P = alpha + beta D: P^2 / D = alpha^2 / D + 2 alpha beta + beta^2 D.
   const beta = p1 / d1;
   const alpha = p0 - beta * d0;

@@ -3,7 +3,7 @@ import type Delaunator from 'delaunator';
 /**
  * Point location in a Delaunay triangulation by a visibility walk (it always ends on a Delaunay mesh), started
  * from a seed triangle of a coarse grid over the mesh's bounding box (built on the first seeded query) or from
- * the previous answer. Bulk sampling of one surface at another's vertices uses surface-sample.ts instead.
+ * the previous answer. The overlay (surface-overlay.ts) locates each triangle's centroid with it.
  * Coordinates are the shifted plan coordinates the mesh was built from.
  */
 export class TinLocator {
@@ -32,9 +32,13 @@ export class TinLocator {
   private seed(): void {
     const t = this.triangles;
     const c = this.coords;
-    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    let minX = Infinity,
+      minY = Infinity,
+      maxX = -Infinity,
+      maxY = -Infinity;
     for (let i = 0; i < c.length; i += 2) {
-      const x = c[i]!, y = c[i + 1]!;
+      const x = c[i]!,
+        y = c[i + 1]!;
       if (x < minX) minX = x;
       if (x > maxX) maxX = x;
       if (y < minY) minY = y;
@@ -46,7 +50,9 @@ export class TinLocator {
     this.cell = Math.max(maxX - minX, maxY - minY, 1e-12) / this.size;
     this.seeds = new Int32Array(this.size * this.size).fill(-1);
     for (let k = 0; 3 * k < t.length; k += 2) {
-      const a = 2 * t[3 * k]!, b = 2 * t[3 * k + 1]!, d = 2 * t[3 * k + 2]!;
+      const a = 2 * t[3 * k]!,
+        b = 2 * t[3 * k + 1]!,
+        d = 2 * t[3 * k + 2]!;
       this.seeds[this.cellOf((c[a]! + c[b]! + c[d]!) / 3, (c[a + 1]! + c[b + 1]! + c[d + 1]!) / 3)] = k;
     }
   }
@@ -62,7 +68,8 @@ export class TinLocator {
 
   private cross(a: number, b: number, px: number, py: number): number {
     const c = this.coords;
-    const ax = c[2 * a]!, ay = c[2 * a + 1]!;
+    const ax = c[2 * a]!,
+      ay = c[2 * a + 1]!;
     return (c[2 * b]! - ax) * (py - ay) - (c[2 * b + 1]! - ay) * (px - ax);
   }
 
@@ -85,8 +92,15 @@ export class TinLocator {
     let entered = -1;
     for (let steps = 0, limit = tri.length; steps < limit; steps++) {
       const e0 = 3 * t;
-      const i0 = 2 * tri[e0]!, i1 = 2 * tri[e0 + 1]!, i2 = 2 * tri[e0 + 2]!;
-      const x0 = c[i0]!, y0 = c[i0 + 1]!, x1 = c[i1]!, y1 = c[i1 + 1]!, x2 = c[i2]!, y2 = c[i2 + 1]!;
+      const i0 = 2 * tri[e0]!,
+        i1 = 2 * tri[e0 + 1]!,
+        i2 = 2 * tri[e0 + 2]!;
+      const x0 = c[i0]!,
+        y0 = c[i0 + 1]!,
+        x1 = c[i1]!,
+        y1 = c[i1 + 1]!,
+        x2 = c[i2]!,
+        y2 = c[i2 + 1]!;
       let exit = -1;
       if (entered !== e0 && ((x1 - x0) * (y - y0) - (y1 - y0) * (x - x0)) * out > 0) exit = e0;
       else if (entered !== e0 + 1 && ((x2 - x1) * (y - y1) - (y2 - y1) * (x - x1)) * out > 0) exit = e0 + 1;
@@ -119,12 +133,19 @@ export class TinLocator {
 
   /** Linear interpolation of z over triangle t at (x, y) (barycentric weights). */
   interpolate(t: number, x: number, y: number, z: ArrayLike<number>): number {
-    const tri = this.triangles, c = this.coords;
-    const a = tri[3 * t]!, b = tri[3 * t + 1]!, d = tri[3 * t + 2]!;
-    const ax = c[2 * a]!, ay = c[2 * a + 1]!;
-    const bx = c[2 * b]! - ax, by = c[2 * b + 1]! - ay;
-    const dx = c[2 * d]! - ax, dy = c[2 * d + 1]! - ay;
-    const px = x - ax, py = y - ay;
+    const tri = this.triangles,
+      c = this.coords;
+    const a = tri[3 * t]!,
+      b = tri[3 * t + 1]!,
+      d = tri[3 * t + 2]!;
+    const ax = c[2 * a]!,
+      ay = c[2 * a + 1]!;
+    const bx = c[2 * b]! - ax,
+      by = c[2 * b + 1]! - ay;
+    const dx = c[2 * d]! - ax,
+      dy = c[2 * d + 1]! - ay;
+    const px = x - ax,
+      py = y - ay;
     const det = bx * dy - by * dx;
     const u = (px * dy - py * dx) / det;
     const v = (bx * py - by * px) / det;

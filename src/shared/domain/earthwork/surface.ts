@@ -1,10 +1,12 @@
 import Delaunator from 'delaunator';
-import { DomainError } from '../domain-error';
-import { hullOf, integratePass, markHullCorners, type PassTotals, type Tin } from './surface-pass';
-import { sampleOther } from './surface-sample';
+import { DomainError, type DomainIssue } from '../domain-error';
 import { TinLocator } from './surface-locate';
+import { overlay, tinArea, type OverlayTotals, type Tin } from './surface-overlay';
+import { PayRegion, type PayLimits } from './surface-pay';
 import { fmt, fmtArea, fmtVolume, type Trail } from './trail';
 import { areaUnitOf, cubicToVolume, volumeUnitOf, type AreaUnit, type LengthUnit, type VolumeUnit } from './units';
+
+export type { PayLimits } from './surface-pay';
 
 /** A point survey as columns (x, y plan; z elevation), ft or m. */
 export interface SurfacePoints {
@@ -19,13 +21,16 @@ export interface SurfaceInput {
   existing: readonly (readonly [number, number, number])[];
   /** Design (or later survey) shots [x, y, z]. */
   design: readonly (readonly [number, number, number])[];
+  /** Optional pay limits: only the plan area inside `outer` and outside every void is measured. */
+  payLimits?: PayLimits;
 }
 
-/** The mesh the volume was integrated over and what it took. */
-export interface SurfacePass {
-  over: 'existing' | 'design';
-  triangles: number;
-  clippedTriangles: number;
+/** How the two triangulations were overlaid. */
+export interface SurfaceOverlay {
+  existingTriangles: number;
+  designTriangles: number;
+  /** Convex pieces where a triangle of one survey overlaps a triangle of the other. */
+  pieces: number;
 }
 
 export interface SurfaceResult {
@@ -35,19 +40,28 @@ export interface SurfaceResult {
   fill: number;
   net: number;
   volumeUnit: VolumeUnit;
-  /** Plan area both surveys cover (intersection of their convex hulls), sq ft or m2. */
+  /** Plan area measured: both surveys cover it (and inside the pay limits when given), sq ft or m2. */
   footprintArea: number;
   areaUnit: AreaUnit;
+  /** Plan area of each survey's triangulation outside the other's (pay limits aside). */
+  existingOutsideArea: number;
+  designOutsideArea: number;
+  /** Area inside the pay limits that one of the surveys does not cover (0 without pay limits). */
+  payAreaUncovered: number;
   existingPoints: number;
   designPoints: number;
-  pass: SurfacePass;
+  /** Same plan point given twice with the same height (kept once). */
+  repeatedPoints: number;
+  overlay: SurfaceOverlay;
   trail: Trail;
 }
 
 /** Columns from [x, y, z] rows (typed arrays: 24 bytes a point). */
 export function pointsFromRows(rows: readonly (readonly [number, number, number])[]): SurfacePoints {
   const n = rows.length;
-  const x = new Float64Array(n), y = new Float64Array(n), z = new Float64Array(n);
+  const x = new Float64Array(n),
+    y = new Float64Array(n),
+    z = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const r = rows[i]!;
     x[i] = r[0];
@@ -55,6 +69,25 @@ export function pointsFromRows(rows: readonly (readonly [number, number, number]
     z[i] = r[2];
   }
   return { x, y, z };
+}
+
+/** NaN and infinite coordinates refused, naming the row and the column (`existing.12.2`). */
+function checkFinite(p: SurfacePoints, name: 'existing' | 'design'): void {
+  const cols = [p.x, p.y, p.z];
+  if (p.y.length !== p.x.length || p.z.length !== p.x.length)
+    throw new DomainError('VALIDATION_FAILED', 'x, y and z columns differ in length', [name]);
+  for (let k = 0; k < 3; k++) {
+    const col = cols[k]!;
+    for (let i = 0; i < col.length; i++) {
+      const v = col[i]!;
+      if (!Number.isFinite(v))
+        throw new DomainError(
+          'INVALID_NUMBER',
+          `Row ${i + 1} of the ${name} survey: ${'xyz'[k]} is ${v}, expected a finite number`,
+          [name, i, k],
+        );
+    }
+  }
 }
 
 function tinOf(p: SurfacePoints, ox: number, oy: number, name: 'existing' | 'design'): Tin {
@@ -68,82 +101,144 @@ function tinOf(p: SurfacePoints, ox: number, oy: number, name: 'existing' | 'des
   }
   const mesh = new Delaunator(coords);
   if (mesh.triangles.length === 0) {
-    throw new DomainError('DEGENERATE_SURFACE', `The ${name} survey needs at least 3 points not all on one line`, [name]);
+    throw new DomainError('DEGENERATE_SURFACE', `The ${name} survey needs at least 3 points not all on one line`, [
+      name,
+    ]);
   }
   return { mesh, coords, z, locator: new TinLocator(mesh, coords) };
 }
 
-function minOf(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  let m = Infinity;
-  for (let i = 0; i < a.length; i++) if (a[i]! < m) m = a[i]!;
-  for (let i = 0; i < b.length; i++) if (b[i]! < m) m = b[i]!;
-  return m;
+/**
+ * Points the triangulation left out are repeats of a plan position (delaunator keeps the first). Same height:
+ * counted. Different height: refused as DUPLICATE_POINT naming both rows, never resolved in silence.
+ */
+function repeats(t: Tin, name: 'existing' | 'design'): number {
+  const n = t.z.length;
+  const used = new Uint8Array(n);
+  const tri = t.mesh.triangles;
+  for (let i = 0; i < tri.length; i++) used[tri[i]!] = 1;
+  let same = 0;
+  const issues: DomainIssue[] = [];
+  for (let i = 0; i < n; i++) {
+    if (used[i]) continue;
+    const x = t.coords[2 * i]!,
+      y = t.coords[2 * i + 1]!;
+    const k = t.locator.locate(x, y, true);
+    let twin = -1;
+    for (let c = 0; k >= 0 && c < 3; c++) {
+      const j = tri[3 * k + c]!;
+      if (t.coords[2 * j] === x && t.coords[2 * j + 1] === y) twin = j;
+    }
+    if (twin < 0 || t.z[twin] === t.z[i]) {
+      same++;
+      continue;
+    }
+    if (issues.length < 20) {
+      issues.push({
+        path: `${name}.${i}`,
+        message: `Row ${i + 1} repeats the plan position of row ${twin + 1} with another height (${fmt(t.z[i]!, 3)} against ${fmt(t.z[twin]!, 3)})`,
+      });
+    }
+  }
+  if (issues.length > 0)
+    throw new DomainError('DUPLICATE_POINT', `${issues[0]!.message}: remove one of them`, issues[0]!.path, issues);
+  return same;
 }
 
-/** Shoelace area of a mesh's convex hull (a tie-break that mirroring and shifting leave unchanged). */
-function hullArea(tin: Tin): number {
-  const h = hullOf(tin);
-  let twice = 0;
-  for (let i = 0; i < h.x.length; i++) {
-    const j = (i + 1) % h.x.length;
-    twice += h.x[i]! * h.y[j]! - h.x[j]! * h.y[i]!;
+function bounds(a: SurfacePoints, b: SurfacePoints): [number, number, number, number] {
+  let x0 = Infinity,
+    y0 = Infinity,
+    x1 = -Infinity,
+    y1 = -Infinity;
+  for (const p of [a, b]) {
+    for (let i = 0; i < p.x.length; i++) {
+      const x = p.x[i]!,
+        y = p.y[i]!;
+      if (x < x0) x0 = x;
+      if (x > x1) x1 = x;
+      if (y < y0) y0 = y;
+      if (y > y1) y1 = y;
+    }
   }
-  return Math.abs(twice) / 2;
-}
-
-/** Integrate over the denser survey; ties go by hull area, then by the sum of heights, so swapping is exact. */
-function overExisting(e: Tin, d: Tin): boolean {
-  if (e.z.length !== d.z.length) return e.z.length > d.z.length;
-  const ae = hullArea(e);
-  const ad = hullArea(d);
-  if (ae !== ad) return ae < ad;
-  let se = 0;
-  let sd = 0;
-  for (let i = 0; i < e.z.length; i++) {
-    se += e.z[i]!;
-    sd += d.z[i]!;
-  }
-  return se >= sd;
+  return [x0, y0, x1, y1];
 }
 
 /**
- * Surface-to-surface volume from two point surveys, each triangulated (Delaunay, delaunator). Cut where the
- * existing surface is above the design, fill where below, over the plan area both cover. The depth is
- * integrated over the denser survey's triangles with the other surface's heights sampled at their corners:
- * exact wherever the other surface is planar across each triangle, and swapping the two surveys swaps cut and
- * fill exactly. Triangles crossing the other survey's boundary are clipped to its convex hull.
+ * Surface-to-surface volume from two point surveys, each triangulated (Delaunay, delaunator), by the
+ * triangular-prism method over the overlay of both triangulations (surface-overlay.ts; surveying texts,
+ * reference.md section 9): cut where the existing surface is above the design, fill where below, over the plan
+ * area both cover, within optional pay limits. Exact for the two piecewise-linear surfaces (up to floating-point
+ * rounding): every prism is split where the surfaces cross.
  */
-export function surfaceVolumeFromPoints(unit: LengthUnit, existing: SurfacePoints, design: SurfacePoints): SurfaceResult {
+export function surfaceVolumeFromPoints(
+  unit: LengthUnit,
+  existing: SurfacePoints,
+  design: SurfacePoints,
+  payLimits?: PayLimits,
+): SurfaceResult {
+  checkFinite(existing, 'existing');
+  checkFinite(design, 'design');
   // Shift to a local origin: survey coordinates (state plane, 1e6 ft) would otherwise cost digits.
-  const ox = minOf(existing.x, design.x);
-  const oy = minOf(existing.y, design.y);
+  const box = bounds(existing, design);
+  const [ox, oy] = box;
   const e = tinOf(existing, ox, oy, 'existing');
   const d = tinOf(design, ox, oy, 'design');
-  const useExisting = overExisting(e, d);
-  const own = useExisting ? e : d;
-  const other = useExisting ? d : e;
-  const hull = hullOf(other);
-  const totals = integratePass(own, sampleOther(own, other), hull, markHullCorners(own, hull), useExisting ? 1 : -1);
-  return present(unit, totals, useExisting ? 'existing' : 'design', e.z.length, d.z.length, d.mesh.triangles.length / 3 + e.mesh.triangles.length / 3);
+  const repeated = repeats(e, 'existing') + repeats(d, 'design');
+  const pay =
+    payLimits && (payLimits.outer || (payLimits.voids && payLimits.voids.length > 0))
+      ? new PayRegion(payLimits, ox, oy, [0, 0, box[2] - ox, box[3] - oy])
+      : null;
+  const totals = overlay(e, d, pay);
+  const areaE = tinArea(e);
+  const areaD = tinArea(d);
+  return present(unit, totals, e, d, areaE, areaD, repeated, pay);
 }
 
 /** Same, from [x, y, z] rows as the calculation API takes them. */
 export function surfaceVolume(input: SurfaceInput): SurfaceResult {
-  return surfaceVolumeFromPoints(input.unit, pointsFromRows(input.existing), pointsFromRows(input.design));
+  return surfaceVolumeFromPoints(
+    input.unit,
+    pointsFromRows(input.existing),
+    pointsFromRows(input.design),
+    input.payLimits,
+  );
 }
 
-function present(unit: LengthUnit, t: PassTotals, over: SurfacePass['over'], nE: number, nD: number, allTriangles: number): SurfaceResult {
+function present(
+  unit: LengthUnit,
+  t: OverlayTotals,
+  e: Tin,
+  d: Tin,
+  areaE: number,
+  areaD: number,
+  repeated: number,
+  pay: PayRegion | null,
+): SurfaceResult {
   const cut = cubicToVolume(t.cut, unit);
   const fill = cubicToVolume(t.fill, unit);
-  const footprintArea = t.area;
-  if (footprintArea === 0) throw new DomainError('NO_OVERLAP', 'The two surveys do not overlap in plan', ['design']);
+  const footprintArea = pay ? t.area : t.overlapArea;
+  if (t.overlapArea === 0) throw new DomainError('NO_OVERLAP', 'The two surveys do not overlap in plan', ['design']);
+  if (footprintArea === 0)
+    throw new DomainError('NO_OVERLAP', 'The pay limits leave no plan area that both surveys cover', ['payLimits']);
+  const nE = e.z.length;
+  const nD = d.z.length;
+  const triE = e.mesh.triangles.length / 3;
+  const triD = d.mesh.triangles.length / 3;
+  const existingOutsideArea = Math.max(0, areaE - t.overlapArea);
+  const designOutsideArea = Math.max(0, areaD - t.overlapArea);
+  const payAreaUncovered = pay ? Math.max(0, pay.area - t.area) : 0;
   const trail: Trail = [
-    `Existing ${fmt(nE, 0)} points, design ${fmt(nD, 0)} points; ${fmt(allTriangles, 0)} Delaunay triangles in all (delaunator)`,
-    `Integrated over the ${over} survey's ${fmt(t.triangles, 0)} triangles (the denser one), the other surface's heights interpolated at their corners`,
-    `Shared footprint (inside both convex hulls) ${fmtArea(footprintArea, unit)}; ${fmt(t.clipped, 0)} boundary triangles clipped to the other hull`,
-    'Per triangle, depth d = existing - design runs linearly between corners; V = A (d1 + d2 + d3) / 3, split exactly along d = 0',
-    `Cut ${fmtVolume(cut, unit)}, fill ${fmtVolume(fill, unit)}, net ${fmtVolume(cut - fill, unit)}`,
+    `Existing ${fmt(nE, 0)} points, ${fmt(triE, 0)} triangles; design ${fmt(nD, 0)} points, ${fmt(triD, 0)} triangles (Delaunay, delaunator)${repeated > 0 ? `; ${fmt(repeated, 0)} repeated points with the same height kept once` : ''}`,
+    `Both triangulations overlaid: each existing triangle clipped by the design triangles under it, found by walking the design mesh; ${fmt(t.pieces, 0)} pieces, over each of which both surfaces are planes`,
+    'Triangular-prism method (surveying texts): prism volume = plan area x mean depth, split exactly along the line where the surfaces cross; exact for the two piecewise-linear surfaces',
+    `Area both surveys cover ${fmtArea(t.overlapArea, unit)}; existing outside the design ${fmtArea(existingOutsideArea, unit)}, design outside the existing ${fmtArea(designOutsideArea, unit)}`,
   ];
+  if (pay) {
+    trail.push(
+      `Pay limits (outer boundary less voids) ${fmtArea(pay.area, unit)}: measured ${fmtArea(footprintArea, unit)} inside them${payAreaUncovered > 0 ? `; ${fmtArea(payAreaUncovered, unit)} of the pay area is not covered by both surveys` : ''}`,
+    );
+  }
+  trail.push(`Cut ${fmtVolume(cut, unit)}, fill ${fmtVolume(fill, unit)}, net ${fmtVolume(cut - fill, unit)}`);
   if (unit === 'ft') trail.push('Cubic feet divided by 27 for CY');
   return {
     unit,
@@ -153,9 +248,13 @@ function present(unit: LengthUnit, t: PassTotals, over: SurfacePass['over'], nE:
     volumeUnit: volumeUnitOf(unit),
     footprintArea,
     areaUnit: areaUnitOf(unit),
+    existingOutsideArea,
+    designOutsideArea,
+    payAreaUncovered,
     existingPoints: nE,
     designPoints: nD,
-    pass: { over, triangles: t.triangles, clippedTriangles: t.clipped },
+    repeatedPoints: repeated,
+    overlay: { existingTriangles: triE, designTriangles: triD, pieces: t.pieces },
     trail,
   };
 }
