@@ -234,7 +234,7 @@ export const DISPUTE_STATUSES = ['open', 'resolved'] as const;
 export type DisputeStatus = (typeof DISPUTE_STATUSES)[number];
 
 /** How a dispute ended: the counter quantity taken, an answer with more evidence, or withdrawn by the reviewer. */
-export const DISPUTE_RESOLUTIONS = ['counter_accepted', 'answered', 'withdrawn'] as const;
+export const DISPUTE_RESOLUTIONS = ['counter_accepted', 'answered', 'withdrawn', 'quantity_proposed'] as const;
 export type DisputeResolution = (typeof DISPUTE_RESOLUTIONS)[number];
 
 export const CHANGE_ORDER_STATUSES = ['proposed', 'approved', 'rejected'] as const;

@@ -67,6 +67,8 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/pay-apps/:payAppId/revise': 'project',
   'POST /api/pay-apps/:payAppId/certify': 'project',
   'POST /api/disputes/:disputeId/comments': 'project',
+  'PATCH /api/disputes/:disputeId': 'project',
+  'POST /api/disputes/:disputeId/withdraw': 'project',
   'GET /api/pay-apps/:payAppId/export.pdf': 'project',
   'GET /api/pay-apps/:payAppId/export.csv': 'project',
   'POST /api/pay-apps/:payAppId/payments': 'project',
@@ -107,18 +109,47 @@ beforeAll(async () => {
   w = await makeWorld(db, t.auth);
   const gc = w.people.general_contractor.id;
   const item = await makeBidItem(db, w.home.id);
-  const tally = await makeTally(db, { projectId: w.home.id, bidItemId: item.id, authorUserId: w.people.subcontractor.id, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
+  const tally = await makeTally(db, {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    authorUserId: w.people.subcontractor.id,
+    measuredOn: '2026-10-05',
+    quantity: 10,
+    status: 'draft',
+  });
   const [evidence] = await db
     .insert(tallyEvidence)
-    .values({ tallyId: tally.id, fileName: 'a.csv', contentType: 'text/csv', kind: 'csv', sizeBytes: 3, sha256: 'x', storageKey: 'evidence/00000000-0000-4000-8000-000000000001', uploadedByUserId: w.people.subcontractor.id })
+    .values({
+      tallyId: tally.id,
+      fileName: 'a.csv',
+      contentType: 'text/csv',
+      kind: 'csv',
+      sizeBytes: 3,
+      sha256: 'x',
+      storageKey: 'evidence/00000000-0000-4000-8000-000000000001',
+      uploadedByUserId: w.people.subcontractor.id,
+    })
     .returning();
   const app = await makeCertifiedPayApp(db, w.home.id, w.people.subcontractor.id);
   const [line] = await db.select().from(payAppLines).limit(1);
-  const [dispute] = await db.insert(disputes).values({ payAppId: app.id, lineId: line!.id, revision: 0, reason: 'r', counterQuantity: 1, openedByUserId: gc }).returning();
-  const [co] = await db.insert(changeOrders).values({ projectId: w.home.id, number: 1, title: 'CO', proposedByUserId: gc }).returning();
+  const [dispute] = await db
+    .insert(disputes)
+    .values({ payAppId: app.id, lineId: line!.id, revision: 0, reason: 'r', counterQuantity: 1, openedByUserId: gc })
+    .returning();
+  const [co] = await db
+    .insert(changeOrders)
+    .values({ projectId: w.home.id, number: 1, title: 'CO', proposedByUserId: gc })
+    .returning();
   const [invitation] = await db
     .insert(invitations)
-    .values({ projectId: w.home.id, email: 'x@example.test', role: 'owner', tokenHash: 'h', invitedByUserId: gc, expiresAt: new Date(Date.now() + 86_400_000) })
+    .values({
+      projectId: w.home.id,
+      email: 'x@example.test',
+      role: 'owner',
+      tokenHash: 'h',
+      invitedByUserId: gc,
+      expiresAt: new Date(Date.now() + 86_400_000),
+    })
     .returning();
   params = {
     projectId: w.home.id,
@@ -146,15 +177,23 @@ const NOWHERE = '00000000-0000-4000-8000-00000000dead';
 function concrete(route: string, nowhere = false): { method: string; path: string } {
   const [method, template] = route.split(' ') as [string, string];
   const path = template
-    .replace(/(change-orders|invitations)\/:id/, (_m, kind: string) => `${kind}/${nowhere ? NOWHERE : params[`${kind}/:id`]}`)
-    .replace(/:(\w+)/g, (_m, name: string) => (nowhere && name !== 'method' && name !== 'token' ? NOWHERE : (params[name] ?? 'missing')));
+    .replace(
+      /(change-orders|invitations)\/:id/,
+      (_m, kind: string) => `${kind}/${nowhere ? NOWHERE : params[`${kind}/:id`]}`,
+    )
+    .replace(/:(\w+)/g, (_m, name: string) =>
+      nowhere && name !== 'method' && name !== 'token' ? NOWHERE : (params[name] ?? 'missing'),
+    );
   return { method: method.toLowerCase(), path };
 }
 
 type Agent = ReturnType<typeof request.agent> | ReturnType<typeof request>;
 const send = (agent: Agent, route: string, nowhere = false) => {
   const { method, path } = concrete(route, nowhere);
-  const req = (agent as unknown as Record<string, (p: string) => request.Test>)[method]!(path).set('Origin', TEST_ORIGIN);
+  const req = (agent as unknown as Record<string, (p: string) => request.Test>)[method]!(path).set(
+    'Origin',
+    TEST_ORIGIN,
+  );
   return method === 'get' || method === 'delete' ? req : req.send({});
 };
 
@@ -189,7 +228,10 @@ describe('the authorization matrix', () => {
       // 404, or a body refused by its schema before any lookup: either way the same answer as for an id that
       // exists nowhere, so the response is no oracle for existence.
       expect([404, 400], route).toContain(res.status);
-      expect({ status: res.status, code: res.body.error?.code }, route).toEqual({ status: absent.status, code: absent.body.error?.code });
+      expect({ status: res.status, code: res.body.error?.code }, route).toEqual({
+        status: absent.status,
+        code: absent.body.error?.code,
+      });
       if (route.startsWith('GET')) expect(res.status, route).toBe(404);
     }
     expect(await writes()).toBe(before);

@@ -7,6 +7,12 @@ import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { confirm } from '../setup/payment-flow';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
+/** Every flag of the application, acknowledged: these tests certify after looking at them. */
+const flagKeys = async (
+  agent: { get: (url: string) => PromiseLike<{ body: { payApp: { flags: { key: string }[] } } }> },
+  payAppId: string,
+) => (await agent.get(`/api/pay-apps/${payAppId}`)).body.payApp.flags.map((f) => f.key);
+
 // Concurrent transitions through real HTTP requests (supertest, Promise.all). On PostgreSQL
 // (scripts/test-postgres.sh) the requests run on separate pooled connections, so the conditional updates and
 // row locks are what decide; on PGlite they interleave between queries on one connection. Either way exactly
@@ -92,7 +98,11 @@ describe('two or more certifications at once', () => {
       await colleague(project.id, 'general_contractor'),
     ];
     const results = await Promise.all(
-      certifiers.map((c) => c.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0 })),
+      certifiers.map(async (c) =>
+        c
+          .post(`/api/pay-apps/${app.id}/certify`)
+          .send({ expectedRevision: 0, acknowledgedFlags: await flagKeys(c, app.id) }),
+      ),
     );
     expect(statusesOf(results)).toEqual([200, 409, 409]);
     for (const lost of results.filter((r) => r.status === 409))
@@ -134,13 +144,13 @@ describe('a review racing another transition', () => {
     const reviewer = await colleague(project.id, 'general_contractor');
     const certifier = await as('general_contractor');
     const [review, certify] = await Promise.all([
-      reviewer
-        .post(`/api/pay-apps/${app.id}/review`)
-        .send({
-          expectedRevision: 0,
-          lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Recount the loads', counterQuantity: 40 }],
-        }),
-      certifier.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0 }),
+      reviewer.post(`/api/pay-apps/${app.id}/review`).send({
+        expectedRevision: 0,
+        lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Recount the loads', counterQuantity: 40 }],
+      }),
+      flagKeys(certifier, app.id).then((acknowledgedFlags) =>
+        certifier.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0, acknowledgedFlags }),
+      ),
     ]);
     expect(statusesOf([review, certify])).toEqual([200, 409]);
     const [row] = await t.database.db.select().from(payApps).where(eq(payApps.id, app.id));
@@ -165,28 +175,24 @@ describe('a review racing another transition', () => {
   it('a stale review and the revision of a returned application at once: the revision wins, the review gets 409', async () => {
     const { app, lineOf, sub } = await submittedPayApp();
     const gc = await as('general_contractor');
-    const returned = await gc
-      .post(`/api/pay-apps/${app.id}/review`)
-      .send({
-        expectedRevision: 0,
-        lines: [
-          {
-            lineId: lineOf('C-1'),
-            decision: 'dispute',
-            reason: 'Station 12+00 to 14+00 was billed last month',
-            counterQuantity: 100,
-          },
-        ],
-      });
+    const returned = await gc.post(`/api/pay-apps/${app.id}/review`).send({
+      expectedRevision: 0,
+      lines: [
+        {
+          lineId: lineOf('C-1'),
+          decision: 'dispute',
+          reason: 'Station 12+00 to 14+00 was billed last month',
+          counterQuantity: 100,
+        },
+      ],
+    });
     expect(returned.body.payApp.status).toBe('returned');
     // The reviewer's screen still shows revision 0 in review; the subcontractor answers the dispute meanwhile.
     const [review, revise] = await Promise.all([
-      (await as('general_contractor'))
-        .post(`/api/pay-apps/${app.id}/review`)
-        .send({
-          expectedRevision: 0,
-          lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Haul tickets missing', counterQuantity: 30 }],
-        }),
+      (await as('general_contractor')).post(`/api/pay-apps/${app.id}/review`).send({
+        expectedRevision: 0,
+        lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Haul tickets missing', counterQuantity: 30 }],
+      }),
       sub
         .post(`/api/pay-apps/${app.id}/revise`)
         .send({ expectedRevision: 0, lines: [{ lineId: lineOf('C-1'), action: 'accept' }] }),
@@ -207,25 +213,19 @@ describe('a review racing another transition', () => {
 
   it('two revisions of one returned application at once: one 200, one 409, the revision number moves once', async () => {
     const { project, app, lineOf, sub } = await submittedPayApp();
-    await (
-      await as('general_contractor')
-    )
-      .post(`/api/pay-apps/${app.id}/review`)
-      .send({
-        expectedRevision: 0,
-        lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Recount', counterQuantity: 40 }],
-      });
+    await (await as('general_contractor')).post(`/api/pay-apps/${app.id}/review`).send({
+      expectedRevision: 0,
+      lines: [{ lineId: lineOf('C-2'), decision: 'dispute', reason: 'Recount', counterQuantity: 40 }],
+    });
     const other = await colleague(project.id, 'subcontractor');
     const results = await Promise.all([
       sub
         .post(`/api/pay-apps/${app.id}/revise`)
         .send({ expectedRevision: 0, lines: [{ lineId: lineOf('C-2'), action: 'accept' }] }),
-      other
-        .post(`/api/pay-apps/${app.id}/revise`)
-        .send({
-          expectedRevision: 0,
-          lines: [{ lineId: lineOf('C-2'), action: 'answer', comment: 'The tickets are attached' }],
-        }),
+      other.post(`/api/pay-apps/${app.id}/revise`).send({
+        expectedRevision: 0,
+        lines: [{ lineId: lineOf('C-2'), action: 'answer', comment: 'The tickets are attached' }],
+      }),
     ]);
     expect(statusesOf(results)).toEqual([200, 409]);
     const [row] = await t.database.db.select().from(payApps).where(eq(payApps.id, app.id));

@@ -107,17 +107,15 @@ describe('contract lock: set up until the first pay application is submitted', (
 
   it('refuses adding, importing and deleting bid items once locked (409 CONTRACT_LOCKED)', async () => {
     const gc = await as('general_contractor');
-    const created = await gc
-      .post(`/api/projects/${w.home.id}/bid-items`)
-      .send({
-        itemNumber: 'Z-1',
-        description: 'Late item',
-        payUnit: 'CY',
-        basis: 'bank',
-        unitPriceCents: 100,
-        contractQuantity: 1,
-        method: 'manual',
-      });
+    const created = await gc.post(`/api/projects/${w.home.id}/bid-items`).send({
+      itemNumber: 'Z-1',
+      description: 'Late item',
+      payUnit: 'CY',
+      basis: 'bank',
+      unitPriceCents: 100,
+      contractQuantity: 1,
+      method: 'manual',
+    });
     expect(created.status).toBe(409);
     expect(created.body.error.code).toBe('CONTRACT_LOCKED');
     const csv =
@@ -157,6 +155,8 @@ describe('contract lock: set up until the first pay application is submitted', (
   });
 });
 
+let nov: { id: string; lines: Line[]; contractSumCents: number; earnedToDateCents: number; thisPeriodCents: number };
+
 describe('original beside current: a change order moves the contract everywhere', () => {
   let coNumber: number;
   let octoberBefore: unknown;
@@ -165,10 +165,32 @@ describe('original beside current: a change order moves the contract everywhere'
     const gc = await as('general_contractor');
     const lines = october.lines.map((l) => ({ lineId: l.id, decision: 'approve' }));
     expect((await gc.post(`/api/pay-apps/${october.id}/review`).send({ expectedRevision: 0, lines })).status).toBe(200);
+    // The factory's tallies carry no evidence file: each billed line is flagged, and must be acknowledged.
+    const flags = (await gc.get(`/api/pay-apps/${october.id}`)).body.payApp.flags as {
+      key: string;
+      kind: string;
+      itemNumber: string;
+    }[];
+    expect(flags.map((f) => [f.kind, f.itemNumber]).sort()).toEqual([
+      ['no_evidence', 'A-1'],
+      ['no_evidence', 'B-2'],
+    ]);
+    const partly = await gc
+      .post(`/api/pay-apps/${october.id}/certify`)
+      .send({ expectedRevision: 0, reauthPassword: TEST_PASSWORD, acknowledgedFlags: [flags[0]!.key] });
+    expect(partly.status).toBe(409);
+    expect(partly.body.error.code).toBe('FLAGS_NOT_ACKNOWLEDGED');
+    expect(partly.body.error.details).toEqual([
+      expect.objectContaining({ path: `acknowledgedFlags.${flags[1]!.key}` }),
+    ]);
     const res = await gc
       .post(`/api/pay-apps/${october.id}/certify`)
-      .send({ expectedRevision: 0, reauthPassword: TEST_PASSWORD });
+      .send({ expectedRevision: 0, reauthPassword: TEST_PASSWORD, acknowledgedFlags: flags.map((f) => f.key) });
     expect(res.status).toBe(200);
+    const [event] = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'pay_app.certified'));
+    expect(
+      (event!.after as { acknowledgedFlags: { key: string }[] }).acknowledgedFlags.map((f) => f.key).sort(),
+    ).toEqual(flags.map((f) => f.key).sort());
     // A-1: 400 CY x $7.25 = $2,900.00
     expect(line(res.body.payApp, 'A-1')).toMatchObject({
       unitPriceCents: 725,
@@ -239,7 +261,7 @@ describe('original beside current: a change order moves the contract everywhere'
   });
 
   it('compiles November at the current contract; the new price applies to November quantities only', async () => {
-    const nov = (
+    nov = (
       await (
         await as('subcontractor')
       )
@@ -269,5 +291,143 @@ describe('original beside current: a change order moves the contract everywhere'
     expect(a1.slice(3, 5)).toEqual(['8.00', '1600']);
     expect(a1[8]).toBe('2900.00');
     expect(a1[10]).toBe('3700.00');
+  });
+});
+
+const waitForMail = async (email: string, subject: RegExp) => {
+  for (let i = 0; i < 50; i++) {
+    const found = t.mailbox.messages().find((m) => m.to.includes(email) && subject.test(m.subject));
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no mail to ${email} matching ${subject}`);
+};
+
+describe('disputes that cannot go wrong silently (November, A-1 claims 100 CY)', () => {
+  let disputeId: string;
+  const a1 = () => line(nov, 'A-1').id;
+
+  it('refuses a counter quantity above the claim with 400 COUNTER_ABOVE_CLAIM, and returns nothing', async () => {
+    expect(
+      (await (await as('subcontractor')).post(`/api/pay-apps/${nov.id}/submit`).send({ expectedRevision: 0 })).status,
+    ).toBe(200);
+    const gc = await as('general_contractor');
+    const res = await gc
+      .post(`/api/pay-apps/${nov.id}/review`)
+      .send({
+        expectedRevision: 0,
+        lines: [{ lineId: a1(), decision: 'dispute', reason: 'More was hauled', counterQuantity: 150 }],
+      });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('COUNTER_ABOVE_CLAIM');
+    expect(res.body.error.details[0].path).toBe('lines.0.counterQuantity');
+    expect((await gc.get(`/api/pay-apps/${nov.id}`)).body.payApp.status).toBe('submitted');
+  });
+
+  it('lets the reviewer correct an open dispute, in the thread and by mail; the subcontractor may not', async () => {
+    const gc = await as('general_contractor');
+    const lines = nov.lines.map((l) =>
+      l.id === a1()
+        ? { lineId: l.id, decision: 'dispute', reason: 'Survey shows less', counterQuantity: 80 }
+        : { lineId: l.id, decision: 'approve' },
+    );
+    const returned = await gc.post(`/api/pay-apps/${nov.id}/review`).send({ expectedRevision: 0, lines });
+    expect(returned.body.payApp.status).toBe('returned');
+    disputeId = returned.body.payApp.disputes[0].id;
+    expect(
+      (await (await as('subcontractor')).patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 90 })).status,
+    ).toBe(403);
+    expect((await (await as('owner')).patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 90 })).status).toBe(
+      404,
+    );
+    expect(
+      (await (await as('outsider')).patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 90 })).status,
+    ).toBe(404);
+    const above = await gc.patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 101 });
+    expect(above.body.error.code).toBe('COUNTER_ABOVE_CLAIM');
+    const edited = await gc.patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 90 });
+    expect(edited.status).toBe(200);
+    const d = edited.body.payApp.disputes[0];
+    expect(d).toMatchObject({ counterQuantity: 90, status: 'open' });
+    expect(d.comments.at(-1).body).toMatch(/Counter quantity changed from 80\.00 CY to 90\.00 CY/);
+    await waitForMail(w.people.subcontractor.email, /item A-1 dispute changed/);
+  });
+
+  it('refuses an answer without a choice, and a proposal without a quantity or a reason', async () => {
+    const sub = await as('subcontractor');
+    const none = await sub
+      .post(`/api/pay-apps/${nov.id}/revise`)
+      .send({ expectedRevision: 0, lines: [{ lineId: a1() }] });
+    expect(none.status).toBe(400);
+    expect(none.body.error.details.map((x: { path: string }) => x.path)).toContain('lines.0.action');
+    const bare = await sub
+      .post(`/api/pay-apps/${nov.id}/revise`)
+      .send({ expectedRevision: 0, lines: [{ lineId: a1(), action: 'propose' }] });
+    expect(bare.body.error.details.map((x: { path: string }) => x.path).sort()).toEqual([
+      'lines.0.comment',
+      'lines.0.proposedQuantity',
+    ]);
+  });
+
+  it('takes a third quantity with its reason: the line is recomputed, the thread says so, the reviewer is mailed', async () => {
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(`/api/pay-apps/${nov.id}/revise`)
+      .send({
+        expectedRevision: 0,
+        lines: [
+          {
+            lineId: a1(),
+            action: 'propose',
+            proposedQuantity: 95,
+            comment: 'Five loads were topsoil; the rest is on the tickets',
+          },
+        ],
+      });
+    expect(res.status).toBe(200);
+    const app = res.body.payApp;
+    // 95 CY x $8.00 = $760.00 this period, on top of the $2,900.00 certified
+    expect(line(app, 'A-1')).toMatchObject({
+      thisPeriodQuantity: 95,
+      thisPeriodAmountCents: 76000,
+      amountToDateCents: 366000,
+      reviewStatus: 'pending',
+    });
+    expect(app.disputes[0]).toMatchObject({ status: 'resolved', resolution: 'quantity_proposed' });
+    expect(app.disputes[0].comments.at(-1).body).toMatch(
+      /Proposes 95\.00 CY instead of the claimed 100\.00 CY and the counter 90\.00 CY/,
+    );
+    await waitForMail(w.people.general_contractor.email, /disputes were answered/);
+    // Answered: the reviewer can no longer change it.
+    expect(
+      (await (await as('general_contractor')).patch(`/api/disputes/${disputeId}`).send({ counterQuantity: 50 })).body
+        .error.code,
+    ).toBe('DISPUTE_ANSWERED');
+  });
+
+  it('lets the reviewer withdraw a dispute before it is answered: the line stands as claimed', async () => {
+    expect(
+      (await (await as('subcontractor')).post(`/api/pay-apps/${nov.id}/submit`).send({ expectedRevision: 1 })).status,
+    ).toBe(200);
+    const gc = await as('general_contractor');
+    const returned = await gc
+      .post(`/api/pay-apps/${nov.id}/review`)
+      .send({
+        expectedRevision: 1,
+        lines: [{ lineId: a1(), decision: 'dispute', reason: 'Check the tickets', counterQuantity: 90 }],
+      });
+    const open = returned.body.payApp.disputes.find((d: { status: string }) => d.status === 'open');
+    expect((await gc.post(`/api/disputes/${open.id}/withdraw`).send({})).status).toBe(400);
+    const res = await gc.post(`/api/disputes/${open.id}/withdraw`).send({ note: 'Tickets 12 to 16 found' });
+    expect(res.status).toBe(200);
+    expect(res.body.payApp.disputes.find((d: { id: string }) => d.id === open.id)).toMatchObject({
+      status: 'resolved',
+      resolution: 'withdrawn',
+    });
+    expect(line(res.body.payApp, 'A-1')).toMatchObject({ reviewStatus: 'approved', thisPeriodQuantity: 95 });
+    await waitForMail(w.people.subcontractor.email, /item A-1 dispute withdrawn/);
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.objectId, open.id));
+    expect(events.map((e) => e.action)).toEqual(['dispute.withdrawn']);
   });
 });

@@ -31,8 +31,44 @@ describe('demo pay cycle (invented data)', () => {
     expect(over[0].openChangeOrder).not.toBeNull();
     expect(watch.body.periods).toHaveLength(3);
     const cos = await t.database.db.select().from(changeOrders).orderBy(changeOrders.number);
-    // The drafted variance change order; the approved one authorises the demo's time-and-materials work (issue 15).
-    expect(cos.map((c) => c.status)).toEqual(['proposed', 'approved']);
+    // Ours (205 and 208), the one authorising the time-and-materials work, and the drafted variance one.
+    expect(cos.map((c) => c.status).sort()).toEqual(['approved', 'approved', 'proposed']);
+  });
+
+  it('reflects its approved change order everywhere: bid schedule, project, watch and the period compiled after it', async () => {
+    const [project] = await t.database.db.select().from(projects);
+    const agent = await signedInAgent(t.app, 'gc@tallyard.test', 'tallyard-demo');
+    const items = (await agent.get(`/api/projects/${project!.id}/bid-items`)).body;
+    // Invented demo figures: 3,200 + 1,600 CY on item 205; 9 DAY at $1,850.00 added as item 208.
+    expect(items.bidItems.find((b: { itemNumber: string }) => b.itemNumber === '205')).toMatchObject({
+      originalQuantity: 3200,
+      contractQuantity: 4800,
+    });
+    expect(items.bidItems.find((b: { itemNumber: string }) => b.itemNumber === '208')).toMatchObject({
+      payUnit: 'DAY',
+      originalQuantity: 0,
+      contractQuantity: 9,
+      contractAmountCents: 1_665_000,
+    });
+    // 1,600 CY x $9.75 = $15,600.00 and 9 x $1,850.00 = $16,650.00 are among the approved changes
+    const a205 = items.bidItems.find((b: { itemNumber: string }) => b.itemNumber === '205');
+    expect(a205.contractAmountCents - a205.originalAmountCents).toBe(1_560_000);
+    const view = (await agent.get(`/api/projects/${project!.id}`)).body.project;
+    expect(view).toMatchObject({ approvedChangesCents: items.totals.approvedChangesCents, contractSumCents: items.totals.contractSumCents });
+    const watch = (await agent.get(`/api/projects/${project!.id}/variance`)).body;
+    expect(watch.rows.find((r: { itemNumber: string }) => r.itemNumber === '205')).toMatchObject({
+      currentContractQuantity: 4800,
+    });
+    const third = (await agent.get(`/api/projects/${project!.id}/pay-apps`)).body.payApps.find(
+      (a: { number: number }) => a.number === 3,
+    );
+    const detail = (await agent.get(`/api/pay-apps/${third.id}`)).body.payApp;
+    expect(detail.status).toBe('returned');
+    expect(detail.disputes).toHaveLength(1);
+    // Compiled after our change order (and before the later time-and-materials one): it carries 205 at 4,800 CY.
+    expect(detail.lines.find((l: { itemNumber: string }) => l.itemNumber === '205')).toMatchObject({
+      contractQuantity: 4800,
+    });
   });
 
   it('is idempotent: a second run adds nothing', async () => {

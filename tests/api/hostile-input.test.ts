@@ -3,11 +3,23 @@ import fc from 'fast-check';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ZodType } from 'zod';
-import { createChangeOrderSchema, approveChangeOrderSchema, rejectChangeOrderSchema } from '../../src/shared/schemas/change-order';
+import {
+  createChangeOrderSchema,
+  approveChangeOrderSchema,
+  rejectChangeOrderSchema,
+} from '../../src/shared/schemas/change-order';
 import { bidItemInputSchema, updateBidItemSchema } from '../../src/shared/schemas/bid-item';
 import { gridSchema } from '../../src/shared/schemas/calc';
 import { acceptInvitationSchema, createInvitationSchema } from '../../src/shared/schemas/invitation';
-import { createPayAppSchema, disputeCommentSchema, payAppActionSchema, reviewPayAppSchema, revisePayAppSchema } from '../../src/shared/schemas/pay-app';
+import {
+  createPayAppSchema,
+  disputeCommentSchema,
+  editDisputeSchema,
+  withdrawDisputeSchema,
+  payAppActionSchema,
+  reviewPayAppSchema,
+  revisePayAppSchema,
+} from '../../src/shared/schemas/pay-app';
 import { createPaymentSchema, issueLienWaiverSchema } from '../../src/shared/schemas/payment';
 import { createProjectSchema, updateProjectSchema } from '../../src/shared/schemas/project';
 import { createTallySchema, updateTallySchema } from '../../src/shared/schemas/tally';
@@ -21,8 +33,24 @@ import { hashToken } from '../../server/modules/invitations/invitation-token';
 import { REAUTH_FIELD } from '../../server/middleware/require-recent-auth';
 import { makeBidItem, makeWorld, sampleBidItem } from '../setup/factories';
 import {
-  arrayPaths, BOUNDARY_NUMBERS, deeplyNested, expectErrorShape, expectPrototypesClean, fingerprint, hasUnstorableText, HOSTILE_STRINGS, longArray,
-  MALFORMED_JSON, MORE_NUMBERS, MORE_STRINGS, objectPaths, PROTO_MEMBERS, valuePaths, withRawMember, withRawValue, type JsonPath,
+  arrayPaths,
+  BOUNDARY_NUMBERS,
+  deeplyNested,
+  expectErrorShape,
+  expectPrototypesClean,
+  fingerprint,
+  hasUnstorableText,
+  HOSTILE_STRINGS,
+  longArray,
+  MALFORMED_JSON,
+  MORE_NUMBERS,
+  MORE_STRINGS,
+  objectPaths,
+  PROTO_MEMBERS,
+  valuePaths,
+  withRawMember,
+  withRawValue,
+  type JsonPath,
 } from '../setup/hostile-json';
 import { makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
@@ -51,24 +79,63 @@ type Spec =
   | { reads: 'none' | 'multipart'; role: Role }
   | { reads: 'signed-raw'; role: 'none' };
 
-const json = (role: Role, schema: ZodType, template: (ids: Ids) => unknown, limitBytes?: number): Spec => ({ reads: 'json', role, schema, template, limitBytes });
+const json = (role: Role, schema: ZodType, template: (ids: Ids) => unknown, limitBytes?: number): Spec => ({
+  reads: 'json',
+  role,
+  schema,
+  template,
+  limitBytes,
+});
 const MB = 1024 * 1024;
 /** The app's JSON parser takes 1 MB (server/app.ts JSON_BODY_LIMIT); the routes that parse their own say theirs. */
 const limitOf = (spec: Spec) => (spec.reads === 'json' && spec.limitBytes) || MB;
 const none = (role: Role): Spec => ({ reads: 'none', role });
 
-const gridInputs = { unit: 'ft', spacingX: 25, spacingY: 25, depths: [[1, 1.5], [2, 2.5]] };
+const gridInputs = {
+  unit: 'ft',
+  spacingX: 25,
+  spacingY: 25,
+  depths: [
+    [1, 1.5],
+    [2, 2.5],
+  ],
+};
 
 /** Every route that could read a body (POST, PUT, PATCH, DELETE). A new one without an entry fails the first test. */
 const ROUTES: Record<string, Spec> = {
-  'POST /api/invitations/:token/accept': json('none', acceptInvitationSchema, () => ({ name: 'Rowan Pell', password: 'gravel-haul-road-77' }), 16 * 1024),
+  'POST /api/invitations/:token/accept': json(
+    'none',
+    acceptInvitationSchema,
+    () => ({ name: 'Rowan Pell', password: 'gravel-haul-road-77' }),
+    16 * 1024,
+  ),
   'POST /api/webhooks/stripe': { reads: 'signed-raw', role: 'none' },
   'POST /api/calc/:method': json('owner', gridSchema, () => gridInputs, 32 * MB), // the grid method's limit (CALC_BODY_LIMITS)
-  'POST /api/projects': json('general_contractor', createProjectSchema, (ids) => ({ name: 'North haul road', subcontractorCompanyId: ids.subCompany, ownerCompanyId: ids.ownerCompany, retainageBps: 500, swellPercent: 20, allowPartialPayments: true })),
-  'PATCH /api/projects/:projectId': json('general_contractor', updateProjectSchema, () => ({ location: 'Mile 4', retainageBps: 1000, retainageReducedBps: null, paymentTermsDays: 30, shrinkagePercent: 10 })),
-  'POST /api/projects/:projectId/bid-items': json('general_contractor', bidItemInputSchema, () => sampleBidItem({ itemNumber: 'H-1' })),
+  'POST /api/projects': json('general_contractor', createProjectSchema, (ids) => ({
+    name: 'North haul road',
+    subcontractorCompanyId: ids.subCompany,
+    ownerCompanyId: ids.ownerCompany,
+    retainageBps: 500,
+    swellPercent: 20,
+    allowPartialPayments: true,
+  })),
+  'PATCH /api/projects/:projectId': json('general_contractor', updateProjectSchema, () => ({
+    location: 'Mile 4',
+    retainageBps: 1000,
+    retainageReducedBps: null,
+    paymentTermsDays: 30,
+    shrinkagePercent: 10,
+  })),
+  'POST /api/projects/:projectId/bid-items': json('general_contractor', bidItemInputSchema, () =>
+    sampleBidItem({ itemNumber: 'H-1' }),
+  ),
   'POST /api/projects/:projectId/bid-items/import': { reads: 'multipart', role: 'general_contractor' },
-  'PATCH /api/bid-items/:bidItemId': json('general_contractor', updateBidItemSchema, () => ({ description: 'Rock excavation', unitPriceCents: 1250, contractQuantity: 800, isMajor: true })),
+  'PATCH /api/bid-items/:bidItemId': json('general_contractor', updateBidItemSchema, () => ({
+    description: 'Rock excavation',
+    unitPriceCents: 1250,
+    contractQuantity: 800,
+    isMajor: true,
+  })),
   'DELETE /api/bid-items/:bidItemId': none('general_contractor'),
   'POST /api/projects/:projectId/change-orders': json('general_contractor', createChangeOrderSchema, (ids) => ({
     title: 'Unsuitable material',
@@ -79,9 +146,16 @@ const ROUTES: Record<string, Spec> = {
       { kind: 'add_item', newItem: sampleBidItem({ itemNumber: 'CO-1' }) },
     ],
   })),
-  'POST /api/change-orders/:id/approve': json('general_contractor', approveChangeOrderSchema, () => ({ note: 'Agreed' })),
-  'POST /api/change-orders/:id/reject': json('general_contractor', rejectChangeOrderSchema, () => ({ note: 'Not in the contract' })),
-  'PUT /api/bid-items/:bidItemId/forecast': json('general_contractor', forecastInputSchema, () => ({ forecastQuantity: 1100, note: 'Survey of the cut' })),
+  'POST /api/change-orders/:id/approve': json('general_contractor', approveChangeOrderSchema, () => ({
+    note: 'Agreed',
+  })),
+  'POST /api/change-orders/:id/reject': json('general_contractor', rejectChangeOrderSchema, () => ({
+    note: 'Not in the contract',
+  })),
+  'PUT /api/bid-items/:bidItemId/forecast': json('general_contractor', forecastInputSchema, () => ({
+    forecastQuantity: 1100,
+    note: 'Survey of the cut',
+  })),
   'POST /api/bid-items/:bidItemId/variance-change-order': none('general_contractor'),
   'POST /api/projects/:projectId/invitations': json('owner_admin', createInvitationSchema, () => ({
     email: 'inspector@example.test',
@@ -110,15 +184,40 @@ const ROUTES: Record<string, Spec> = {
   'DELETE /api/tallies/:tallyId': none('subcontractor'),
   'POST /api/tallies/:tallyId/evidence': { reads: 'multipart', role: 'subcontractor' },
   'DELETE /api/evidence/:evidenceId': none('subcontractor'),
-  'POST /api/projects/:projectId/pay-apps': json('subcontractor', createPayAppSchema, () => ({ periodStart: '2026-12-01', periodEnd: '2026-12-31', isFinal: false })),
-  'POST /api/pay-apps/:payAppId/submit': json('subcontractor', payAppActionSchema, () => ({ expectedRevision: 0, note: 'For review' })),
+  'POST /api/projects/:projectId/pay-apps': json('subcontractor', createPayAppSchema, () => ({
+    periodStart: '2026-12-01',
+    periodEnd: '2026-12-31',
+    isFinal: false,
+  })),
+  'POST /api/pay-apps/:payAppId/submit': json('subcontractor', payAppActionSchema, () => ({
+    expectedRevision: 0,
+    note: 'For review',
+  })),
   'POST /api/pay-apps/:payAppId/review': json('general_contractor', reviewPayAppSchema, (ids) => ({
     expectedRevision: 0,
-    lines: [{ lineId: ids.lineId, decision: 'dispute', reason: 'Over the survey', counterQuantity: 120.25 }, { lineId: ids.lineId2, decision: 'approve' }],
+    lines: [
+      { lineId: ids.lineId, decision: 'dispute', reason: 'Over the survey', counterQuantity: 120.25 },
+      { lineId: ids.lineId2, decision: 'approve' },
+    ],
   })),
-  'POST /api/pay-apps/:payAppId/revise': json('subcontractor', revisePayAppSchema, (ids) => ({ expectedRevision: 0, lines: [{ lineId: ids.lineId, action: 'answer', comment: 'See the tickets' }] })),
-  'POST /api/pay-apps/:payAppId/certify': json('general_contractor', payAppActionSchema, () => ({ expectedRevision: 0, note: 'Certified' })),
-  'POST /api/disputes/:disputeId/comments': json('subcontractor', disputeCommentSchema, () => ({ body: 'Truck tickets attached' })),
+  'POST /api/pay-apps/:payAppId/revise': json('subcontractor', revisePayAppSchema, (ids) => ({
+    expectedRevision: 0,
+    lines: [{ lineId: ids.lineId, action: 'answer', comment: 'See the tickets' }],
+  })),
+  'POST /api/pay-apps/:payAppId/certify': json('general_contractor', payAppActionSchema, () => ({
+    expectedRevision: 0,
+    note: 'Certified',
+  })),
+  'POST /api/disputes/:disputeId/comments': json('subcontractor', disputeCommentSchema, () => ({
+    body: 'Truck tickets attached',
+  })),
+  'PATCH /api/disputes/:disputeId': json('general_contractor', editDisputeSchema, () => ({
+    reason: 'Survey shows less',
+    counterQuantity: 100,
+  })),
+  'POST /api/disputes/:disputeId/withdraw': json('general_contractor', withdrawDisputeSchema, () => ({
+    note: 'Tickets found',
+  })),
   'POST /api/pay-apps/:payAppId/payments': json('owner', createPaymentSchema, () => ({ partialAmountCents: 10_000 })),
   'POST /api/pay-apps/:payAppId/lien-waivers': json('subcontractor', issueLienWaiverSchema, (ids) => ({
     kind: 'conditional_progress',
@@ -153,20 +252,53 @@ beforeAll(async () => {
   const w = await makeWorld(db, t.auth);
   const gc = w.people.general_contractor.id;
   const item = await makeBidItem(db, w.home.id);
-  const tally = await makeTally(db, { projectId: w.home.id, bidItemId: item.id, authorUserId: w.people.subcontractor.id, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
+  const tally = await makeTally(db, {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    authorUserId: w.people.subcontractor.id,
+    measuredOn: '2026-10-05',
+    quantity: 10,
+    status: 'draft',
+  });
   const [evidence] = await db
     .insert(tallyEvidence)
-    .values({ tallyId: tally.id, fileName: 'a.csv', contentType: 'text/csv', kind: 'csv', sizeBytes: 3, sha256: 'x', storageKey: 'evidence/00000000-0000-4000-8000-000000000001', uploadedByUserId: w.people.subcontractor.id })
+    .values({
+      tallyId: tally.id,
+      fileName: 'a.csv',
+      contentType: 'text/csv',
+      kind: 'csv',
+      sizeBytes: 3,
+      sha256: 'x',
+      storageKey: 'evidence/00000000-0000-4000-8000-000000000001',
+      uploadedByUserId: w.people.subcontractor.id,
+    })
     .returning();
   const certified = await makeCertifiedPayApp(db, w.home.id, w.people.subcontractor.id);
-  const open = await makeCertifiedPayApp(db, w.home.id, w.people.subcontractor.id, { number: 2, status: 'submitted', periodEnd: '2026-11-30' });
+  const open = await makeCertifiedPayApp(db, w.home.id, w.people.subcontractor.id, {
+    number: 2,
+    status: 'submitted',
+    periodEnd: '2026-11-30',
+  });
   const lines = await db.select().from(payAppLines);
   const [line, line2] = lines.filter((l) => l.payAppId === open.id);
-  const [dispute] = await db.insert(disputes).values({ payAppId: open.id, lineId: line!.id, revision: 0, reason: 'r', counterQuantity: 1, openedByUserId: gc }).returning();
-  const [co] = await db.insert(changeOrders).values({ projectId: w.home.id, number: 1, title: 'CO', proposedByUserId: gc }).returning();
+  const [dispute] = await db
+    .insert(disputes)
+    .values({ payAppId: open.id, lineId: line!.id, revision: 0, reason: 'r', counterQuantity: 1, openedByUserId: gc })
+    .returning();
+  const [co] = await db
+    .insert(changeOrders)
+    .values({ projectId: w.home.id, number: 1, title: 'CO', proposedByUserId: gc })
+    .returning();
   const [invitation] = await db
     .insert(invitations)
-    .values({ projectId: w.home.id, email: 'new.person@example.test', role: 'owner', tokenHash: hashToken(TOKEN), invitedByUserId: gc, expiresAt: new Date(Date.now() + 86_400_000) })
+    .values({
+      projectId: w.home.id,
+      email: 'new.person@example.test',
+      role: 'owner',
+      tokenHash: hashToken(TOKEN),
+      invitedByUserId: gc,
+      expiresAt: new Date(Date.now() + 86_400_000),
+    })
     .returning();
   const approved = await makeChangeOrder(db, w.home.id, gc);
   ids = {
@@ -212,7 +344,10 @@ function concrete(route: string): { method: string; path: string } {
   const [method, template] = route.split(' ') as [string, string];
   const path = template
     .replace(/invitations\/:id$/, `invitations/${ids.invitationId}`)
-    .replace(/pay-apps\/:payAppId\/(payments|lien-waivers)/, (_m, what: string) => `pay-apps/${ids.certifiedPayAppId}/${what}`)
+    .replace(
+      /pay-apps\/:payAppId\/(payments|lien-waivers)/,
+      (_m, what: string) => `pay-apps/${ids.certifiedPayAppId}/${what}`,
+    )
     .replace(/:(\w+)/g, (_m, name: string) => ids[name] ?? 'missing');
   return { method: method.toLowerCase(), path };
 }
@@ -262,7 +397,8 @@ async function probe(route: string, s: Sent, refusals: number[]) {
   baseline = await fingerprint(t.database.db);
   expect(res.status, context).toBeLessThan(500);
   expectPrototypesClean(context);
-  const accepted = acceptedByOracle(spec, s.body) && (s.contentType ?? 'application/json') === 'application/json' && !s.headers;
+  const accepted =
+    acceptedByOracle(spec, s.body) && (s.contentType ?? 'application/json') === 'application/json' && !s.headers;
   if (res.status >= 400) expectErrorShape(res, context);
   if (!accepted) {
     expect(refusals, context).toContain(res.status);
@@ -285,7 +421,8 @@ describe('the routes under test', () => {
   });
 
   it('has templates the schemas accept, so every mutation starts from a body that would reach the service', () => {
-    for (const route of JSON_ROUTES()) expect(jsonSpec(route).schema.safeParse(jsonSpec(route).template(ids)).error, route).toBeUndefined();
+    for (const route of JSON_ROUTES())
+      expect(jsonSpec(route).schema.safeParse(jsonSpec(route).template(ids)).error, route).toBeUndefined();
   });
 });
 
@@ -296,35 +433,64 @@ describe.each(JSON_ROUTES())('%s with hostile JSON', (route) => {
     const keys = Object.keys(template() as object);
     const anyJson = fc.oneof(
       fc.jsonValue().map((v) => JSON.stringify(v)),
-      fc.anything().map((v) => { try { return JSON.stringify(v) ?? 'null'; } catch { return 'null'; } }),
-      fc.record(Object.fromEntries(keys.map((k) => [k, fc.jsonValue()])), { requiredKeys: [] }).map((v) => JSON.stringify(v)),
-      fc.tuple(fc.constantFrom(...valuePaths(template())), fc.jsonValue()).map(([p, v]) => withRawValue(template(), p, JSON.stringify(v))),
+      fc.anything().map((v) => {
+        try {
+          return JSON.stringify(v) ?? 'null';
+        } catch {
+          return 'null';
+        }
+      }),
+      fc
+        .record(Object.fromEntries(keys.map((k) => [k, fc.jsonValue()])), { requiredKeys: [] })
+        .map((v) => JSON.stringify(v)),
+      fc
+        .tuple(fc.constantFrom(...valuePaths(template())), fc.jsonValue())
+        .map(([p, v]) => withRawValue(template(), p, JSON.stringify(v))),
       fc.string({ unit: 'binary' }),
     );
-    await fc.assert(fc.asyncProperty(anyJson, async (body) => void (await probe(route, { body }, REFUSED))), { numRuns: RUNS, seed: SEED });
+    await fc.assert(
+      fc.asyncProperty(anyJson, async (body) => void (await probe(route, { body }, REFUSED))),
+      { numRuns: RUNS, seed: SEED },
+    );
   });
 
   it('refuses boundary numbers (RFC 8259 section 6) at every field, and at every numeric field each of them', async () => {
     const paths = valuePaths(template());
     const numeric = paths.filter((p) => typeof valueAt(template(), p) === 'number');
-    for (const p of numeric) for (const raw of BOUNDARY_NUMBERS) await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED);
+    for (const p of numeric)
+      for (const raw of BOUNDARY_NUMBERS) await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED);
     const anywhere = fc.tuple(fc.constantFrom(...paths), fc.constantFrom(...BOUNDARY_NUMBERS, ...MORE_NUMBERS));
-    await fc.assert(fc.asyncProperty(anywhere, async ([p, raw]) => void (await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED))), { numRuns: RUNS, seed: SEED });
+    await fc.assert(
+      fc.asyncProperty(
+        anywhere,
+        async ([p, raw]) => void (await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED)),
+      ),
+      { numRuns: RUNS, seed: SEED },
+    );
   });
 
   it('refuses text that cannot be stored as sent (NUL, lone surrogates) and survives RTL marks and 10k characters at every field', async () => {
     const paths = valuePaths(template());
     const strings = paths.filter((p) => typeof valueAt(template(), p) === 'string');
-    for (const p of strings) for (const raw of HOSTILE_STRINGS) await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED);
+    for (const p of strings)
+      for (const raw of HOSTILE_STRINGS) await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED);
     const anywhere = fc.tuple(fc.constantFrom(...paths), fc.constantFrom(...HOSTILE_STRINGS, ...MORE_STRINGS));
-    await fc.assert(fc.asyncProperty(anywhere, async ([p, raw]) => void (await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED))), { numRuns: RUNS, seed: SEED });
+    await fc.assert(
+      fc.asyncProperty(
+        anywhere,
+        async ([p, raw]) => void (await probe(route, { body: withRawValue(template(), p, raw) }, REFUSED)),
+      ),
+      { numRuns: RUNS, seed: SEED },
+    );
     for (const p of objectPaths(template()).slice(0, 2)) {
-      for (const key of ['"a\\u0000b"', '"\\ud800"', JSON.stringify('k'.repeat(10_000))]) await probe(route, { body: withRawMember(template(), p, `${key}:1`) }, REFUSED);
+      for (const key of ['"a\\u0000b"', '"\\ud800"', JSON.stringify('k'.repeat(10_000))])
+        await probe(route, { body: withRawMember(template(), p, `${key}:1`) }, REFUSED);
     }
   });
 
   it('refuses prototype-pollution keys (__proto__, constructor, prototype) in every object, sent as raw JSON text', async () => {
-    for (const p of objectPaths(template())) for (const member of PROTO_MEMBERS) await probe(route, { body: withRawMember(template(), p, member) }, REFUSED);
+    for (const p of objectPaths(template()))
+      for (const member of PROTO_MEMBERS) await probe(route, { body: withRawMember(template(), p, member) }, REFUSED);
     await probe(route, { body: `[{${PROTO_MEMBERS[0]}}]` }, REFUSED);
   });
 
@@ -339,17 +505,29 @@ describe.each(JSON_ROUTES())('%s with hostile JSON', (route) => {
     await probe(route, { body: withRawMember(template(), [], `"extra":${big}`) }, REFUSED);
     await probe(route, { body: '[]' }, REFUSED);
     await probe(route, { body: '{}' }, REFUSED);
-    for (const p of valuePaths(template()).slice(0, 4)) await probe(route, { body: withRawValue(template(), p, deeplyNested(5_000)) }, REFUSED);
+    for (const p of valuePaths(template()).slice(0, 4))
+      await probe(route, { body: withRawValue(template(), p, deeplyNested(5_000)) }, REFUSED);
     await probe(route, { body: deeplyNested(150_000) }, REFUSED); // about 900 kB, inside the limit
     await probe(route, { body: `${'['.repeat(400_000)}${']'.repeat(400_000)}` }, REFUSED);
   });
 
   it('refuses a valid body under a content type other than JSON with 415 (OWASP ASVS 4.0.3 13.1.5)', async () => {
     const body = JSON.stringify(template());
-    for (const contentType of ['text/plain', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x', 'application/xml', 'text/csv', null]) {
+    for (const contentType of [
+      'text/plain',
+      'application/x-www-form-urlencoded',
+      'multipart/form-data; boundary=x',
+      'application/xml',
+      'text/csv',
+      null,
+    ]) {
       await probe(route, { body, contentType }, [415]);
     }
-    await probe(route, { body: Buffer.from(body, 'utf16le'), contentType: 'application/json; charset=utf-16' }, [400, 415]);
+    await probe(
+      route,
+      { body: Buffer.from(body, 'utf16le'), contentType: 'application/json; charset=utf-16' },
+      [400, 415],
+    );
     await probe(route, { body, contentType: 'application/json; charset=latin1' }, [415]);
   });
 
@@ -357,31 +535,48 @@ describe.each(JSON_ROUTES())('%s with hostile JSON', (route) => {
     for (const body of MALFORMED_JSON) await probe(route, { body }, REFUSED);
     const bomb = gzipSync(Buffer.alloc(2 * limitOf(ROUTES[route]!), 0x20)); // a few kB that inflate to twice the limit
     await probe(route, { body: bomb, headers: { 'Content-Encoding': 'gzip' } }, [413]);
-    const compress = await probe(route, { body: JSON.stringify(template()), headers: { 'Content-Encoding': 'compress' } }, [415]);
+    const compress = await probe(
+      route,
+      { body: JSON.stringify(template()), headers: { 'Content-Encoding': 'compress' } },
+      [415],
+    );
     expect(compress.body.error.code).toBe('UNSUPPORTED_ENCODING');
   });
 });
 
-describe.each(Object.keys(ROUTES).filter((r) => ROUTES[r]!.reads !== 'json'))('%s, which reads no JSON body', (route) => {
-  const spec = () => ROUTES[route]!;
+describe.each(Object.keys(ROUTES).filter((r) => ROUTES[r]!.reads !== 'json'))(
+  '%s, which reads no JSON body',
+  (route) => {
+    const spec = () => ROUTES[route]!;
 
-  it('refuses malformed and oversized JSON before the route runs, and writes nothing', async () => {
-    for (const body of MALFORMED_JSON) await probe(route, { body }, REFUSED);
-    await probe(route, { body: longArray(1_000_000) }, [413]);
-    await probe(route, { body: gzipSync(Buffer.alloc(2 * MB, 0x20)), headers: { 'Content-Encoding': 'gzip' } }, [413]);
-  });
+    it('refuses malformed and oversized JSON before the route runs, and writes nothing', async () => {
+      for (const body of MALFORMED_JSON) await probe(route, { body }, REFUSED);
+      await probe(route, { body: longArray(1_000_000) }, [413]);
+      await probe(
+        route,
+        { body: gzipSync(Buffer.alloc(2 * MB, 0x20)), headers: { 'Content-Encoding': 'gzip' } },
+        [413],
+      );
+    });
 
-  it('refuses random JSON bodies where the route needs a file or a signature', async () => {
-    if (spec().reads === 'none') return; // the route ignores a body it does not read: nothing to refuse
-    const body = fc.oneof(fc.jsonValue().map((v) => JSON.stringify(v)), fc.constantFrom(...PROTO_MEMBERS.map((m) => `{${m}}`)));
-    await fc.assert(fc.asyncProperty(body, async (b) => void (await probe(route, { body: b }, REFUSED))), { numRuns: RUNS, seed: SEED });
-  });
+    it('refuses random JSON bodies where the route needs a file or a signature', async () => {
+      if (spec().reads === 'none') return; // the route ignores a body it does not read: nothing to refuse
+      const body = fc.oneof(
+        fc.jsonValue().map((v) => JSON.stringify(v)),
+        fc.constantFrom(...PROTO_MEMBERS.map((m) => `{${m}}`)),
+      );
+      await fc.assert(
+        fc.asyncProperty(body, async (b) => void (await probe(route, { body: b }, REFUSED))),
+        { numRuns: RUNS, seed: SEED },
+      );
+    });
 
-  it('refuses a body that is not JSON: 415, or 400 where the route takes a multipart form or a signed raw body', async () => {
-    const reads = spec().reads;
-    for (const contentType of ['text/plain', 'application/xml', 'multipart/form-data; boundary=x', null]) {
-      const multipartHere = reads === 'multipart' && contentType?.startsWith('multipart/');
-      await probe(route, { body: 'hello', contentType }, reads === 'signed-raw' || multipartHere ? [400] : [415]);
-    }
-  });
-});
+    it('refuses a body that is not JSON: 415, or 400 where the route takes a multipart form or a signed raw body', async () => {
+      const reads = spec().reads;
+      for (const contentType of ['text/plain', 'application/xml', 'multipart/form-data; boundary=x', null]) {
+        const multipartHere = reads === 'multipart' && contentType?.startsWith('multipart/');
+        await probe(route, { body: 'hello', contentType }, reads === 'signed-raw' || multipartHere ? [400] : [415]);
+      }
+    });
+  },
+);

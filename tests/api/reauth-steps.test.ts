@@ -7,6 +7,12 @@ import { allowPartialPayments, makeCertifiedPayApp } from '../setup/payment-fact
 import { confirm, startPayment } from '../setup/payment-flow';
 import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
 
+/** Every flag of the application, acknowledged: these tests certify after looking at them. */
+const flagKeys = async (
+  agent: { get: (url: string) => PromiseLike<{ body: { payApp: { flags: { key: string }[] } } }> },
+  payAppId: string,
+) => (await agent.get(`/api/pay-apps/${payAppId}`)).body.payApp.flags.map((f) => f.key);
+
 // OWASP ASVS 4.0.3 section 3.7.1: re-authentication before a sensitive transaction. Here: certifying a pay
 // application, and paying more than the threshold. A sign-in older than ten minutes asks for the password again.
 let t: TestApp;
@@ -27,15 +33,19 @@ async function ageSessions(userId: string, minutes: number) {
 }
 const newApp = (status: 'in_review' | 'certified', lines?: { quantity: number; unitPriceCents: number }[]) =>
   makeCertifiedPayApp(t.database.db, w.home.id, w.people.subcontractor.id, { number: ++number, status, lines });
-const statusOf = async (id: string) => (await t.database.db.select().from(payApps).where(eq(payApps.id, id)))[0]!.status;
+const statusOf = async (id: string) =>
+  (await t.database.db.select().from(payApps).where(eq(payApps.id, id)))[0]!.status;
 const auditCount = async () => (await t.database.db.select({ n: count() }).from(auditEvents))[0]!.n;
-const paymentCount = async (payAppId: string) => (await t.database.db.select({ n: count() }).from(payments).where(eq(payments.payAppId, payAppId)))[0]!.n;
+const paymentCount = async (payAppId: string) =>
+  (await t.database.db.select({ n: count() }).from(payments).where(eq(payments.payAppId, payAppId)))[0]!.n;
 
 describe('certifying a pay application', () => {
   it('goes through on a fresh sign-in', async () => {
     const gc = await signedInAgent(t.app, w.people.general_contractor.email);
     const app = await newApp('in_review');
-    const res = await gc.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0 });
+    const res = await gc
+      .post(`/api/pay-apps/${app.id}/certify`)
+      .send({ expectedRevision: 0, acknowledgedFlags: await flagKeys(gc, app.id) });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.payApp.status).toBe('certified');
   });
@@ -46,18 +56,24 @@ describe('certifying a pay application', () => {
     const app = await newApp('in_review');
     const before = await auditCount();
 
-    const asked = await gc.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0 });
+    const asked = await gc
+      .post(`/api/pay-apps/${app.id}/certify`)
+      .send({ expectedRevision: 0, acknowledgedFlags: await flagKeys(gc, app.id) });
     expect(asked.status).toBe(403);
     expect(asked.body.error).toMatchObject({ code: 'REAUTH_REQUIRED', details: [{ path: 'reauthPassword' }] });
 
-    const wrong = await gc.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0, reauthPassword: 'not-the-password' });
+    const wrong = await gc
+      .post(`/api/pay-apps/${app.id}/certify`)
+      .send({ expectedRevision: 0, acknowledgedFlags: await flagKeys(gc, app.id), reauthPassword: 'not-the-password' });
     expect(wrong.status).toBe(403);
     expect(wrong.body.error.code).toBe('REAUTH_FAILED');
     expect(await statusOf(app.id)).toBe('in_review');
     expect(await auditCount()).toBe(before);
 
     // The password field is taken out of the body before the body's own (strict) schema reads it.
-    const ok = await gc.post(`/api/pay-apps/${app.id}/certify`).send({ expectedRevision: 0, reauthPassword: TEST_PASSWORD });
+    const ok = await gc
+      .post(`/api/pay-apps/${app.id}/certify`)
+      .send({ expectedRevision: 0, acknowledgedFlags: await flagKeys(gc, app.id), reauthPassword: TEST_PASSWORD });
     expect(ok.status, JSON.stringify(ok.body)).toBe(200);
     expect(await statusOf(app.id)).toBe('certified');
   });

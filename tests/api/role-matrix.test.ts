@@ -52,6 +52,8 @@ type Fixture = {
   evidenceId: string;
   payAppId: string;
   lineId: string;
+  /** Keys of every flag of the fixture's application (its lines bill without tallies), for certify. */
+  flagKeys: string[];
   disputeId: string;
   changeOrderId: string;
   invitationId: string;
@@ -203,11 +205,22 @@ const RULES: Record<string, Rule> = {
     hiddenFrom: OWNER_SEES_CERTIFIED,
     may: ['general_contractor'],
     payApp: 'in_review',
-    body: () => ({ expectedRevision: 0 }),
+    body: (f) => ({ expectedRevision: 0, acknowledgedFlags: f.flagKeys }),
   },
   'POST /api/disputes/:disputeId/comments': {
     may: ['subcontractor', 'general_contractor'],
     body: () => ({ body: 'Survey attached.' }),
+  },
+  // The fixture's application is certified: the reviewer passes authorization and hears 409 DISPUTE_ANSWERED.
+  'PATCH /api/disputes/:disputeId': {
+    may: ['general_contractor'],
+    body: () => ({ counterQuantity: 1 }),
+    passes: [409],
+  },
+  'POST /api/disputes/:disputeId/withdraw': {
+    may: ['general_contractor'],
+    body: () => ({ note: 'Tickets found' }),
+    passes: [409],
   },
   'GET /api/pay-apps/:payAppId/export.pdf': { may: ALL },
   'GET /api/pay-apps/:payAppId/export.csv': { may: ALL },
@@ -283,7 +296,9 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     .post(`/api/tallies/${tally.id}/evidence`)
     .attach('files', FILES.pdf, 'ticket.pdf');
   const app = await makeCertifiedPayApp(db, w.home.id, sub, { number: ++serial, status: payAppStatus });
-  const [line] = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, app.id)).limit(1);
+  const appLines = await db.select().from(payAppLines).where(eq(payAppLines.payAppId, app.id));
+  const line = appLines[0];
+  const flagKeys = appLines.filter((l) => l.thisPeriodQuantity > 0).map((l) => `no_evidence:${l.id}`);
   const [dispute] = await db
     .insert(disputes)
     .values({
@@ -329,6 +344,7 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     evidenceId: uploaded.body.evidence?.[0]?.id ?? uploaded.body.tally?.evidence?.[0]?.id,
     payAppId: app.id,
     lineId: line!.id,
+    flagKeys,
     disputeId: dispute!.id,
     changeOrderId: co!.id,
     invitationId: invitation!.id,

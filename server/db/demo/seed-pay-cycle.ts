@@ -3,6 +3,8 @@ import type { AppContext } from '../../app-context';
 import type { Storage } from '../../integrations/storage/storage';
 import type { Actor } from '../../lib/actor';
 import { createLogger } from '../../lib/logger';
+import { approveChangeOrder } from '../../modules/change-orders/change-order-decisions.service';
+import { proposeChangeOrder } from '../../modules/change-orders/change-orders.service';
 import { certifyPayApp, reviewPayApp, submitPayApp } from '../../modules/pay-apps/pay-app-actions.service';
 import { createPayApp } from '../../modules/pay-apps/pay-apps.service';
 import { addEvidence } from '../../modules/tallies/evidence.service';
@@ -12,26 +14,61 @@ import { roundTo } from '../../../src/shared/domain/rounding';
 import type { Db } from '../client';
 import { bidItems, companies, companyMembers, emailOutbox, payApps, user } from '../schema';
 import { markPaid } from './demo-payment';
-import { DEMO_DISPUTE, DEMO_FORECASTS, DEMO_PAY_CYCLE, type DemoPeriod } from './pay-cycle-data';
+import {
+  DEMO_CHANGE_ORDER,
+  DEMO_DISPUTE,
+  DEMO_FORECASTS,
+  DEMO_PAY_CYCLE,
+  demoChangeOrder,
+  type DemoPeriod,
+} from './pay-cycle-data';
 
 export async function actorOf(db: Db, email: string): Promise<Actor> {
   const [row] = await db
-    .select({ id: user.id, name: user.name, email: user.email, companyId: companies.id, kind: companies.kind, companyName: companies.name, isAdmin: companyMembers.isAdmin })
+    .select({
+      id: user.id,
+      name: user.name,
+      email: user.email,
+      companyId: companies.id,
+      kind: companies.kind,
+      companyName: companies.name,
+      isAdmin: companyMembers.isAdmin,
+    })
     .from(user)
     .innerJoin(companyMembers, eq(companyMembers.userId, user.id))
     .innerJoin(companies, eq(companies.id, companyMembers.companyId))
     .where(eq(user.email, email));
   if (!row) throw new Error(`demo person ${email} is missing`);
-  return { userId: row.id, name: row.name, email: row.email, companyId: row.companyId, companyKind: row.kind, companyName: row.companyName, isAdmin: row.isAdmin };
+  return {
+    userId: row.id,
+    name: row.name,
+    email: row.email,
+    companyId: row.companyId,
+    companyKind: row.kind,
+    companyName: row.companyName,
+    isAdmin: row.isAdmin,
+  };
 }
 
 /** The period's tallies through the tally service (the engine computes each worksheet), evidence, ready. */
-async function tallyPeriod(db: Db, storage: Storage, sub: Actor, projectId: string, period: DemoPeriod, itemIds: Map<string, string>) {
+async function tallyPeriod(
+  db: Db,
+  storage: Storage,
+  sub: Actor,
+  projectId: string,
+  period: DemoPeriod,
+  itemIds: Map<string, string>,
+) {
   for (const t of period.tallies) {
     const { evidence, itemNumber, ...fields } = t;
-    const tally = await createTally(db, sub, projectId, { ...fields, bidItemId: itemIds.get(itemNumber)! } as Parameters<typeof createTally>[3]);
+    const tally = await createTally(db, sub, projectId, {
+      ...fields,
+      bidItemId: itemIds.get(itemNumber)!,
+    } as Parameters<typeof createTally>[3]);
     if (evidence) {
-      await addEvidence(db, storage, sub, tally.id, [{ fileName: evidence.fileName, contentType: 'text/csv', kind: 'csv', bytes: Buffer.from(evidence.csv, 'utf8') }]);
+      await addEvidence(db, storage, sub, tally.id, [
+        { fileName: evidence.fileName, contentType: 'text/csv', kind: 'csv', bytes: Buffer.from(evidence.csv, 'utf8') },
+      ]);
     }
     await markReady(db, sub, tally.id);
   }
@@ -46,7 +83,10 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   const [existing] = await db.select({ id: payApps.id }).from(payApps).where(eq(payApps.projectId, projectId)).limit(1);
   if (existing) return false;
   const [sub, gc] = await Promise.all([actorOf(db, 'sub@tallyard.test'), actorOf(db, 'gc@tallyard.test')]);
-  const items = await db.select({ id: bidItems.id, itemNumber: bidItems.itemNumber }).from(bidItems).where(eq(bidItems.projectId, projectId));
+  const items = await db
+    .select({ id: bidItems.id, itemNumber: bidItems.itemNumber })
+    .from(bidItems)
+    .where(eq(bidItems.projectId, projectId));
   const itemIds = new Map(items.map((i) => [i.itemNumber, i.id]));
   const outboxBefore = new Set((await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id));
   // The seed acts for the demo people without sessions: nothing to re-authenticate.
@@ -55,18 +95,43 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
 
   for (const [index, period] of DEMO_PAY_CYCLE.entries()) {
     await tallyPeriod(db, storage, sub, projectId, period, itemIds);
-    const draft = await createPayApp(db, sub, projectId, { periodStart: period.periodStart, periodEnd: period.periodEnd, isFinal: false });
+    const draft = await createPayApp(db, sub, projectId, {
+      periodStart: period.periodStart,
+      periodEnd: period.periodEnd,
+      isFinal: false,
+    });
     const submitted = await submitPayApp(ctx, sub, draft.id, { note: 'Quantities from this month’s tallies.' });
     const disputed = index === 2 ? submitted.lines.find((l) => l.itemNumber === DEMO_DISPUTE.itemNumber) : undefined;
     const lines = submitted.lines.map((l) =>
       l === disputed
-        ? { lineId: l.id, decision: 'dispute' as const, reason: DEMO_DISPUTE.reason, counterQuantity: roundTo(l.thisPeriodQuantity * DEMO_DISPUTE.counterQuantityShare, 1) }
+        ? {
+            lineId: l.id,
+            decision: 'dispute' as const,
+            reason: DEMO_DISPUTE.reason,
+            counterQuantity: roundTo(l.thisPeriodQuantity * DEMO_DISPUTE.counterQuantityShare, 1),
+          }
         : { lineId: l.id, decision: 'approve' as const },
     );
     const reviewed = await reviewPayApp(ctx, gc, draft.id, { expectedRevision: submitted.revision, lines });
     if (index === 2) break;
-    const certified = await certifyPayApp(ctx, gc, draft.id, { expectedRevision: reviewed.revision, note: 'Checked against the tallies and evidence.' });
-    if (index === 0) await markPaid(db, projectId, certified.id, certified.currentDueCents, (await actorOf(db, 'owner@tallyard.test')).userId);
+    const certified = await certifyPayApp(ctx, gc, draft.id, {
+      expectedRevision: reviewed.revision,
+      note: 'Checked against the tallies and evidence.',
+      acknowledgedFlags: reviewed.flags.map((f) => f.key),
+    });
+    if (index === 0)
+      await markPaid(
+        db,
+        projectId,
+        certified.id,
+        certified.currentDueCents,
+        (await actorOf(db, 'owner@tallyard.test')).userId,
+      );
+    // Between the second and third periods the borrow area grows and dewatering is added by change order.
+    if (index === 1) {
+      const co = await proposeChangeOrder(db, sub, projectId, demoChangeOrder(itemIds));
+      await approveChangeOrder(db, gc, co.id, DEMO_CHANGE_ORDER.approvalNote);
+    }
   }
 
   for (const f of DEMO_FORECASTS) {
@@ -74,9 +139,14 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   }
   await draftVarianceChangeOrder(db, sub, itemIds.get(DEMO_FORECASTS[0]!.itemNumber)!);
   // The demo's past hand-offs are history: their e-mails are not sent to the demo addresses.
-  const queued = (await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id).filter((id) => !outboxBefore.has(id));
+  const queued = (await db.select({ id: emailOutbox.id }).from(emailOutbox))
+    .map((r) => r.id)
+    .filter((id) => !outboxBefore.has(id));
   if (queued.length > 0) {
-    await db.update(emailOutbox).set({ status: 'sent', lastError: 'Demo history: not delivered' }).where(inArray(emailOutbox.id, queued));
+    await db
+      .update(emailOutbox)
+      .set({ status: 'sent', lastError: 'Demo history: not delivered' })
+      .where(inArray(emailOutbox.id, queued));
   }
   return true;
 }

@@ -95,3 +95,29 @@ export const certifiedMail = (f: MailFacts, to: string[], termsDays: number) =>
     ],
     'See the application and pay',
   );
+
+/** To the other side of a dispute: one step in a line's dispute thread (edited, withdrawn, answered). */
+export const disputeStepMail = (f: MailFacts, to: string[], step: { itemNumber: string; what: string; body: string }) =>
+  mail(
+    f,
+    'dispute.step',
+    to,
+    `${title(f)} for ${f.projectName}: item ${step.itemNumber} dispute ${step.what}`,
+    [`${f.actorName}: item ${step.itemNumber} dispute ${step.what}.`, step.body],
+    'Open the pay application',
+  );
+
+/** To the general contractor's people: the subcontractor answered the disputes; the revision comes back. */
+export const answeredMail = (f: MailFacts, to: string[], answers: { itemNumber: string; text: string }[]) =>
+  mail(
+    f,
+    'pay_app.answered',
+    to,
+    `${title(f)} for ${f.projectName}: the disputes were answered`,
+    [
+      `${f.actorName} answered the disputes of ${title(f).toLowerCase()}:`,
+      ...answers.map((a) => `Item ${a.itemNumber}: ${a.text}`),
+      'The revision is a draft again; it comes to you for review once submitted.',
+    ],
+    'See the answers',
+  );

@@ -3,7 +3,19 @@ import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
 import type { ProjectRole } from '../../../src/shared/constants';
 import type { Db, Executor } from '../../db/client';
 import { preparedFor } from '../../db/prepared';
-import { bidItems, disputeComments, disputes, payAppLines, payApps, payAppStatusHistory, projectMembers, projects, tallies, user } from '../../db/schema';
+import {
+  bidItems,
+  disputeComments,
+  tallyEvidence,
+  disputes,
+  payAppLines,
+  payApps,
+  payAppStatusHistory,
+  projectMembers,
+  projects,
+  tallies,
+  user,
+} from '../../db/schema';
 
 export type PayAppRow = typeof payApps.$inferSelect;
 export type LineRow = typeof payAppLines.$inferSelect;
@@ -23,7 +35,10 @@ export async function listLines(db: Executor, payAppId: string): Promise<LineRow
 }
 
 export async function lastNumberAndPeriod(db: Executor, projectId: string) {
-  const [row] = await db.select({ number: max(payApps.number), periodEnd: max(payApps.periodEnd) }).from(payApps).where(eq(payApps.projectId, projectId));
+  const [row] = await db
+    .select({ number: max(payApps.number), periodEnd: max(payApps.periodEnd) })
+    .from(payApps)
+    .where(eq(payApps.projectId, projectId));
   return { number: row?.number ?? 0, periodEnd: row?.periodEnd ?? null };
 }
 
@@ -56,20 +71,50 @@ export async function projectBidItems(db: Executor, projectId: string) {
   return db.select().from(bidItems).where(eq(bidItems.projectId, projectId)).orderBy(asc(bidItems.itemNumber));
 }
 
+export async function projectBandOverBps(db: Executor, projectId: string): Promise<number> {
+  const [row] = await db.select({ band: projects.bandOverBps }).from(projects).where(eq(projects.id, projectId));
+  return row?.band ?? 0;
+}
+
+/** The tallies among `ids` that have at least one evidence file. */
+export async function talliesWithEvidence(db: Executor, ids: string[]): Promise<Set<string>> {
+  if (ids.length === 0) return new Set();
+  const rows = await db
+    .selectDistinct({ id: tallyEvidence.tallyId })
+    .from(tallyEvidence)
+    .where(inArray(tallyEvidence.tallyId, ids));
+  return new Set(rows.map((r) => r.id));
+}
+
 export async function readyTallies(db: Executor, projectId: string, from: string, to: string) {
   return db
     .select()
     .from(tallies)
-    .where(and(eq(tallies.projectId, projectId), eq(tallies.status, 'ready'), gte(tallies.measuredOn, from), lte(tallies.measuredOn, to)));
+    .where(
+      and(
+        eq(tallies.projectId, projectId),
+        eq(tallies.status, 'ready'),
+        gte(tallies.measuredOn, from),
+        lte(tallies.measuredOn, to),
+      ),
+    );
 }
 
 export async function findDispute(db: Executor, disputeId: string) {
-  const [row] = await db.select({ d: disputes, projectId: payApps.projectId, status: payApps.status }).from(disputes).innerJoin(payApps, eq(payApps.id, disputes.payAppId)).where(eq(disputes.id, disputeId)).limit(1);
+  const [row] = await db
+    .select({ d: disputes, projectId: payApps.projectId, status: payApps.status })
+    .from(disputes)
+    .innerJoin(payApps, eq(payApps.id, disputes.payAppId))
+    .where(eq(disputes.id, disputeId))
+    .limit(1);
   return row;
 }
 
 export async function openDisputes(db: Executor, payAppId: string): Promise<DisputeRow[]> {
-  return db.select().from(disputes).where(and(eq(disputes.payAppId, payAppId), eq(disputes.status, 'open')));
+  return db
+    .select()
+    .from(disputes)
+    .where(and(eq(disputes.payAppId, payAppId), eq(disputes.status, 'open')));
 }
 
 /** Everyone who submitted any revision of the application (its status history). */
@@ -83,7 +128,11 @@ export async function submitterIds(db: Executor, payAppId: string): Promise<stri
 
 /** E-mail addresses of the people holding `role` on the project. */
 export async function addressesOf(db: Executor, projectId: string, role: ProjectRole): Promise<string[]> {
-  const rows = await db.select({ email: user.email }).from(projectMembers).innerJoin(user, eq(user.id, projectMembers.userId)).where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, role)));
+  const rows = await db
+    .select({ email: user.email })
+    .from(projectMembers)
+    .innerJoin(user, eq(user.id, projectMembers.userId))
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, role)));
   return [...new Set(rows.map((r) => r.email))].sort();
 }
 
@@ -95,7 +144,9 @@ const reads = preparedFor((db: Db) => ({
     .select({
       app: payApps,
       project: projects,
-      roles: sql<ProjectRole[]>`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`,
+      roles: sql<
+        ProjectRole[]
+      >`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`,
     })
     .from(payApps)
     .innerJoin(projects, eq(projects.id, payApps.projectId))
@@ -115,12 +166,22 @@ const reads = preparedFor((db: Db) => ({
           columns: { payAppId: false, sortOrder: false, createdAt: false, updatedAt: false },
           orderBy: [asc(payAppLines.sortOrder)],
         },
-        history: { with: { actor: nameOnly }, orderBy: [asc(payAppStatusHistory.createdAt), asc(payAppStatusHistory.revision)] },
+        history: {
+          with: { actor: nameOnly },
+          orderBy: [asc(payAppStatusHistory.createdAt), asc(payAppStatusHistory.revision)],
+        },
         disputes: {
-          with: { openedBy: nameOnly, resolvedBy: nameOnly, comments: { with: { author: nameOnly }, orderBy: [asc(disputeComments.createdAt)] } },
+          with: {
+            openedBy: nameOnly,
+            resolvedBy: nameOnly,
+            comments: { with: { author: nameOnly }, orderBy: [asc(disputeComments.createdAt)] },
+          },
           orderBy: [asc(disputes.createdAt)],
         },
-        tallies: { columns: { id: true, bidItemId: true, measuredOn: true, title: true, quantity: true }, orderBy: [asc(tallies.measuredOn)] },
+        tallies: {
+          columns: { id: true, bidItemId: true, measuredOn: true, title: true, quantity: true },
+          orderBy: [asc(tallies.measuredOn)],
+        },
       },
     })
     .prepare('pay_app_detail'),

@@ -1,4 +1,5 @@
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
+import { payAppFlags } from '../../../src/shared/domain/pay-app-flags';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
@@ -11,7 +12,9 @@ import * as repo from './pay-apps.repository';
 
 export async function listPayApps(db: Db, actor: Actor, projectId: string) {
   const { roles } = await loadProjectAccess(db, actor, projectId);
-  return (await repo.listPayApps(db, projectId)).filter((a) => canSeePayApp(roles, a.status)).map((a) => presentSummary(a));
+  return (await repo.listPayApps(db, projectId))
+    .filter((a) => canSeePayApp(roles, a.status))
+    .map((a) => presentSummary(a));
 }
 
 /** One application with its lines, history, disputes with their threads, and the tallies it bills (one read). */
@@ -20,6 +23,19 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
   const lines = app.lines.map(presentLine);
   const contractSumCents = sumCents(lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)));
   const percentCompleteBps = contractSumCents > 0 ? Math.floor((app.earnedToDateCents * 10_000) / contractSumCents) : 0;
+  const [bandOverBps, withEvidence] = await Promise.all([
+    repo.projectBandOverBps(db, app.projectId),
+    repo.talliesWithEvidence(
+      db,
+      app.tallies.map((t) => t.id),
+    ),
+  ]);
+  const evidence = new Map(
+    lines.map((l) => {
+      const mine = app.tallies.filter((t) => t.bidItemId === l.bidItemId);
+      return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
+    }),
+  );
   return {
     ...presentSummary(app, app.certifiedBy?.name ?? null),
     lines,
@@ -27,6 +43,7 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
     disputes: app.disputes.map(presentDispute),
     tallies: app.tallies.map(presentTally),
     contractSumCents,
+    flags: payAppFlags(lines, bandOverBps, evidence),
     percentCompleteBps,
   };
 }

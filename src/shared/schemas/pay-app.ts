@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { DisputeResolution, DisputeStatus, LineReviewStatus, PayAppStatus, PayUnit } from '../constants';
+import type { PayAppFlag } from '../domain/pay-app-flags';
 import { isoDateSchema } from './tally';
 
 export const createPayAppSchema = z
@@ -11,7 +12,14 @@ export type CreatePayAppInput = z.infer<typeof createPayAppSchema>;
 const revision = z.number().int().min(0);
 
 /** Submit and certify: the revision the person looked at (optional; a stale one answers 409). */
-export const payAppActionSchema = z.object({ expectedRevision: revision.optional(), note: z.string().trim().max(2000).optional() }).strict();
+export const payAppActionSchema = z
+  .object({
+    expectedRevision: revision.optional(),
+    note: z.string().trim().max(2000).optional(),
+    /** Certify: the key of each flag the certifier looked at and acknowledges (every flag must be). */
+    acknowledgedFlags: z.array(z.string().max(100)).max(4000).optional(),
+  })
+  .strict();
 export type PayAppActionInput = z.infer<typeof payAppActionSchema>;
 
 export const reviewLineSchema = z
@@ -25,8 +33,10 @@ export const reviewLineSchema = z
   .strict()
   .superRefine((v, ctx) => {
     if (v.decision !== 'dispute') return;
-    if (!v.reason || v.reason.length < 3) ctx.addIssue({ code: 'custom', path: ['reason'], message: 'A dispute needs a reason' });
-    if (v.counterQuantity === undefined) ctx.addIssue({ code: 'custom', path: ['counterQuantity'], message: 'A dispute needs a counter quantity' });
+    if (!v.reason || v.reason.length < 3)
+      ctx.addIssue({ code: 'custom', path: ['reason'], message: 'A dispute needs a reason' });
+    if (v.counterQuantity === undefined)
+      ctx.addIssue({ code: 'custom', path: ['counterQuantity'], message: 'A dispute needs a counter quantity' });
   });
 
 export const reviewPayAppSchema = z
@@ -34,14 +44,56 @@ export const reviewPayAppSchema = z
   .strict();
 export type ReviewPayAppInput = z.infer<typeof reviewPayAppSchema>;
 
+/**
+ * The subcontractor's answer to one dispute; there is no default: take the counter (`accept`), keep the claim
+ * with a reply (`answer`), or propose another quantity with a reason (`propose`), which the reviewer sees on the
+ * next revision.
+ */
 export const reviseLineSchema = z
-  .object({ lineId: z.uuid(), action: z.enum(['accept', 'answer']), comment: z.string().trim().max(4000).optional() })
+  .object({
+    lineId: z.uuid(),
+    action: z.enum(
+      ['accept', 'answer', 'propose'],
+      'Choose an answer: take the counter, keep the claim with a reply, or propose another quantity',
+    ),
+    comment: z.string().trim().max(4000).optional(),
+    /** For `propose`: the this-period quantity the subcontractor now claims, in the line's pay unit. */
+    proposedQuantity: z.number().finite().min(0).max(1e9).optional(),
+  })
   .strict()
   .superRefine((v, ctx) => {
-    if (v.action === 'answer' && (!v.comment || v.comment.length < 3)) ctx.addIssue({ code: 'custom', path: ['comment'], message: 'Answer the dispute with a comment' });
+    if (v.action !== 'accept' && (!v.comment || v.comment.length < 3)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['comment'],
+        message: v.action === 'answer' ? 'Answer the dispute with a comment' : 'Say why this quantity',
+      });
+    }
+    if (v.action === 'propose' && v.proposedQuantity === undefined)
+      ctx.addIssue({ code: 'custom', path: ['proposedQuantity'], message: 'Type the quantity you propose' });
+    if (v.action !== 'propose' && v.proposedQuantity !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['proposedQuantity'], message: 'Only a proposal carries a quantity' });
   });
 
-export const revisePayAppSchema = z.object({ expectedRevision: revision, lines: z.array(reviseLineSchema).max(2000) }).strict();
+/** The reviewer corrects an open dispute before the subcontractor answers it. */
+export const editDisputeSchema = z
+  .object({
+    reason: z.string().trim().min(3, 'A dispute needs a reason').max(4000).optional(),
+    counterQuantity: z.number().finite().min(0).max(1e9).optional(),
+  })
+  .strict()
+  .refine((v) => v.reason !== undefined || v.counterQuantity !== undefined, {
+    message: 'Change the reason or the counter quantity',
+  });
+export type EditDisputeInput = z.infer<typeof editDisputeSchema>;
+
+export const withdrawDisputeSchema = z
+  .object({ note: z.string().trim().min(3, 'Say why the dispute is withdrawn').max(4000) })
+  .strict();
+
+export const revisePayAppSchema = z
+  .object({ expectedRevision: revision, lines: z.array(reviseLineSchema).max(2000) })
+  .strict();
 export type RevisePayAppInput = z.infer<typeof revisePayAppSchema>;
 
 export const disputeCommentSchema = z.object({ body: z.string().trim().min(1, 'Write a comment').max(4000) }).strict();
@@ -104,10 +156,20 @@ export type DisputeView = {
 
 export type PayAppDetail = PayAppSummary & {
   lines: PayAppLineView[];
-  history: { id: string; fromStatus: PayAppStatus | null; toStatus: PayAppStatus; revision: number; note: string; actor: string | null; createdAt: string }[];
+  history: {
+    id: string;
+    fromStatus: PayAppStatus | null;
+    toStatus: PayAppStatus;
+    revision: number;
+    note: string;
+    actor: string | null;
+    createdAt: string;
+  }[];
   disputes: DisputeView[];
   tallies: { id: string; bidItemId: string; measuredOn: string; title: string; quantity: number }[];
   contractSumCents: number;
+  /** Lines beyond the variation band and lines billed without evidence; certifying acknowledges each. */
+  flags: PayAppFlag[];
   /** Earned to date over the contract sum, basis points. */
   percentCompleteBps: number;
 };

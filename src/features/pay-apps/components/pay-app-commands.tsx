@@ -16,11 +16,14 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
   const [ask, setAskState] = useState<Ask>(null);
   const [reauth, setReauth] = useState<ApiError | null>(null);
   const [password, setPassword] = useState('');
+  const [acknowledged, setAcknowledged] = useState<Set<string>>(new Set());
   const setAsk = (next: Ask) => {
     setAskState(next);
     setReauth(null);
     setPassword('');
+    setAcknowledged(new Set());
   };
+  const unacknowledged = ask === 'certify' ? app.flags.filter((f) => !acknowledged.has(f.key)).length : 0;
   const submit = useSubmitPayApp(app.id);
   const certify = useCertifyPayApp(app.id);
   const allApproved = app.lines.every((l) => l.reviewStatus === 'approved');
@@ -28,7 +31,11 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
   const base = `/api/pay-apps/${encodeURIComponent(app.id)}`;
   const done = {
     onSuccess: () => {
-      toast.success(ask === 'submit' ? 'Submitted; the general contractor has been told' : 'Certified; the owner has been asked for payment');
+      toast.success(
+        ask === 'submit'
+          ? 'Submitted; the general contractor has been told'
+          : 'Certified; the owner has been asked for payment',
+      );
       setAsk(null);
     },
     onError: (err: Error) => {
@@ -40,7 +47,15 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
   };
   const run = () => {
     if (ask === 'submit') submit.mutate(app.revision, done);
-    else certify.mutate({ expectedRevision: app.revision, reauthPassword: reauth ? password : undefined }, done);
+    else
+      certify.mutate(
+        {
+          expectedRevision: app.revision,
+          reauthPassword: reauth ? password : undefined,
+          acknowledgedFlags: [...acknowledged],
+        },
+        done,
+      );
   };
   const pending = submit.isPending || certify.isPending;
   return (
@@ -57,7 +72,11 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
         </Button>
       ) : null}
       {canCertify ? (
-        <Button onClick={() => setAsk('certify')} disabled={!allApproved || certify.isPending} title={allApproved ? undefined : 'Approve every line first'}>
+        <Button
+          onClick={() => setAsk('certify')}
+          disabled={!allApproved || certify.isPending}
+          title={allApproved ? undefined : 'Approve every line first'}
+        >
           <ShieldCheck aria-hidden /> Certify for payment
         </Button>
       ) : null}
@@ -65,11 +84,41 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
         open={ask !== null}
         onClose={() => setAsk(null)}
         title={ask === 'submit' ? `Submit pay application ${app.number}?` : `Certify pay application ${app.number}?`}
-        description={ask === 'submit' ? 'The general contractor’s reviewers get an e-mail. You cannot edit it while it is under review.' : 'Certified applications are frozen; later corrections go into a new period or a change order.'}
+        description={
+          ask === 'submit'
+            ? 'The general contractor’s reviewers get an e-mail. You cannot edit it while it is under review.'
+            : 'Certified applications are frozen; later corrections go into a new period or a change order.'
+        }
       >
         <p className="text-sm">
-          Current due <span className="font-semibold tabular-nums">{formatMoney(app.currentDueCents)}</span> for {app.periodStart} to {app.periodEnd}.
+          Current due <span className="font-semibold tabular-nums">{formatMoney(app.currentDueCents)}</span> for{' '}
+          {app.periodStart} to {app.periodEnd}.
         </p>
+        {ask === 'certify' && app.flags.length > 0 ? (
+          <fieldset className="mt-3 flex flex-col gap-1.5 rounded-md border border-clay-200 bg-clay-50 p-3 text-sm">
+            <legend className="px-1 font-semibold">Flags to acknowledge before money moves ({app.flags.length})</legend>
+            {app.flags.map((f) => (
+              <label key={f.key} className="flex items-start gap-2">
+                <input
+                  type="checkbox"
+                  className="mt-1"
+                  checked={acknowledged.has(f.key)}
+                  onChange={(e) => {
+                    const next = new Set(acknowledged);
+                    if (e.target.checked) next.add(f.key);
+                    else next.delete(f.key);
+                    setAcknowledged(next);
+                  }}
+                />
+                <span>
+                  <span className="font-medium">{f.kind === 'beyond_band' ? 'Beyond the band' : 'No evidence'}:</span>{' '}
+                  {f.message}
+                </span>
+              </label>
+            ))}
+            <span className="text-xs text-stone-600">Your acknowledgement is recorded with the certification.</span>
+          </fieldset>
+        ) : null}
         {reauth ? (
           <form
             id="certify-reauth"
@@ -83,8 +132,10 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
           </form>
         ) : null}
         <div className="mt-4 flex justify-end gap-2">
-          <Button variant="secondary" onClick={() => setAsk(null)}>Cancel</Button>
-          <Button onClick={run} disabled={pending || (reauth !== null && password.length === 0)}>
+          <Button variant="secondary" onClick={() => setAsk(null)}>
+            Cancel
+          </Button>
+          <Button onClick={run} disabled={pending || unacknowledged > 0 || (reauth !== null && password.length === 0)}>
             {ask === 'submit' ? 'Submit' : 'Certify'}
           </Button>
         </div>

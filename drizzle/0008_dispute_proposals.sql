@@ -1,0 +1,1 @@
+ALTER TYPE "public"."dispute_resolution" ADD VALUE 'quantity_proposed';
