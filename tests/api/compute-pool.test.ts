@@ -140,6 +140,8 @@ describe('POST /api/calc/:method through the compute pool', () => {
     const item = await makeBidItem(t.database.db, w.home.id, {
       itemNumber: 'CP-1',
       payUnit: 'CY',
+      // A pond of this size is within its contract quantity, so no sanity reason is asked for.
+      contractQuantity: 20_000,
       basis: 'bank',
       method: 'grid',
     });
