@@ -147,18 +147,14 @@ describe('POST /api/calc/:method through the compute pool', () => {
     });
     const inputs = bigGrid(80);
     const before = runs;
-    const res = await (
-      await as('subcontractor')
-    )
-      .post(`/api/projects/${w.home.id}/tallies`)
-      .send({
-        bidItemId: item.id,
-        measuredOn: '2026-10-20',
-        title: 'Pond grid',
-        method: 'grid',
-        inputs,
-        component: 'cut',
-      });
+    const res = await (await as('subcontractor')).post(`/api/projects/${w.home.id}/tallies`).send({
+      bidItemId: item.id,
+      measuredOn: '2026-10-20',
+      title: 'Pond grid',
+      method: 'grid',
+      inputs,
+      component: 'cut',
+    });
     expect(res.status).toBe(201);
     expect(runs).toBe(before + 1);
     expect(res.body.tally.quantity).toBeCloseTo(runCalc('grid', inputs).cut, 4);
