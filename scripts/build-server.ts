@@ -74,7 +74,10 @@ export async function bundleServer(outDir: string): Promise<void> {
     // is given relative to the pool's own module, never as this machine's absolute path.
     define: {
       __TALLYARD_COMPUTE_WORKER__: JSON.stringify(
-        path.relative(path.join(ROOT, 'server/lib/compute'), path.join(outDir, 'compute-task.js')).split(path.sep).join('/'),
+        path
+          .relative(path.join(ROOT, 'server/lib/compute'), path.join(outDir, 'compute-task.js'))
+          .split(path.sep)
+          .join('/'),
       ),
     },
     outdir: outDir,

@@ -110,7 +110,13 @@ export function createApp(deps: AppDeps): Express {
   // Stripe signs the raw body: its webhook parses its own body, before the JSON parser and the session check.
   app.use(stripeWebhookRouter(ctx));
   // Bodies are JSON in UTF-8, or a multipart form to an upload route; anything else is 415 before a route runs.
-  app.use('/api', jsonBodiesOnly({ skip: [/^\/auth\//], multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/, /^\/calc\/surface$/] }));
+  app.use(
+    '/api',
+    jsonBodiesOnly({
+      skip: [/^\/auth\//],
+      multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/, /^\/calc\/surface$/],
+    }),
+  );
   // Public routes (no session): the invitation link's preview and accept.
   // Accepting creates an account or a membership without a session yet: it needs our own Origin as well.
   const csrf = csrfGuard([deps.appUrl, ...(auth.options.trustedOrigins as string[])]);

@@ -29,7 +29,8 @@ const listen = async (handler: express.Express): Promise<{ server: Server; url: 
   return { server, url: `http://127.0.0.1:${(server.address() as AddressInfo).port}` };
 };
 
-const load = (url: string, headers: Record<string, string> = {}) => autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers });
+const load = (url: string, headers: Record<string, string> = {}) =>
+  autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers });
 
 /** Tops the demo's latest pay application up to LINES lines (each on a bid item of its own), as the seed left it otherwise. */
 export async function payAppWithLines(db: Awaited<ReturnType<typeof openDatabase>>['db']): Promise<string> {
@@ -40,7 +41,19 @@ export async function payAppWithLines(db: Awaited<ReturnType<typeof openDatabase
   if (missing > 0) {
     const items = await db
       .insert(bidItems)
-      .values(Array.from({ length: missing }, (_, i) => ({ projectId: app.projectId, itemNumber: `Z-${i + 1}`, description: 'Bench excavation', payUnit: 'CY' as const, basis: 'bank' as const, unitPriceCents: 725, contractQuantity: 1000, isMajor: false, method: 'end-area' as const })))
+      .values(
+        Array.from({ length: missing }, (_, i) => ({
+          projectId: app.projectId,
+          itemNumber: `Z-${i + 1}`,
+          description: 'Bench excavation',
+          payUnit: 'CY' as const,
+          basis: 'bank' as const,
+          unitPriceCents: 725,
+          contractQuantity: 1000,
+          isMajor: false,
+          method: 'end-area' as const,
+        })),
+      )
       .returning({ id: bidItems.id, itemNumber: bidItems.itemNumber });
     await db.insert(payAppLines).values(
       items.map((item, i) => ({
@@ -80,10 +93,25 @@ export const apiThroughput: SelfMeasuredBench = {
     await new Promise<void>((r) => appServer.listen(0, '127.0.0.1', r));
     const appUrl = `http://127.0.0.1:${(appServer.address() as AddressInfo).port}`;
     // The app is attached once the auth origin knows the port. The fast hasher only shortens the seed's sign-ups.
-    const auth = createAuth({ db: database.db, secret: 'bench-secret-bench-secret-bench-secret-01', baseURL: appUrl, trustedOrigins: [appUrl], secureCookies: false, rateLimit: false, passwordHasher: fastPasswordHasher });
+    const auth = createAuth({
+      db: database.db,
+      secret: 'bench-secret-bench-secret-bench-secret-01',
+      baseURL: appUrl,
+      trustedOrigins: [appUrl],
+      secureCookies: false,
+      rateLimit: false,
+      passwordHasher: fastPasswordHasher,
+    });
     await seedDemo(database.db, auth, memoryStorage());
     const payAppId = await payAppWithLines(database.db);
-    const app = createApp({ database, auth, logger: createLogger('silent'), mailer: smtpMailer('smtp://127.0.0.1:1', 'x <x@x.test>'), storage: memoryStorage(), appUrl });
+    const app = createApp({
+      database,
+      auth,
+      logger: createLogger('silent'),
+      mailer: smtpMailer('smtp://127.0.0.1:1', 'x <x@x.test>'),
+      storage: memoryStorage(),
+      appUrl,
+    });
     appServer.on('request', app);
     const cookie = await signInCookie(appUrl, 'gc@tallyard.test', DEMO_PASSWORD);
     const target = `${appUrl}/api/pay-apps/${payAppId}`;
@@ -91,8 +119,10 @@ export const apiThroughput: SelfMeasuredBench = {
     const body = (await probe.json()) as { payApp?: { lines: unknown[] } };
     const tag = probe.headers.get('etag');
     const revalidated = await fetch(target, { headers: { cookie, 'if-none-match': tag ?? '' } });
-    if (!tag || revalidated.status !== 304) throw new Error(`the pay application did not answer 304 to its own ETag: ${revalidated.status}`);
-    if (probe.status !== 200 || body.payApp?.lines.length !== LINES) throw new Error(`the pay application did not answer with ${LINES} lines: ${probe.status}`);
+    if (!tag || revalidated.status !== 304)
+      throw new Error(`the pay application did not answer 304 to its own ETag: ${revalidated.status}`);
+    if (probe.status !== 200 || body.payApp?.lines.length !== LINES)
+      throw new Error(`the pay application did not answer with ${LINES} lines: ${probe.status}`);
 
     // The baseline: the same JSON body served from memory by a plain Express route in the same process.
     const bareApp = express();
@@ -101,10 +131,14 @@ export const apiThroughput: SelfMeasuredBench = {
     try {
       const bareResult = await load(`${bare.url}/bare`);
       const appResult = await load(target, { cookie });
-      if (appResult.non2xx > 0 || appResult.errors > 0) throw new Error(`${appResult.non2xx} answers were not 2xx, ${appResult.errors} failed`);
+      if (appResult.non2xx > 0 || appResult.errors > 0)
+        throw new Error(`${appResult.non2xx} answers were not 2xx, ${appResult.errors} failed`);
       const ratio = appResult.requests.average / bareResult.requests.average;
       return {
-        checks: [check('req/s / same body from memory', ratio, 'x', '>=', MIN_RATIO), check('p99 latency', appResult.latency.p99, 'ms', '<', P99_LIMIT_MS)],
+        checks: [
+          check('req/s / same body from memory', ratio, 'x', '>=', MIN_RATIO),
+          check('p99 latency', appResult.latency.p99, 'ms', '<', P99_LIMIT_MS),
+        ],
         baseline: `the same JSON body served from memory by Express in the same process; autocannon ${CONNECTIONS} connections x ${SECONDS} s each; ${database.kind}`,
         figures: {
           requestsPerSecond: Math.round(appResult.requests.average),

@@ -91,7 +91,14 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   const outboxBefore = new Set((await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id));
   // The seed acts for the demo people without sessions: nothing to re-authenticate.
   const noReauth = { take: () => async () => {}, paymentAboveCents: Number.MAX_SAFE_INTEGER, paymentWindowHours: 0 };
-  const ctx: AppContext = { db, storage, outbox: { flush: async () => {} }, logger: createLogger('silent'), appUrl: '', recentAuth: noReauth };
+  const ctx: AppContext = {
+    db,
+    storage,
+    outbox: { flush: async () => {} },
+    logger: createLogger('silent'),
+    appUrl: '',
+    recentAuth: noReauth,
+  };
 
   for (const [index, period] of DEMO_PAY_CYCLE.entries()) {
     await tallyPeriod(db, storage, sub, projectId, period, itemIds);

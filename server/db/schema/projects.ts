@@ -1,4 +1,15 @@
-import { boolean, doublePrecision, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import {
+  boolean,
+  doublePrecision,
+  index,
+  integer,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../../../src/shared/constants';
 import { user } from './auth';
 import { timestamps } from './columns';
