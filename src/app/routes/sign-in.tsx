@@ -1,5 +1,5 @@
 import { redirect, useNavigate, useSearchParams } from 'react-router';
-import { hasSession, meQueryOptions } from '@/features/auth/api/get-me';
+import { meQueryOptions } from '@/features/auth/api/get-me';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 import { queryClient } from '@/lib/query-client';
 
@@ -10,7 +10,6 @@ function safeNext(next: string | null): string {
 
 /** Someone already signed in goes straight on. The session is asked afresh, never taken from the cache. */
 export async function loader() {
-  if (!(await hasSession())) return null;
   try {
     await queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
   } catch {

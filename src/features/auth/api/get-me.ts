@@ -7,19 +7,6 @@ export function getMe(): Promise<MeView> {
   return api.get<MeView>('/api/me');
 }
 
-/**
- * Whether the browser holds a session at all, asked of better-auth's session route, which answers 200 with null
- * when signed out. Screens ask it before /api/me so a signed-out visit logs no 401 in the console.
- */
-export async function hasSession(): Promise<boolean> {
-  const response = await fetch('/api/auth/get-session', {
-    credentials: 'same-origin',
-    headers: { accept: 'application/json' },
-  });
-  if (!response.ok) return true; // unknown: let /api/me decide
-  return (await response.json().catch(() => null)) !== null;
-}
-
 export const meQueryOptions = () =>
   queryOptions({
     queryKey: authKeys.me(),
