@@ -16,7 +16,9 @@ async function main() {
   const layout = dataDirLayout(env.DATA_DIR);
   const unlock = env.DATABASE_URL ? async () => {} : await lockDataDir(layout);
   installTestHooks(env);
-  const opening = openDatabase(env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db });
+  const opening = openDatabase(
+    env.DATABASE_URL ? { kind: 'postgres', url: env.DATABASE_URL } : { kind: 'pglite', dataDir: layout.db },
+  );
   opening.catch(() => {}); // awaited below, after the import; this only keeps a failure from counting as unhandled meanwhile
   const { boot } = await import('./boot');
   await boot({ env, logger, layout, database: await opening, unlock });

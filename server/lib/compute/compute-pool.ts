@@ -9,7 +9,8 @@ import type { ComputeOutcome, ComputeTask } from './compute-protocol';
 declare const __TALLYARD_COMPUTE_WORKER__: string | undefined;
 
 function workerFile(): string {
-  if (typeof __TALLYARD_COMPUTE_WORKER__ !== 'undefined') return fileURLToPath(new URL(__TALLYARD_COMPUTE_WORKER__, import.meta.url));
+  if (typeof __TALLYARD_COMPUTE_WORKER__ !== 'undefined')
+    return fileURLToPath(new URL(__TALLYARD_COMPUTE_WORKER__, import.meta.url));
   return fileURLToPath(new URL('./compute-worker.mjs', import.meta.url));
 }
 

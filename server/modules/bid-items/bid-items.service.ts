@@ -130,8 +130,14 @@ async function loadForChange(db: Db, actor: Actor, bidItemId: string) {
 export async function updateBidItem(db: Db, actor: Actor, bidItemId: string, input: UpdateBidItemInput) {
   const before = await loadForChange(db, actor, bidItemId);
   const { reason, ...changes } = input;
-  const tooLarge = lineAmountProblem(changes.contractQuantity ?? before.contractQuantity, changes.unitPriceCents ?? before.unitPriceCents);
-  if (tooLarge) throw validationFailed([{ path: changes.contractQuantity !== undefined ? 'contractQuantity' : 'unitPriceCents', message: tooLarge }]);
+  const tooLarge = lineAmountProblem(
+    changes.contractQuantity ?? before.contractQuantity,
+    changes.unitPriceCents ?? before.unitPriceCents,
+  );
+  if (tooLarge)
+    throw validationFailed([
+      { path: changes.contractQuantity !== undefined ? 'contractQuantity' : 'unitPriceCents', message: tooLarge },
+    ]);
   return db.transaction(async (tx) => {
     const since = await repo.contractLockedSince(tx, before.projectId);
     const contract = await loadContract(tx, before.projectId);

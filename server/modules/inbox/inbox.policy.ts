@@ -1,4 +1,11 @@
-import type { AccessRole, InboxKind, LienWaiverKind, PayAppStatus, PaymentStatus, ProjectRole } from '../../../src/shared/constants';
+import type {
+  AccessRole,
+  InboxKind,
+  LienWaiverKind,
+  PayAppStatus,
+  PaymentStatus,
+  ProjectRole,
+} from '../../../src/shared/constants';
 import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-app-status';
 import { decisionSides } from '../change-orders/change-orders.policy';
 import { canIssueWaiver, waiverOptions } from '../lien-waivers/lien-waivers.policy';
@@ -83,4 +90,5 @@ export function changeOrderWaits(
 }
 
 /** Unaccepted invitations are followed by the admin of the company whose seat they fill. */
-export const followsInvitations = (roles: AccessRole[], seat: ProjectRole) => canManagePeople(roles) && managedSeat(roles) === seat;
+export const followsInvitations = (roles: AccessRole[], seat: ProjectRole) =>
+  canManagePeople(roles) && managedSeat(roles) === seat;

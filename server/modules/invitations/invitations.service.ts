@@ -53,7 +53,10 @@ export async function createInvitation(ctx: AppContext, actor: Actor, projectId:
     );
   }
   if (await repo.pendingFor(db, projectId, input.email, input.role)) {
-    throw conflict('INVITATION_PENDING', `${input.email} already has an open invitation for this role; revoke it to send a new one.`);
+    throw conflict(
+      'INVITATION_PENDING',
+      `${input.email} already has an open invitation for this role; revoke it to send a new one.`,
+    );
   }
   const { token, tokenHash, expiresAt } = newInvitationToken();
   const view = await db.transaction(async (tx) => {
@@ -62,7 +65,18 @@ export async function createInvitation(ctx: AppContext, actor: Actor, projectId:
       .values({ projectId, email: input.email, role: input.role, tokenHash, invitedByUserId: actor.userId, expiresAt })
       .returning();
     const acceptUrl = `${ctx.appUrl}/invitations/${token}`;
-    await enqueueEmail(tx, invitationMail({ projectId, projectName: project.name, role: input.role, email: input.email, inviterName: actor.name, acceptUrl, expiresAt }));
+    await enqueueEmail(
+      tx,
+      invitationMail({
+        projectId,
+        projectName: project.name,
+        role: input.role,
+        email: input.email,
+        inviterName: actor.name,
+        acceptUrl,
+        expiresAt,
+      }),
+    );
     const presented = presentInvitation(row!, actor.name);
     await recordAudit(tx, {
       projectId,
