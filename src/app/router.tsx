@@ -1,8 +1,10 @@
 import { createBrowserRouter, redirect, type RouteObject } from 'react-router';
+import { queryClient, SESSION_LAPSED_EVENT } from '@/lib/query-client';
 import { PROJECT_DETAIL_ROUTES } from './project-detail-routes';
 import { PROJECT_TABS, type ProjectTab } from './project-tabs';
 import { PageLoading } from './layout/page-loading';
 import { RouteError } from './layout/route-error';
+import { signInPathFor } from './sign-in-path';
 
 function tabRoute(tab: ProjectTab): RouteObject {
   const lazy =
@@ -61,5 +63,12 @@ export const routes: RouteObject[] = [
 ];
 
 export function createRouter() {
-  return createBrowserRouter(routes);
+  const router = createBrowserRouter(routes);
+  window.addEventListener(SESSION_LAPSED_EVENT, () => {
+    const { pathname, search } = router.state.location;
+    if (pathname === '/sign-in' || router.state.navigation.location?.pathname === '/sign-in') return;
+    queryClient.clear();
+    void router.navigate(signInPathFor(pathname, search), { replace: true });
+  });
+  return router;
 }

@@ -3,6 +3,7 @@ import { meQueryOptions } from '@/features/auth/api/get-me';
 import { isApiError } from '@/lib/api-client';
 import { queryClient } from '@/lib/query-client';
 import { AppHeader } from '../layout/app-header';
+import { signInPathFor } from '../sign-in-path';
 
 /** Every screen but Sign in needs a session: without one, go sign in and come back here after. */
 export async function loader({ request }: LoaderFunctionArgs) {
@@ -12,8 +13,7 @@ export async function loader({ request }: LoaderFunctionArgs) {
   } catch (error) {
     if (!isApiError(error, 401)) throw error;
     const { pathname, search } = new URL(request.url);
-    const next = pathname === '/' ? '' : `?next=${encodeURIComponent(pathname + search)}`;
-    return redirect(`/sign-in${next}`);
+    return redirect(signInPathFor(pathname, search));
   }
 }
 
