@@ -205,6 +205,7 @@ const RULES: Record<string, Rule> = {
     passes: [409],
   },
   'GET /api/pay-apps/:payAppId': { may: ALL },
+  'GET /api/pay-apps/:payAppId/lines/:lineId/tallies': { may: ALL },
   'POST /api/pay-apps/:payAppId/submit': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'draft' },
   'POST /api/pay-apps/:payAppId/review': {
     hiddenFrom: OWNER_SEES_CERTIFIED,
