@@ -167,3 +167,10 @@ export async function listRevisions(db: Executor, tallyId: string) {
     .where(eq(tallyRevisions.tallyId, tallyId))
     .orderBy(desc(tallyRevisions.revision));
 }
+
+/** The tallies a pay application billed to one bid item: the backup of its line, oldest measurement first. */
+export async function listLineTallies(db: Executor, payAppId: string, bidItemId: string): Promise<TallyJoined[]> {
+  return joined(db)
+    .where(and(eq(tallies.payAppId, payAppId), eq(tallies.bidItemId, bidItemId)))
+    .orderBy(asc(tallies.measuredOn), asc(tallies.createdAt));
+}

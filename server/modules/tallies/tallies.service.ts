@@ -18,11 +18,17 @@ import { canWriteTallies, isEditableTally } from './tallies.policy';
 import { presentEvidence, presentRevision, presentTally } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
-import { loadTallyAccess, tallyNotDraft } from './tally-access';
+import { loadTallyAccess, payAppVisible, tallyNotDraft } from './tally-access';
 
 export async function listTallies(db: Db, actor: Actor, projectId: string, query: TallyListQuery) {
-  await loadProjectAccess(db, actor, projectId);
-  const rows = await repo.listTallies(db, projectId, query);
+  const { roles } = await loadProjectAccess(db, actor, projectId);
+  const hidden = new Set<string>();
+  const all = await repo.listTallies(db, projectId, query);
+  for (const id of new Set(all.map((r) => r.tally.payAppId).filter((v): v is string => v !== null))) {
+    if (!(await payAppVisible(db, roles, id))) hidden.add(id);
+  }
+  // The owner's side does not see tallies billed on an application it cannot see yet.
+  const rows = all.filter((r) => !r.tally.payAppId || !hidden.has(r.tally.payAppId));
   const counts = await repo.evidenceCounts(
     db,
     rows.map((r) => r.tally.id),
@@ -102,7 +108,13 @@ async function computedColumns(
   };
 }
 
-export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput, compute?: ComputePool) {
+export async function createTally(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  input: CreateTallyInput,
+  compute?: ComputePool,
+) {
   const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
   const columns = await computedColumns(db, project, input, compute);
   const id = await db.transaction(async (tx) => {
@@ -124,7 +136,13 @@ function splitInputs(inputs: Record<string, unknown> | null) {
   return { inputs: rest as Record<string, unknown>, component, measuredBasis, density };
 }
 
-export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput, compute?: ComputePool) {
+export async function updateTally(
+  db: Db,
+  actor: Actor,
+  tallyId: string,
+  patch: UpdateTallyInput,
+  compute?: ComputePool,
+) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
   const t = row.tally;

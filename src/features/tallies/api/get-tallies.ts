@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { EvidenceView, TallyListQuery, TallyView } from '@/shared/schemas/tally';
+import type { EvidenceView, TallyListQuery, TallyRevisionView, TallyView } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 
-export type TallyDetail = { tally: TallyView; evidence: EvidenceView[] };
+export type TallyDetail = { tally: TallyView; evidence: EvidenceView[]; revisions: TallyRevisionView[] };
 
 function queryString(query: TallyListQuery): string {
   const params = new URLSearchParams(Object.entries(query).filter((e): e is [string, string] => Boolean(e[1])));
