@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, gte, inArray, lte, ne, sum, type SQL } from 'drizzle-orm';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
+import { keyset } from '../../lib/paging';
 import { bidItems, payApps, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
 
 export type TallyRow = typeof tallies.$inferSelect;
@@ -32,16 +33,39 @@ function joined(db: Executor) {
     .innerJoin(user, eq(user.id, tallies.authorUserId));
 }
 
-export async function listTallies(db: Executor, projectId: string, q: TallyListQuery): Promise<TallyJoined[]> {
-  const where: SQL[] = [eq(tallies.projectId, projectId)];
+/** The list's columns: no inputs and no result, so a page never reads the worksheets. */
+const summaryColumns = {
+  id: tallies.id,
+  projectId: tallies.projectId,
+  measuredOn: tallies.measuredOn,
+  title: tallies.title,
+  method: tallies.method,
+  quantity: tallies.quantity,
+  status: tallies.status,
+  payAppId: tallies.payAppId,
+  authorUserId: tallies.authorUserId,
+  createdAt: tallies.createdAt,
+  updatedAt: tallies.updatedAt,
+};
+
+/** One page of a project's tallies, newest first by (created_at, id); `pageKey` is created_at for the cursor. */
+export async function listTallySummaries(db: Executor, projectId: string, q: TallyListQuery) {
+  const page = keyset(tallies.createdAt, tallies.id, q);
+  const where: (SQL | undefined)[] = [eq(tallies.projectId, projectId), page.after];
   if (q.status) where.push(eq(tallies.status, q.status));
   if (q.bidItemId) where.push(eq(tallies.bidItemId, q.bidItemId));
   if (q.from) where.push(gte(tallies.measuredOn, q.from));
   if (q.to) where.push(lte(tallies.measuredOn, q.to));
-  return joined(db)
+  return db
+    .select({ tally: summaryColumns, bidItem: joinedColumns.bidItem, authorName: user.name, pageKey: page.key })
+    .from(tallies)
+    .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
+    .innerJoin(user, eq(user.id, tallies.authorUserId))
     .where(and(...where))
-    .orderBy(desc(tallies.measuredOn), asc(bidItems.itemNumber));
+    .orderBy(...page.order)
+    .limit(page.fetch);
 }
+export type TallySummaryRow = Awaited<ReturnType<typeof listTallySummaries>>[number];
 
 export async function findTally(db: Executor, tallyId: string): Promise<TallyJoined | undefined> {
   const [row] = await joined(db).where(eq(tallies.id, tallyId)).limit(1);

@@ -2,12 +2,15 @@ import {
   createTallySchema,
   type CreateTallyInput,
   type TallyListQuery,
+  type TallySummaryView,
   type UpdateTallyInput,
 } from '../../../src/shared/schemas/tally';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import type { ComputePool } from '../../lib/compute/compute-pool';
 import { AppError, validationFailed } from '../../lib/app-error';
+import { pageOf } from '../../lib/paging';
+import type { Page } from '../../../src/shared/schemas/paging';
 import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
@@ -15,19 +18,30 @@ import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
 import { canWriteTallies, isEditableTally } from './tallies.policy';
-import { presentEvidence, presentRevision, presentTally } from './tallies.presenter';
+import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 
-export async function listTallies(db: Db, actor: Actor, projectId: string, query: TallyListQuery) {
+/** One page of the project's tallies as summaries (no inputs, no engine result). */
+export async function listTallies(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  query: TallyListQuery,
+): Promise<Page<TallySummaryView>> {
   await loadProjectAccess(db, actor, projectId);
-  const rows = await repo.listTallies(db, projectId, query);
+  const rows = await repo.listTallySummaries(db, projectId, query);
   const counts = await repo.evidenceCounts(
     db,
     rows.map((r) => r.tally.id),
   );
-  return rows.map((r) => presentTally(r, counts.get(r.tally.id) ?? 0));
+  return pageOf(
+    rows,
+    query.limit,
+    (r) => ({ at: r.pageKey, id: r.tally.id }),
+    (r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0),
+  );
 }
 
 export async function getTally(db: Db, actor: Actor, tallyId: string) {
@@ -102,7 +116,13 @@ async function computedColumns(
   };
 }
 
-export async function createTally(db: Db, actor: Actor, projectId: string, input: CreateTallyInput, compute?: ComputePool) {
+export async function createTally(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  input: CreateTallyInput,
+  compute?: ComputePool,
+) {
   const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
   const columns = await computedColumns(db, project, input, compute);
   const id = await db.transaction(async (tx) => {
@@ -124,7 +144,13 @@ function splitInputs(inputs: Record<string, unknown> | null) {
   return { inputs: rest as Record<string, unknown>, component, measuredBasis, density };
 }
 
-export async function updateTally(db: Db, actor: Actor, tallyId: string, patch: UpdateTallyInput, compute?: ComputePool) {
+export async function updateTally(
+  db: Db,
+  actor: Actor,
+  tallyId: string,
+  patch: UpdateTallyInput,
+  compute?: ComputePool,
+) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
   const t = row.tally;
