@@ -64,6 +64,20 @@ describe('change orders: proposing', () => {
     expect((await t.database.db.select().from(changeOrders)).length).toBe(before);
   });
 
+  it('answers 400 VALIDATION_FAILED on reason when the reason is missing or blank, and saves nothing', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id);
+    const before = (await t.database.db.select().from(changeOrders)).length;
+    const sub = await as('subcontractor');
+    const { reason: _omitted, ...withoutReason } = quantityChange(item.id, 5);
+    for (const body of [withoutReason, { ...withoutReason, reason: '   ' }]) {
+      const res = await sub.post(`/api/projects/${w.home.id}/change-orders`).send(body);
+      expect(res.status).toBe(400);
+      expect(res.body.error.code).toBe('VALIDATION_FAILED');
+      expect(res.body.error.details).toEqual([expect.objectContaining({ path: 'reason' })]);
+    }
+    expect((await t.database.db.select().from(changeOrders)).length).toBe(before);
+  });
+
   it('answers 400 for a bid item of another project and for a zero change', async () => {
     const foreignItem = await makeBidItem(t.database.db, w.foreign.id);
     const sub = await as('subcontractor');
@@ -173,6 +187,7 @@ describe('change orders: deciding', () => {
     const newItem = sampleBidItem({ itemNumber: 'CO-NEW-1', contractQuantity: 75, unitPriceCents: 2000 });
     const body = {
       title: 'Extra swale',
+      reason: 'Runoff from the new access road needs a swale',
       items: [
         { kind: 'add_item', newItem },
         { kind: 'change_price', bidItemId: item.id, newUnitPriceCents: 650 },

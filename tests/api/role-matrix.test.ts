@@ -15,7 +15,13 @@ import {
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { FILES, makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
-import { makeChangeOrder, makeDailySheet, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
+import {
+  makeChangeOrder,
+  makeDailySheet,
+  makeProfiledItem,
+  makeSource,
+  makeStoredMaterial,
+} from '../setup/provisions-factories';
 import { registeredRoutes } from '../setup/routes';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { eq } from 'drizzle-orm';
@@ -42,8 +48,18 @@ const SEAT_OF: Partial<Record<Role, string>> = {
 /** A company's own people list and removals: another company's people do not see the company at all. */
 const NOT_OF_SUB_COMPANY: Role[] = ['general_contractor', 'owner', 'admin', 'owner_admin'];
 const FIELD: Role[] = ['subcontractor', 'general_contractor'];
-const TRUCK_TICKET = { deliveredOn: '2026-05-04', truckLabel: 'T-12', material: 'Select borrow', source: 'Hollis pit', loadedAt: 'Face 2', deliveredTo: 'Sta 14+00', loadCheckerInitials: 'RB', deliveryCheckerInitials: 'MK' };
-const TRUCK_TICKET_CSV = 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
+const TRUCK_TICKET = {
+  deliveredOn: '2026-05-04',
+  truckLabel: 'T-12',
+  material: 'Select borrow',
+  source: 'Hollis pit',
+  loadedAt: 'Face 2',
+  deliveredTo: 'Sta 14+00',
+  loadCheckerInitials: 'RB',
+  deliveryCheckerInitials: 'MK',
+};
+const TRUCK_TICKET_CSV =
+  'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
 
 type Fixture = {
   projectId: string;
@@ -130,6 +146,7 @@ const RULES: Record<string, Rule> = {
     may: ['subcontractor', 'general_contractor'],
     body: (f) => ({
       title: 'More rock',
+      reason: 'Rock met above the planned grade',
       items: [{ kind: 'change_quantity', bidItemId: f.bidItemId, quantityDelta: 50 }],
     }),
   },
@@ -188,6 +205,7 @@ const RULES: Record<string, Rule> = {
     passes: [409],
   },
   'GET /api/pay-apps/:payAppId': { may: ALL },
+  'GET /api/pay-apps/:payAppId/lines/:lineId/tallies': { may: ALL },
   'POST /api/pay-apps/:payAppId/submit': { hiddenFrom: OWNER_SEES_CERTIFIED, may: SUB, payApp: 'draft' },
   'POST /api/pay-apps/:payAppId/review': {
     hiddenFrom: OWNER_SEES_CERTIFIED,
@@ -239,22 +257,87 @@ const RULES: Record<string, Rule> = {
   'GET /api/projects/:projectId/measurement-profiles': { may: ALL },
   'PUT /api/bid-items/:bidItemId/measurement-profile': { may: CONTRACT, body: () => ({ profile: 'truck_measure' }) },
   'GET /api/projects/:projectId/trucks': { may: ALL },
-  'POST /api/projects/:projectId/trucks': { may: FIELD, body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }) },
+  'POST /api/projects/:projectId/trucks': {
+    may: FIELD,
+    body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }),
+  },
   'GET /api/projects/:projectId/truck-tickets': { may: ALL },
-  'POST /api/projects/:projectId/truck-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }) },
-  'POST /api/projects/:projectId/truck-tickets/import': { may: FIELD, body: (f) => ({ bidItemId: f.truckItemId, csv: TRUCK_TICKET_CSV }) },
+  'POST /api/projects/:projectId/truck-tickets': {
+    may: FIELD,
+    body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }),
+  },
+  'POST /api/projects/:projectId/truck-tickets/import': {
+    may: FIELD,
+    body: (f) => ({ bidItemId: f.truckItemId, csv: TRUCK_TICKET_CSV }),
+  },
   'GET /api/projects/:projectId/material-sources': { may: ALL },
-  'POST /api/projects/:projectId/material-sources': { may: FIELD, body: () => ({ name: `Pit ${++serial}`, weighedLoads: [{ netTons: 18.42, volumeCy: 12.5 }, { netTons: 19.1, volumeCy: 13 }, { netTons: 18.75, volumeCy: 12.7 }] }) },
+  'POST /api/projects/:projectId/material-sources': {
+    may: FIELD,
+    body: () => ({
+      name: `Pit ${++serial}`,
+      weighedLoads: [
+        { netTons: 18.42, volumeCy: 12.5 },
+        { netTons: 19.1, volumeCy: 13 },
+        { netTons: 18.75, volumeCy: 12.7 },
+      ],
+    }),
+  },
   'GET /api/projects/:projectId/scale-tickets': { may: ALL },
   'GET /api/projects/:projectId/daily-sheets': { may: ALL },
-  'POST /api/projects/:projectId/daily-sheets': { may: FIELD, body: (f) => ({ changeOrderId: f.approvedChangeOrderId, workedOn: '2026-06-09', description: 'Muck removal', labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }], equipment: [], materials: [], markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 } }) },
+  'POST /api/projects/:projectId/daily-sheets': {
+    may: FIELD,
+    body: (f) => ({
+      changeOrderId: f.approvedChangeOrderId,
+      workedOn: '2026-06-09',
+      description: 'Muck removal',
+      labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }],
+      equipment: [],
+      materials: [],
+      markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 },
+    }),
+  },
   'POST /api/daily-sheets/:sheetId/sign': { may: FIELD },
   'GET /api/projects/:projectId/stored-materials': { may: ALL },
-  'POST /api/projects/:projectId/stored-materials': { may: FIELD, body: (f) => ({ bidItemId: f.bidItemId, description: '24 in RCP', unit: 'LF', unitCostCents: 5840, neededQuantity: 400, storedAt: 'East yard' }) },
-  'POST /api/stored-materials/:storedMaterialId/movements': { may: FIELD, body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }) },
+  'POST /api/projects/:projectId/stored-materials': {
+    may: FIELD,
+    body: (f) => ({
+      bidItemId: f.bidItemId,
+      description: '24 in RCP',
+      unit: 'LF',
+      unitCostCents: 5840,
+      neededQuantity: 400,
+      storedAt: 'East yard',
+    }),
+  },
+  'POST /api/stored-materials/:storedMaterialId/movements': {
+    may: FIELD,
+    body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }),
+  },
   'GET /api/projects/:projectId/pay-adjustments': { may: ALL },
-  'POST /api/projects/:projectId/pay-adjustments': { may: CONTRACT, body: () => ({ kind: 'liquidated_damages', appliesOn: '2026-11-30', description: 'Late', daysOverrun: 2, dailyCents: 285_000 }) },
-  'POST /api/projects/:projectId/scale-tickets': { may: FIELD, body: (f) => ({ bidItemId: f.weightItemId, sourceId: f.sourceId, ticketNumber: `S-${++serial}`, weighedOn: '2026-05-04', grossTons: 33.85, tareTons: 13.85, material: 'Base', scaleCheckerInitials: 'JT', deliveryCheckerInitials: 'MK' }) },
+  'POST /api/projects/:projectId/pay-adjustments': {
+    may: CONTRACT,
+    body: () => ({
+      kind: 'liquidated_damages',
+      appliesOn: '2026-11-30',
+      description: 'Late',
+      daysOverrun: 2,
+      dailyCents: 285_000,
+    }),
+  },
+  'POST /api/projects/:projectId/scale-tickets': {
+    may: FIELD,
+    body: (f) => ({
+      bidItemId: f.weightItemId,
+      sourceId: f.sourceId,
+      ticketNumber: `S-${++serial}`,
+      weighedOn: '2026-05-04',
+      grossTons: 33.85,
+      tareTons: 13.85,
+      material: 'Base',
+      scaleCheckerInitials: 'JT',
+      deliveryCheckerInitials: 'MK',
+    }),
+  },
 };
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
 const OUTSIDE_ROLES = [

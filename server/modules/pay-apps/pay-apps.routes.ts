@@ -15,6 +15,7 @@ import { exportRoutes } from './pay-app-exports.routes';
 import { commentOnDispute } from './dispute-comments.service';
 import { editDispute, withdrawDispute } from './disputes.service';
 import * as service from './pay-apps.service';
+import { lineBackup } from '../tallies/line-backup.service';
 
 export function payAppsRouter(ctx: AppContext): Router {
   const { db } = ctx;
@@ -62,6 +63,9 @@ export function payAppsRouter(ctx: AppContext): Router {
         confirm,
       ),
     });
+  });
+  router.get('/pay-apps/:payAppId/lines/:lineId/tallies', async (req, res) => {
+    res.json(await lineBackup(db, getActor(res), req.params.payAppId, req.params.lineId));
   });
   router.post('/disputes/:disputeId/comments', async (req, res) => {
     const { body } = disputeCommentSchema.parse(req.body);

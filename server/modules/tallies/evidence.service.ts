@@ -9,7 +9,7 @@ import { canAddEvidence, canWriteTallies } from './tallies.policy';
 import { presentEvidence } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { audit } from './tallies.service';
-import { loadTallyAccess } from './tally-access';
+import { loadTallyAccess, payAppVisible } from './tally-access';
 
 /** Stores the files, then records them in one transaction; if that fails the stored bytes are removed again. */
 export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyId: string, files: CheckedFile[]) {
@@ -58,9 +58,12 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
 async function loadEvidence(db: Db, actor: Actor, evidenceId: string, write: boolean) {
   const found = isUuid(evidenceId) ? await repo.findEvidence(db, evidenceId) : undefined;
   if (!found) throw notFound('The file');
-  await loadProjectAccess(db, actor, found.projectId, write ? canWriteTallies : undefined).catch((err: unknown) => {
-    throw err instanceof AppError && err.status === 404 ? notFound('The file') : err;
-  });
+  const { roles } = await loadProjectAccess(db, actor, found.projectId, write ? canWriteTallies : undefined).catch(
+    (err: unknown) => {
+      throw err instanceof AppError && err.status === 404 ? notFound('The file') : err;
+    },
+  );
+  if (!(await payAppVisible(db, roles, found.payAppId))) throw notFound('The file');
   return found;
 }
 

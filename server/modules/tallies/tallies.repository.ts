@@ -1,4 +1,5 @@
-import { and, asc, count, desc, eq, gte, inArray, lte, ne, sum, type SQL } from 'drizzle-orm';
+import { and, asc, sql, count, desc, eq, gte, inArray, isNull, lte, ne, or, sum, type SQL } from 'drizzle-orm';
+import type { PayAppStatus } from '../../../src/shared/constants';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
 import { keyset } from '../../lib/paging';
@@ -48,19 +49,37 @@ const summaryColumns = {
   updatedAt: tallies.updatedAt,
 };
 
+function summaries(db: Executor, pageKey: SQL.Aliased<string> | SQL<string>) {
+  return db
+    .select({ tally: summaryColumns, bidItem: joinedColumns.bidItem, authorName: user.name, pageKey })
+    .from(tallies)
+    .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
+    .innerJoin(user, eq(user.id, tallies.authorUserId));
+}
+
 /** One page of a project's tallies, newest first by (created_at, id); `pageKey` is created_at for the cursor. */
-export async function listTallySummaries(db: Executor, projectId: string, q: TallyListQuery) {
+export async function listTallySummaries(
+  db: Executor,
+  projectId: string,
+  q: TallyListQuery,
+  billedOn: 'any' | readonly PayAppStatus[] = 'any',
+) {
   const page = keyset(tallies.createdAt, tallies.id, q);
   const where: (SQL | undefined)[] = [eq(tallies.projectId, projectId), page.after];
   if (q.status) where.push(eq(tallies.status, q.status));
   if (q.bidItemId) where.push(eq(tallies.bidItemId, q.bidItemId));
   if (q.from) where.push(gte(tallies.measuredOn, q.from));
   if (q.to) where.push(lte(tallies.measuredOn, q.to));
-  return db
-    .select({ tally: summaryColumns, bidItem: joinedColumns.bidItem, authorName: user.name, pageKey: page.key })
-    .from(tallies)
-    .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
-    .innerJoin(user, eq(user.id, tallies.authorUserId))
+  if (billedOn !== 'any') {
+    const seen = db
+      .select({ id: payApps.id })
+      .from(payApps)
+      .where(inArray(payApps.status, [...billedOn]));
+    where.push(
+      billedOn.length > 0 ? or(isNull(tallies.payAppId), inArray(tallies.payAppId, seen)) : isNull(tallies.payAppId),
+    );
+  }
+  return summaries(db, page.key)
     .where(and(...where))
     .orderBy(...page.order)
     .limit(page.fetch);
@@ -190,4 +209,12 @@ export async function listRevisions(db: Executor, tallyId: string) {
     .innerJoin(user, eq(user.id, tallyRevisions.replacedByUserId))
     .where(eq(tallyRevisions.tallyId, tallyId))
     .orderBy(desc(tallyRevisions.revision));
+}
+
+/** The tallies a pay application billed to one bid item: the backup of its line, oldest measurement first. */
+/** The summaries of the tallies one application billed to one bid item (bounded by the application). */
+export async function listLineTallies(db: Executor, payAppId: string, bidItemId: string) {
+  return summaries(db, sql<string>`${tallies.createdAt}::text`)
+    .where(and(eq(tallies.payAppId, payAppId), eq(tallies.bidItemId, bidItemId)))
+    .orderBy(asc(tallies.measuredOn), asc(tallies.createdAt));
 }

@@ -22,16 +22,23 @@ import { presentEvidence, presentRevision, presentTally, presentTallySummary } f
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
+import { PAY_APP_STATUSES } from '../../../src/shared/constants';
+import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 
-/** One page of the project's tallies as summaries (no inputs, no engine result). */
+/**
+ * One page of the project's tallies as summaries (no inputs, no engine result). The owner's side does not see
+ * tallies billed on an application it cannot see yet (filtered in the query, so pages stay full and walk every row).
+ */
 export async function listTallies(
   db: Db,
   actor: Actor,
   projectId: string,
   query: TallyListQuery,
 ): Promise<Page<TallySummaryView>> {
-  await loadProjectAccess(db, actor, projectId);
-  const rows = await repo.listTallySummaries(db, projectId, query);
+  const { roles } = await loadProjectAccess(db, actor, projectId);
+  const visible = PAY_APP_STATUSES.filter((s) => canSeePayApp(roles, s));
+  const billedOn = visible.length === PAY_APP_STATUSES.length ? 'any' : visible;
+  const rows = await repo.listTallySummaries(db, projectId, query, billedOn);
   const counts = await repo.evidenceCounts(
     db,
     rows.map((r) => r.tally.id),

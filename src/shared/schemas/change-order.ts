@@ -26,7 +26,7 @@ export type ChangeOrderItemInput = z.infer<typeof changeOrderItemInputSchema>;
 export const createChangeOrderSchema = z
   .object({
     title: z.string().trim().min(1, 'Title is required').max(200),
-    reason: z.string().trim().max(4000).default(''),
+    reason: z.string().trim().min(1, 'Say why the change is needed').max(4000),
     items: z.array(changeOrderItemInputSchema).min(1, 'Add at least one change').max(50),
   })
   .strict();

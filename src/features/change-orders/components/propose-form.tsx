@@ -44,7 +44,7 @@ export function ProposeForm({ projectId, bidItemId, onProposed, onCancel }: Prop
         )}
       </Field>
       <Field
-        label="Reason"
+        label="Reason (required)"
         error={errors.reason?.message}
         hint="What happened in the field, and where it is documented"
       >
