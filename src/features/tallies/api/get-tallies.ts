@@ -1,10 +1,16 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { fetchAllPages } from '@/lib/paging';
-import type { EvidenceView, TallyListFilter, TallySummaryView, TallyView } from '@/shared/schemas/tally';
+import type {
+  EvidenceView,
+  TallyListFilter,
+  TallyRevisionView,
+  TallySummaryView,
+  TallyView,
+} from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 
-export type TallyDetail = { tally: TallyView; evidence: EvidenceView[] };
+export type TallyDetail = { tally: TallyView; evidence: EvidenceView[]; revisions: TallyRevisionView[] };
 
 /** Newest measurement first, then by bid item (the list pages by creation; the table reads by measurement). */
 function byMeasurement(a: TallySummaryView, b: TallySummaryView): number {
