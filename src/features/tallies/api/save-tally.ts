@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { CreateTallyInput, TallyView, UpdateTallyInput } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
+import { uploadEvidence } from './upload-evidence';
 
 /** Every tally mutation refreshes the tally lists and details (key prefix `tallies`). */
 function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResult>) {
@@ -10,16 +11,25 @@ function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResul
 }
 
 export function useCreateTally(projectId: string) {
-  return useTallyMutation(async (input: CreateTallyInput) => (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally);
+  return useTallyMutation(
+    async (input: CreateTallyInput) =>
+      (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally,
+  );
 }
 
 /** A draft's changes; the server merges them and computes the quantity again. */
 export function useUpdateTally(tallyId: string) {
-  return useTallyMutation(async (input: UpdateTallyInput) => (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally);
+  return useTallyMutation(
+    async (input: UpdateTallyInput) =>
+      (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally,
+  );
 }
 
 export function useMarkReady() {
-  return useTallyMutation(async (tallyId: string) => (await api.post<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}/ready`)).tally);
+  return useTallyMutation(
+    async (tallyId: string) =>
+      (await api.post<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}/ready`)).tally,
+  );
 }
 
 export function useDeleteTally() {
@@ -28,4 +38,20 @@ export function useDeleteTally() {
 
 export function useDeleteEvidence() {
   return useTallyMutation((evidenceId: string) => api.delete(`/api/evidence/${encodeURIComponent(evidenceId)}`));
+}
+
+/**
+ * A direct quantity with its evidence: POST (or PATCH the draft), then the files to the tally's evidence route.
+ * The same two steps the worksheets take (see DEVELOPERS.md, decision log: worksheet files and evidence).
+ */
+export async function saveDirectTally(
+  projectId: string,
+  { tallyId, body, files }: { tallyId: string | null; body: CreateTallyInput; files: readonly File[] },
+): Promise<{ tally: TallyView; filesError: unknown }> {
+  const { tally } = tallyId
+    ? await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, body)
+    : await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, body);
+  // A refused file leaves the draft saved without it; the caller says so and the tally page takes the file again.
+  const filesError = files.length > 0 ? await uploadEvidence(tally.id, [...files], () => undefined).then(() => null, (err: unknown) => err) : null;
+  return { tally, filesError };
 }

@@ -5,7 +5,11 @@ import type { EvidenceView } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 
 /** Uploads a tally's evidence files with progress (see uploadFiles). */
-export async function uploadEvidence(tallyId: string, files: File[], onProgress: (fraction: number) => void): Promise<EvidenceView[]> {
+export async function uploadEvidence(
+  tallyId: string,
+  files: File[],
+  onProgress: (fraction: number) => void,
+): Promise<EvidenceView[]> {
   const url = `/api/tallies/${encodeURIComponent(tallyId)}/evidence`;
   return (await uploadFiles<{ evidence: EvidenceView[] }>(url, files, onProgress)).evidence;
 }

@@ -1,8 +1,9 @@
-import { CheckCircle2, Pencil, Trash2 } from 'lucide-react';
+import { CheckCircle2, Pencil, Ruler, Trash2 } from 'lucide-react';
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router';
 import { toast } from 'sonner';
-import { Button } from '@/components/ui/button';
+import { Button, buttonVariants } from '@/components/ui/button';
+import { cn } from '@/lib/cn';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Dialog } from '@/components/ui/dialog';
 import { ErrorState, LoadingState } from '@/components/ui/states';
@@ -12,8 +13,10 @@ import { MEASUREMENT_METHOD_LABELS } from '@/shared/constants';
 import { useTally } from '../api/get-tallies';
 import { useDeleteTally, useMarkReady } from '../api/save-tally';
 import { EvidencePanel } from './evidence-panel';
+import { RevisionHistory } from './revision-history';
 import { InputsSummary } from './inputs-summary';
-import { NewTallyForm } from './new-tally-form';
+import { DirectQuantityForm } from './direct-quantity-form';
+import { worksheetOf } from './tally-labels';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
@@ -34,10 +37,12 @@ export function TallyDetail({
   const [editing, setEditing] = useState(false);
   if (query.isPending) return <LoadingState label="Loading the tally…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
-  const { tally, evidence } = query.data;
+  const { tally, evidence, revisions } = query.data;
   const draft = tally.status === 'draft';
   const backWithSub = tally.payAppId ? ['returned', 'draft'].includes(payAppStatusOf?.(tally.payAppId) ?? '') : false;
   const unit = tally.bidItem.payUnit;
+  const worksheet = tally.method === 'manual' ? null : worksheetOf({ method: tally.method, payUnit: unit });
+  const worksheetUrl = `/projects/${encodeURIComponent(tally.projectId)}/worksheets?tally=${encodeURIComponent(tally.id)}`;
 
   return (
     <div className="flex flex-col gap-4">
@@ -62,13 +67,23 @@ export function TallyDetail({
               <Button variant="secondary" onClick={() => setConfirm('delete')}>
                 <Trash2 aria-hidden /> Delete
               </Button>
-              <Button variant="secondary" onClick={() => setEditing(true)}>
-                <Pencil aria-hidden /> Edit
-              </Button>
+              {worksheet ? (
+                <Link className={cn(buttonVariants({ variant: 'secondary' }))} to={worksheetUrl}>
+                  <Pencil aria-hidden /> Edit in its worksheet
+                </Link>
+              ) : (
+                <Button variant="secondary" onClick={() => setEditing(true)}>
+                  <Pencil aria-hidden /> Edit
+                </Button>
+              )}
               <Button onClick={() => setConfirm('ready')}>
                 <CheckCircle2 aria-hidden /> Mark ready to bill
               </Button>
             </>
+          ) : worksheet ? (
+            <Link className={cn(buttonVariants({ variant: 'secondary' }))} to={worksheetUrl}>
+              <Ruler aria-hidden /> Open in its worksheet
+            </Link>
           ) : null}
         </div>
       </div>
@@ -115,26 +130,19 @@ export function TallyDetail({
         canUpload={canWrite && (draft || backWithSub)}
         canRemove={canWrite && draft}
       />
+      <RevisionHistory revisions={revisions} unit={unit} />
       <Dialog
         open={editing}
         onClose={() => setEditing(false)}
         title="Edit draft tally"
-        description="The server computes the quantity again from what you change."
+        description="The quantity saved before is kept as a revision in the tally’s history."
         className="w-[min(44rem,calc(100vw-2rem))]"
       >
         {editing ? (
-          <NewTallyForm
+          <DirectQuantityForm
             projectId={tally.projectId}
             tally={tally}
-            bidItems={[
-              {
-                id: tally.bidItem.id,
-                itemNumber: tally.bidItem.itemNumber,
-                description: tally.bidItem.description,
-                payUnit: unit,
-                method: tally.method,
-              },
-            ]}
+            item={{ id: tally.bidItem.id, itemNumber: tally.bidItem.itemNumber, payUnit: unit }}
             onDone={(saved) => {
               setEditing(false);
               toast.success(`Saved: ${formatQuantity(saved.quantity, saved.bidItem.payUnit)}`);
