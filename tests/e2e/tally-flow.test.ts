@@ -3,7 +3,6 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../setup/test-server';
 import { launchBrowser, ensureClientBuilt, signInDemo } from './browser';
-import { FILES } from '../setup/pay-cycle-factories';
 
 // Issue 12, items 1, 4 and 5 in headless Chromium with the demo job: the subcontractor makes tallies from "New
 // tally" (a volume worksheet and the direct-quantity form), reopens the worksheet tally and edits it (the earlier
@@ -11,6 +10,11 @@ import { FILES } from '../setup/pay-cycle-factories';
 // its evidence and its worksheet drawing. Screenshots land in /tmp, never in the repository.
 
 const SHOTS = '/tmp/tallyard-e2e/tally-flow';
+/** A real 1 x 1 PNG (one spruce-green pixel), so the photo preview has a picture to show. */
+const PHOTO = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAIAAACQd1PeAAAADElEQVR4nGPQj/UCAAGVANc/ZvXWAAAAAElFTkSuQmCC',
+  'base64',
+);
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
 
@@ -65,6 +69,9 @@ describe('tallies from the worksheets to the pay application line', () => {
     await snap(sub, 'new-tally-worksheet-item');
     await dialog.getByRole('link', { name: 'Open the worksheet' }).click();
     await sub.waitForURL(/\/worksheets\?method=pit&item=/);
+    // A small pit of our own, well inside the item's contract quantity.
+    await sub.getByLabel('Bottom length').fill('16');
+    await sub.getByLabel('Bottom width').fill('12');
     await sub.getByRole('button', { name: 'Save as tally' }).click();
     const save = sub.getByRole('form', { name: 'Save as tally' });
     await save.getByLabel('Title').fill('Outlet pit, first lift');
@@ -80,25 +87,29 @@ describe('tallies from the worksheets to the pay application line', () => {
     expect(await sub.getByText(/"unit"|spacingX|cornerDepths/).count()).toBe(0);
     await snap(sub, 'pit-tally-page');
 
-    // A lump-sum item gets the direct-quantity form, with its basis and a file.
-    const direct = await newTallyFor(sub, /^101 /);
-    await direct.getByLabel('Quantity (LS)').fill('0.5');
-    await direct.getByLabel('Title').fill('Mobilization, first half');
-    await direct.getByLabel('Basis').fill('Half of the plant and crews on site per the mobilization log of 3 Nov');
+    // An item no worksheet measures gets the direct-quantity form, with its basis and a file.
+    const direct = await newTallyFor(sub, /^402 /);
+    await direct.getByLabel('Quantity (SY)').fill('1,250');
+    await direct.getByLabel('Title').fill('Fine grading, east pad');
+    await direct.getByLabel('Basis').fill('East pad finished to grade, 50 x 225 ft, checked with the rod on 3 Nov');
     await direct
       .getByLabel('Evidence files')
-      .setInputFiles({ name: 'mobilization-log.png', mimeType: 'image/png', buffer: FILES.png });
+      .setInputFiles({ name: 'east-pad-photo.png', mimeType: 'image/png', buffer: PHOTO });
     await snap(sub, 'direct-form');
     await direct.getByRole('button', { name: 'Save draft tally' }).click();
-    await sub.getByRole('heading', { name: 'Mobilization, first half' }).waitFor();
-    await sub.getByText('mobilization-log.png').first().waitFor();
+    await sub.getByRole('heading', { name: 'Fine grading, east pad' }).waitFor();
+    await sub.getByText('east-pad-photo.png').first().waitFor();
+    await sub.getByRole('img', { name: 'east-pad-photo.png' }).waitFor();
+    expect(
+      await sub.getByRole('img', { name: 'east-pad-photo.png' }).evaluate((i: HTMLImageElement) => i.naturalWidth),
+    ).toBe(1);
     await snap(sub, 'direct-tally-page');
 
     // The pit tally reopens in its worksheet; saving changes keeps the first save as a revision.
     await sub.goto(pitUrl);
     await sub.getByRole('link', { name: 'Edit in its worksheet' }).click();
     await sub.waitForURL(/\/worksheets\?tally=/);
-    await sub.getByLabel('Bottom length').fill('44');
+    await sub.getByLabel('Bottom length').fill('18');
     await sub.getByRole('button', { name: 'Save changes' }).click();
     await sub.getByRole('form', { name: 'Save as tally' }).getByRole('button', { name: 'Save changes' }).click();
     await sub
@@ -114,10 +125,7 @@ describe('tallies from the worksheets to the pay application line', () => {
     const gc = await signedIn('gc@tallyard.test');
     await openTab(gc, 'Pay apps');
     await gc.waitForURL(/\/pay-apps$/);
-    await gc
-      .getByRole('link', { name: /Pay application 1\b|^1$/ })
-      .first()
-      .click();
+    await gc.getByRole('link', { name: 'Pay app 1', exact: true }).first().click();
     await gc.getByRole('button', { name: 'Backup of item 203' }).click();
     const backup = gc.getByRole('table', { name: 'Backup of item 203' });
     await backup.waitFor();
@@ -129,7 +137,10 @@ describe('tallies from the worksheets to the pay application line', () => {
     await snap(gc, 'backup-tally-page');
     await gc.getByRole('link', { name: 'Open in its worksheet' }).click();
     await gc.waitForURL(/\/worksheets\?tally=/);
-    await gc.locator('main svg').first().waitFor();
+    // The worksheet draws the tally's stations (the end-area profile chart), read-only.
+    await gc.getByText(/End-area profile/).waitFor();
+    await gc.locator('figure .recharts-surface').first().waitFor();
+    await gc.getByText(/Read-only: the tally/).waitFor();
     await snap(gc, 'backup-worksheet');
   }, 90_000);
 });
