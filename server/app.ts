@@ -3,6 +3,8 @@ import path from 'node:path';
 import { toNodeHandler } from 'better-auth/node';
 import express, { type Express } from 'express';
 import type { Auth } from './auth';
+import { getActor } from './lib/actor';
+import type { SessionView } from '../src/shared/schemas/project';
 import type { Database } from './db/client';
 import type { Mailer } from './integrations/mailer/mailer';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
@@ -15,6 +17,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
 import { jsonBodiesOnly } from './middleware/json-bodies-only';
+import { idempotentWrites } from './middleware/idempotency';
 import { requireActor } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { noStore, securityHeaders } from './middleware/security-headers';
@@ -26,7 +29,7 @@ import { changeOrdersRouter } from './modules/change-orders/change-orders.routes
 import { devMailboxRouter } from './modules/dev/mailbox.routes';
 import { inboxRouter } from './modules/inbox/inbox.routes';
 import { invitationsRouter, publicInvitationsRouter } from './modules/invitations/invitations.routes';
-import { meRouter } from './modules/me/me.routes';
+import { meRouter, meView } from './modules/me/me.routes';
 import { membersRouter } from './modules/members/members.routes';
 import { calcRouter } from './modules/calc/calc.routes';
 import { createOutbox } from './modules/notifications/outbox';
@@ -136,12 +139,29 @@ export function createApp(deps: AppDeps): Express {
     toNodeHandler(auth),
   );
 
-  app.use('/api', requireActor(auth, db));
+  const actorGuard = requireActor(auth, db);
+  // Whether this browser is signed in, as a plain answer (never 401): the client asks it before anything else, so
+  // a signed-out visit logs no failed request. Signed in, it carries the same view as GET /api/me.
+  app.get('/api/session', async (req, res) => {
+    let signedIn = false;
+    try {
+      await actorGuard(req, res, () => {
+        signedIn = true;
+      });
+    } catch {
+      signedIn = false;
+    }
+    const body: SessionView = signedIn ? { signedIn: true, me: meView(getActor(res)) } : { signedIn: false };
+    res.json(body);
+  });
+  app.use('/api', actorGuard);
   // The calculation API parses its own (larger) bodies, large ones in worker threads; everything else is limited
   // to JSON_BODY_LIMIT.
   app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
+  // A write repeated with the same Idempotency-Key (a double click, a retry) is done once and answered the same.
+  app.use('/api', idempotentWrites(db, { logger }));
   app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use(

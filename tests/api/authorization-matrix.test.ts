@@ -15,6 +15,7 @@ type Scope = 'public' | 'signed-in' | 'project' | 'company';
 /** Every route the app registers. A new route without an entry here fails the first test. */
 const ROUTES: Record<string, Scope> = {
   'GET /api/health': 'public',
+  'GET /api/session': 'public',
   'GET /api/invitations/:token': 'public',
   'POST /api/invitations/:token/accept': 'public',
   'POST /api/webhooks/stripe': 'public',

@@ -342,6 +342,7 @@ const RULES: Record<string, Rule> = {
 /** Routes that need no session, or that no role reaches (the matrix file covers them). */
 const OUTSIDE_ROLES = [
   'GET /api/health',
+  'GET /api/session',
   'GET /api/invitations/:token',
   'POST /api/invitations/:token/accept',
   'POST /api/webhooks/stripe',

@@ -14,13 +14,22 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 async function signIn(email: string): Promise<string> {
-  const res = await request(t.app).post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).send({ email, password: TEST_PASSWORD });
+  const res = await request(t.app)
+    .post('/api/auth/sign-in/email')
+    .set('Origin', TEST_ORIGIN)
+    .send({ email, password: TEST_PASSWORD });
   expect(res.status).toBe(200);
   return (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
 }
 
 /** The session token inside the signed cookie (`token.signature`). */
-const tokenOf = (cookie: string) => decodeURIComponent(cookie.split('; ').find((c) => c.includes('session_token'))!.split('=')[1]!).split('.')[0]!;
+const tokenOf = (cookie: string) =>
+  decodeURIComponent(
+    cookie
+      .split('; ')
+      .find((c) => c.includes('session_token'))!
+      .split('=')[1]!,
+  ).split('.')[0]!;
 
 const me = (cookie: string) => request(t.app).get('/api/me').set('Cookie', cookie);
 
@@ -38,7 +47,9 @@ async function seenPerson(opts: { isAdmin?: boolean } = {}) {
 describe('requireActor: a remembered cookie never outlives its session', () => {
   it('answers 401 to the same cookie right after sign-out', async () => {
     const p = await seenPerson();
-    expect((await request(t.app).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', p.cookie)).status).toBe(200);
+    expect(
+      (await request(t.app).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', p.cookie)).status,
+    ).toBe(200);
     expect((await me(p.cookie)).status).toBe(401);
   });
 
@@ -50,7 +61,10 @@ describe('requireActor: a remembered cookie never outlives its session', () => {
 
   it('answers 401 once the session is past its idle expiry', async () => {
     const p = await seenPerson();
-    await t.database.db.update(session).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(session.userId, p.id));
+    await t.database.db
+      .update(session)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(session.userId, p.id));
     expect((await me(p.cookie)).status).toBe(401);
   });
 
@@ -71,7 +85,10 @@ describe('requireActor: a remembered cookie never outlives its session', () => {
 
   it('refuses a cookie whose signature was altered, even when its token is a live session', async () => {
     const p = await seenPerson();
-    const name = p.cookie.split('; ').find((c) => c.includes('session_token'))!.split('=')[0]!;
+    const name = p.cookie
+      .split('; ')
+      .find((c) => c.includes('session_token'))!
+      .split('=')[0]!;
     const forged = `${name}=${encodeURIComponent(`${tokenOf(p.cookie)}.AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA=`)}`;
     expect((await me(forged)).status).toBe(401);
     expect((await me(p.cookie)).status).toBe(200);
@@ -82,12 +99,18 @@ describe('requireActor: session refresh', () => {
   it('renews the session and sends the cookie again once it is due (after the refresh age)', async () => {
     const p = await seenPerson();
     const dueAt = new Date(Date.now() + (SESSION_IDLE_SECONDS - SESSION_REFRESH_SECONDS - 5) * 1000);
-    await t.database.db.update(session).set({ expiresAt: dueAt }).where(eq(session.token, tokenOf(p.cookie)));
+    await t.database.db
+      .update(session)
+      .set({ expiresAt: dueAt })
+      .where(eq(session.token, tokenOf(p.cookie)));
     const res = await me(p.cookie);
     expect(res.status).toBe(200);
     const setCookie = (res.headers['set-cookie'] as unknown as string[] | undefined) ?? [];
     expect(setCookie.some((c) => c.includes('session_token') && /Max-Age=\d+/i.test(c))).toBe(true);
-    const [row] = await t.database.db.select({ expiresAt: session.expiresAt }).from(session).where(eq(session.token, tokenOf(p.cookie)));
+    const [row] = await t.database.db
+      .select({ expiresAt: session.expiresAt })
+      .from(session)
+      .where(eq(session.token, tokenOf(p.cookie)));
     expect(row!.expiresAt.getTime()).toBeGreaterThan(dueAt.getTime() + 60_000);
   });
 
@@ -109,5 +132,30 @@ describe('VerifiedCookies', () => {
     cookies.add('b', '2');
     cookies.add('c', '3');
     expect([cookies.get('a'), cookies.get('b'), cookies.get('c'), cookies.size]).toEqual([undefined, '2', '3', 2]);
+  });
+});
+
+// GET /api/session answers whether the browser is signed in without a failed request (the sign-in page and a
+// signed-out visit log no 401); it must follow the same rules as requireActor, since the client trusts its answer.
+describe('GET /api/session', () => {
+  const session = (cookie?: string) => {
+    const req = request(t.app).get('/api/session');
+    return cookie ? req.set('Cookie', cookie) : req;
+  };
+
+  it('answers signed out, never 401, without a cookie or with a forged one', async () => {
+    for (const res of [await session(), await session('better-auth.session_token=forged.sig')]) {
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({ signedIn: false });
+      expect(res.headers['cache-control']).toContain('no-store');
+    }
+  });
+
+  it('carries the same view as GET /api/me when signed in, and signed out after sign-out', async () => {
+    const p = await seenPerson();
+    const res = await session(p.cookie);
+    expect(res.body).toEqual({ signedIn: true, me: (await me(p.cookie)).body });
+    await request(t.app).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', p.cookie).expect(200);
+    expect((await session(p.cookie)).body).toEqual({ signedIn: false });
   });
 });

@@ -153,15 +153,13 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('UNIT_MISMATCH');
     expect(bad.body.error.message).toMatch(/TON/);
-    const ok = await agent
-      .post(url())
-      .send({
-        bidItemId: items.ton.id,
-        measuredOn: '2026-10-18',
-        method: 'manual',
-        quantity: 412.35,
-        manualBasis: 'Scale tickets 4410-4452 from the quarry',
-      });
+    const ok = await agent.post(url()).send({
+      bidItemId: items.ton.id,
+      measuredOn: '2026-10-18',
+      method: 'manual',
+      quantity: 412.35,
+      manualBasis: 'Scale tickets 4410-4452 from the quarry',
+    });
     expect(ok.status).toBe(201);
     expect(ok.body.tally.quantity).toBe(412.35);
   });
@@ -229,10 +227,10 @@ describe('tallies: who may do what, and the draft life', () => {
     const agent = await as('subcontractor');
     await agent.post(url()).send(endArea(items.metric.id, { measuredOn: '2026-11-02' }));
     const byItem = await agent.get(url()).query({ bidItemId: items.metric.id, from: '2026-11-01', to: '2026-11-30' });
-    expect(byItem.body.tallies).toHaveLength(1);
-    expect(byItem.body.tallies[0].bidItem.itemNumber).toBe('T-3');
+    expect(byItem.body.items).toHaveLength(1);
+    expect(byItem.body.items[0].bidItem.itemNumber).toBe('T-3');
     const ready = await agent.get(url()).query({ status: 'ready' });
-    expect(ready.body.tallies.every((x: { status: string }) => x.status === 'ready')).toBe(true);
+    expect(ready.body.items.every((x: { status: string }) => x.status === 'ready')).toBe(true);
     expect((await agent.get(url()).query({ status: 'lost' })).status).toBe(400);
   });
 

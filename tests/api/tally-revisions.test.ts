@@ -63,7 +63,7 @@ describe('sanity limits before saving', () => {
       path: 'sanityReason',
       message: expect.stringMatching(/more than 10 times the contract quantity \(20\.00 CY\)/),
     });
-    expect((await agent.get(url()).query({ bidItemId: item.id })).body.tallies).toHaveLength(0);
+    expect((await agent.get(url()).query({ bidItemId: item.id })).body.items).toHaveLength(0);
     const reason = 'Plan quantity was for one culvert; three were built under the field order';
     const ok = await agent.post(url()).send({ ...body, sanityReason: reason });
     expect(ok.status).toBe(201);

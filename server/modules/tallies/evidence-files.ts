@@ -14,7 +14,12 @@ export const evidenceUpload = readableMultipart(
   }).array('files', MAX_EVIDENCE_FILES_PER_TALLY),
 );
 
-type Rule = { kind: EvidenceKind; contentType: string; mimetypes: string[]; check: (b: Buffer) => string | null | Promise<string | null> };
+type Rule = {
+  kind: EvidenceKind;
+  contentType: string;
+  mimetypes: string[];
+  check: (b: Buffer) => string | null | Promise<string | null>;
+};
 
 const GENERIC = ['application/octet-stream', ''];
 const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -31,7 +36,11 @@ function utf8(b: Buffer): string | null {
 
 /** The first element of an XML text must be a LandXML root (after the declaration and any comments). */
 function isLandXml(text: string): boolean {
-  const body = text.replace(/^\uFEFF/, '').replace(/<\?xml[\s\S]*?\?>/, '').replace(/<!--[\s\S]*?-->/g, '').replace(/<!DOCTYPE[^>]*>/i, '');
+  const body = text
+    .replace(/^\uFEFF/, '')
+    .replace(/<\?xml[\s\S]*?\?>/, '')
+    .replace(/<!--[\s\S]*?-->/g, '')
+    .replace(/<!DOCTYPE[^>]*>/i, '');
   return /^\s*<(?:[A-Za-z_][\w.-]*:)?LandXML[\s/>]/.test(body);
 }
 
@@ -45,9 +54,25 @@ const RULES: Record<string, Rule> = {
       return decoded.ok ? null : decoded.problem;
     },
   },
-  pdf: { kind: 'pdf', contentType: 'application/pdf', mimetypes: ['application/pdf'], check: (b) => (b.subarray(0, 5).toString('latin1') === '%PDF-' ? null : 'does not start with %PDF-, so it is not a PDF') },
-  png: { kind: 'image', contentType: 'image/png', mimetypes: ['image/png'], check: (b) => (b.subarray(0, 8).equals(PNG) ? null : 'does not carry the PNG signature') },
-  jpg: { kind: 'image', contentType: 'image/jpeg', mimetypes: ['image/jpeg', 'image/jpg', 'image/pjpeg'], check: (b) => (b.subarray(0, 3).equals(JPEG) ? null : 'does not carry the JPEG signature') },
+  pdf: {
+    kind: 'pdf',
+    contentType: 'application/pdf',
+    mimetypes: ['application/pdf'],
+    check: (b) =>
+      b.subarray(0, 5).toString('latin1') === '%PDF-' ? null : 'does not start with %PDF-, so it is not a PDF',
+  },
+  png: {
+    kind: 'image',
+    contentType: 'image/png',
+    mimetypes: ['image/png'],
+    check: (b) => (b.subarray(0, 8).equals(PNG) ? null : 'does not carry the PNG signature'),
+  },
+  jpg: {
+    kind: 'image',
+    contentType: 'image/jpeg',
+    mimetypes: ['image/jpeg', 'image/jpg', 'image/pjpeg'],
+    check: (b) => (b.subarray(0, 3).equals(JPEG) ? null : 'does not carry the JPEG signature'),
+  },
   xml: {
     kind: 'landxml',
     contentType: 'application/xml',
@@ -78,7 +103,10 @@ export function safeFileName(original: string): string {
     .replace(/^[.\s_]+/, '')
     .trim();
   const ext = /\.[A-Za-z0-9]{1,5}$/.exec(cleaned)?.[0] ?? '';
-  const stem = cleaned.slice(0, cleaned.length - ext.length).slice(0, 120 - ext.length).replace(/[.\s]+$/, '');
+  const stem = cleaned
+    .slice(0, cleaned.length - ext.length)
+    .slice(0, 120 - ext.length)
+    .replace(/[.\s]+$/, '');
   return `${WINDOWS_RESERVED.test(stem.split('.')[0]!.trim()) ? `evidence-${stem}` : stem || 'evidence'}${ext.toLowerCase()}`;
 }
 
@@ -87,7 +115,9 @@ export type CheckedFile = { fileName: string; contentType: string; kind: Evidenc
 /** Checks every file of an upload against its declared type; reports every bad file by index and name. */
 export async function checkEvidenceFiles(files: Express.Multer.File[] | undefined): Promise<CheckedFile[]> {
   if (!files || files.length === 0) {
-    throw new AppError(400, 'UPLOAD_MISSING', 'Attach at least one file in the "files" field.', [{ path: 'files', message: 'Required' }]);
+    throw new AppError(400, 'UPLOAD_MISSING', 'Attach at least one file in the "files" field.', [
+      { path: 'files', message: 'Required' },
+    ]);
   }
   const details: ApiErrorDetail[] = [];
   const checked: CheckedFile[] = [];
@@ -98,13 +128,15 @@ export async function checkEvidenceFiles(files: Express.Multer.File[] | undefine
     const say = (message: string) => details.push({ path: `files.${i}`, message: `${fileName}: ${message}` });
     if (!rule) say('use CSV, PDF, PNG or JPEG images, or LandXML (.xml)');
     else if (file.size === 0) say('the file is empty');
-    else if (!rule.mimetypes.includes(file.mimetype) && !GENERIC.includes(file.mimetype)) say(`declared as ${file.mimetype}, which does not match .${ext}`);
+    else if (!rule.mimetypes.includes(file.mimetype) && !GENERIC.includes(file.mimetype))
+      say(`declared as ${file.mimetype}, which does not match .${ext}`);
     else {
       const problem = await rule.check(file.buffer);
       if (problem) say(`the content ${problem}`);
     }
     checked.push({ fileName, contentType: rule?.contentType ?? '', kind: rule?.kind ?? 'csv', bytes: file.buffer });
   }
-  if (details.length > 0) throw new AppError(400, 'EVIDENCE_REJECTED', `${details.length} file(s) were refused; nothing was saved.`, details);
+  if (details.length > 0)
+    throw new AppError(400, 'EVIDENCE_REJECTED', `${details.length} file(s) were refused; nothing was saved.`, details);
   return checked;
 }

@@ -16,7 +16,11 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
   const { row } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   const payAppStatus = await repo.payAppStatusOf(db, row.tally.payAppId);
   if (!canAddEvidence(row.tally.status, payAppStatus)) {
-    throw new AppError(409, 'TALLY_NOT_DRAFT', `Evidence can be added to a draft tally, or to a billed one while its pay application is back with the subcontractor; this one is ${row.tally.status}.`);
+    throw new AppError(
+      409,
+      'TALLY_NOT_DRAFT',
+      `Evidence can be added to a draft tally, or to a billed one while its pay application is back with the subcontractor; this one is ${row.tally.status}.`,
+    );
   }
   const existing = (await repo.evidenceCounts(db, [tallyId])).get(tallyId) ?? 0;
   if (existing + files.length > MAX_EVIDENCE_FILES_PER_TALLY) {
@@ -28,10 +32,21 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
     return await db.transaction(async (tx) => {
       const rows = await repo.insertEvidence(
         tx,
-        stored.map(({ f, key, sha256 }) => ({ tallyId, fileName: f.fileName, contentType: f.contentType, kind: f.kind, sizeBytes: f.bytes.length, sha256, storageKey: key, uploadedByUserId: actor.userId })),
+        stored.map(({ f, key, sha256 }) => ({
+          tallyId,
+          fileName: f.fileName,
+          contentType: f.contentType,
+          kind: f.kind,
+          sizeBytes: f.bytes.length,
+          sha256,
+          storageKey: key,
+          uploadedByUserId: actor.userId,
+        })),
       );
       const views = rows.map((r) => presentEvidence(r, actor.name));
-      await audit(tx, actor, row.tally.projectId, tallyId, 'tally.evidence_added', undefined, { files: views.map((v) => ({ id: v.id, fileName: v.fileName, sizeBytes: v.sizeBytes, sha256: v.sha256 })) });
+      await audit(tx, actor, row.tally.projectId, tallyId, 'tally.evidence_added', undefined, {
+        files: views.map((v) => ({ id: v.id, fileName: v.fileName, sizeBytes: v.sizeBytes, sha256: v.sha256 })),
+      });
       return views;
     });
   } catch (err) {
@@ -43,9 +58,11 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
 async function loadEvidence(db: Db, actor: Actor, evidenceId: string, write: boolean) {
   const found = isUuid(evidenceId) ? await repo.findEvidence(db, evidenceId) : undefined;
   if (!found) throw notFound('The file');
-  const { roles } = await loadProjectAccess(db, actor, found.projectId, write ? canWriteTallies : undefined).catch((err: unknown) => {
-    throw err instanceof AppError && err.status === 404 ? notFound('The file') : err;
-  });
+  const { roles } = await loadProjectAccess(db, actor, found.projectId, write ? canWriteTallies : undefined).catch(
+    (err: unknown) => {
+      throw err instanceof AppError && err.status === 404 ? notFound('The file') : err;
+    },
+  );
   if (!(await payAppVisible(db, roles, found.payAppId))) throw notFound('The file');
   return found;
 }
@@ -57,10 +74,19 @@ export async function downloadEvidence(db: Db, storage: Storage, actor: Actor, e
 
 export async function removeEvidence(db: Db, storage: Storage, actor: Actor, evidenceId: string) {
   const found = await loadEvidence(db, actor, evidenceId, true);
-  if (found.tallyStatus !== 'draft') throw new AppError(409, 'TALLY_NOT_DRAFT', 'Evidence can be removed only while its tally is a draft.');
+  if (found.tallyStatus !== 'draft')
+    throw new AppError(409, 'TALLY_NOT_DRAFT', 'Evidence can be removed only while its tally is a draft.');
   await db.transaction(async (tx) => {
     await repo.deleteEvidence(tx, evidenceId);
-    await audit(tx, actor, found.projectId, found.evidence.tallyId, 'tally.evidence_removed', { id: evidenceId, fileName: found.evidence.fileName, sha256: found.evidence.sha256 }, undefined);
+    await audit(
+      tx,
+      actor,
+      found.projectId,
+      found.evidence.tallyId,
+      'tally.evidence_removed',
+      { id: evidenceId, fileName: found.evidence.fileName, sha256: found.evidence.sha256 },
+      undefined,
+    );
   });
   await storage.remove(found.evidence.storageKey).catch(() => undefined);
 }

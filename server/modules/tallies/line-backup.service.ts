@@ -4,7 +4,7 @@ import { notFound } from '../../lib/app-error';
 import { loadPayAppAccess } from '../pay-apps/pay-app-access';
 import { listLines } from '../pay-apps/pay-apps.repository';
 import { isUuid } from '../projects/project-access';
-import { presentTally } from './tallies.presenter';
+import { presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 
 /**
@@ -23,6 +23,6 @@ export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId:
   );
   return {
     line: { id: line.id, bidItemId: line.bidItemId, payAppId: app.id, payAppNumber: app.number },
-    tallies: rows.map((r) => presentTally(r, counts.get(r.tally.id) ?? 0)),
+    tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0)),
   };
 }

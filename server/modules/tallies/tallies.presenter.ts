@@ -2,10 +2,11 @@ import type {
   EvidenceKind,
   EvidenceView,
   TallyResult,
+  TallySummaryView,
   TallyRevisionView,
   TallyView,
 } from '../../../src/shared/schemas/tally';
-import type { EvidenceRow, RevisionRow, TallyJoined } from './tallies.repository';
+import type { EvidenceRow, RevisionRow, TallyJoined, TallySummaryRow } from './tallies.repository';
 
 export function presentTally(row: TallyJoined, evidenceCount: number): TallyView {
   const { tally } = row;
@@ -21,6 +22,25 @@ export function presentTally(row: TallyJoined, evidenceCount: number): TallyView
     quantity: tally.quantity,
     manualBasis: tally.manualBasis,
     sanityReason: tally.sanityReason,
+    status: tally.status,
+    payAppId: tally.payAppId,
+    author: { id: tally.authorUserId, name: row.authorName },
+    evidenceCount,
+    createdAt: tally.createdAt.toISOString(),
+    updatedAt: tally.updatedAt.toISOString(),
+  };
+}
+
+export function presentTallySummary(row: TallySummaryRow, evidenceCount: number): TallySummaryView {
+  const { tally } = row;
+  return {
+    id: tally.id,
+    projectId: tally.projectId,
+    bidItem: row.bidItem,
+    measuredOn: tally.measuredOn,
+    title: tally.title,
+    method: tally.method,
+    quantity: tally.quantity,
     status: tally.status,
     payAppId: tally.payAppId,
     author: { id: tally.authorUserId, name: row.authorName },

@@ -1,6 +1,8 @@
-import { and, asc, count, desc, eq, gte, inArray, lte, ne, sum, type SQL } from 'drizzle-orm';
+import { and, asc, sql, count, desc, eq, gte, inArray, isNull, lte, ne, or, sum, type SQL } from 'drizzle-orm';
+import type { PayAppStatus } from '../../../src/shared/constants';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
+import { keyset } from '../../lib/paging';
 import { bidItems, payApps, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
 
 export type TallyRow = typeof tallies.$inferSelect;
@@ -32,16 +34,57 @@ function joined(db: Executor) {
     .innerJoin(user, eq(user.id, tallies.authorUserId));
 }
 
-export async function listTallies(db: Executor, projectId: string, q: TallyListQuery): Promise<TallyJoined[]> {
-  const where: SQL[] = [eq(tallies.projectId, projectId)];
+/** The list's columns: no inputs and no result, so a page never reads the worksheets. */
+const summaryColumns = {
+  id: tallies.id,
+  projectId: tallies.projectId,
+  measuredOn: tallies.measuredOn,
+  title: tallies.title,
+  method: tallies.method,
+  quantity: tallies.quantity,
+  status: tallies.status,
+  payAppId: tallies.payAppId,
+  authorUserId: tallies.authorUserId,
+  createdAt: tallies.createdAt,
+  updatedAt: tallies.updatedAt,
+};
+
+function summaries(db: Executor, pageKey: SQL.Aliased<string> | SQL<string>) {
+  return db
+    .select({ tally: summaryColumns, bidItem: joinedColumns.bidItem, authorName: user.name, pageKey })
+    .from(tallies)
+    .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
+    .innerJoin(user, eq(user.id, tallies.authorUserId));
+}
+
+/** One page of a project's tallies, newest first by (created_at, id); `pageKey` is created_at for the cursor. */
+export async function listTallySummaries(
+  db: Executor,
+  projectId: string,
+  q: TallyListQuery,
+  billedOn: 'any' | readonly PayAppStatus[] = 'any',
+) {
+  const page = keyset(tallies.createdAt, tallies.id, q);
+  const where: (SQL | undefined)[] = [eq(tallies.projectId, projectId), page.after];
   if (q.status) where.push(eq(tallies.status, q.status));
   if (q.bidItemId) where.push(eq(tallies.bidItemId, q.bidItemId));
   if (q.from) where.push(gte(tallies.measuredOn, q.from));
   if (q.to) where.push(lte(tallies.measuredOn, q.to));
-  return joined(db)
+  if (billedOn !== 'any') {
+    const seen = db
+      .select({ id: payApps.id })
+      .from(payApps)
+      .where(inArray(payApps.status, [...billedOn]));
+    where.push(
+      billedOn.length > 0 ? or(isNull(tallies.payAppId), inArray(tallies.payAppId, seen)) : isNull(tallies.payAppId),
+    );
+  }
+  return summaries(db, page.key)
     .where(and(...where))
-    .orderBy(desc(tallies.measuredOn), asc(bidItems.itemNumber));
+    .orderBy(...page.order)
+    .limit(page.fetch);
 }
+export type TallySummaryRow = Awaited<ReturnType<typeof listTallySummaries>>[number];
 
 export async function findTally(db: Executor, tallyId: string): Promise<TallyJoined | undefined> {
   const [row] = await joined(db).where(eq(tallies.id, tallyId)).limit(1);
@@ -169,8 +212,9 @@ export async function listRevisions(db: Executor, tallyId: string) {
 }
 
 /** The tallies a pay application billed to one bid item: the backup of its line, oldest measurement first. */
-export async function listLineTallies(db: Executor, payAppId: string, bidItemId: string): Promise<TallyJoined[]> {
-  return joined(db)
+/** The summaries of the tallies one application billed to one bid item (bounded by the application). */
+export async function listLineTallies(db: Executor, payAppId: string, bidItemId: string) {
+  return summaries(db, sql<string>`${tallies.createdAt}::text`)
     .where(and(eq(tallies.payAppId, payAppId), eq(tallies.bidItemId, bidItemId)))
     .orderBy(asc(tallies.measuredOn), asc(tallies.createdAt));
 }

@@ -17,11 +17,13 @@ export function talliesRouter(ctx: AppContext): Router {
   const router = Router();
   router.get('/projects/:projectId/tallies', async (req, res) => {
     const query = tallyListQuerySchema.parse(req.query);
-    res.json({ tallies: await service.listTallies(db, getActor(res), req.params.projectId, query) });
+    res.json(await service.listTallies(db, getActor(res), req.params.projectId, query));
   });
   router.post('/projects/:projectId/tallies', async (req, res) => {
     const input = createTallySchema.parse(req.body);
-    res.status(201).json({ tally: await service.createTally(db, getActor(res), req.params.projectId, input, ctx.compute) });
+    res
+      .status(201)
+      .json({ tally: await service.createTally(db, getActor(res), req.params.projectId, input, ctx.compute) });
   });
   router.get('/tallies/:tallyId', async (req, res) => {
     res.json(await service.getTally(db, getActor(res), req.params.tallyId));
@@ -39,7 +41,9 @@ export function talliesRouter(ctx: AppContext): Router {
   });
   router.post('/tallies/:tallyId/evidence', evidenceUpload, async (req, res) => {
     const files = await checkEvidenceFiles(req.files as Express.Multer.File[] | undefined);
-    res.status(201).json({ evidence: await evidence.addEvidence(db, storage, getActor(res), String(req.params.tallyId), files) });
+    res
+      .status(201)
+      .json({ evidence: await evidence.addEvidence(db, storage, getActor(res), String(req.params.tallyId), files) });
   });
   router.get('/evidence/:evidenceId/download', async (req, res) => {
     const { evidence: row, bytes } = await evidence.downloadEvidence(db, storage, getActor(res), req.params.evidenceId);

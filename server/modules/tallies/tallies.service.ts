@@ -2,12 +2,15 @@ import {
   createTallySchema,
   type CreateTallyInput,
   type TallyListQuery,
+  type TallySummaryView,
   type UpdateTallyInput,
 } from '../../../src/shared/schemas/tally';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import type { ComputePool } from '../../lib/compute/compute-pool';
 import { AppError, validationFailed } from '../../lib/app-error';
+import { pageOf } from '../../lib/paging';
+import type { Page } from '../../../src/shared/schemas/paging';
 import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
@@ -15,25 +18,37 @@ import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
 import { canWriteTallies, isEditableTally } from './tallies.policy';
-import { presentEvidence, presentRevision, presentTally } from './tallies.presenter';
+import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
-import { loadTallyAccess, payAppVisible, tallyNotDraft } from './tally-access';
+import { loadTallyAccess, tallyNotDraft } from './tally-access';
+import { PAY_APP_STATUSES } from '../../../src/shared/constants';
+import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 
-export async function listTallies(db: Db, actor: Actor, projectId: string, query: TallyListQuery) {
+/**
+ * One page of the project's tallies as summaries (no inputs, no engine result). The owner's side does not see
+ * tallies billed on an application it cannot see yet (filtered in the query, so pages stay full and walk every row).
+ */
+export async function listTallies(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  query: TallyListQuery,
+): Promise<Page<TallySummaryView>> {
   const { roles } = await loadProjectAccess(db, actor, projectId);
-  const hidden = new Set<string>();
-  const all = await repo.listTallies(db, projectId, query);
-  for (const id of new Set(all.map((r) => r.tally.payAppId).filter((v): v is string => v !== null))) {
-    if (!(await payAppVisible(db, roles, id))) hidden.add(id);
-  }
-  // The owner's side does not see tallies billed on an application it cannot see yet.
-  const rows = all.filter((r) => !r.tally.payAppId || !hidden.has(r.tally.payAppId));
+  const visible = PAY_APP_STATUSES.filter((s) => canSeePayApp(roles, s));
+  const billedOn = visible.length === PAY_APP_STATUSES.length ? 'any' : visible;
+  const rows = await repo.listTallySummaries(db, projectId, query, billedOn);
   const counts = await repo.evidenceCounts(
     db,
     rows.map((r) => r.tally.id),
   );
-  return rows.map((r) => presentTally(r, counts.get(r.tally.id) ?? 0));
+  return pageOf(
+    rows,
+    query.limit,
+    (r) => ({ at: r.pageKey, id: r.tally.id }),
+    (r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0),
+  );
 }
 
 export async function getTally(db: Db, actor: Actor, tallyId: string) {

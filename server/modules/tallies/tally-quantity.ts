@@ -18,7 +18,12 @@ type TallyQuantityInput = Pick<
  * The tally's quantity in the bid item's pay unit and basis, computed on the server with the same pure function
  * the worksheet preview uses (src/shared/domain/billed-quantity.ts); the client's number is never taken.
  */
-export async function computeTally(input: TallyQuantityInput, item: PayItem, f: MaterialFactors, compute?: ComputePool): Promise<TallyResult> {
+export async function computeTally(
+  input: TallyQuantityInput,
+  item: PayItem,
+  f: MaterialFactors,
+  compute?: ComputePool,
+): Promise<TallyResult> {
   const engine = input.method === 'manual' ? null : await runWorksheet(input.method, input.inputs ?? {}, compute);
   try {
     const bill = billedQuantity(input.method, input.inputs ?? null, engine, item, f, {

@@ -26,7 +26,11 @@ export function countValues(value: unknown, cap: number): number {
  * Runs the worksheet with the engine's runCalc on the server (the authoritative result); bad inputs answer 400.
  * Large worksheets run in the compute pool (503 with Retry-After when it is full or the time limit passes).
  */
-export async function runWorksheet(method: MeasurementMethod, inputs: Record<string, unknown>, compute?: ComputePool): Promise<WorksheetResult> {
+export async function runWorksheet(
+  method: MeasurementMethod,
+  inputs: Record<string, unknown>,
+  compute?: ComputePool,
+): Promise<WorksheetResult> {
   // Which methods bill is the closed table METHOD_BILLING (src/shared/constants.ts); a worksheet's calc method has its name.
   const billing = METHOD_BILLING[method];
   const refuse = !billing.bills

@@ -5,7 +5,7 @@ import { PROJECT_TABS } from '../project-tabs';
 /** The project tab bar, read from PROJECT_TABS; tabs still to come are dimmed but reachable. */
 export function ProjectTabsNav() {
   return (
-    <nav aria-label="Project" className="mt-4 overflow-x-auto border-b border-stone-200">
+    <nav aria-label="Project" className="relative mt-4 overflow-x-auto border-b border-stone-200">
       <ul className="flex min-w-max gap-1">
         {PROJECT_TABS.map((tab) => (
           <li key={tab.path}>

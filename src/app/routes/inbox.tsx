@@ -1,8 +1,8 @@
 import { InboxScreen, inboxQueryOptions } from '@/features/inbox';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader() {
-  void queryClient.prefetchQuery(inboxQueryOptions());
+  prefetchWhenSignedIn(inboxQueryOptions());
   return null;
 }
 

@@ -6,10 +6,10 @@ import { useCompanies } from '@/features/companies/api/get-companies';
 import { projectsQueryOptions, useProjects } from '@/features/projects/api/get-projects';
 import { NewJobDialog } from '@/features/projects/components/new-job-dialog';
 import { ProjectList } from '@/features/projects/components/project-list';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader() {
-  void queryClient.prefetchQuery(projectsQueryOptions());
+  prefetchWhenSignedIn(projectsQueryOptions());
   return null;
 }
 

@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { bidItemsQueryOptions } from '@/features/bid-items/api/get-bid-items';
 import { BidSchedule } from '@/features/bid-items/components/bid-schedule';
 import { canEditBidSchedule, useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(bidItemsQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(bidItemsQueryOptions(params.projectId ?? ''));
   return null;
 }
 

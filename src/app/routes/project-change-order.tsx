@@ -2,10 +2,10 @@ import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { changeOrderQueryOptions } from '@/features/change-orders/api/change-orders';
 import { ChangeOrderDetail } from '@/features/change-orders/components/change-order-detail';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(changeOrderQueryOptions(params.changeOrderId ?? ''));
+  prefetchWhenSignedIn(changeOrderQueryOptions(params.changeOrderId ?? ''));
   return null;
 }
 

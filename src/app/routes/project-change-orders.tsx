@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { changeOrdersQueryOptions } from '@/features/change-orders/api/change-orders';
 import { ChangeOrderList } from '@/features/change-orders/components/change-order-list';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(changeOrdersQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(changeOrdersQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { payAppQueryOptions } from '@/features/pay-apps/api/get-pay-apps';
 import { PayAppDetailScreen } from '@/features/pay-apps/components/pay-app-detail';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(payAppQueryOptions(params.payAppId ?? ''));
+  prefetchWhenSignedIn(payAppQueryOptions(params.payAppId ?? ''));
   return null;
 }
 

@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { payAppsQueryOptions } from '@/features/pay-apps/api/get-pay-apps';
 import { PayAppsScreen } from '@/features/pay-apps/components/pay-apps-screen';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(payAppsQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(payAppsQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -1,10 +1,10 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { PayBasisScreen, profilesQuery } from '@/features/field-records';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(profilesQuery(params.projectId ?? ''));
+  prefetchWhenSignedIn(profilesQuery(params.projectId ?? ''));
   return null;
 }
 

@@ -1,10 +1,10 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { useProject } from '@/features/projects/api/get-project';
 import { PaymentsScreen, projectPaymentsQueryOptions } from '@/features/payments';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(projectPaymentsQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(projectPaymentsQueryOptions(params.projectId ?? ''));
   return null;
 }
 

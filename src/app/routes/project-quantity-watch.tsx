@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { useProject } from '@/features/projects/api/get-project';
 import { varianceQueryOptions } from '@/features/variance/api/variance';
 import { QuantityWatch } from '@/features/variance/components/quantity-watch';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(varianceQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(varianceQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -1,11 +1,11 @@
 import { Link, Outlet, useParams, type LoaderFunctionArgs } from 'react-router';
 import { projectQueryOptions, useProject } from '@/features/projects/api/get-project';
 import { RoleBadges } from '@/features/projects/components/role-badges';
-import { queryClient } from '@/lib/query-client';
 import { ProjectTabsNav } from '../layout/project-tabs-nav';
+import { ensureWhenSignedIn } from '../prefetch';
 
 export async function loader({ params }: LoaderFunctionArgs) {
-  await queryClient.ensureQueryData(projectQueryOptions(params.projectId ?? ''));
+  await ensureWhenSignedIn(projectQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -3,11 +3,11 @@ import { bidItemsQueryOptions, useBidItems } from '@/features/bid-items/api/get-
 import { useProject } from '@/features/projects/api/get-project';
 import { talliesQueryOptions } from '@/features/tallies/api/get-tallies';
 import { TalliesScreen } from '@/features/tallies/components/tallies-screen';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(talliesQueryOptions(params.projectId ?? ''));
-  void queryClient.prefetchQuery(bidItemsQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(talliesQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(bidItemsQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -3,10 +3,10 @@ import { usePayApps } from '@/features/pay-apps/api/get-pay-apps';
 import { useProject } from '@/features/projects/api/get-project';
 import { tallyQueryOptions } from '@/features/tallies/api/get-tallies';
 import { TallyDetail } from '@/features/tallies/components/tally-detail';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(tallyQueryOptions(params.tallyId ?? ''));
+  prefetchWhenSignedIn(tallyQueryOptions(params.tallyId ?? ''));
   return null;
 }
 

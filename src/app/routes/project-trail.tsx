@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { projectTrailQueryOptions } from '@/features/audit/api/get-trail';
 import { ProjectTrail } from '@/features/audit/components/project-trail';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(projectTrailQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(projectTrailQueryOptions(params.projectId ?? ''));
   return null;
 }
 

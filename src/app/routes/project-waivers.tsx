@@ -2,10 +2,10 @@ import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { projectWaiversQueryOptions, WaiversScreen } from '@/features/lien-waivers';
 import { useMe } from '@/features/auth/api/get-me';
 import { useProject } from '@/features/projects/api/get-project';
-import { queryClient } from '@/lib/query-client';
+import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
-  void queryClient.prefetchQuery(projectWaiversQueryOptions(params.projectId ?? ''));
+  prefetchWhenSignedIn(projectWaiversQueryOptions(params.projectId ?? ''));
   return null;
 }
 

@@ -1,11 +1,23 @@
 import type * as React from 'react';
 import { cn } from '@/lib/cn';
 
-/** Dense, readable data tables: sticky header, hairline rules, numbers in tabular figures (`num`). */
+/**
+ * Dense, readable data tables: sticky header, hairline rules, numbers in tabular figures (`num`). A table wider
+ * than the window scrolls inside its own box with its first column (the item) held in place; the box is
+ * `relative` so nothing inside it (screen-reader-only text is absolutely placed) can widen the page.
+ */
 export function Table({ className, ...props }: React.ComponentProps<'table'>) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white shadow-xs">
-      <table className={cn('w-full border-collapse text-sm', className)} {...props} />
+    <div className="relative overflow-x-auto rounded-lg border border-stone-200 bg-white shadow-xs">
+      <table
+        className={cn(
+          'w-full border-collapse text-sm',
+          '[&_td:first-child]:sticky [&_td:first-child]:left-0 [&_td:first-child]:z-[1] [&_td:first-child]:bg-white',
+          '[&_th:first-child]:sticky [&_th:first-child]:left-0 [&_th:first-child]:z-[1] [&_th:first-child]:bg-stone-100',
+          className,
+        )}
+        {...props}
+      />
     </div>
   );
 }

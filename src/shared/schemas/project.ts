@@ -112,3 +112,6 @@ export type MeView = {
   company: CompanyView | null;
   isAdmin: boolean;
 };
+
+/** GET /api/session: whether the browser is signed in, and who (never a 401). */
+export type SessionView = { signedIn: false } | { signedIn: true; me: MeView };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageQuerySchema } from './paging';
 import {
   MEASUREMENT_BASES,
   MEASUREMENT_METHODS,
@@ -81,12 +82,15 @@ export const updateTallySchema = z.object(tallyFields).partial().strict();
 export type UpdateTallyInput = z.infer<typeof updateTallySchema>;
 export const checkTallyMethod = checkMethod;
 
-export const tallyListQuerySchema = z.object({
+export const tallyListFilterSchema = z.object({
   status: z.enum(TALLY_STATUSES).optional(),
   bidItemId: z.uuid().optional(),
   from: isoDateSchema.optional(),
   to: isoDateSchema.optional(),
 });
+export type TallyListFilter = z.infer<typeof tallyListFilterSchema>;
+/** The list's filters plus the shared paging (`limit`, `cursor`). */
+export const tallyListQuerySchema = tallyListFilterSchema.extend(pageQuerySchema.shape);
 export type TallyListQuery = z.infer<typeof tallyListQuerySchema>;
 
 /** An earlier saved state of a draft, newest first in a tally's history. */
@@ -127,6 +131,23 @@ export type TallyResult = {
   unit: PayUnit;
   basis: MeasurementBasis | null;
   trail: string[];
+};
+
+/** A tally in a list: no inputs and no engine result (those come with GET of the one tally). */
+export type TallySummaryView = {
+  id: string;
+  projectId: string;
+  bidItem: { id: string; itemNumber: string; description: string; payUnit: PayUnit; basis: MeasurementBasis };
+  measuredOn: string;
+  title: string;
+  method: MeasurementMethod;
+  quantity: number;
+  status: TallyStatus;
+  payAppId: string | null;
+  author: { id: string; name: string };
+  evidenceCount: number;
+  createdAt: string;
+  updatedAt: string;
 };
 
 export type TallyView = {

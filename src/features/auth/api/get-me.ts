@@ -1,10 +1,16 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
-import type { MeView } from '@/shared/schemas/project';
+import { api, ApiError } from '@/lib/api-client';
+import type { MeView, SessionView } from '@/shared/schemas/project';
 import { authKeys } from './keys';
 
-export function getMe(): Promise<MeView> {
-  return api.get<MeView>('/api/me');
+/**
+ * The signed-in person, through GET /api/session (which answers signed out without a failed request); signed out,
+ * it fails as a 401 would, so the route loaders send the visitor to sign in.
+ */
+export async function getMe(): Promise<MeView> {
+  const session = await api.get<SessionView>('/api/session');
+  if (!session.signedIn) throw new ApiError(401, 'UNAUTHENTICATED', 'Sign in to continue.');
+  return session.me;
 }
 
 export const meQueryOptions = () =>

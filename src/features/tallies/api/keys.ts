@@ -1,9 +1,9 @@
-import type { TallyListQuery } from '@/shared/schemas/tally';
+import type { TallyListFilter } from '@/shared/schemas/tally';
 
 export const tallyKeys = {
   all: ['tallies'] as const,
   lists: () => [...tallyKeys.all, 'list'] as const,
-  list: (projectId: string, query: TallyListQuery = {}) => [...tallyKeys.lists(), projectId, query] as const,
+  list: (projectId: string, query: TallyListFilter = {}) => [...tallyKeys.lists(), projectId, query] as const,
   details: () => [...tallyKeys.all, 'detail'] as const,
   detail: (tallyId: string) => [...tallyKeys.details(), tallyId] as const,
 };

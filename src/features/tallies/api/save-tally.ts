@@ -11,16 +11,25 @@ function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResul
 }
 
 export function useCreateTally(projectId: string) {
-  return useTallyMutation(async (input: CreateTallyInput) => (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally);
+  return useTallyMutation(
+    async (input: CreateTallyInput) =>
+      (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally,
+  );
 }
 
 /** A draft's changes; the server merges them and computes the quantity again. */
 export function useUpdateTally(tallyId: string) {
-  return useTallyMutation(async (input: UpdateTallyInput) => (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally);
+  return useTallyMutation(
+    async (input: UpdateTallyInput) =>
+      (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally,
+  );
 }
 
 export function useMarkReady() {
-  return useTallyMutation(async (tallyId: string) => (await api.post<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}/ready`)).tally);
+  return useTallyMutation(
+    async (tallyId: string) =>
+      (await api.post<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}/ready`)).tally,
+  );
 }
 
 export function useDeleteTally() {

@@ -5,7 +5,11 @@ import type { EvidenceView } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 
 /** Uploads files in the multipart field `files` with XMLHttpRequest, the only browser API with upload progress. */
-export function uploadEvidence(tallyId: string, files: File[], onProgress: (fraction: number) => void): Promise<EvidenceView[]> {
+export function uploadEvidence(
+  tallyId: string,
+  files: File[],
+  onProgress: (fraction: number) => void,
+): Promise<EvidenceView[]> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', `/api/tallies/${encodeURIComponent(tallyId)}/evidence`);

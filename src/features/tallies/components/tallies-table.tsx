@@ -3,11 +3,11 @@ import { Link } from 'react-router';
 import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import { formatDate, formatQuantity } from '@/lib/format';
 import { MEASUREMENT_METHOD_LABELS } from '@/shared/constants';
-import type { TallyView } from '@/shared/schemas/tally';
+import type { TallySummaryView } from '@/shared/schemas/tally';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** The tallies of a project, newest measurement first; each row opens its tally. */
-export function TalliesTable({ tallies }: { tallies: TallyView[] }) {
+export function TalliesTable({ tallies }: { tallies: TallySummaryView[] }) {
   return (
     <Table>
       <TableHead>
@@ -26,7 +26,8 @@ export function TalliesTable({ tallies }: { tallies: TallyView[] }) {
           <TableRow key={t.id}>
             <TableCell className="whitespace-nowrap tabular-nums">{formatDate(`${t.measuredOn}T12:00:00`)}</TableCell>
             <TableCell>
-              <span className="font-medium">{t.bidItem.itemNumber}</span> <span className="text-stone-600">{t.bidItem.description}</span>
+              <span className="font-medium">{t.bidItem.itemNumber}</span>{' '}
+              <span className="text-stone-600">{t.bidItem.description}</span>
             </TableCell>
             <TableCell>
               <Link to={t.id} className="font-medium text-spruce-800 underline-offset-2 hover:underline">
@@ -34,11 +35,13 @@ export function TalliesTable({ tallies }: { tallies: TallyView[] }) {
               </Link>
             </TableCell>
             <TableCell className="text-stone-600">{MEASUREMENT_METHOD_LABELS[t.method]}</TableCell>
-            <TableCell className="text-right whitespace-nowrap tabular-nums">{formatQuantity(t.quantity, t.bidItem.payUnit)}</TableCell>
+            <TableCell className="text-right whitespace-nowrap tabular-nums">
+              {formatQuantity(t.quantity, t.bidItem.payUnit)}
+            </TableCell>
             <TableCell>
               <TallyStatusBadge status={t.status} />
             </TableCell>
-            <TableCell className="text-right tabular-nums text-stone-600">
+            <TableCell className="text-right text-stone-600 tabular-nums">
               {t.evidenceCount > 0 ? (
                 <span className="inline-flex items-center gap-1">
                   <Paperclip aria-label="files" className="size-3.5" />
