@@ -4,12 +4,13 @@ import { changeOrderDocuments, changeOrders } from '../../db/schema';
 
 export type ChangeOrderDocumentRow = typeof changeOrderDocuments.$inferSelect;
 
+/** In the order attached; files of one upload (one timestamp) by name, so the order is stable. */
 export async function listDocuments(db: Executor, changeOrderId: string): Promise<ChangeOrderDocumentRow[]> {
   return db
     .select()
     .from(changeOrderDocuments)
     .where(eq(changeOrderDocuments.changeOrderId, changeOrderId))
-    .orderBy(asc(changeOrderDocuments.createdAt), asc(changeOrderDocuments.id));
+    .orderBy(asc(changeOrderDocuments.createdAt), asc(changeOrderDocuments.fileName), asc(changeOrderDocuments.id));
 }
 
 export async function countDocuments(db: Executor, changeOrderId: string): Promise<number> {
