@@ -57,9 +57,10 @@ describe('change order documents: attaching', () => {
     for (const who of ['subcontractor', 'general_contractor', 'owner'] as const) {
       const list = await (await as(who)).get(`/api/change-orders/${co.id}/documents`);
       expect(list.status).toBe(200);
+      // One upload shares one timestamp: its files are listed by name.
       expect(list.body.documents.map((d: { fileName: string }) => d.fileName)).toEqual([
-        'survey-note.pdf',
         'photo.png',
+        'survey-note.pdf',
       ]);
     }
   });
