@@ -256,6 +256,14 @@ export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
 export const PAYMENT_METHODS = ['card', 'us_bank_account'] as const;
 export type PaymentMethod = (typeof PAYMENT_METHODS)[number];
 
+/** Who bears the payment processor's fee: the payer adds it to the charge, or the payee absorbs it. */
+export const FEE_BEARERS = ['payer', 'payee'] as const;
+export type FeeBearer = (typeof FEE_BEARERS)[number];
+
+/** What a lien waiver excepts from its release, each with an amount. */
+export const WAIVER_EXCEPTION_KINDS = ['retainage_held', 'disputed', 'change_order_unpaid', 'signer_added'] as const;
+export type WaiverExceptionKind = (typeof WAIVER_EXCEPTION_KINDS)[number];
+
 /** The four lien waiver forms: conditional or unconditional, on a progress or the final payment. */
 export const LIEN_WAIVER_KINDS = [
   'conditional_progress',

@@ -29,15 +29,22 @@ beforeAll(async () => {
 afterAll(() => t?.close());
 
 const newApp = (opts: Parameters<typeof makeCertifiedPayApp>[3] = {}) =>
-  makeCertifiedPayApp(t.database.db, world.home.id, world.people.subcontractor.id, { number: ++number, periodEnd: '2026-10-31', ...opts });
+  makeCertifiedPayApp(t.database.db, world.home.id, world.people.subcontractor.id, {
+    number: ++number,
+    periodEnd: '2026-10-31',
+    ...opts,
+  });
 const issue = (payAppId: string, body: object) => sub.post(`/api/pay-apps/${payAppId}/lien-waivers`).send(body);
 
 async function pdfText(agent: typeof sub, url: string) {
-  const res = await agent.get(url).buffer(true).parse((r, cb) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
+  const res = await agent
+    .get(url)
+    .buffer(true)
+    .parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
   expect(res.status).toBe(200);
   expect(res.headers['content-type']).toBe('application/pdf');
   const parser = new PDFParse({ data: new Uint8Array(res.body as Buffer) });
@@ -51,7 +58,14 @@ describe('lien waivers', () => {
     const app = await newApp();
     const res = await issue(app.id, { kind: 'conditional_progress', signedName: 'Dana Whitfield' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.waiver).toMatchObject({ kind: 'conditional_progress', amountCents: DUE, throughDate: '2026-10-31', signedName: 'Dana Whitfield', signedByUserId: world.people.subcontractor.id, paymentId: null });
+    expect(res.body.waiver).toMatchObject({
+      kind: 'conditional_progress',
+      amountCents: DUE,
+      throughDate: '2026-10-31',
+      signedName: 'Dana Whitfield',
+      signedByUserId: world.people.subcontractor.id,
+      paymentId: null,
+    });
     const text = await pdfText(owner, res.body.waiver.downloadUrl);
     expect(text).toContain('Conditional waiver on progress payment');
     expect(text).toContain('$13,621.90');
@@ -67,7 +81,7 @@ describe('lien waivers', () => {
     const app = await newApp();
     const early = await issue(app.id, { kind: 'unconditional_progress', signedName: 'Dana Whitfield' });
     expect(early.status).toBe(409);
-    expect(early.body.error.code).toBe('WAIVER_NOT_ALLOWED');
+    expect(early.body.error.code).toBe('WAIVER_PAYMENT_NOT_SETTLED');
     const { paymentId, sessionId } = await startPayment(owner, app.id);
     await confirm(t.standin, sessionId, { account: '000000000009' }); // stays processing (Stripe's test account)
     expect((await issue(app.id, { kind: 'unconditional_progress', signedName: 'Dana Whitfield' })).status).toBe(409);
@@ -102,7 +116,14 @@ describe('lien waivers', () => {
     // The subcontractor company's admin holds no seat here: it does not sign either.
     for (const role of ['owner', 'general_contractor', 'admin', 'subcontractor_admin'] as const) {
       const agent = await signedInAgent(t.app, world.people[role].email);
-      expect((await agent.post(`/api/pay-apps/${app.id}/lien-waivers`).send({ kind: 'conditional_progress', signedName: 'X Y' })).status, role).toBe(403);
+      expect(
+        (
+          await agent
+            .post(`/api/pay-apps/${app.id}/lien-waivers`)
+            .send({ kind: 'conditional_progress', signedName: 'X Y' })
+        ).status,
+        role,
+      ).toBe(403);
     }
     expect(await t.database.db.select().from(lienWaivers).where(eq(lienWaivers.payAppId, app.id))).toHaveLength(0);
   });

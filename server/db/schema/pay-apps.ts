@@ -1,5 +1,23 @@
-import { bigint, boolean, date, index, integer, numeric, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
-import { DISPUTE_RESOLUTIONS, DISPUTE_STATUSES, LINE_REVIEW_STATUSES, PAY_APP_STATUSES } from '../../../src/shared/constants';
+import {
+  bigint,
+  boolean,
+  date,
+  index,
+  integer,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import {
+  DISPUTE_RESOLUTIONS,
+  DISPUTE_STATUSES,
+  LINE_REVIEW_STATUSES,
+  PAY_APP_STATUSES,
+} from '../../../src/shared/constants';
 import { user } from './auth';
 import { bidItems, payUnit } from './bid-items';
 import { timestamps } from './columns';
@@ -108,6 +126,8 @@ export const disputes = pgTable(
     revision: integer('revision').notNull(),
     reason: text('reason').notNull(),
     counterQuantity: quantity('counter_quantity').notNull(),
+    /** The this-period quantity claimed when the dispute was opened (null on disputes opened before it was kept). */
+    claimedQuantity: quantity('claimed_quantity'),
     status: disputeStatus('status').notNull().default('open'),
     resolution: disputeResolution('resolution'),
     resolutionNote: text('resolution_note'),

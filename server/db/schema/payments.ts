@@ -1,9 +1,14 @@
-import { bigint, date, index, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { LIEN_WAIVER_KINDS, PAYMENT_METHODS, PAYMENT_STATUSES } from '../../../src/shared/constants';
+import { bigint, date, index, jsonb, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import {
+  LIEN_WAIVER_KINDS,
+  PAYMENT_METHODS,
+  PAYMENT_STATUSES,
+  type WaiverExceptionKind,
+} from '../../../src/shared/constants';
 import { user } from './auth';
 import { timestamps } from './columns';
 import { payApps } from './pay-apps';
-import { projects } from './projects';
+import { feeBearer, projects } from './projects';
 
 export const paymentStatus = pgEnum('payment_status', PAYMENT_STATUSES);
 export const paymentMethod = pgEnum('payment_method', PAYMENT_METHODS);
@@ -21,7 +26,10 @@ export const payments = pgTable(
       .notNull()
       .references(() => payApps.id),
     amountCents: bigint('amount_cents', { mode: 'number' }).notNull(),
+    /** The processing fee: quoted from the fee schedule when the method is chosen up front, else as the processor reports it. */
     feeCents: bigint('fee_cents', { mode: 'number' }),
+    /** Who bore the fee; the charge is amount + fee when the payer bears it, else the amount. */
+    feeBearer: feeBearer('fee_bearer').notNull().default('payee'),
     method: paymentMethod('method'),
     status: paymentStatus('status').notNull().default('created'),
     idempotencyKey: text('idempotency_key').notNull().unique(),
@@ -82,6 +90,11 @@ export const lienWaivers = pgTable(
       .references(() => user.id),
     signedAt: timestamp('signed_at', { withTimezone: true }).notNull(),
     storageKey: text('storage_key').notNull(),
+    /** What the release does not cover, with amounts: [{ kind, description, amountCents }]. */
+    exceptions: jsonb('exceptions')
+      .$type<{ kind: WaiverExceptionKind; description: string; amountCents: number }[]>()
+      .notNull()
+      .default([]),
     ...timestamps,
   },
   (t) => [index().on(t.payAppId)],

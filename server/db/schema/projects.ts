@@ -10,7 +10,7 @@ import {
   unique,
   uuid,
 } from 'drizzle-orm/pg-core';
-import { PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../../../src/shared/constants';
+import { FEE_BEARERS, PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../../../src/shared/constants';
 import { user } from './auth';
 import { timestamps } from './columns';
 import { companies } from './companies';
@@ -18,6 +18,7 @@ import { companies } from './companies';
 export const unitSystem = pgEnum('unit_system', UNIT_SYSTEMS);
 export const variationPreset = pgEnum('variation_preset', VARIATION_PRESETS);
 export const projectRole = pgEnum('project_role', PROJECT_ROLES);
+export const feeBearer = pgEnum('fee_bearer', FEE_BEARERS);
 
 export const projects = pgTable('projects', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -35,6 +36,8 @@ export const projects = pgTable('projects', {
   majorItemThresholdBps: integer('major_item_threshold_bps').notNull(),
   paymentTermsDays: integer('payment_terms_days').notNull(),
   allowPartialPayments: boolean('allow_partial_payments').notNull().default(false),
+  /** Who bears card and bank-debit processing fees (payer adds them to the charge, or the payee absorbs them). */
+  processingFeeBearer: feeBearer('processing_fee_bearer').notNull().default('payee'),
   ownerApprovesChangeOrders: boolean('owner_approves_change_orders').notNull().default(false),
   swellPercent: doublePrecision('swell_percent').notNull(),
   shrinkagePercent: doublePrecision('shrinkage_percent').notNull(),

@@ -2,6 +2,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import {
   currentContract,
   type ContractChangeInput,
+  type ContractItemInput,
   type ContractItemResult,
   type ContractResult,
 } from '../../../src/shared/domain/contract';
@@ -9,7 +10,11 @@ import type { ContractQuantityView } from '../../../src/shared/schemas/change-or
 import type { Executor } from '../../db/client';
 import { bidItems, changeOrderItems, changeOrders } from '../../db/schema';
 
-export type LoadedContract = ContractResult & { byId: Map<string, ContractItemResult> };
+export type LoadedContract = ContractResult & {
+  byId: Map<string, ContractItemResult>;
+  /** What currentContract was given, for computations over the same contract (change order values). */
+  inputs: { items: ContractItemInput[]; changes: ContractChangeInput[] };
+};
 
 /**
  * The project's contract as it stands (src/shared/domain/contract.ts): bid items hold their original quantity
@@ -68,11 +73,17 @@ export async function loadContract(db: Executor, projectId: string): Promise<Loa
       return [{ changeOrderNumber: r.number, kind: r.kind, bidItemId: r.bidItemId, newUnitPriceCents: r.price }];
     return [];
   });
-  const result = currentContract(
-    items.map((i) => ({ id: i.id, originalQuantity: i.addedBy ? 0 : i.quantity, originalUnitPriceCents: i.price })),
-    changes,
-  );
-  return { ...result, byId: new Map(result.items.map((i) => [i.bidItemId, i])) };
+  const itemInputs = items.map((i) => ({
+    id: i.id,
+    originalQuantity: i.addedBy ? 0 : i.quantity,
+    originalUnitPriceCents: i.price,
+  }));
+  const result = currentContract(itemInputs, changes);
+  return {
+    ...result,
+    byId: new Map(result.items.map((i) => [i.bidItemId, i])),
+    inputs: { items: itemInputs, changes },
+  };
 }
 
 /** Original, approved change and current contract quantity of each bid item (see loadContract). */

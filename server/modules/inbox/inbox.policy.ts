@@ -55,8 +55,8 @@ type Paid = { id: string; amountCents: number; status: string };
 type Issued = { kind: LienWaiverKind; paymentId: string | null };
 
 /**
- * Waivers the subcontractor may sign now (waiver policy), less a conditional one on an application already paid
- * in full (the money came, so the conditional form no longer serves). The others on the project are told that an
+ * Waivers the subcontractor may sign now (waiver policy: a conditional one only while the payment has not
+ * settled, an unconditional one only after). The others on the project are told that an
  * unconditional waiver is owed for a settled payment, so they can ask for it.
  */
 export function waiverStep(
@@ -65,9 +65,8 @@ export function waiverStep(
   paid: Paid[],
   issued: Issued[],
 ): { kind: InboxKind; waiver: LienWaiverKind; amountCents: number }[] {
-  const open = waiverOptions(app, paid, issued).filter(
-    (o) => o.allowed && !(o.kind.startsWith('conditional') && app.status === 'paid'),
-  );
+  // The policy offers a conditional form only while the payment has not settled.
+  const open = waiverOptions(app, paid, issued).filter((o) => o.allowed);
   if (canIssueWaiver(roles))
     return open.map((o) => ({ kind: 'waiver_sign', waiver: o.kind, amountCents: o.amountCents }));
   if (roles.includes('owner') || roles.includes('general_contractor')) {

@@ -1,6 +1,13 @@
 import { createRequire } from 'node:module';
 import type { LienWaiverKind } from '../../../src/shared/constants';
-import { LIEN_WAIVER_TITLES, statutoryNotice, waiverBody } from '../../../src/shared/domain/lien-waiver-text';
+import {
+  exceptionsSentence,
+  LIEN_WAIVER_TITLES,
+  statutoryNotice,
+  waiverBody,
+} from '../../../src/shared/domain/lien-waiver-text';
+import { sumCents } from '../../../src/shared/domain/money';
+import type { WaiverExceptionView } from '../../../src/shared/schemas/payment';
 import { formatMoney as formatCentsPlain } from '../../../src/shared/format';
 
 const require = createRequire(import.meta.url);
@@ -23,7 +30,43 @@ export type WaiverPdfInput = {
   signedByEmail: string;
   signedAt: Date;
   paymentRef: string | null;
+  exceptions: readonly WaiverExceptionView[];
 };
+
+const EXCEPTION_LABELS: Record<WaiverExceptionView['kind'], string> = {
+  retainage_held: 'Retainage held',
+  disputed: 'Disputed',
+  change_order_unpaid: 'Change order',
+  signer_added: 'Added by signer',
+};
+
+/** The exceptions as a table (kind, description, amount) under the sentence that keeps them out of the release. */
+function printExceptions(doc: PDFKit.PDFDocument, exceptions: readonly WaiverExceptionView[]) {
+  const total = formatCentsPlain(sumCents(exceptions.map((e) => e.amountCents)));
+  doc
+    .moveDown(1)
+    .font('bold')
+    .fontSize(10)
+    .fillColor('#1f2a24')
+    .text(exceptionsSentence(exceptions.length, total), 60, doc.y, { width: 490 });
+  if (exceptions.length === 0) return;
+  doc.moveDown(0.5);
+  for (const e of exceptions) {
+    const y = doc.y;
+    doc.font('bold').fontSize(9.5).text(EXCEPTION_LABELS[e.kind], 60, y, { width: 100 });
+    doc.font('body').text(e.description, 165, y, { width: 295 });
+    const bottom = doc.y;
+    doc.text(formatCentsPlain(e.amountCents), 465, y, { width: 85, align: 'right' });
+    doc.y = Math.max(bottom, doc.y);
+    doc.moveDown(0.3);
+  }
+  const y = doc.y;
+  doc.moveTo(165, y).lineTo(550, y).strokeColor('#dedad2').stroke();
+  doc.moveDown(0.3);
+  const ty = doc.y;
+  doc.font('bold').text('Excepted in all', 165, ty, { width: 295 });
+  doc.text(total, 465, ty, { width: 85, align: 'right' });
+}
 
 /** Tallyard's own waiver template as a one-page PDF (Work Sans), signed by the typed name. */
 export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
@@ -81,7 +124,8 @@ export async function renderWaiverPdf(w: WaiverPdfInput): Promise<Buffer> {
       doc.y,
       { width: 490, align: 'left', lineGap: 2 },
     );
-  doc.moveDown(2).font('bold').fontSize(10).text('Signed');
+  printExceptions(doc, w.exceptions);
+  doc.moveDown(2).font('bold').fontSize(10).fillColor('#1f2a24').text('Signed', 60, doc.y);
   doc.font('body').fontSize(14).text(w.signedName);
   doc
     .fontSize(8.5)

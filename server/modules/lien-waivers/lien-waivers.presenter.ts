@@ -15,5 +15,6 @@ export function presentWaiver(row: LienWaiverRow, payAppNumber: number): LienWai
     signedByUserId: row.signedByUserId,
     signedAt: row.signedAt.toISOString(),
     downloadUrl: `/api/lien-waivers/${row.id}/pdf`,
+    exceptions: row.exceptions,
   };
 }

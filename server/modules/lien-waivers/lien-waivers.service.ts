@@ -12,6 +12,7 @@ import { renderWaiverPdf } from './lien-waiver-pdf';
 import { canIssueWaiver, waiverOptions } from './lien-waivers.policy';
 import { presentWaiver } from './lien-waivers.presenter';
 import * as repo from './lien-waivers.repository';
+import { exceptionsFor } from './waiver-exceptions.service';
 
 const rethrowAs = (what: string) => (err: unknown) => {
   throw err instanceof AppError && err.status === 404 ? notFound(what) : err;
@@ -27,15 +28,32 @@ async function loadPayApp(ctx: AppContext, actor: Actor, payAppId: string, rule 
   return { app, ...access };
 }
 
-export async function listForProject(ctx: AppContext, actor: Actor, projectId: string): Promise<ProjectLienWaiversView> {
+export async function listForProject(
+  ctx: AppContext,
+  actor: Actor,
+  projectId: string,
+): Promise<ProjectLienWaiversView> {
   const { project } = await loadProjectAccess(ctx.db, actor, projectId);
   const apps = (await repo.payAppsOf(ctx.db, projectId)).filter((a) => isFrozen(a.status));
   const waivers = await repo.listWaivers(ctx.db, { projectId });
   const numbers = new Map(apps.map((a) => [a.id, a.number]));
   const payApps = [];
   for (const a of apps) {
-    const options = waiverOptions(a, await repo.paymentsOf(ctx.db, a.id), waivers.filter((w) => w.payAppId === a.id));
-    payApps.push({ id: a.id, number: a.number, status: a.status, periodEnd: a.periodEnd, isFinal: a.isFinal, options });
+    const options = waiverOptions(
+      a,
+      await repo.paymentsOf(ctx.db, a.id),
+      waivers.filter((w) => w.payAppId === a.id),
+    );
+    const exceptions = await exceptionsFor(ctx.db, a);
+    payApps.push({
+      id: a.id,
+      number: a.number,
+      status: a.status,
+      periodEnd: a.periodEnd,
+      isFinal: a.isFinal,
+      options,
+      exceptions,
+    });
   }
   return { state: project.state, payApps, waivers: waivers.map((w) => presentWaiver(w, numbers.get(w.payAppId) ?? 0)) };
 }
@@ -69,13 +87,26 @@ function signerName(actor: Actor, project: { subcontractorCompanyId: string }, t
  * The subcontractor issues one waiver: the form must be allowed now (unconditional only after the payment
  * settled), the PDF is rendered and stored, then the row and its audit event are written in one transaction.
  */
-export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: string, input: IssueLienWaiverInput): Promise<LienWaiverView> {
+export async function issueWaiver(
+  ctx: AppContext,
+  actor: Actor,
+  payAppId: string,
+  input: IssueLienWaiverInput,
+): Promise<LienWaiverView> {
   const { app, project } = await loadPayApp(ctx, actor, payAppId, canIssueWaiver);
   const signedName = signerName(actor, project, input.signedName);
   const issued = await repo.listWaivers(ctx.db, { payAppId });
   const option = waiverOptions(app, await repo.paymentsOf(ctx.db, app.id), issued).find((o) => o.kind === input.kind);
-  if (!option) throw new AppError(409, 'WAIVER_NOT_ALLOWED', `This is ${app.isFinal ? 'the final' : 'a progress'} application: use the ${app.isFinal ? 'final' : 'progress'} waiver forms.`);
-  if (!option.allowed) throw new AppError(409, 'WAIVER_NOT_ALLOWED', option.reason ?? 'This waiver cannot be issued now.');
+  if (!option)
+    throw new AppError(
+      409,
+      app.isFinal ? 'WAIVER_FINAL_APPLICATION' : 'WAIVER_NOT_FINAL_PAYMENT',
+      app.isFinal
+        ? 'This is the final application: use the final waiver forms.'
+        : 'A final waiver goes only with the final payment (the final application); use the progress waiver forms.',
+    );
+  if (!option.allowed) throw new AppError(409, option.code!, option.reason!);
+  const exceptions = await exceptionsFor(ctx.db, app, input.exceptions ?? []);
   const signedAt = new Date();
   const [claimant, customer, owner] = await Promise.all([
     repo.companyName(ctx.db, project.subcontractorCompanyId),
@@ -97,6 +128,7 @@ export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: strin
     signedByEmail: actor.email,
     signedAt,
     paymentRef: option.paymentId,
+    exceptions,
   });
   const stored = await ctx.storage.put(pdf, 'lien-waivers');
   try {
@@ -112,10 +144,23 @@ export async function issueWaiver(ctx: AppContext, actor: Actor, payAppId: strin
         signedByUserId: actor.userId,
         signedAt,
         storageKey: stored.key,
+        exceptions,
       });
       await recordAudit(tx, {
-        projectId: app.projectId, actorUserId: actor.userId, objectType: 'lien_waiver', objectId: row.id, action: 'lien_waiver.issued',
-        after: { kind: row.kind, amountCents: row.amountCents, throughDate: row.throughDate, signedName: row.signedName, paymentId: row.paymentId, sha256: stored.sha256 },
+        projectId: app.projectId,
+        actorUserId: actor.userId,
+        objectType: 'lien_waiver',
+        objectId: row.id,
+        action: 'lien_waiver.issued',
+        after: {
+          kind: row.kind,
+          amountCents: row.amountCents,
+          throughDate: row.throughDate,
+          signedName: row.signedName,
+          paymentId: row.paymentId,
+          exceptions: row.exceptions,
+          sha256: stored.sha256,
+        },
       });
       return row;
     });
@@ -131,5 +176,8 @@ export async function waiverPdf(ctx: AppContext, actor: Actor, waiverId: string)
   if (!row) throw notFound('The lien waiver');
   await loadProjectAccess(ctx.db, actor, row.projectId).catch(rethrowAs('The lien waiver'));
   const app = (await findPayApp(ctx.db, row.payAppId))!;
-  return { bytes: await ctx.storage.get(row.storageKey), filename: `lien-waiver-pa${app.number}-${row.kind.replace(/_/g, '-')}.pdf` };
+  return {
+    bytes: await ctx.storage.get(row.storageKey),
+    filename: `lien-waiver-pa${app.number}-${row.kind.replace(/_/g, '-')}.pdf`,
+  };
 }

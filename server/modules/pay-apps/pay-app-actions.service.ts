@@ -206,18 +206,17 @@ export async function reviewPayApp(ctx: AppContext, actor: Actor, payAppId: stri
           .where(and(eq(payAppLines.payAppId, app.id), inArray(payAppLines.id, ids)));
     }
     if (disputed.length > 0) {
-      await tx
-        .insert(disputes)
-        .values(
-          disputed.map((d) => ({
-            payAppId: app.id,
-            lineId: d.lineId,
-            revision: app.revision,
-            reason: d.reason!,
-            counterQuantity: d.counterQuantity!,
-            openedByUserId: actor.userId,
-          })),
-        );
+      await tx.insert(disputes).values(
+        disputed.map((d) => ({
+          payAppId: app.id,
+          lineId: d.lineId,
+          revision: app.revision,
+          reason: d.reason!,
+          counterQuantity: d.counterQuantity!,
+          claimedQuantity: lines.get(d.lineId)!.thisPeriodQuantity,
+          openedByUserId: actor.userId,
+        })),
+      );
       const listed = disputed.map((d) => ({
         ...d,
         itemNumber: lines.get(d.lineId)!.itemNumber,

@@ -35,7 +35,10 @@ export function statutoryNotice(state: string): string {
 }
 
 /** The operative sentence of each form. */
-export function waiverBody(kind: LienWaiverKind, p: { claimant: string; customer: string; owner: string; project: string; amount: string; throughDate: string }): string {
+export function waiverBody(
+  kind: LienWaiverKind,
+  p: { claimant: string; customer: string; owner: string; project: string; amount: string; throughDate: string },
+): string {
   const base = `${p.claimant} (claimant) furnished labor, services, equipment or material for ${p.project}, owned by ${p.owner}, under its contract with ${p.customer}.`;
   switch (kind) {
     case 'conditional_progress':
@@ -47,4 +50,14 @@ export function waiverBody(kind: LienWaiverKind, p: { claimant: string; customer
     case 'unconditional_final':
       return `${base} The claimant has been paid in full (${p.amount} in final payment) and waives and releases any lien, stop payment notice and payment bond right it has for all work on the project. This waiver is unconditional and takes effect now.`;
   }
+}
+
+/**
+ * The sentence that keeps the exceptions out of the release. With none, it says so; the statutory form's own
+ * exceptions wording governs where the state prescribes one.
+ */
+export function exceptionsSentence(count: number, total: string): string {
+  if (count === 0)
+    return 'Exceptions: none listed. Where the governing statute prescribes the exceptions wording, that wording governs.';
+  return `Exceptions: this document does not waive or release the ${count === 1 ? 'amount' : `${count} amounts`} listed below (${total} in all), nor rights the contract or the governing statute keep for them.`;
 }

@@ -1,6 +1,15 @@
 import { z } from 'zod';
-import type { LienWaiverKind, PayAppStatus, PaymentMethod, PaymentStatus } from '../constants';
-import { LIEN_WAIVER_KINDS } from '../constants';
+import type {
+  FeeBearer,
+  LienWaiverKind,
+  PayAppStatus,
+  PaymentMethod,
+  PaymentStatus,
+  WaiverExceptionKind,
+} from '../constants';
+import { LIEN_WAIVER_KINDS, PAYMENT_METHODS } from '../constants';
+import type { FeeQuote, FeeRates } from '../domain/payment-fees';
+import { MAX_LINE_AMOUNT_CENTS } from './money-limits';
 
 /**
  * Starting a payment. The amount is computed on the server from the certified application; a partial amount is
@@ -15,7 +24,12 @@ export const createPaymentSchema = z.object({
 });
 export type CreatePaymentInput = z.infer<typeof createPaymentSchema>;
 
-export type PaymentHistoryView = { fromStatus: PaymentStatus | null; toStatus: PaymentStatus; note: string; createdAt: string };
+export type PaymentHistoryView = {
+  fromStatus: PaymentStatus | null;
+  toStatus: PaymentStatus;
+  note: string;
+  createdAt: string;
+};
 
 export type PaymentView = {
   id: string;
@@ -55,10 +69,29 @@ export type PayablePayAppView = {
 export type PayAppPaymentsView = { payApp: PayablePayAppView; payments: PaymentView[] };
 export type ProjectPaymentsView = { payApps: PayablePayAppView[]; payments: PaymentView[] };
 
+/** An exception the signer adds to a waiver: what it is and how much, in whole cents. */
+export const waiverExceptionInputSchema = z
+  .object({
+    description: z
+      .string({ error: 'Describe what is excepted.' })
+      .trim()
+      .min(5, 'Describe what is excepted (at least 5 characters).')
+      .max(300, 'Keep the description under 300 characters.'),
+    amountCents: z
+      .number({ error: 'Enter the amount.' })
+      .int('Enter the amount in whole cents.')
+      .positive('The amount must be more than zero.')
+      .max(MAX_LINE_AMOUNT_CENTS, 'The amount is larger than any contract line can be.'),
+  })
+  .strict();
+export type WaiverExceptionInput = z.infer<typeof waiverExceptionInputSchema>;
+
 export const issueLienWaiverSchema = z.object({
   kind: z.enum(LIEN_WAIVER_KINDS, { error: 'Choose one of the four waiver forms.' }),
   signedName: z.string().trim().min(2, 'Type your full name to sign.').max(120, 'Keep the name under 120 characters.'),
   paymentId: z.uuid('Choose a payment.').optional(),
+  /** Exceptions the signer adds to the computed ones (retainage held, disputed lines, unpaid change orders). */
+  exceptions: z.array(waiverExceptionInputSchema).max(20, 'At most 20 added exceptions.').optional(),
 });
 export type IssueLienWaiverInput = z.infer<typeof issueLienWaiverSchema>;
 
@@ -75,13 +108,41 @@ export type LienWaiverView = {
   signedByUserId: string;
   signedAt: string;
   downloadUrl: string;
+  /** What the waiver does not release, with amounts. */
+  exceptions: WaiverExceptionView[];
 };
 
+export type WaiverExceptionView = { kind: WaiverExceptionKind; description: string; amountCents: number };
+
+/** Why a waiver form cannot be issued now (409 with this code). */
+export type WaiverRefusalCode =
+  | 'WAIVER_NOT_CERTIFIED'
+  | 'WAIVER_ALREADY_ISSUED'
+  | 'WAIVER_PAYMENT_SETTLED'
+  | 'WAIVER_PAYMENT_NOT_SETTLED'
+  | 'WAIVER_FINAL_NOT_PAID_IN_FULL';
+
 /** Which forms the subcontractor may issue for an application now, and why not otherwise. */
-export type WaiverOptionView = { kind: LienWaiverKind; allowed: boolean; reason: string | null; amountCents: number; paymentId: string | null };
+export type WaiverOptionView = {
+  kind: LienWaiverKind;
+  allowed: boolean;
+  code: WaiverRefusalCode | null;
+  reason: string | null;
+  amountCents: number;
+  paymentId: string | null;
+};
 
 export type ProjectLienWaiversView = {
   state: string;
-  payApps: { id: string; number: number; status: PayAppStatus; periodEnd: string; isFinal: boolean; options: WaiverOptionView[] }[];
+  payApps: {
+    id: string;
+    number: number;
+    status: PayAppStatus;
+    periodEnd: string;
+    isFinal: boolean;
+    options: WaiverOptionView[];
+    /** The exceptions a waiver signed now would carry before any the signer adds. */
+    exceptions: WaiverExceptionView[];
+  }[];
   waivers: LienWaiverView[];
 };

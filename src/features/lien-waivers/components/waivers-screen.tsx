@@ -7,6 +7,7 @@ import { formatDate, formatMoney } from '@/lib/format';
 import { LIEN_WAIVER_SUMMARIES, LIEN_WAIVER_TITLES, statutoryNotice } from '@/shared/domain/lien-waiver-text';
 import type { LienWaiverView, ProjectLienWaiversView } from '@/shared/schemas/payment';
 import { useProjectWaivers } from '../api/get-waivers';
+import { ExceptionList } from './exception-list';
 import { IssueWaiverForm } from './issue-waiver-form';
 
 type AppEntry = ProjectLienWaiversView['payApps'][number];
@@ -22,7 +23,17 @@ function IssuedList({ waivers }: { waivers: LienWaiverView[] }) {
           <span className="text-stone-600">
             signed “{w.signedName}”, {formatDate(w.signedAt)}
           </span>
-          <a href={w.downloadUrl} className="text-spruce-700 inline-flex items-center gap-1 underline-offset-2 hover:underline" download>
+          {w.exceptions.length > 0 ? (
+            <span className="text-stone-600">
+              except {formatMoney(w.exceptions.reduce((sum, e) => sum + e.amountCents, 0))} ({w.exceptions.length}{' '}
+              listed)
+            </span>
+          ) : null}
+          <a
+            href={w.downloadUrl}
+            className="inline-flex items-center gap-1 text-spruce-700 underline-offset-2 hover:underline"
+            download
+          >
             <Download aria-hidden className="size-3.5" /> PDF
           </a>
         </li>
@@ -50,11 +61,16 @@ function AppWaivers({
       <CardHeader>
         <CardTitle>
           Pay application No. {app.number}
-          {app.isFinal ? ' (final)' : ''} <span className="font-normal text-stone-600">· work through {formatDate(app.periodEnd)}</span>
+          {app.isFinal ? ' (final)' : ''}{' '}
+          <span className="font-normal text-stone-600">· work through {formatDate(app.periodEnd)}</span>
         </CardTitle>
       </CardHeader>
       <CardBody className="flex flex-col gap-3">
         <IssuedList waivers={waivers.filter((w) => w.payAppId === app.id)} />
+        <div className="flex flex-col gap-1">
+          <p className="text-xs font-medium text-stone-700">Exceptions a waiver signed now carries (not released)</p>
+          <ExceptionList exceptions={app.exceptions} />
+        </div>
         {canIssue ? (
           <div className="grid gap-2 md:grid-cols-2">
             {app.options.map((o) => (
@@ -67,6 +83,7 @@ function AppWaivers({
                       projectId={projectId}
                       payAppId={app.id}
                       option={o}
+                      exceptions={app.exceptions}
                       signerName={signerName}
                       onDone={() => setSigning(null)}
                     />
@@ -106,13 +123,22 @@ export function WaiversScreen({
   const { payApps, waivers, state } = query.data;
   return (
     <div className="flex flex-col gap-4">
-      <aside className="border-clay-200 bg-clay-50 text-clay-900 flex gap-2 rounded-md border px-3 py-2 text-sm" aria-label="Statutory forms">
+      <aside
+        className="flex gap-2 rounded-md border border-clay-200 bg-clay-50 px-3 py-2 text-sm text-clay-900"
+        aria-label="Statutory forms"
+      >
         <Scale aria-hidden className="mt-0.5 size-4 shrink-0" />
         <p>{statutoryNotice(state)}</p>
       </aside>
-      {canIssue ? null : <p className="text-sm text-stone-600">The subcontractor issues and signs the waivers; everyone on the job can download them.</p>}
+      {canIssue ? null : (
+        <p className="text-sm text-stone-600">
+          The subcontractor issues and signs the waivers; everyone on the job can download them.
+        </p>
+      )}
       {payApps.length === 0 ? (
-        <EmptyState title="No certified pay applications yet">Waivers can be issued once an application is certified.</EmptyState>
+        <EmptyState title="No certified pay applications yet">
+          Waivers can be issued once an application is certified.
+        </EmptyState>
       ) : (
         payApps.map((a) => (
           <AppWaivers
