@@ -121,7 +121,12 @@ export function createApp(deps: AppDeps): Express {
     '/api',
     jsonBodiesOnly({
       skip: [/^\/auth\//],
-      multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/, /^\/calc\/surface$/],
+      multipart: [
+        /^\/tallies\/[^/]+\/evidence$/,
+        /^\/change-orders\/[^/]+\/documents$/,
+        /^\/projects\/[^/]+\/bid-items\/import$/,
+        /^\/calc\/surface$/,
+      ],
     }),
   );
   // Public routes (no session): the invitation link's preview and accept.
