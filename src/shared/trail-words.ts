@@ -187,6 +187,7 @@ const SENTENCES: Record<string, (w: Words) => string> = {
   'change_order.owner_approved': () => 'approved {object} for the owner',
   'change_order.approved': () => 'approved {object}; it now applies to the bid schedule',
   'change_order.rejected': () => 'rejected {object}',
+  'change_order.documents_attached': ({ a }) => `attached ${plural(files(a).length, 'document')} to {object}`,
   'forecast.updated': ({ a, qty }) => `set the forecast at completion of {object} to ${qty(a.forecastQuantity)}`,
   'invitation.sent': ({ a }) => `sent {object} to join as ${ROLE_WORDS[String(a.role)] ?? 'a member'}`,
   'invitation.revoked': () => 'withdrew {object}',

@@ -32,6 +32,10 @@ const SAMPLES: Record<string, { before?: unknown; after?: unknown; expect: RegEx
     expect: /approved \{object\}; it now applies to the bid schedule/,
   },
   'change_order.rejected': { after: { note: 'No' }, expect: /rejected \{object\}/ },
+  'change_order.documents_attached': {
+    after: { files: [{ id: ID, fileName: 'survey.pdf', sizeBytes: 10, sha256: SHA }] },
+    expect: /attached 1 document to \{object\}/,
+  },
   'forecast.updated': {
     after: { forecastQuantity: 21700, itemNumber: '203' },
     expect: /set the forecast at completion of \{object\} to 21,700\.00 CY/,
