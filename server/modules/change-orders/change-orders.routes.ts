@@ -6,6 +6,7 @@ import {
 } from '../../../src/shared/schemas/change-order';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
+import { limitsOf } from '../../lib/upload';
 import { checkEvidenceFiles, evidenceUpload } from '../tallies/evidence-files';
 import { attachment } from '../tallies/tallies.routes';
 import * as documents from './change-order-documents.service';
@@ -49,6 +50,7 @@ export function changeOrdersRouter({ db, storage }: AppContext): Router {
       getActor(res),
       String(req.params.id),
       files,
+      limitsOf(req).projectQuotaBytes,
     );
     res.status(201).json({ documents: attached });
   });
