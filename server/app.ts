@@ -18,6 +18,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
 import { jsonBodiesOnly } from './middleware/json-bodies-only';
+import { idempotentWrites } from './middleware/idempotency';
 import { requireActor } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { noStore, securityHeaders } from './middleware/security-headers';
@@ -120,7 +121,12 @@ export function createApp(deps: AppDeps): Express {
     '/api',
     jsonBodiesOnly({
       skip: [/^\/auth\//],
-      multipart: [/^\/tallies\/[^/]+\/evidence$/, /^\/projects\/[^/]+\/bid-items\/import$/, /^\/calc\/surface$/],
+      multipart: [
+        /^\/tallies\/[^/]+\/evidence$/,
+        /^\/change-orders\/[^/]+\/documents$/,
+        /^\/projects\/[^/]+\/bid-items\/import$/,
+        /^\/calc\/surface$/,
+      ],
     }),
   );
   // Public routes (no session): the invitation link's preview and accept.
@@ -163,6 +169,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', calcRouter(compute));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), refuseUnstorableText);
   app.use('/api', csrf);
+  // A write repeated with the same Idempotency-Key (a double click, a retry) is done once and answered the same.
+  app.use('/api', idempotentWrites(db, { logger }));
   app.use('/api', meRouter(db), projectsRouter(db), membersRouter(db), bidItemsRouter(db), inboxRouter(db));
   // Modules of the pay cycle take the whole context: app.use('/api', somethingRouter(ctx));
   app.use(

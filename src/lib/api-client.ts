@@ -34,7 +34,11 @@ function isDetail(v: unknown): v is ApiErrorDetail {
 export function isApiErrorBody(body: unknown): body is ApiErrorBody {
   if (!isRecord(body) || !isRecord(body.error)) return false;
   const { code, message, details } = body.error;
-  return typeof code === 'string' && typeof message === 'string' && (details === undefined || (Array.isArray(details) && details.every(isDetail)));
+  return (
+    typeof code === 'string' &&
+    typeof message === 'string' &&
+    (details === undefined || (Array.isArray(details) && details.every(isDetail)))
+  );
 }
 
 /** Builds an ApiError from a status and whatever body came back, even when it is not our error shape. */
@@ -60,8 +64,37 @@ async function readBody(response: Response): Promise<unknown> {
 
 type RequestOptions = Omit<RequestInit, 'body'> & { body?: unknown };
 
+/** How long a write whose answer was lost keeps its key, so that sending it again is answered, not redone. */
+const LOST_ANSWER_KEEP_MS = 10 * 60_000;
+const writeKeys = new Map<string, string>();
+
+function newKey(): string {
+  // getRandomValues works on plain http too (randomUUID needs a secure context).
+  return Array.from(crypto.getRandomValues(new Uint8Array(16)), (b) => b.toString(16).padStart(2, '0')).join('');
+}
+
+/**
+ * The Idempotency-Key of a write: the same write (method, path, body) sent again while the first is under way, or
+ * after its answer was lost on the network, carries the same key, so the server does it once and answers both.
+ */
+function idempotencyKeyFor(identity: string): { key: string; settle: (answered: boolean) => void } {
+  const key = writeKeys.get(identity) ?? newKey();
+  writeKeys.set(identity, key);
+  return {
+    key,
+    settle: (answered) => {
+      if (answered) writeKeys.delete(identity);
+      else setTimeout(() => writeKeys.get(identity) === key && writeKeys.delete(identity), LOST_ANSWER_KEEP_MS);
+    },
+  };
+}
+
 /** Same-origin JSON request with the session cookie; throws ApiError on any non-2xx answer. */
 export async function apiRequest<T>(path: string, { body, headers, ...init }: RequestOptions = {}): Promise<T> {
+  const json = body === undefined ? undefined : JSON.stringify(body);
+  const method = (init.method ?? 'GET').toUpperCase();
+  const write =
+    method === 'GET' || method === 'HEAD' ? undefined : idempotencyKeyFor(`${method} ${path}\n${json ?? ''}`);
   let response: Response;
   try {
     response = await fetch(path, {
@@ -69,14 +102,17 @@ export async function apiRequest<T>(path: string, { body, headers, ...init }: Re
       credentials: 'include',
       headers: {
         Accept: 'application/json',
-        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...(json === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...(write ? { 'Idempotency-Key': write.key } : {}),
         ...headers,
       },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: json,
     });
   } catch {
+    write?.settle(false);
     throw toApiError(0, undefined);
   }
+  write?.settle(true);
   const payload = await readBody(response);
   if (!response.ok) throw toApiError(response.status, payload);
   return payload as T;

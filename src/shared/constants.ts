@@ -248,6 +248,7 @@ export type EmailStatus = (typeof EMAIL_STATUSES)[number];
 
 export const MAX_EVIDENCE_BYTES = 20 * 1024 * 1024;
 export const MAX_EVIDENCE_FILES_PER_TALLY = 20;
+export const MAX_DOCUMENTS_PER_CHANGE_ORDER = 20;
 
 /** A payment's life; an application is paid only when its payments have succeeded. */
 export const PAYMENT_STATUSES = ['created', 'processing', 'succeeded', 'failed', 'canceled', 'refunded'] as const;

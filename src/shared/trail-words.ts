@@ -187,6 +187,7 @@ const SENTENCES: Record<string, (w: Words) => string> = {
   'change_order.owner_approved': () => 'approved {object} for the owner',
   'change_order.approved': () => 'approved {object}; it now applies to the bid schedule',
   'change_order.rejected': () => 'rejected {object}',
+  'change_order.documents_attached': ({ a }) => `attached ${plural(files(a).length, 'document')} to {object}`,
   'forecast.updated': ({ a, qty }) => `set the forecast at completion of {object} to ${qty(a.forecastQuantity)}`,
   'invitation.sent': ({ a }) => `sent {object} to join as ${ROLE_WORDS[String(a.role)] ?? 'a member'}`,
   'invitation.revoked': () => 'withdrew {object}',
@@ -219,6 +220,37 @@ const SENTENCES: Record<string, (w: Words) => string> = {
   'lien_waiver.issued': ({ a, money }) =>
     `signed and issued {object}${typeof a.amountCents === 'number' ? ` for ${money(a.amountCents)}` : ''}`,
   'email.failed': () => 'could not deliver {object}',
+  'account.admin_created': ({ a }) =>
+    `made {object} the first administrator${typeof a.companyName === 'string' ? ` of ${a.companyName}` : ''}`,
+  'member.removed': ({ a }) =>
+    a.reason === 'removed from the company'
+      ? 'removed {object} from the job with the company'
+      : 'removed {object} from the job',
+  'company_member.removed': () => 'removed {object} from the company and ended their sessions',
+  'dispute.edited': ({ a, qty }) =>
+    `changed {object}${typeof a.counterQuantity === 'number' ? `: counter quantity ${qty(a.counterQuantity)}` : ''}`,
+  'dispute.withdrawn': () => 'withdrew {object}',
+  'measurement_profile.set': () => 'set how {object} is measured and paid',
+  'truck.registered': () => 'registered {object} for truck tickets',
+  'truck_ticket.added': () => 'added {object}',
+  'truck_tickets.imported': ({ a }) => {
+    const n = typeof a.tickets === 'number' ? plural(a.tickets, 'truck ticket') : 'truck tickets';
+    const flagged =
+      typeof a.flagged === 'number' && a.flagged > 0 ? `, ${plural(a.flagged, 'ticket')} flagged for a look` : '';
+    return `imported ${n} into {object}${flagged}`;
+  },
+  'material_source.added': () => 'added {object} as a material source',
+  'scale_ticket.added': () => 'added {object}',
+  'force_account_sheet.added': () => 'recorded {object}, a time-and-materials day',
+  'force_account_sheet.signed': () => 'signed {object} for the general contractor',
+  'stored_material.added': ({ a, qty }) =>
+    a.kind === 'added' && typeof a.quantity === 'number'
+      ? `recorded ${qty(a.quantity)} delivered to storage for {object}`
+      : 'added {object} to the materials stored',
+  'stored_material.used': ({ a, qty }) =>
+    `recorded ${typeof a.quantity === 'number' ? qty(a.quantity) : 'material'} taken from storage and built in, for {object}`,
+  'pay_adjustment.added': ({ a, money }) =>
+    `recorded {object}${typeof a.amountCents === 'number' ? `, ${money(a.amountCents)}` : ''}`,
 };
 
 /** The event kinds worded above, for the filter and the tests. */

@@ -1,7 +1,15 @@
 import { count } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { auditEvents, changeOrders, disputes, invitations, payAppLines, tallyEvidence } from '../../server/db/schema';
+import {
+  auditEvents,
+  changeOrderDocuments,
+  changeOrders,
+  disputes,
+  invitations,
+  payAppLines,
+  tallyEvidence,
+} from '../../server/db/schema';
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
@@ -37,6 +45,9 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/projects/:projectId/change-orders': 'project',
   'GET /api/projects/:projectId/contract-quantities': 'project',
   'GET /api/change-orders/:id': 'project',
+  'GET /api/change-orders/:id/documents': 'project',
+  'POST /api/change-orders/:id/documents': 'project',
+  'GET /api/change-order-documents/:documentId/download': 'project',
   'POST /api/change-orders/:id/approve': 'project',
   'POST /api/change-orders/:id/reject': 'project',
   'GET /api/projects/:projectId/variance': 'project',
@@ -142,6 +153,19 @@ beforeAll(async () => {
     .insert(changeOrders)
     .values({ projectId: w.home.id, number: 1, title: 'CO', proposedByUserId: gc })
     .returning();
+  const [document] = await db
+    .insert(changeOrderDocuments)
+    .values({
+      changeOrderId: co!.id,
+      fileName: 'a.pdf',
+      contentType: 'application/pdf',
+      kind: 'pdf',
+      sizeBytes: 3,
+      sha256: 'x',
+      storageKey: 'change-order/00000000-0000-4000-8000-000000000002',
+      uploadedByUserId: gc,
+    })
+    .returning();
   const [invitation] = await db
     .insert(invitations)
     .values({
@@ -158,6 +182,7 @@ beforeAll(async () => {
     bidItemId: item.id,
     tallyId: tally.id,
     evidenceId: evidence!.id,
+    documentId: document!.id,
     payAppId: app.id,
     disputeId: dispute!.id,
     lineId: line!.id,

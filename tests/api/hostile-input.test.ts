@@ -183,6 +183,7 @@ const ROUTES: Record<string, Spec> = {
   'POST /api/tallies/:tallyId/ready': none('subcontractor'),
   'DELETE /api/tallies/:tallyId': none('subcontractor'),
   'POST /api/tallies/:tallyId/evidence': { reads: 'multipart', role: 'subcontractor' },
+  'POST /api/change-orders/:id/documents': { reads: 'multipart', role: 'subcontractor' },
   'DELETE /api/evidence/:evidenceId': none('subcontractor'),
   'POST /api/projects/:projectId/pay-apps': json('subcontractor', createPayAppSchema, () => ({
     periodStart: '2026-12-01',

@@ -27,7 +27,11 @@ import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setu
  * The routes that take a multipart form; every other route refuses one (415, server/middleware/json-bodies-only.ts).
  * POST /api/calc/surface (of `POST /api/calc/:method`) also takes one: its cases are at the end of this file.
  */
-const UPLOAD_ROUTES = ['POST /api/tallies/:tallyId/evidence', 'POST /api/projects/:projectId/bid-items/import'];
+const UPLOAD_ROUTES = [
+  'POST /api/tallies/:tallyId/evidence',
+  'POST /api/change-orders/:id/documents',
+  'POST /api/projects/:projectId/bid-items/import',
+];
 const HEADER = 'item_number,description,pay_unit,basis,unit_price,contract_quantity,major,method';
 
 let t: TestApp;
@@ -86,7 +90,7 @@ async function expectRefused(send: () => Promise<request.Response>, status: numb
 }
 
 describe('the upload routes', () => {
-  it('are exactly the evidence upload and the bid schedule import: every other route refuses a multipart form with 415', async () => {
+  it('are exactly the evidence and change order document uploads and the bid schedule import: every other route refuses a multipart form with 415', async () => {
     const routes = registeredRoutes(t.app).filter((r) => /^(POST|PUT|PATCH) /.test(r) && r !== 'POST /api/webhooks/stripe');
     for (const route of routes.filter((r) => !UPLOAD_ROUTES.includes(r))) {
       const [method, template] = route.split(' ') as [string, string];

@@ -202,8 +202,9 @@ describe('GET /api/inbox', () => {
     expect(due[0]).toMatchObject({
       overdue: true,
       amountCents: 1_362_190,
-      href: `/projects/${world.home.id}/payments`,
     });
+    // The owner pays from the application itself (its payment card).
+    expect(due[0]!.href).toMatch(new RegExp(`^/projects/${world.home.id}/pay-apps/[0-9a-f-]{36}$`));
     expect(due[1]!.overdue).toBe(false);
     // Due 30 days after certification (project defaults' payment terms).
     expect(Date.parse(due[0]!.dueAt!) - Date.parse(due[0]!.since)).toBe(30 * DAY);

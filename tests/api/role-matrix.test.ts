@@ -72,6 +72,8 @@ type Fixture = {
   flagKeys: string[];
   disputeId: string;
   changeOrderId: string;
+  /** A document of the fixture's proposed change order. */
+  documentId: string;
   invitationId: string;
   waiverId: string;
   method: string;
@@ -155,6 +157,13 @@ const RULES: Record<string, Rule> = {
   // The owner decides too only on a project that asks for the owner's approval (not the home project).
   'POST /api/change-orders/:id/approve': { may: ['general_contractor'], body: () => ({ note: 'Agreed' }) },
   'POST /api/change-orders/:id/reject': { may: ['general_contractor'], body: () => ({ note: 'Not agreed' }) },
+  'GET /api/change-orders/:id/documents': { may: ALL },
+  // Those who propose attach (the owner only on a project where the owner approves change orders too).
+  'POST /api/change-orders/:id/documents': {
+    may: ['subcontractor', 'general_contractor'],
+    upload: { field: 'files', bytes: FILES.pdf, name: 'survey-note.pdf' },
+  },
+  'GET /api/change-order-documents/:documentId/download': { may: ALL },
   'GET /api/projects/:projectId/variance': { may: ALL },
   'PUT /api/bid-items/:bidItemId/forecast': {
     may: ['subcontractor', 'general_contractor'],
@@ -409,6 +418,9 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
       expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
+  const coDocument = await agents.subcontractor
+    .post(`/api/change-orders/${co!.id}/documents`)
+    .attach('files', FILES.pdf, 'site-note.pdf');
   const approved = await makeChangeOrder(db, w.home.id, gc);
   let waiverId = '00000000-0000-4000-8000-00000000beef';
   const userId = `crew-${serial}`;
@@ -431,6 +443,7 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     flagKeys,
     disputeId: dispute!.id,
     changeOrderId: co!.id,
+    documentId: coDocument.body.documents[0].id,
     invitationId: invitation!.id,
     waiverId,
     method: 'grid',

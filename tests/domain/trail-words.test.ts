@@ -1,3 +1,5 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { trailChanges, trailSentence, WORDED_ACTIONS } from '../../src/shared/trail-words';
 
@@ -30,6 +32,10 @@ const SAMPLES: Record<string, { before?: unknown; after?: unknown; expect: RegEx
     expect: /approved \{object\}; it now applies to the bid schedule/,
   },
   'change_order.rejected': { after: { note: 'No' }, expect: /rejected \{object\}/ },
+  'change_order.documents_attached': {
+    after: { files: [{ id: ID, fileName: 'survey.pdf', sizeBytes: 10, sha256: SHA }] },
+    expect: /attached 1 document to \{object\}/,
+  },
   'forecast.updated': {
     after: { forecastQuantity: 21700, itemNumber: '203' },
     expect: /set the forecast at completion of \{object\} to 21,700\.00 CY/,
@@ -114,6 +120,51 @@ const SAMPLES: Record<string, { before?: unknown; after?: unknown; expect: RegEx
     expect: /signed and issued \{object\} for \$25,096\.09/,
   },
   'email.failed': { after: { error: 'refused' }, expect: /could not deliver \{object\}/ },
+  'account.admin_created': {
+    after: { email: 'a@b.test', companyName: 'Cascade Grading', companyId: ID, isAdmin: true },
+    expect: /made \{object\} the first administrator of Cascade Grading/,
+  },
+  'member.removed': {
+    before: { role: 'owner' },
+    after: { sessionsEnded: 2 },
+    expect: /^Dana removed \{object\} from the job$/,
+  },
+  'company_member.removed': {
+    after: { sessionsEnded: 1 },
+    expect: /removed \{object\} from the company and ended their sessions/,
+  },
+  'dispute.edited': {
+    before: { reason: 'Short', counterQuantity: 500 },
+    after: { reason: 'Tickets 41-44 are for the north haul', counterQuantity: 480 },
+    expect: /changed \{object\}: counter quantity 480\.00 CY/,
+  },
+  'dispute.withdrawn': { after: { status: 'resolved', note: 'Counted again' }, expect: /withdrew \{object\}/ },
+  'measurement_profile.set': { after: { kind: 'weight' }, expect: /set how \{object\} is measured and paid/ },
+  'truck.registered': { after: { name: 'T-12' }, expect: /registered \{object\} for truck tickets/ },
+  'truck_ticket.added': { after: { quantity: 12 }, expect: /added \{object\}/ },
+  'truck_tickets.imported': {
+    after: { bidItemId: ID, tickets: 48, flagged: 2 },
+    expect: /imported 48 truck tickets into \{object\}, 2 tickets flagged for a look/,
+  },
+  'material_source.added': { after: { name: 'North pit' }, expect: /added \{object\} as a material source/ },
+  'scale_ticket.added': { after: { ticketNumber: 'S-1' }, expect: /added \{object\}/ },
+  'force_account_sheet.added': {
+    after: { description: 'Muck' },
+    expect: /recorded \{object\}, a time-and-materials day/,
+  },
+  'force_account_sheet.signed': { expect: /signed \{object\} for the general contractor/ },
+  'stored_material.added': {
+    after: { kind: 'added', quantity: 40, movedOn: '2026-05-12' },
+    expect: /recorded 40\.00 CY delivered to storage for \{object\}/,
+  },
+  'stored_material.used': {
+    after: { kind: 'used', quantity: 12 },
+    expect: /recorded 12\.00 CY taken from storage and built in/,
+  },
+  'pay_adjustment.added': {
+    after: { amountCents: 570000, description: 'Late' },
+    expect: /recorded \{object\}, \$5,700\.00/,
+  },
 };
 
 /** What must never reach a reader: ids, hashes, processor ids, field codes in camelCase or snake_case. */
@@ -162,6 +213,18 @@ describe('trail sentences', () => {
       { field: 'Pay unit', before: '', after: 'LF' },
       { field: 'Contract quantity', before: '', after: '340.5 LF' },
     ]);
+  });
+
+  it('words every event kind the server records (read from server/ source: a new kind needs its sentence here)', () => {
+    const recorded = new Set<string>();
+    for (const file of readdirSync('server', { recursive: true, encoding: 'utf8' }).filter((f) => f.endsWith('.ts'))) {
+      const text = readFileSync(path.join('server', file), 'utf8');
+      for (const m of text.matchAll(/action: (?:complete \? )?['`]([a-z_]+\.[a-z_]+)['`]/g)) recorded.add(m[1]!);
+      for (const m of text.matchAll(/`([a-z_]+)\.\$\{[^}]+\}`/g)) recorded.add(`${m[1]}.*`);
+    }
+    expect(recorded.size).toBeGreaterThan(20);
+    const missing = [...recorded].filter((a) => !a.endsWith('.*') && !WORDED_ACTIONS.includes(a));
+    expect(missing).toEqual([]);
   });
 
   it('an event kind not worded yet still reads as a sentence, without its code', () => {

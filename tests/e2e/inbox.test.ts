@@ -87,7 +87,8 @@ describe('starting from the inbox', () => {
     await entry(page, title)
       .getByRole('link', { name: /^Open to pay/ })
       .click();
-    await page.waitForURL(/\/payments$/);
+    await page.waitForURL(/\/pay-apps\/[^/]+$/);
+    await page.getByText('Certified: $25,096.09 waits on your payment.').waitFor();
     const card = page.getByRole('region', { name: 'Pay application 2', exact: true });
     await card.getByRole('button', { name: 'Continue to payment' }).click();
     await page.waitForURL(`${server.standinUrl}/pay/**`);

@@ -1,4 +1,16 @@
-import { bigint, index, integer, jsonb, numeric, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import {
+  bigint,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { CHANGE_ORDER_ITEM_KINDS, CHANGE_ORDER_STATUSES } from '../../../src/shared/constants';
 import { user } from './auth';
 import { bidItems } from './bid-items';
@@ -52,4 +64,26 @@ export const changeOrderItems = pgTable(
     ...timestamps,
   },
   (t) => [index().on(t.changeOrderId), index().on(t.bidItemId)],
+);
+
+/** A supporting document of a change order (same checks as tally evidence); bytes live in storage under `storageKey`. */
+export const changeOrderDocuments = pgTable(
+  'change_order_documents',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    changeOrderId: uuid('change_order_id')
+      .notNull()
+      .references(() => changeOrders.id, { onDelete: 'cascade' }),
+    fileName: text('file_name').notNull(),
+    contentType: text('content_type').notNull(),
+    kind: text('kind').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    sha256: text('sha256').notNull(),
+    storageKey: text('storage_key').notNull().unique(),
+    uploadedByUserId: text('uploaded_by_user_id')
+      .notNull()
+      .references(() => user.id),
+    ...timestamps,
+  },
+  (t) => [index().on(t.changeOrderId)],
 );

@@ -11,3 +11,4 @@ export * from './payments';
 export * from './pay-app-relations';
 export * from './provisions-tickets';
 export * from './provisions-accounts';
+export * from './idempotency';

@@ -1,4 +1,4 @@
-import type { AccessRole } from '../../../src/shared/constants';
+import type { AccessRole, ChangeOrderStatus } from '../../../src/shared/constants';
 
 /** Either contractor proposes a change order. */
 export const canProposeChangeOrder = (roles: AccessRole[]) =>
@@ -21,6 +21,16 @@ export const canDecideChangeOrder = (ownerApproves: boolean) => (roles: AccessRo
   decisionSides(roles, ownerApproves).length > 0;
 
 /** Approved once the general contractor has approved, and the owner too where the project requires it. */
-export function isFullyApproved(o: { gcApprovedAt: Date | null; ownerApprovedAt: Date | null }, ownerApproves: boolean) {
+export function isFullyApproved(
+  o: { gcApprovedAt: Date | null; ownerApprovedAt: Date | null },
+  ownerApproves: boolean,
+) {
   return o.gcApprovedAt !== null && (!ownerApproves || o.ownerApprovedAt !== null);
 }
+
+/** Attaching a document: those who propose or decide change orders on the project (the owner only where it decides). */
+export const canAttachChangeOrderDocument = (ownerApproves: boolean) => (roles: AccessRole[]) =>
+  canProposeChangeOrder(roles) || canDecideChangeOrder(ownerApproves)(roles);
+
+/** Documents are attached while the change order is proposed; a decided one keeps the documents it was decided on. */
+export const documentsOpen = (status: ChangeOrderStatus) => status === 'proposed';

@@ -6,17 +6,22 @@ import {
 } from '../../../src/shared/schemas/change-order';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
+import { checkEvidenceFiles, evidenceUpload } from '../tallies/evidence-files';
+import { attachment } from '../tallies/tallies.routes';
+import * as documents from './change-order-documents.service';
 import { approveChangeOrder, rejectChangeOrder } from './change-order-decisions.service';
 import * as service from './change-orders.service';
 
-export function changeOrdersRouter({ db }: AppContext): Router {
+export function changeOrdersRouter({ db, storage }: AppContext): Router {
   const router = Router();
   router.get('/projects/:projectId/change-orders', async (req, res) => {
     res.json({ changeOrders: await service.listChangeOrders(db, getActor(res), req.params.projectId) });
   });
   router.post('/projects/:projectId/change-orders', async (req, res) => {
     const input = createChangeOrderSchema.parse(req.body);
-    res.status(201).json({ changeOrder: await service.proposeChangeOrder(db, getActor(res), req.params.projectId, input) });
+    res
+      .status(201)
+      .json({ changeOrder: await service.proposeChangeOrder(db, getActor(res), req.params.projectId, input) });
   });
   router.get('/projects/:projectId/contract-quantities', async (req, res) => {
     res.json({ contractQuantities: await service.listContractQuantities(db, getActor(res), req.params.projectId) });
@@ -31,6 +36,33 @@ export function changeOrdersRouter({ db }: AppContext): Router {
   router.post('/change-orders/:id/reject', async (req, res) => {
     const { note } = rejectChangeOrderSchema.parse(req.body ?? {});
     res.json({ changeOrder: await rejectChangeOrder(db, getActor(res), req.params.id, note) });
+  });
+  router.get('/change-orders/:id/documents', async (req, res) => {
+    res.json({ documents: await documents.listChangeOrderDocuments(db, getActor(res), req.params.id) });
+  });
+  // The same upload and file checks as tally evidence (one pipeline for every file a project keeps).
+  router.post('/change-orders/:id/documents', evidenceUpload, async (req, res) => {
+    const files = await checkEvidenceFiles(req.files as Express.Multer.File[] | undefined);
+    const attached = await documents.attachChangeOrderDocuments(
+      db,
+      storage,
+      getActor(res),
+      String(req.params.id),
+      files,
+    );
+    res.status(201).json({ documents: attached });
+  });
+  router.get('/change-order-documents/:documentId/download', async (req, res) => {
+    const { document, bytes } = await documents.downloadChangeOrderDocument(
+      db,
+      storage,
+      getActor(res),
+      req.params.documentId,
+    );
+    res.setHeader('Content-Type', document.contentType);
+    res.setHeader('Content-Disposition', attachment(document.fileName));
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.send(bytes);
   });
   return router;
 }

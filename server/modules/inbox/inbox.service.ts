@@ -83,8 +83,8 @@ export async function inboxFor(db: Db, actor: Actor, now = new Date()): Promise<
         period: { start: app.periodStart, end: app.periodEnd },
         since: app.certifiedAt,
         dueAt: paymentDueAt(app.certifiedAt, scope.project.paymentTermsDays),
-        // Payments are started from the Payments tab, where the application's card takes the payment.
-        href: `${pathOf(scope)}/payments`,
+        // The owner pays from the application itself, whose payment card takes the payment.
+        href: `${pathOf(scope)}/pay-apps/${app.id}`,
       });
     }
   }

@@ -1,6 +1,7 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { payAppQueryOptions } from '@/features/pay-apps/api/get-pay-apps';
 import { PayAppDetailScreen } from '@/features/pay-apps/components/pay-app-detail';
+import { PayAppPaymentPanel } from '@/features/payments/components/pay-app-payment-panel';
 import { useProject } from '@/features/projects/api/get-project';
 import { prefetchWhenSignedIn } from '../prefetch';
 
@@ -17,6 +18,10 @@ export function Component() {
       <title>{`${project.name} · Pay application · Tallyard`}</title>
       <PayAppDetailScreen
         payAppId={payAppId}
+        isOwner={project.myRoles.includes('owner')}
+        payment={
+          <PayAppPaymentPanel projectId={projectId} payAppId={payAppId} canPay={project.myRoles.includes('owner')} />
+        }
         isSub={project.myRoles.includes('subcontractor')}
         isGc={project.myRoles.includes('general_contractor')}
       />

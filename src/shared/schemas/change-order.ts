@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { ChangeOrderItemKind, ChangeOrderStatus, PayUnit } from '../constants';
+import type { EvidenceKind } from './tally';
 import { bidItemInputSchema, MAX_CONTRACT_QUANTITY, type BidItemInput } from './bid-item';
 
 const quantityDelta = z
@@ -93,4 +94,18 @@ export type ContractQuantityView = {
   originalQuantity: number;
   approvedChangeQuantity: number;
   currentContractQuantity: number;
+};
+
+/** A supporting document of a change order; frozen once the change order is decided. */
+export type ChangeOrderDocumentView = {
+  id: string;
+  changeOrderId: string;
+  fileName: string;
+  contentType: string;
+  kind: EvidenceKind;
+  sizeBytes: number;
+  sha256: string;
+  uploadedBy: string;
+  createdAt: string;
+  downloadUrl: string;
 };

@@ -8,6 +8,7 @@ import { useChangeOrder } from '../api/change-orders';
 import { ChangeItemsTable } from './change-items-table';
 import { historyLabel, STATUS_BADGES } from './change-order-words';
 import { DecisionPanel } from './decision-panel';
+import { DocumentsPanel } from './documents-panel';
 
 /** The side this person still has to decide for, if any. */
 function pendingSide(co: ChangeOrderView, roles: readonly AccessRole[]): 'gc' | 'owner' | null {
@@ -16,6 +17,12 @@ function pendingSide(co: ChangeOrderView, roles: readonly AccessRole[]): 'gc' | 
   if (co.ownerApprovalRequired && roles.includes('owner') && !co.ownerApproval) return 'owner';
   return null;
 }
+
+/** Those who propose attach documents, and the owner where the owner decides too (the server checks again). */
+const canAttach = (co: ChangeOrderView, roles: readonly AccessRole[]) =>
+  roles.includes('subcontractor') ||
+  roles.includes('general_contractor') ||
+  (co.ownerApprovalRequired && roles.includes('owner'));
 
 export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly AccessRole[] }) {
   const query = useChangeOrder(id);
@@ -32,6 +39,7 @@ export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly A
       </div>
       {co.reason ? <p className="max-w-3xl text-stone-700">{co.reason}</p> : null}
       <ChangeItemsTable items={co.items} totalCents={co.amountDeltaCents} />
+      <DocumentsPanel changeOrderId={co.id} canAttach={canAttach(co, roles)} open={co.status === 'proposed'} />
       <div className="grid gap-4 md:grid-cols-2">
         <Card>
           <CardHeader><CardTitle>Approvals</CardTitle></CardHeader>

@@ -19,6 +19,7 @@ const HISTORY_WORDS: Record<string, string> = {
   'change_order.owner_approved': 'Approved by the owner',
   'change_order.approved': 'Approved and applied to the bid schedule',
   'change_order.rejected': 'Rejected',
+  'change_order.documents_attached': 'Documents attached',
 };
 
 export const historyLabel = (action: string) => HISTORY_WORDS[action] ?? action;

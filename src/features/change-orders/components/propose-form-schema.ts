@@ -51,6 +51,11 @@ export const proposeFormSchema = z
       ctx.addIssue({ code: 'custom', path, message: 'Type a dollar amount like 14.75' });
       return 0;
     };
+    // Title and reason are checked here too, so their errors show with the others rather than after them.
+    for (const field of ['title', 'reason'] as const) {
+      const checked = createChangeOrderSchema.shape[field].safeParse(values[field]);
+      if (!checked.success) ctx.addIssue({ code: 'custom', path: [field], message: checked.error.issues[0]!.message });
+    }
     const items = values.items.map((item, i): ChangeOrderItemInput => {
       if (item.kind === 'change_quantity') {
         return { kind: item.kind, bidItemId: item.bidItemId, quantityDelta: number(item.quantityDelta, ['items', i, 'quantityDelta'], 'a quantity change') };

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router';
 import { toast } from 'sonner';
 import { Alert } from '@/components/ui/alert';
@@ -17,11 +17,20 @@ import { PayAppTotals } from './pay-app-totals';
 import { RevisePanel } from './revise-panel';
 import { approveRemaining, reviewBody, type ReviewDraft } from './review-draft';
 import { StatusHistory } from './status-history';
+import { nextStepSentence } from './next-step';
 
-type Roles = { isSub: boolean; isGc: boolean };
+type Roles = { isSub: boolean; isGc: boolean; isOwner: boolean };
+const PAYABLE = new Set(['certified', 'payment_processing', 'partially_paid', 'paid']);
 
 /** One pay application: lines with inline review, totals, disputes, revision history, and the commands by role. */
-export function PayAppDetailScreen({ payAppId, isSub, isGc }: { payAppId: string } & Roles) {
+/** `payment` is the payments feature's card for this application, shown once it is certified (the owner pays there). */
+export function PayAppDetailScreen({
+  payAppId,
+  isSub,
+  isGc,
+  isOwner,
+  payment,
+}: { payAppId: string; payment?: ReactNode } & Roles) {
   const query = usePayApp(payAppId);
   const review = useReviewPayApp(payAppId);
   const [draft, setDraft] = useState<ReviewDraft>({});
@@ -83,6 +92,9 @@ export function PayAppDetailScreen({ payAppId, isSub, isGc }: { payAppId: string
             Period {periodText(app.periodStart, app.periodEnd)} · revision {app.revision}
             {app.isFinal ? ' · final' : ''}
             {app.certifiedBy ? ` · certified by ${app.certifiedBy}` : ''}
+          </p>
+          <p className="mt-1 text-sm font-medium text-spruce-900" data-testid="next-step">
+            {nextStepSentence(app.status, { isSub, isGc, isOwner }, app.currentDueCents)}
           </p>
         </div>
         <PayAppCommands app={app} isSub={isSub} isGc={isGc} />
@@ -154,6 +166,7 @@ export function PayAppDetailScreen({ payAppId, isSub, isGc }: { payAppId: string
         </div>
       </Dialog>
       {isSub && app.status === 'returned' ? <RevisePanel key={app.revision} app={app} /> : null}
+      {PAYABLE.has(app.status) ? payment : null}
       <div className="grid gap-4 lg:grid-cols-[1.4fr_1fr]">
         <div className="flex flex-col gap-4">
           <DisputeThreads app={app} canComment={isSub || isGc} />

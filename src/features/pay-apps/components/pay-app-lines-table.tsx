@@ -1,9 +1,11 @@
-import { Fragment } from 'react';
+import { ChevronDown, ChevronRight } from 'lucide-react';
+import { Fragment, useState } from 'react';
 import { Input } from '@/components/ui/input';
 import { Select } from '@/components/ui/select';
 import { Table, TableBody, TableCell, TableFoot, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import { formatMoney, formatQuantityNumber } from '@/lib/format';
 import type { PayAppDetail } from '@/shared/schemas/pay-app';
+import { LineBackupList } from './line-backup';
 import { LineReviewBadge } from './pay-app-labels';
 import type { LineDecision, ReviewDraft } from './review-draft';
 
@@ -12,6 +14,13 @@ const num = 'text-right tabular-nums whitespace-nowrap';
 
 /** Lines: previous, this period and to date quantities (units shown), amounts and retainage; inline review for the reviewer. */
 export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
+  const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
+  const toggle = (id: string) =>
+    setOpen((prev) => {
+      const next = new Set(prev);
+      if (!next.delete(id)) next.add(id);
+      return next;
+    });
   const sum = (pick: (l: PayAppDetail['lines'][number]) => number) => app.lines.reduce((s, l) => s + pick(l), 0);
   return (
     <Table aria-label={`Lines of pay application ${app.number}`}>
@@ -27,6 +36,7 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
           <TableHeaderCell className="text-right">Amount to date</TableHeaderCell>
           <TableHeaderCell className="text-right">Retainage</TableHeaderCell>
           <TableHeaderCell>Review</TableHeaderCell>
+          <TableHeaderCell>Backup</TableHeaderCell>
         </tr>
       </TableHead>
       <TableBody>
@@ -64,10 +74,29 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
                     <LineReviewBadge status={l.reviewStatus} />
                   )}
                 </TableCell>
+                <TableCell>
+                  <button
+                    type="button"
+                    aria-expanded={open.has(l.id)}
+                    aria-label={`Backup of item ${l.itemNumber}`}
+                    className="inline-flex items-center gap-1 text-xs font-medium whitespace-nowrap text-spruce-800 hover:underline"
+                    onClick={() => toggle(l.id)}
+                  >
+                    {open.has(l.id) ? <ChevronDown aria-hidden className="size-3.5" /> : <ChevronRight aria-hidden className="size-3.5" />}
+                    Tallies
+                  </button>
+                </TableCell>
               </TableRow>
+              {open.has(l.id) ? (
+                <tr className="bg-stone-50">
+                  <td colSpan={11} className="px-4 py-3">
+                    <LineBackupList projectId={app.projectId} payAppId={app.id} lineId={l.id} itemNumber={l.itemNumber} />
+                  </td>
+                </tr>
+              ) : null}
               {reviewing && d?.decision === 'dispute' ? (
                 <tr className="bg-brick-50/60">
-                  <td colSpan={10} className="px-3 py-2">
+                  <td colSpan={11} className="px-3 py-2">
                     <div className="flex flex-wrap items-end gap-3 text-xs">
                       <label className="flex min-w-72 flex-1 flex-col gap-0.5 text-stone-700">
                         Reason for the dispute of item {l.itemNumber}

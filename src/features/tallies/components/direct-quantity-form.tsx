@@ -8,7 +8,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
-import { errorMessage } from '@/lib/api-client';
+import { errorMessage, isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { type PayUnit } from '@/shared/constants';
 import { readTypedNumber } from '@/shared/parse-number';
@@ -102,7 +102,10 @@ export function DirectQuantityForm({ projectId, item, tally, onDone }: DirectQua
       if (error && typeof error === 'object' && 'code' in error && error.code === 'SANITY_REASON_REQUIRED')
         setNeedsReason(true);
       const leftover = applyServerErrors(error, form.setError, FIELDS);
-      setFormError(leftover.length ? leftover.join('; ') : errorMessage(error));
+      // A message already shown on its field is not repeated below the form.
+      setFormError(
+        leftover.length ? leftover.join('; ') : isApiError(error) && error.details.length ? null : errorMessage(error),
+      );
     }
   });
 

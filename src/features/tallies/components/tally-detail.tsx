@@ -13,6 +13,7 @@ import { MEASUREMENT_METHOD_LABELS } from '@/shared/constants';
 import { useTally } from '../api/get-tallies';
 import { useDeleteTally, useMarkReady } from '../api/save-tally';
 import { EvidencePanel } from './evidence-panel';
+import { EvidencePreviews } from './evidence-previews';
 import { RevisionHistory } from './revision-history';
 import { InputsSummary } from './inputs-summary';
 import { DirectQuantityForm } from './direct-quantity-form';
@@ -130,6 +131,7 @@ export function TallyDetail({
         canUpload={canWrite && (draft || backWithSub)}
         canRemove={canWrite && draft}
       />
+      <EvidencePreviews evidence={evidence} />
       <RevisionHistory revisions={revisions} unit={unit} />
       <Dialog
         open={editing}

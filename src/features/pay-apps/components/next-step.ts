@@ -1,0 +1,41 @@
+import { formatMoney } from '@/lib/format';
+import type { PayAppStatus } from '@/shared/constants';
+
+export type ViewerSeats = { isSub: boolean; isGc: boolean; isOwner: boolean };
+
+/**
+ * Where a pay application stands, in one sentence for the person reading it: the next step when it is theirs,
+ * or whom it waits on. Shown under the application's title.
+ */
+export function nextStepSentence(status: PayAppStatus, seats: ViewerSeats, dueCents: number): string {
+  const due = formatMoney(dueCents);
+  switch (status) {
+    case 'draft':
+      return seats.isSub
+        ? 'Draft: check the lines and their backup, then submit it to the general contractor.'
+        : 'Draft: waits on the subcontractor to submit it.';
+    case 'submitted':
+    case 'in_review':
+      return seats.isGc
+        ? 'Waits on your review: approve or dispute each line, then certify it for payment.'
+        : 'Waits on the general contractor’s review.';
+    case 'returned':
+      return seats.isSub
+        ? 'Returned with disputes: answer each one below, then submit the revision.'
+        : 'Waits on the subcontractor’s answer to the disputes.';
+    case 'certified':
+      return seats.isOwner
+        ? `Certified: ${due} waits on your payment. Pay it below by card or ACH.`
+        : `Certified: ${due} waits on the owner’s payment.`;
+    case 'payment_processing':
+      return 'A payment is under way; it shows as paid once the bank or card processor confirms it.';
+    case 'partially_paid':
+      return seats.isOwner
+        ? 'Partly paid: the balance waits on your payment below.'
+        : 'Partly paid: the balance waits on the owner’s payment.';
+    case 'paid':
+      return seats.isSub
+        ? 'Paid in full. The unconditional waiver for this payment is on the Waivers tab.'
+        : 'Paid in full.';
+  }
+}
