@@ -47,6 +47,7 @@ import { forceAccountRouter } from './modules/force-account/force-account.routes
 import { payAdjustmentsRouter } from './modules/pay-adjustments/pay-adjustments.routes';
 import { storedMaterialsRouter } from './modules/stored-materials/stored-materials.routes';
 import type { AppContext } from './app-context';
+import { uploadLimits, type UploadLimits } from './lib/upload';
 
 export type AppDeps = {
   database: Database;
@@ -72,6 +73,8 @@ export type AppDeps = {
   reauth?: { withinMinutes?: number; paymentAboveCents?: number; paymentWindowHours?: number };
   /** Worker threads for heavy calculations; the process's shared pool (default limits) unless given. */
   compute?: ComputePool;
+  /** Upload limits: one request's total, each project's storage quota, the temp folder (defaults in lib/upload.ts). */
+  uploads?: Partial<UploadLimits>;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
@@ -106,6 +109,7 @@ export function createApp(deps: AppDeps): Express {
     compute,
   };
   const app = express();
+  app.locals.uploadLimits = uploadLimits(deps.uploads);
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders());

@@ -76,6 +76,11 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
     ...(env.PAYMENT_FEE_RATES ? { feeRates: JSON.parse(env.PAYMENT_FEE_RATES) as FeeRates } : {}),
     clientDir: path.join(ROOT, 'dist'),
+    uploads: {
+      projectQuotaBytes: env.PROJECT_STORAGE_QUOTA_BYTES,
+      requestMaxBytes: env.UPLOAD_REQUEST_MAX_BYTES,
+      tempDir: path.join(layout.root, 'upload-temp'),
+    },
   });
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {

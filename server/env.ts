@@ -32,6 +32,18 @@ const envSchema = z.object({
    */
   TALLYARD_DEMO: z.enum(['on', 'off']).default('off'),
   SEED_DEMO: z.enum(['auto', 'always', 'never']).default('auto'),
+  /** Stored files per project (evidence), in bytes; 5 GiB unless set. */
+  PROJECT_STORAGE_QUOTA_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .default(5 * 1024 * 1024 * 1024),
+  /** All files of one upload request together, in bytes. */
+  UPLOAD_REQUEST_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .default(100 * 1024 * 1024),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

@@ -1,16 +1,15 @@
-import multer from 'multer';
+import { readFile } from 'node:fs/promises';
 import { MAX_CSV_UPLOAD_BYTES } from '../../src/shared/constants';
 import { AppError } from './app-error';
 import { nonCsvFormat } from './file-signature';
-import { readableMultipart } from './multipart';
+import { streamedUpload } from './upload';
 
-/** One CSV file in memory, at most MAX_CSV_UPLOAD_BYTES. */
-export const csvUpload = readableMultipart(
-  multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: MAX_CSV_UPLOAD_BYTES, files: 1, fields: 10 },
-  }).single('file'),
-);
+/** One CSV file, at most MAX_CSV_UPLOAD_BYTES, through the shared upload path (a temp file removed afterwards). */
+export const csvUpload = streamedUpload((m) => m.single('file'), {
+  fileSize: MAX_CSV_UPLOAD_BYTES,
+  files: 1,
+  fields: 10,
+});
 
 const CSV_TYPES = ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/csv', 'application/octet-stream'];
 const SAVE_AS = 'Save it as "CSV UTF-8" and upload again.';
@@ -48,11 +47,17 @@ function looksLikeUtf16(bytes: Buffer): boolean {
  */
 export async function decodeCsvBytes(bytes: Buffer): Promise<CsvDecode> {
   const bom = bytes.subarray(0, 2).toString('hex').toUpperCase();
-  if (bom === 'FFFE' || bom === 'FEFF') return { ok: false, problem: `is UTF-16 text (byte-order mark ${bom}), not UTF-8. ${SAVE_AS}` };
+  if (bom === 'FFFE' || bom === 'FEFF')
+    return { ok: false, problem: `is UTF-16 text (byte-order mark ${bom}), not UTF-8. ${SAVE_AS}` };
   const format = await nonCsvFormat(bytes);
   if (format) return { ok: false, problem: `is a .${format.ext} file (${format.mime}) by its content, not CSV text` };
   if (bytes.includes(0)) {
-    return { ok: false, problem: looksLikeUtf16(bytes) ? `looks like UTF-16 text without a byte-order mark, not UTF-8. ${SAVE_AS}` : 'has binary content; it is not CSV text' };
+    return {
+      ok: false,
+      problem: looksLikeUtf16(bytes)
+        ? `looks like UTF-16 text without a byte-order mark, not UTF-8. ${SAVE_AS}`
+        : 'has binary content; it is not CSV text',
+    };
   }
   try {
     return { ok: true, text: new TextDecoder('utf-8', { fatal: true }).decode(bytes) };
@@ -60,7 +65,10 @@ export async function decodeCsvBytes(bytes: Buffer): Promise<CsvDecode> {
     const at = firstInvalidUtf8(bytes);
     const line = bytes.subarray(0, at).filter((b) => b === 0x0a).length + 1;
     const byte = (bytes[at] ?? 0).toString(16).toUpperCase().padStart(2, '0');
-    return { ok: false, problem: `is not UTF-8 text: byte 0x${byte} on line ${line} is not valid UTF-8 (a Windows-1252 or Latin-1 file?). ${SAVE_AS}` };
+    return {
+      ok: false,
+      problem: `is not UTF-8 text: byte 0x${byte} on line ${line} is not valid UTF-8 (a Windows-1252 or Latin-1 file?). ${SAVE_AS}`,
+    };
   }
 }
 
@@ -70,10 +78,13 @@ export async function decodeCsvBytes(bytes: Buffer): Promise<CsvDecode> {
  */
 export async function readCsvText(file: Express.Multer.File | undefined): Promise<string> {
   const bad = (message: string) => new AppError(400, 'UPLOAD_NOT_CSV', message, [{ path: 'file', message }]);
-  if (!file) throw new AppError(400, 'UPLOAD_MISSING', 'Attach a CSV file in the "file" field.', [{ path: 'file', message: 'Required' }]);
+  if (!file)
+    throw new AppError(400, 'UPLOAD_MISSING', 'Attach a CSV file in the "file" field.', [
+      { path: 'file', message: 'Required' },
+    ]);
   if (!/\.(csv|txt)$/i.test(file.originalname)) throw bad('The file name should end in .csv.');
   if (!CSV_TYPES.includes(file.mimetype)) throw bad(`A ${file.mimetype} file is not CSV.`);
-  const decoded = await decodeCsvBytes(file.buffer);
+  const decoded = await decodeCsvBytes(await readFile(file.path));
   if (!decoded.ok) throw bad(`The file ${decoded.problem}`);
   return decoded.text;
 }

@@ -1,3 +1,4 @@
+import type { UploadLimits } from '../../server/lib/upload';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { createAuth, type Auth } from '../../server/auth';
@@ -25,6 +26,8 @@ type Options = {
   clientDir?: string;
   /** Worker threads for heavy calculations; the shared pool unless given (a test of the limits passes its own). */
   compute?: ComputePool;
+  /** Upload limits (a test of the quota sets a tiny one). */
+  uploads?: Partial<UploadLimits>;
 };
 
 export type AssembledApp = {
@@ -70,6 +73,7 @@ export async function assembleTestApp(o: Options): Promise<AssembledApp> {
     appUrl: o.baseURL,
     clientDir: o.clientDir,
     compute: o.compute,
+    uploads: o.uploads,
   });
   const close = async () => {
     await standin.close();

@@ -4,7 +4,11 @@ import type { PayAppStatus } from '../../src/shared/constants';
 import type { Db } from '../../server/db/client';
 import { payAppLines, payApps } from '../../server/db/schema';
 
-export const quantityChange = (bidItemId: string, quantityDelta: number, title = 'Quantity change'): CreateChangeOrderInput => ({
+export const quantityChange = (
+  bidItemId: string,
+  quantityDelta: number,
+  title = 'Quantity change',
+): CreateChangeOrderInput => ({
   title,
   reason: 'Field conditions',
   items: [{ kind: 'change_quantity', bidItemId, quantityDelta }],
@@ -26,7 +30,15 @@ export async function makePayApp(
 ) {
   const [app] = await db
     .insert(payApps)
-    .values({ projectId, number: nextNumber++, status, periodStart: period.start, periodEnd: period.end, retainageBps: 1000, createdByUserId })
+    .values({
+      projectId,
+      number: nextNumber++,
+      status,
+      periodStart: period.start,
+      periodEnd: period.end,
+      retainageBps: 1000,
+      createdByUserId,
+    })
     .returning();
   if (lines.length > 0) {
     await db.insert(payAppLines).values(

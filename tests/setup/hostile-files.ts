@@ -42,10 +42,40 @@ export function zipBomb(inflatedBytes: number, entryName = 'data.csv'): Buffer {
     else b.writeUInt32LE(n >>> 0);
     return b;
   };
-  const common = Buffer.concat([le(20, 2), le(0, 2), le(8, 2), le(0, 2), le(0, 2), le(crc, 4), le(data.length, 4), le(plain.length, 4), le(name.length, 2), le(0, 2)]);
+  const common = Buffer.concat([
+    le(20, 2),
+    le(0, 2),
+    le(8, 2),
+    le(0, 2),
+    le(0, 2),
+    le(crc, 4),
+    le(data.length, 4),
+    le(plain.length, 4),
+    le(name.length, 2),
+    le(0, 2),
+  ]);
   const local = Buffer.concat([le(0x04034b50, 4), common, name, data]);
-  const central = Buffer.concat([le(0x02014b50, 4), le(20, 2), common, le(0, 2), le(0, 2), le(0, 2), le(0, 4), le(0, 4), name]);
-  const end = Buffer.concat([le(0x06054b50, 4), le(0, 2), le(0, 2), le(1, 2), le(1, 2), le(central.length, 4), le(local.length, 4), le(0, 2)]);
+  const central = Buffer.concat([
+    le(0x02014b50, 4),
+    le(20, 2),
+    common,
+    le(0, 2),
+    le(0, 2),
+    le(0, 2),
+    le(0, 4),
+    le(0, 4),
+    name,
+  ]);
+  const end = Buffer.concat([
+    le(0x06054b50, 4),
+    le(0, 2),
+    le(0, 2),
+    le(1, 2),
+    le(1, 2),
+    le(central.length, 4),
+    le(local.length, 4),
+    le(0, 2),
+  ]);
   return Buffer.concat([local, central, end]);
 }
 

@@ -11,7 +11,11 @@ export type JsonPath = (string | number)[];
 const RAW = '\u0001raw\u0001';
 const RAW_KEY = '\u0001key\u0001';
 
-function cloneAt(template: unknown, path: JsonPath, set: (parent: Record<string | number, unknown>, key: string | number) => void): unknown {
+function cloneAt(
+  template: unknown,
+  path: JsonPath,
+  set: (parent: Record<string | number, unknown>, key: string | number) => void,
+): unknown {
   const copy = structuredClone(template);
   if (path.length === 0) return RAW;
   let node = copy as Record<string | number, unknown>;
@@ -52,7 +56,9 @@ export function objectPaths(value: unknown, prefix: JsonPath = []): JsonPath[] {
 
 /** Paths to every array inside a JSON value. */
 export function arrayPaths(value: unknown): JsonPath[] {
-  return valuePaths(value).filter((p) => Array.isArray(p.reduce<unknown>((v, k) => (v as Record<string | number, unknown>)[k], value)));
+  return valuePaths(value).filter((p) =>
+    Array.isArray(p.reduce<unknown>((v, k) => (v as Record<string | number, unknown>)[k], value)),
+  );
 }
 
 /**
@@ -60,23 +66,81 @@ export function arrayPaths(value: unknown): JsonPath[] {
  * strings, and bare among the malformed texts); a number beyond IEEE 754 double range (1e309) is valid JSON text that
  * JSON.parse reads as Infinity; -0, the largest doubles, and an integer beyond 2^53 where JSON.parse rounds.
  */
-export const BOUNDARY_NUMBERS = ['"NaN"', '"Infinity"', '1e309', '-1e309', '-0', '1e308', '-1e308', String(Number.MAX_SAFE_INTEGER + 2)];
+export const BOUNDARY_NUMBERS = [
+  '"NaN"',
+  '"Infinity"',
+  '1e309',
+  '-1e309',
+  '-0',
+  '1e308',
+  '-1e308',
+  String(Number.MAX_SAFE_INTEGER + 2),
+];
 /** More edges and wrong types, sampled by fast-check: the smallest double, underflow to 0, numbers as strings. */
-export const MORE_NUMBERS = ['"-Infinity"', '-9007199254740993', '5e-324', '1e-400', '0.1', '2.5e-16', '"12"', '[]', '{}', 'null', 'true'];
+export const MORE_NUMBERS = [
+  '"-Infinity"',
+  '-9007199254740993',
+  '5e-324',
+  '1e-400',
+  '0.1',
+  '2.5e-16',
+  '"12"',
+  '[]',
+  '{}',
+  'null',
+  'true',
+];
 
 /** Malformed JSON text (RFC 8259 section 2 and 6): each must be refused by the parser. */
-export const MALFORMED_JSON = ['{', '{"a":}', "{'a':1}", 'NaN', '{"a":NaN}', '{"a":Infinity}', '{"a":1,}', '[1,]', '{"a":1}x', '{"a":01}', '{"a":"\\x41"}', '{"a":"\u0001"}', '"just a string"', '42', 'null'];
+export const MALFORMED_JSON = [
+  '{',
+  '{"a":}',
+  "{'a':1}",
+  'NaN',
+  '{"a":NaN}',
+  '{"a":Infinity}',
+  '{"a":1,}',
+  '[1,]',
+  '{"a":1}x',
+  '{"a":01}',
+  '{"a":"\\x41"}',
+  '{"a":"\u0001"}',
+  '"just a string"',
+  '42',
+  'null',
+];
 
 /**
  * Hostile strings as raw JSON text, each tried at every text field: lone surrogates (not Unicode scalar values, RFC
  * 8259 section 8.2), NUL, 10,000 characters, and a date PostgreSQL's date type cannot hold (it has no year 0).
  */
-export const HOSTILE_STRINGS = ['"\\ud800"', '"a\\udc00b"', '"a\\u0000b"', JSON.stringify('x'.repeat(10_000)), '"0000-01-01"'];
+export const HOSTILE_STRINGS = [
+  '"\\ud800"',
+  '"a\\udc00b"',
+  '"a\\u0000b"',
+  JSON.stringify('x'.repeat(10_000)),
+  '"0000-01-01"',
+];
 /** More, sampled by fast-check: RTL marks, other controls, astral and combining characters, markup, SQL, a path, dates. */
 export const MORE_STRINGS = [
-  '"\\u202eexe.fdp"', '"\\u200fA-1"', '"\\udfff\\ud800"', '"\\u0000"', '"\\u001b[31m"', JSON.stringify('\u{1F6A7}'.repeat(2_500)), JSON.stringify('e\u0301'.repeat(5_000)),
-  '""', '"   "', '"<script>alert(1)</script>"', '"\' OR 1=1 --"', '"../../etc/passwd"',
-  '"0001-01-01"', '"9999-12-31"', '"2024-02-29"', '"2026-02-29"', '"2026-13-01"', '"+002026-10-01"',
+  '"\\u202eexe.fdp"',
+  '"\\u200fA-1"',
+  '"\\udfff\\ud800"',
+  '"\\u0000"',
+  '"\\u001b[31m"',
+  JSON.stringify('\u{1F6A7}'.repeat(2_500)),
+  JSON.stringify('e\u0301'.repeat(5_000)),
+  '""',
+  '"   "',
+  '"<script>alert(1)</script>"',
+  '"\' OR 1=1 --"',
+  '"../../etc/passwd"',
+  '"0001-01-01"',
+  '"9999-12-31"',
+  '"2024-02-29"',
+  '"2026-02-29"',
+  '"2026-13-01"',
+  '"+002026-10-01"',
 ];
 
 /** Prototype-pollution members as raw JSON text: JSON.stringify would drop an own `__proto__` key. */
@@ -117,7 +181,8 @@ export const deeplyNested = (depth: number) => `${'{"a":'.repeat(depth)}1${'}'.r
 export const longArray = (n: number) => `[${'0,'.repeat(n - 1)}0]`;
 
 const PROTOTYPES = { Object: Object.prototype, Array: Array.prototype, Function: Function.prototype };
-const snapshotPrototypes = () => Object.fromEntries(Object.entries(PROTOTYPES).map(([n, p]) => [n, Object.getOwnPropertyNames(p).sort()]));
+const snapshotPrototypes = () =>
+  Object.fromEntries(Object.entries(PROTOTYPES).map(([n, p]) => [n, Object.getOwnPropertyNames(p).sort()]));
 const PRISTINE = snapshotPrototypes();
 
 /**
@@ -130,7 +195,10 @@ export function expectPrototypesClean(context: string) {
 }
 
 /** The one error shape of server/middleware/error-handler.ts. */
-export function expectErrorShape(res: { status: number; body: unknown; headers: Record<string, string> }, context: string) {
+export function expectErrorShape(
+  res: { status: number; body: unknown; headers: Record<string, string> },
+  context: string,
+) {
   expect(res.headers['content-type'], context).toMatch(/^application\/json/);
   const parsed = apiErrorSchema.safeParse(res.body);
   expect(parsed.success, `${context}: ${JSON.stringify(res.body)?.slice(0, 300)}`).toBe(true);
@@ -152,7 +220,9 @@ const TABLES = (Object.values(schema) as unknown[])
  * Columns: xmin is the transaction that wrote the row version).
  */
 export async function fingerprint(db: Db): Promise<Record<string, string>> {
-  const query = TABLES.map((t) => `select '${t}' as t, count(*) || ':' || coalesce(max(x.xmin::text::bigint), 0) as h from "${t}" x`).join(' union all ');
+  const query = TABLES.map(
+    (t) => `select '${t}' as t, count(*) || ':' || coalesce(max(x.xmin::text::bigint), 0) as h from "${t}" x`,
+  ).join(' union all ');
   const result = (await db.execute(sql.raw(query))) as unknown as { rows: { t: string; h: string }[] };
   return Object.fromEntries(result.rows.map((r) => [r.t, r.h]));
 }

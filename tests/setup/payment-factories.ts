@@ -16,7 +16,14 @@ export async function makeCertifiedPayApp(
   db: Db,
   projectId: string,
   createdByUserId: string,
-  opts: { number?: number; status?: PayAppStatus; isFinal?: boolean; retainageBps?: number; lines?: LineSpec[]; periodEnd?: string } = {},
+  opts: {
+    number?: number;
+    status?: PayAppStatus;
+    isFinal?: boolean;
+    retainageBps?: number;
+    lines?: LineSpec[];
+    periodEnd?: string;
+  } = {},
 ) {
   const retainageBps = opts.retainageBps ?? 1000;
   const specs = opts.lines ?? [
@@ -25,7 +32,11 @@ export async function makeCertifiedPayApp(
   ];
   const lines = [];
   for (const [i, spec] of specs.entries()) {
-    const item = await makeBidItem(db, projectId, { unitPriceCents: spec.unitPriceCents, contractQuantity: spec.quantity * 4, description: spec.description ?? 'Excavation' });
+    const item = await makeBidItem(db, projectId, {
+      unitPriceCents: spec.unitPriceCents,
+      contractQuantity: spec.quantity * 4,
+      description: spec.description ?? 'Excavation',
+    });
     const amount = lineAmountCents(spec.quantity, spec.unitPriceCents);
     lines.push({ item, spec, amount, retainage: lineAmountCents(retainageBps / 10_000, amount), sortOrder: i });
   }

@@ -2,10 +2,18 @@ import { expect, vi } from 'vitest';
 import type { CaughtMail, SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import type { Standin } from '../../stripe-standin/src/index';
 
-type Agent = { post: (path: string) => { send: (body: object) => PromiseLike<{ status: number; body: { paymentId: string; url: string } }> } };
+type Agent = {
+  post: (path: string) => {
+    send: (body: object) => PromiseLike<{ status: number; body: { paymentId: string; url: string } }>;
+  };
+};
 
 /** The stand-in's test hooks (see stripe-standin/README.md). */
-export async function hook<T = Record<string, unknown>>(standin: Standin, path: string, body?: object): Promise<{ status: number; body: T }> {
+export async function hook<T = Record<string, unknown>>(
+  standin: Standin,
+  path: string,
+  body?: object,
+): Promise<{ status: number; body: T }> {
   const res = await fetch(`${standin.url}/_test${path}`, {
     method: body ? 'POST' : 'GET',
     headers: body ? { 'Content-Type': 'application/json' } : {},
@@ -22,17 +30,32 @@ export async function startPayment(owner: Agent, payAppId: string, body: object 
   return { paymentId: res.body.paymentId, sessionId, url: res.body.url };
 }
 
-export async function confirm(standin: Standin, sessionId: string, choice: { card: string } | { account: string; routing?: string }) {
-  const res = await hook<{ outcome: string; paymentIntent: string }>(standin, `/checkout/sessions/${sessionId}/confirm`, choice);
+export async function confirm(
+  standin: Standin,
+  sessionId: string,
+  choice: { card: string } | { account: string; routing?: string },
+) {
+  const res = await hook<{ outcome: string; paymentIntent: string }>(
+    standin,
+    `/checkout/sessions/${sessionId}/confirm`,
+    choice,
+  );
   await standin.idle();
   return res.body;
 }
 
-export type StandinEvent = { id: string; type: string; object: Record<string, unknown>; attempts: { status: number }[] };
+export type StandinEvent = {
+  id: string;
+  type: string;
+  object: Record<string, unknown>;
+  attempts: { status: number }[];
+};
 
 export async function eventsOf(standin: Standin, paymentIntentOrSession: string): Promise<StandinEvent[]> {
   const { body } = await hook<{ events: StandinEvent[] }>(standin, '/events');
-  return body.events.filter((e) => e.object.id === paymentIntentOrSession || e.object.payment_intent === paymentIntentOrSession);
+  return body.events.filter(
+    (e) => e.object.id === paymentIntentOrSession || e.object.payment_intent === paymentIntentOrSession,
+  );
 }
 
 /** The first caught message matching `match`, waiting for the outbox to send it. */

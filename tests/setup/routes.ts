@@ -8,7 +8,8 @@ export function registeredRoutes(app: Express): string[] {
   const walk = (stack: Layer[], prefix: string) => {
     for (const layer of stack) {
       if (layer.route) {
-        for (const method of Object.keys(layer.route.methods)) out.push(`${method.toUpperCase()} ${layer.route.path.startsWith('/api/') ? '' : prefix}${layer.route.path}`);
+        for (const method of Object.keys(layer.route.methods))
+          out.push(`${method.toUpperCase()} ${layer.route.path.startsWith('/api/') ? '' : prefix}${layer.route.path}`);
       } else if (layer.handle?.stack) {
         walk(layer.handle.stack, '/api');
       }

@@ -21,9 +21,22 @@ export type ServerProcess = {
 export const SOURCE_SERVER = ['--import', 'tsx', 'server/index.ts'];
 
 /** The real server (`node --import tsx server/index.ts`) on this data folder; resolves once it listens. */
-export async function startServerProcess(dataDir: string, port: number, env: Record<string, string> = {}, nodeArgs = SOURCE_SERVER): Promise<ServerProcess> {
+export async function startServerProcess(
+  dataDir: string,
+  port: number,
+  env: Record<string, string> = {},
+  nodeArgs = SOURCE_SERVER,
+): Promise<ServerProcess> {
   const child = spawn(process.execPath, nodeArgs, {
-    env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', LOG_LEVEL: 'info', NODE_ENV: 'test', ...env },
+    env: {
+      ...process.env,
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      LOG_LEVEL: 'info',
+      NODE_ENV: 'test',
+      ...env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';
@@ -48,5 +61,8 @@ export async function signInCookie(url: string, email: string, password: string)
     body: JSON.stringify({ email, password }),
   });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${await res.text()}`);
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }

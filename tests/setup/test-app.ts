@@ -1,3 +1,4 @@
+import type { UploadLimits } from '../../server/lib/upload';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { Auth } from '../../server/auth';
@@ -24,7 +25,9 @@ export type TestApp = {
 };
 
 /** The real app on a fresh test database, driven in-process by supertest. */
-export async function createTestApp(options: { storage?: Storage; compute?: ComputePool } = {}): Promise<TestApp> {
+export async function createTestApp(
+  options: { storage?: Storage; compute?: ComputePool; uploads?: Partial<UploadLimits> } = {},
+): Promise<TestApp> {
   const database = await createTestDatabase();
   const target: { app?: Express } = {};
   const built = await assembleTestApp({
@@ -37,6 +40,7 @@ export async function createTestApp(options: { storage?: Storage; compute?: Comp
     retryDelaysMs: [50, 200],
     storage: options.storage,
     compute: options.compute,
+    uploads: options.uploads,
   });
   const { app, auth, mailbox, storage, standin } = built;
   target.app = app;

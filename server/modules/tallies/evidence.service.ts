@@ -4,15 +4,26 @@ import type { Storage } from '../../integrations/storage/storage';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import type { CheckedFile } from './evidence-files';
+import { sizeOf, storeCheckedFiles, type CheckedFile } from './evidence-files';
+import { assertProjectQuota, DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
 import { canAddEvidence, canWriteTallies } from './tallies.policy';
 import { presentEvidence } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { audit } from './tallies.service';
 import { loadTallyAccess, payAppVisible } from './tally-access';
 
-/** Stores the files, then records them in one transaction; if that fails the stored bytes are removed again. */
-export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyId: string, files: CheckedFile[]) {
+/**
+ * Stores the files, then records them in one transaction that also checks the project's storage quota; if anything
+ * fails the stored files are removed again (no row without its file, no file without its row).
+ */
+export async function addEvidence(
+  db: Db,
+  storage: Storage,
+  actor: Actor,
+  tallyId: string,
+  files: CheckedFile[],
+  quotaBytes = DEFAULT_PROJECT_QUOTA_BYTES,
+) {
   const { row } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   const payAppStatus = await repo.payAppStatusOf(db, row.tally.payAppId);
   if (!canAddEvidence(row.tally.status, payAppStatus)) {
@@ -27,9 +38,16 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
     const message = `A tally holds at most ${MAX_EVIDENCE_FILES_PER_TALLY} files; it has ${existing} and this upload adds ${files.length}.`;
     throw new AppError(400, 'EVIDENCE_LIMIT', message, [{ path: 'files', message }]);
   }
-  const stored = await Promise.all(files.map(async (f) => ({ f, ...(await storage.put(f.bytes, 'evidence')) })));
+  const stored = await storeCheckedFiles(storage, files, 'evidence');
   try {
     return await db.transaction(async (tx) => {
+      // The project row is locked, so two uploads at once cannot both fit under the quota by counting apart.
+      const used = await repo.lockedProjectStoredBytes(tx, row.tally.projectId);
+      assertProjectQuota(
+        used,
+        files.reduce((n, f) => n + sizeOf(f), 0),
+        quotaBytes,
+      );
       const rows = await repo.insertEvidence(
         tx,
         stored.map(({ f, key, sha256 }) => ({
@@ -37,7 +55,7 @@ export async function addEvidence(db: Db, storage: Storage, actor: Actor, tallyI
           fileName: f.fileName,
           contentType: f.contentType,
           kind: f.kind,
-          sizeBytes: f.bytes.length,
+          sizeBytes: sizeOf(f),
           sha256,
           storageKey: key,
           uploadedByUserId: actor.userId,

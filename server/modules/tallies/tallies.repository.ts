@@ -3,7 +3,7 @@ import type { PayAppStatus } from '../../../src/shared/constants';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
 import { keyset } from '../../lib/paging';
-import { bidItems, payApps, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
+import { bidItems, payApps, projects, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
 
 export type TallyRow = typeof tallies.$inferSelect;
 export type EvidenceRow = typeof tallyEvidence.$inferSelect;
@@ -217,4 +217,18 @@ export async function listLineTallies(db: Executor, payAppId: string, bidItemId:
   return summaries(db, sql<string>`${tallies.createdAt}::text`)
     .where(and(eq(tallies.payAppId, payAppId), eq(tallies.bidItemId, bidItemId)))
     .orderBy(asc(tallies.measuredOn), asc(tallies.createdAt));
+}
+
+/**
+ * Bytes of the files a project stores (its tallies' evidence), after locking the project's row for the rest of the
+ * transaction: the quota check and the insert that follows cannot interleave with another upload's.
+ */
+export async function lockedProjectStoredBytes(tx: Executor, projectId: string): Promise<number> {
+  await tx.select({ id: projects.id }).from(projects).where(eq(projects.id, projectId)).for('update');
+  const [row] = await tx
+    .select({ bytes: sum(tallyEvidence.sizeBytes) })
+    .from(tallyEvidence)
+    .innerJoin(tallies, eq(tallies.id, tallyEvidence.tallyId))
+    .where(eq(tallies.projectId, projectId));
+  return Number(row?.bytes ?? 0);
 }

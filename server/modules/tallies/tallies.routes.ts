@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { createTallySchema, tallyListQuerySchema, updateTallySchema } from '../../../src/shared/schemas/tally';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
+import { limitsOf } from '../../lib/upload';
 import { checkEvidenceFiles, evidenceUpload } from './evidence-files';
 import * as evidence from './evidence.service';
 import * as service from './tallies.service';
@@ -41,9 +42,9 @@ export function talliesRouter(ctx: AppContext): Router {
   });
   router.post('/tallies/:tallyId/evidence', evidenceUpload, async (req, res) => {
     const files = await checkEvidenceFiles(req.files as Express.Multer.File[] | undefined);
-    res
-      .status(201)
-      .json({ evidence: await evidence.addEvidence(db, storage, getActor(res), String(req.params.tallyId), files) });
+    const quota = limitsOf(req).projectQuotaBytes;
+    const added = await evidence.addEvidence(db, storage, getActor(res), String(req.params.tallyId), files, quota);
+    res.status(201).json({ evidence: added });
   });
   router.get('/evidence/:evidenceId/download', async (req, res) => {
     const { evidence: row, bytes } = await evidence.downloadEvidence(db, storage, getActor(res), req.params.evidenceId);

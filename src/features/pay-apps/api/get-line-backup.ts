@@ -1,11 +1,11 @@
 import { useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { TallyView } from '@/shared/schemas/tally';
+import type { TallySummaryView } from '@/shared/schemas/tally';
 import { payAppKeys } from './keys';
 
 export type LineBackup = {
   line: { id: string; bidItemId: string; payAppId: string; payAppNumber: number };
-  tallies: TallyView[];
+  tallies: TallySummaryView[];
 };
 
 /** The tallies behind one line (GET /api/pay-apps/:payAppId/lines/:lineId/tallies), fetched when it is opened. */
