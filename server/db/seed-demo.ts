@@ -9,6 +9,10 @@ import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJEC
 import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
 import { recordAudit } from '../modules/audit/audit.repository';
 import { insertAccount, prepareAccount } from '../modules/accounts/accounts.service';
+import { DemoClock } from './demo/demo-clock';
+
+const DEMO_SET_UP_AT = '2026-07-21T16:00:00.000Z';
+const DEMO_PAY_BASIS_AT = '2026-11-24T09:30:00.000Z';
 
 /**
  * Seeds the demo scenario once. Returns false when the demo is already there (idempotent: a marker is the
@@ -35,46 +39,54 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
   );
   const userIds = new Map(accounts.map((a) => [a.email, a.id]));
 
-  const projectId = await db.transaction(async (tx) => {
-    for (const prepared of accounts) await insertAccount(tx, prepared);
-    const companyIds = {} as Record<CompanyKind, string>;
-    for (const [kind, name] of Object.entries(DEMO_COMPANIES) as [CompanyKind, string][]) {
-      const [row] = await tx.insert(companies).values({ kind, name }).returning({ id: companies.id });
-      companyIds[kind] = row!.id;
-    }
-    for (const person of DEMO_PEOPLE) {
-      await tx
-        .insert(companyMembers)
-        .values({ userId: userIds.get(person.email)!, companyId: companyIds[person.company], isAdmin: person.isAdmin });
-    }
-    const [project] = await tx
-      .insert(projects)
-      .values({
-        ...DEMO_PROJECT,
-        subcontractorCompanyId: companyIds.subcontractor,
-        generalContractorCompanyId: companyIds.general_contractor,
-        ownerCompanyId: companyIds.owner,
-      })
-      .returning({ id: projects.id });
-    const projectId = project!.id;
-    for (const person of DEMO_PEOPLE) {
-      if (!person.projectRole) continue;
-      await tx
-        .insert(projectMembers)
-        .values({ projectId, userId: userIds.get(person.email)!, role: person.projectRole });
-    }
-    await tx.insert(bidItems).values(DEMO_BID_ITEMS.map((i) => ({ ...i, projectId })));
-    await recordAudit(tx, {
-      projectId,
-      actorUserId: null,
-      objectType: 'project',
-      objectId: projectId,
-      action: 'demo.seeded',
-      after: { bidItems: DEMO_BID_ITEMS.length },
-    });
-    return projectId;
-  });
+  // The contract is set up in July; the pay cycle dates its own steps; the pay basis records come in November.
+  const clock = new DemoClock(db);
+  const projectId = await clock.step(DEMO_SET_UP_AT, () =>
+    db.transaction(async (tx) => {
+      for (const prepared of accounts) await insertAccount(tx, prepared);
+      const companyIds = {} as Record<CompanyKind, string>;
+      for (const [kind, name] of Object.entries(DEMO_COMPANIES) as [CompanyKind, string][]) {
+        const [row] = await tx.insert(companies).values({ kind, name }).returning({ id: companies.id });
+        companyIds[kind] = row!.id;
+      }
+      for (const person of DEMO_PEOPLE) {
+        await tx
+          .insert(companyMembers)
+          .values({
+            userId: userIds.get(person.email)!,
+            companyId: companyIds[person.company],
+            isAdmin: person.isAdmin,
+          });
+      }
+      const [project] = await tx
+        .insert(projects)
+        .values({
+          ...DEMO_PROJECT,
+          subcontractorCompanyId: companyIds.subcontractor,
+          generalContractorCompanyId: companyIds.general_contractor,
+          ownerCompanyId: companyIds.owner,
+        })
+        .returning({ id: projects.id });
+      const projectId = project!.id;
+      for (const person of DEMO_PEOPLE) {
+        if (!person.projectRole) continue;
+        await tx
+          .insert(projectMembers)
+          .values({ projectId, userId: userIds.get(person.email)!, role: person.projectRole });
+      }
+      await tx.insert(bidItems).values(DEMO_BID_ITEMS.map((i) => ({ ...i, projectId })));
+      await recordAudit(tx, {
+        projectId,
+        actorUserId: null,
+        objectType: 'project',
+        objectId: projectId,
+        action: 'demo.seeded',
+        after: { bidItems: DEMO_BID_ITEMS.length },
+      });
+      return projectId;
+    }),
+  );
   await seedPayCycle(db, storage, projectId);
-  await seedProvisions(db, projectId);
+  await clock.step(DEMO_PAY_BASIS_AT, () => seedProvisions(db, projectId));
   return true;
 }

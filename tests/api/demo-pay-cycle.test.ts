@@ -1,7 +1,15 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed-demo';
-import { changeOrders, payApps, payments, projects, tallyEvidence } from '../../server/db/schema';
+import {
+  auditEvents,
+  changeOrders,
+  payAppStatusHistory,
+  payApps,
+  payments,
+  projects,
+  tallyEvidence,
+} from '../../server/db/schema';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -54,7 +62,10 @@ describe('demo pay cycle (invented data)', () => {
     const a205 = items.bidItems.find((b: { itemNumber: string }) => b.itemNumber === '205');
     expect(a205.contractAmountCents - a205.originalAmountCents).toBe(1_560_000);
     const view = (await agent.get(`/api/projects/${project!.id}`)).body.project;
-    expect(view).toMatchObject({ approvedChangesCents: items.totals.approvedChangesCents, contractSumCents: items.totals.contractSumCents });
+    expect(view).toMatchObject({
+      approvedChangesCents: items.totals.approvedChangesCents,
+      contractSumCents: items.totals.contractSumCents,
+    });
     const watch = (await agent.get(`/api/projects/${project!.id}/variance`)).body;
     expect(watch.rows.find((r: { itemNumber: string }) => r.itemNumber === '205')).toMatchObject({
       currentContractQuantity: 4800,
@@ -74,5 +85,26 @@ describe('demo pay cycle (invented data)', () => {
   it('is idempotent: a second run adds nothing', async () => {
     expect(await seedDemo(t.database.db, t.auth, t.storage)).toBe(false);
     expect((await t.database.db.select().from(payApps)).length).toBe(3);
+  });
+});
+
+describe('demo dates (invented scenario)', () => {
+  it('dates each step after its period, in order, and nothing of the scenario on the day it was seeded', async () => {
+    const { db } = t.database;
+    const apps = await db.select().from(payApps).orderBy(payApps.number);
+    for (const a of apps) {
+      const periodEnd = Date.parse(`${a.periodEnd}T23:59:59Z`);
+      expect(a.createdAt.getTime()).toBeGreaterThan(periodEnd);
+      expect(a.submittedAt!.getTime()).toBeGreaterThan(a.createdAt.getTime());
+      if (a.certifiedAt) expect(a.certifiedAt.getTime()).toBeGreaterThan(a.submittedAt!.getTime());
+      const history = await db.select().from(payAppStatusHistory).where(eq(payAppStatusHistory.payAppId, a.id));
+      const times = history.map((h) => h.createdAt.getTime());
+      expect(Math.min(...times)).toBeGreaterThan(periodEnd);
+      expect(Math.max(...times)).toBeLessThan(Date.parse(`${a.periodEnd}T00:00:00Z`) + 40 * 86_400_000);
+    }
+    const seededToday = Date.now() - 86_400_000;
+    const events = await db.select({ at: auditEvents.createdAt, action: auditEvents.action }).from(auditEvents);
+    expect(events.length).toBeGreaterThan(20);
+    expect(events.filter((e) => e.at.getTime() > seededToday)).toEqual([]);
   });
 });

@@ -14,6 +14,7 @@ import { draftVarianceChangeOrder, setForecast } from '../../modules/variance/fo
 import { roundTo } from '../../../src/shared/domain/rounding';
 import type { Db } from '../client';
 import { bidItems, companies, companyMembers, emailOutbox, payApps, user } from '../schema';
+import { DemoClock, scenarioTime } from './demo-clock';
 import { markPaid } from './demo-payment';
 import {
   DEMO_CHANGE_ORDER,
@@ -102,14 +103,21 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
     recentAuth: noReauth,
   };
 
+  // Each step is dated in the scenario, in the days after its period ends (demo-clock.ts).
+  const clock = new DemoClock(db);
   for (const [index, period] of DEMO_PAY_CYCLE.entries()) {
-    await tallyPeriod(db, storage, sub, projectId, period, itemIds);
-    const draft = await createPayApp(db, sub, projectId, {
-      periodStart: period.periodStart,
-      periodEnd: period.periodEnd,
-      isFinal: false,
-    });
-    const submitted = await submitPayApp(ctx, sub, draft.id, { note: 'Quantities from this month’s tallies.' });
+    const day = (after: number, time: string) => scenarioTime(period.periodEnd, after, time);
+    await clock.step(day(-3, '15:30'), () => tallyPeriod(db, storage, sub, projectId, period, itemIds));
+    const draft = await clock.step(day(1, '08:40'), () =>
+      createPayApp(db, sub, projectId, {
+        periodStart: period.periodStart,
+        periodEnd: period.periodEnd,
+        isFinal: false,
+      }),
+    );
+    const submitted = await clock.step(day(2, '10:15'), () =>
+      submitPayApp(ctx, sub, draft.id, { note: 'Quantities from this month’s tallies.' }),
+    );
     const disputed = index === 2 ? submitted.lines.find((l) => l.itemNumber === DEMO_DISPUTE.itemNumber) : undefined;
     const lines = submitted.lines.map((l) =>
       l === disputed
@@ -121,32 +129,39 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
           }
         : { lineId: l.id, decision: 'approve' as const },
     );
-    const reviewed = await reviewPayApp(ctx, gc, draft.id, { expectedRevision: submitted.revision, lines });
+    const reviewed = await clock.step(day(6, '14:40'), () =>
+      reviewPayApp(ctx, gc, draft.id, { expectedRevision: submitted.revision, lines }),
+    );
     if (index === 2) break;
-    const certified = await certifyPayApp(ctx, gc, draft.id, {
-      expectedRevision: reviewed.revision,
-      note: 'Checked against the tallies and evidence.',
-      acknowledgedFlags: reviewed.flags.map((f) => f.key),
-    });
-    if (index === 0)
-      await markPaid(
-        db,
-        projectId,
-        certified.id,
-        certified.currentDueCents,
-        (await actorOf(db, 'owner@tallyard.test')).userId,
+    const certified = await clock.step(day(8, '09:20'), () =>
+      certifyPayApp(ctx, gc, draft.id, {
+        expectedRevision: reviewed.revision,
+        note: 'Checked against the tallies and evidence.',
+        acknowledgedFlags: reviewed.flags.map((f) => f.key),
+      }),
+    );
+    if (index === 0) {
+      const ownerId = (await actorOf(db, 'owner@tallyard.test')).userId;
+      await clock.step(day(33, '11:05'), () =>
+        markPaid(db, projectId, certified.id, certified.currentDueCents, ownerId),
       );
+    }
     // Between the second and third periods the borrow area grows and dewatering is added by change order.
     if (index === 1) {
-      const co = await proposeChangeOrder(db, sub, projectId, demoChangeOrder(itemIds));
-      await approveChangeOrder(db, gc, co.id, DEMO_CHANGE_ORDER.approvalNote);
+      const co = await clock.step(day(9, '13:00'), () =>
+        proposeChangeOrder(db, sub, projectId, demoChangeOrder(itemIds)),
+      );
+      await clock.step(day(14, '10:30'), () => approveChangeOrder(db, gc, co.id, DEMO_CHANGE_ORDER.approvalNote));
     }
   }
 
-  for (const f of DEMO_FORECASTS) {
-    await setForecast(db, sub, itemIds.get(f.itemNumber)!, { forecastQuantity: f.forecastQuantity, note: f.note });
-  }
-  await draftVarianceChangeOrder(db, sub, itemIds.get(DEMO_FORECASTS[0]!.itemNumber)!);
+  const last = DEMO_PAY_CYCLE[DEMO_PAY_CYCLE.length - 1]!.periodEnd;
+  await clock.step(scenarioTime(last, 18, '15:00'), async () => {
+    for (const f of DEMO_FORECASTS) {
+      await setForecast(db, sub, itemIds.get(f.itemNumber)!, { forecastQuantity: f.forecastQuantity, note: f.note });
+    }
+    await draftVarianceChangeOrder(db, sub, itemIds.get(DEMO_FORECASTS[0]!.itemNumber)!);
+  });
   // The demo's past hand-offs are history: their e-mails are not sent to the demo addresses.
   const queued = (await db.select({ id: emailOutbox.id }).from(emailOutbox))
     .map((r) => r.id)

@@ -7,7 +7,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, forbidden, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import type { CheckedFile } from '../tallies/evidence-files';
+import { sizeOf, storeCheckedFiles, type CheckedFile } from '../tallies/evidence-files';
 import * as docs from './change-order-documents.repository';
 import { canAttachChangeOrderDocument, documentsOpen } from './change-orders.policy';
 import * as repo from './change-orders.repository';
@@ -67,7 +67,7 @@ export async function attachChangeOrderDocuments(
     const message = `A change order holds at most ${MAX_DOCUMENTS_PER_CHANGE_ORDER} documents; it has ${existing} and this upload adds ${files.length}.`;
     throw new AppError(400, 'DOCUMENT_LIMIT', message, [{ path: 'files', message }]);
   }
-  const stored = await Promise.all(files.map(async (f) => ({ f, ...(await storage.put(f.bytes, 'change-order')) })));
+  const stored = await storeCheckedFiles(storage, files, 'change-order');
   try {
     return await db.transaction(async (tx) => {
       // Touching the row locks it against a decision running at the same time, and proves it is still proposed.
@@ -80,7 +80,7 @@ export async function attachChangeOrderDocuments(
           fileName: f.fileName,
           contentType: f.contentType,
           kind: f.kind,
-          sizeBytes: f.bytes.length,
+          sizeBytes: sizeOf(f),
           sha256,
           storageKey: key,
           uploadedByUserId: actor.userId,

@@ -116,17 +116,15 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
         'A tally of the period changed while the pay application was compiled; try again.',
       );
   }
-  await tx
-    .insert(payAppStatusHistory)
-    .values({
-      payAppId: app!.id,
-      fromStatus: null,
-      toStatus: 'draft',
-      revision: 0,
-      note: `Compiled from ${billed.length} tally(ies)`,
-      actorUserId: userId,
-      createdAt: new Date(),
-    });
+  await tx.insert(payAppStatusHistory).values({
+    payAppId: app!.id,
+    fromStatus: null,
+    toStatus: 'draft',
+    revision: 0,
+    note: `Compiled from ${billed.length} ${billed.length === 1 ? 'tally' : 'tallies'}`,
+    actorUserId: userId,
+    createdAt: new Date(),
+  });
   await recordAudit(tx, {
     projectId: project.id,
     actorUserId: userId,
