@@ -1,4 +1,5 @@
 import type { Request, Response } from 'express';
+import type { FeeRates } from '../src/shared/domain/payment-fees';
 import type { Db } from './db/client';
 import type { Payments } from './integrations/payments/payments';
 import type { SmtpSink } from './integrations/mailer/smtp-sink';
@@ -22,6 +23,8 @@ export type AppContext = {
   mailboxKind?: MailboxKind;
   /** Online payment (Stripe's SDK, or the local stand-in); absent when the server has none configured. */
   payments?: Payments;
+  /** The processor's fee rates the payment form quotes and the charge follows (configuration, one place). */
+  feeRates: FeeRates;
   /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
   recentAuth: RecentAuth;
   /** Worker threads for heavy calculations (large worksheets); without it (the demo seed) they run inline. */

@@ -1,3 +1,4 @@
+import { checkFeeRates, DEFAULT_FEE_RATES, type FeeRates } from '../src/shared/domain/payment-fees';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { toNodeHandler } from 'better-auth/node';
@@ -66,6 +67,8 @@ export type AppDeps = {
   clientDir?: string;
   /** Stripe through its SDK (or the local stand-in when no STRIPE_SECRET_KEY is set). */
   payments?: Payments;
+  /** The processor's fee rates (DEFAULT_FEE_RATES unless given; PAYMENT_FEE_RATES in the environment). */
+  feeRates?: FeeRates;
   /** Re-authentication: how old a sign-in may be, and the payment amount above which it is asked. */
   reauth?: { withinMinutes?: number; paymentAboveCents?: number; paymentWindowHours?: number };
   /** Worker threads for heavy calculations; the process's shared pool (default limits) unless given. */
@@ -97,6 +100,7 @@ export function createApp(deps: AppDeps): Express {
     mailbox: deps.mailbox,
     mailboxKind: deps.mailboxKind ?? 'development',
     payments: deps.payments,
+    feeRates: checkFeeRates(deps.feeRates ?? DEFAULT_FEE_RATES),
     recentAuth: {
       take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,

@@ -1,3 +1,4 @@
+import type { FeeRates } from '../src/shared/domain/payment-fees';
 import { createServer } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -73,6 +74,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     payments: payments.payments,
     appUrl: baseURL,
     reauth: { withinMinutes: env.REAUTH_MINUTES, paymentAboveCents: env.REAUTH_PAYMENT_ABOVE_CENTS },
+    ...(env.PAYMENT_FEE_RATES ? { feeRates: JSON.parse(env.PAYMENT_FEE_RATES) as FeeRates } : {}),
     clientDir: path.join(ROOT, 'dist'),
     uploads: {
       projectQuotaBytes: env.PROJECT_STORAGE_QUOTA_BYTES,

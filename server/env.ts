@@ -22,6 +22,11 @@ const envSchema = z.object({
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
   /**
+   * The processor's fee rates as JSON (`{"card":{"percentBps":290,"fixedCents":30},"us_bank_account":{"percentBps":80,
+   * "capCents":500}}`), for an account whose pricing differs from the defaults in src/shared/domain/payment-fees.ts.
+   */
+  PAYMENT_FEE_RATES: z.string().optional(),
+  /**
    * The demo `npm start` runs on the embedded database (`npm start` sets it unless DATABASE_URL or SMTP_URL is
    * given): mail stays in the local sink (a labelled demo Mailbox), payments go to the local Stripe stand-in.
    */

@@ -1,3 +1,4 @@
+import { DEFAULT_FEE_RATES, processingFeeCents } from '../../src/shared/domain/payment-fees';
 import { findBankAccount, findCard, type BankOutcome } from './outcomes';
 import { newId, nowSeconds, publicSession, type CheckoutSession, type PaymentIntent, type Store } from './store';
 import type { Webhooks } from './webhooks';
@@ -8,9 +9,9 @@ export type ConfirmResult =
   | { outcome: 'declined'; message: string }
   | { outcome: 'invalid'; message: string };
 
-/** Illustrative fees only (integer cents): 2.9% + 30¢ for cards, 0.8% capped at $5 for bank debits. */
+/** The processor's standard fee on a charge: the default schedule of src/shared/domain/payment-fees.ts (one place). */
 const feeFor = (method: string, amount: number) =>
-  method === 'card' ? Math.round((amount * 29) / 1000) + 30 : Math.min(500, Math.round((amount * 8) / 1000));
+  processingFeeCents(method === 'card' ? 'card' : 'us_bank_account', amount, DEFAULT_FEE_RATES);
 
 /** Checkout's payment step: the chosen test value decides what happens, as Stripe's testing documentation says. */
 export function createPaymentFlow(store: Store, webhooks: Webhooks, settings: { achSettleMs: number }) {
@@ -45,24 +46,46 @@ export function createPaymentFlow(store: Store, webhooks: Webhooks, settings: { 
     if (status === 'succeeded') {
       const fee = feeFor(method, pi.amount);
       balance = newId('txn');
-      store.balanceTransactions.set(balance, { id: balance, object: 'balance_transaction', amount: pi.amount, fee, net: pi.amount - fee, currency: pi.currency });
+      store.balanceTransactions.set(balance, {
+        id: balance,
+        object: 'balance_transaction',
+        amount: pi.amount,
+        fee,
+        net: pi.amount - fee,
+        currency: pi.currency,
+      });
     }
     const id = pi.latest_charge ?? newId('py');
-    store.charges.set(id, { id, object: 'charge', amount: pi.amount, payment_intent: pi.id, status, balance_transaction: balance, payment_method_details: { type: method } });
+    store.charges.set(id, {
+      id,
+      object: 'charge',
+      amount: pi.amount,
+      payment_intent: pi.id,
+      status,
+      balance_transaction: balance,
+      payment_method_details: { type: method },
+    });
     pi.latest_charge = id;
   }
 
   const redirectOf = (s: CheckoutSession) => s.success_url?.replace('{CHECKOUT_SESSION_ID}', s.id) ?? null;
 
   async function confirm(session: CheckoutSession, choice: Choice): Promise<ConfirmResult> {
-    if (session.status !== 'open') return { outcome: 'invalid', message: `This checkout session is ${session.status}.` };
+    if (session.status !== 'open')
+      return { outcome: 'invalid', message: `This checkout session is ${session.status}.` };
     if ('card' in choice) {
       const card = findCard(choice.card);
-      if (!session.payment_method_types.includes('card')) return { outcome: 'invalid', message: 'Cards are not offered here.' };
+      if (!session.payment_method_types.includes('card'))
+        return { outcome: 'invalid', message: 'Cards are not offered here.' };
       if (!card) return { outcome: 'invalid', message: 'Use one of the test card numbers listed on this page.' };
       const pi = intentFor(session, 'card');
       if (card.outcome.kind === 'declines') {
-        pi.last_payment_error = { type: 'card_error', code: 'card_declined', decline_code: card.outcome.declineCode, message: card.outcome.message };
+        pi.last_payment_error = {
+          type: 'card_error',
+          code: 'card_declined',
+          decline_code: card.outcome.declineCode,
+          message: card.outcome.message,
+        };
         charge(pi, 'failed');
         await webhooks.emit('payment_intent.payment_failed', pi);
         return { outcome: 'declined', message: card.outcome.message };
@@ -78,8 +101,13 @@ export function createPaymentFlow(store: Store, webhooks: Webhooks, settings: { 
       return { outcome: 'succeeded', redirect: redirectOf(session) };
     }
     const account = findBankAccount(choice.account, choice.routing);
-    if (!session.payment_method_types.includes('us_bank_account')) return { outcome: 'invalid', message: 'Bank debits are not offered here.' };
-    if (!account) return { outcome: 'invalid', message: 'Use routing 110000000 and one of the test account numbers listed on this page.' };
+    if (!session.payment_method_types.includes('us_bank_account'))
+      return { outcome: 'invalid', message: 'Bank debits are not offered here.' };
+    if (!account)
+      return {
+        outcome: 'invalid',
+        message: 'Use routing 110000000 and one of the test account numbers listed on this page.',
+      };
     const pi = intentFor(session, 'us_bank_account');
     pi.status = 'processing';
     charge(pi, 'pending');
@@ -94,7 +122,9 @@ export function createPaymentFlow(store: Store, webhooks: Webhooks, settings: { 
   const outcomes = new Map<string, BankOutcome>();
   function schedule(piId: string, sessionId: string, outcome: BankOutcome) {
     outcomes.set(piId, outcome);
-    const timer = Number.isFinite(settings.achSettleMs) ? setTimeout(() => void settle(piId), settings.achSettleMs) : null;
+    const timer = Number.isFinite(settings.achSettleMs)
+      ? setTimeout(() => void settle(piId), settings.achSettleMs)
+      : null;
     timer?.unref();
     store.pendingBank.set(piId, { sessionId, timer });
   }

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { changeOrderItems, changeOrders, disputes, lienWaivers, payAppLines, user } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
 import { allowPartialPayments, makeCertifiedPayApp } from '../setup/payment-factories';
-import { confirm, startPayment } from '../setup/payment-flow';
+import { confirm, startPayment, waitForMail } from '../setup/payment-flow';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 // Factory lines (tests/setup/payment-factories.ts): 1,200 CY x $7.25 and 340.5 CY x $18.90 at 10 % retainage:
@@ -240,5 +240,29 @@ describe('who may see and sign', () => {
       ).status,
     ).toBe(404);
     expect(await t.database.db.select().from(lienWaivers).where(eq(lienWaivers.payAppId, app.id))).toHaveLength(0);
+  });
+});
+
+describe('waiver e-mails', () => {
+  it('a settled payment asks the subcontractor for the unconditional waiver; signing tells the general contractor and the owner', async () => {
+    const app = await newApp();
+    await paid(app);
+    const asked = await waitForMail(
+      t.mailbox,
+      (m) => m.subject === `Lien waiver requested: pay application ${app.number}, Home`,
+    );
+    expect(asked.to).toEqual([world.people.subcontractor.email]);
+    expect(asked.text).toContain('Unconditional waiver on progress payment');
+    expect(asked.text).toContain('$13,621.90');
+    const res = await issue(app.id, { kind: 'unconditional_progress' });
+    expect(res.status).toBe(201);
+    const signed = await waitForMail(
+      t.mailbox,
+      (m) => m.subject === `Lien waiver signed: pay application ${app.number}, Home`,
+    );
+    expect([...signed.to].sort()).toEqual([world.people.general_contractor.email, world.people.owner.email].sort());
+    expect(signed.text).toContain(`${NAME} signed the unconditional waiver on progress payment for $13,621.90`);
+    expect(signed.text).toContain('It excepts $1,513.55');
+    expect(signed.text).toContain(res.body.waiver.downloadUrl);
   });
 });

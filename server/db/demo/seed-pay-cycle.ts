@@ -1,3 +1,4 @@
+import { DEFAULT_FEE_RATES } from '../../../src/shared/domain/payment-fees';
 import { eq, inArray } from 'drizzle-orm';
 import type { AppContext } from '../../app-context';
 import type { Storage } from '../../integrations/storage/storage';
@@ -98,6 +99,7 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
     outbox: { flush: async () => {} },
     logger: createLogger('silent'),
     appUrl: '',
+    feeRates: DEFAULT_FEE_RATES,
     recentAuth: noReauth,
   };
 

@@ -1,7 +1,13 @@
+import type { PaymentMethod } from '../../../src/shared/constants';
 import type Stripe from 'stripe';
 
 export type CheckoutInput = {
+  /** Applied to the pay application. */
   amountCents: number;
+  /** The processing fee the payer bears, charged as its own line; absent or 0 when the payee absorbs it. */
+  surchargeCents?: number;
+  /** The methods offered: the one chosen on Tallyard's form; both when absent. */
+  methods?: PaymentMethod[];
   /** The line the payer sees, e.g. "Pay application 3, North Basin Grading". */
   description: string;
   metadata: Record<string, string>;

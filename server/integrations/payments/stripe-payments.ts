@@ -36,9 +36,28 @@ export function stripePayments(config: StripeConfig): Payments {
       const session = await stripe.checkout.sessions.create(
         {
           mode: 'payment',
-          allowed_payment_method_types: ['card', 'us_bank_account'],
+          allowed_payment_method_types: input.methods ?? ['card', 'us_bank_account'],
           line_items: [
-            { quantity: 1, price_data: { currency: 'usd', unit_amount: input.amountCents, product_data: { name: input.description } } },
+            {
+              quantity: 1,
+              price_data: {
+                currency: 'usd',
+                unit_amount: input.amountCents,
+                product_data: { name: input.description },
+              },
+            },
+            ...(input.surchargeCents && input.surchargeCents > 0
+              ? [
+                  {
+                    quantity: 1,
+                    price_data: {
+                      currency: 'usd',
+                      unit_amount: input.surchargeCents,
+                      product_data: { name: 'Processing fee (borne by the payer under this contract)' },
+                    },
+                  },
+                ]
+              : []),
           ],
           metadata: input.metadata,
           payment_intent_data: { metadata: input.metadata, description: input.description },

@@ -27,7 +27,10 @@ export function checkChangeOrderItems(
     if (item.kind === 'add_item') {
       const number = item.newItem?.itemNumber ?? '';
       if (numbers.has(number)) {
-        taken.push({ path: `items.${i}.newItem.itemNumber`, message: `Item number ${number} is already on this bid schedule.` });
+        taken.push({
+          path: `items.${i}.newItem.itemNumber`,
+          message: `Item number ${number} is already on this bid schedule.`,
+        });
       }
       numbers.add(number);
       return;

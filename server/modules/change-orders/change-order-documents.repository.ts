@@ -1,4 +1,4 @@
-import { asc, count, eq, sum } from 'drizzle-orm';
+import { asc, count, eq } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import { changeOrderDocuments, changeOrders } from '../../db/schema';
 
@@ -37,14 +37,4 @@ export async function findDocument(db: Executor, id: string) {
     .where(eq(changeOrderDocuments.id, id))
     .limit(1);
   return row;
-}
-
-/** Bytes of all change order documents of a project (part of its storage quota). */
-export async function projectDocumentBytes(db: Executor, projectId: string): Promise<number> {
-  const [row] = await db
-    .select({ bytes: sum(changeOrderDocuments.sizeBytes) })
-    .from(changeOrderDocuments)
-    .innerJoin(changeOrders, eq(changeOrders.id, changeOrderDocuments.changeOrderId))
-    .where(eq(changeOrders.projectId, projectId));
-  return Number(row?.bytes ?? 0);
 }

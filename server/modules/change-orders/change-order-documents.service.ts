@@ -76,9 +76,7 @@ export async function attachChangeOrderDocuments(
       // Touching the row locks it against a decision running at the same time, and proves it is still proposed.
       const locked = await repo.updateIfProposed(tx, row.id, { updatedAt: new Date() });
       if (!locked) throw frozen((await repo.findChangeOrder(tx, row.id))?.status ?? 'decided');
-      // The project's quota covers its evidence and its change order documents (the project row is locked).
-      const used =
-        (await lockedProjectStoredBytes(tx, row.projectId)) + (await docs.projectDocumentBytes(tx, row.projectId));
+      const used = await lockedProjectStoredBytes(tx, row.projectId);
       assertProjectQuota(
         used,
         files.reduce((n, f) => n + sizeOf(f), 0),

@@ -38,7 +38,10 @@ export async function insertChangeOrder(
   proposedByUserId: string,
   input: CreateChangeOrderInput,
 ): Promise<ChangeOrderRow> {
-  const [last] = await tx.select({ n: max(changeOrders.number) }).from(changeOrders).where(eq(changeOrders.projectId, projectId));
+  const [last] = await tx
+    .select({ n: max(changeOrders.number) })
+    .from(changeOrders)
+    .where(eq(changeOrders.projectId, projectId));
   const [row] = await tx
     .insert(changeOrders)
     .values({ projectId, number: (last?.n ?? 0) + 1, title: input.title, reason: input.reason, proposedByUserId })
@@ -65,7 +68,11 @@ export async function updateIfProposed(
   unapprovedSide?: 'gc' | 'owner',
 ): Promise<ChangeOrderRow | undefined> {
   const side =
-    unapprovedSide === 'gc' ? isNull(changeOrders.gcApprovedAt) : unapprovedSide === 'owner' ? isNull(changeOrders.ownerApprovedAt) : undefined;
+    unapprovedSide === 'gc'
+      ? isNull(changeOrders.gcApprovedAt)
+      : unapprovedSide === 'owner'
+        ? isNull(changeOrders.ownerApprovedAt)
+        : undefined;
   const [row] = await tx
     .update(changeOrders)
     .set(set)

@@ -13,6 +13,9 @@ import { canIssueWaiver, waiverOptions } from './lien-waivers.policy';
 import { presentWaiver } from './lien-waivers.presenter';
 import * as repo from './lien-waivers.repository';
 import { exceptionsFor } from './waiver-exceptions.service';
+import { waiverSignedMail } from './waiver-emails';
+import { enqueueEmail } from '../notifications/outbox';
+import { memberEmails } from '../payments/payments.repository';
 
 const rethrowAs = (what: string) => (err: unknown) => {
   throw err instanceof AppError && err.status === 404 ? notFound(what) : err;
@@ -162,8 +165,17 @@ export async function issueWaiver(
           sha256: stored.sha256,
         },
       });
+      await enqueueEmail(
+        tx,
+        waiverSignedMail(
+          { appUrl: ctx.appUrl, project, payAppNumber: app.number },
+          await memberEmails(tx, app.projectId, ['general_contractor', 'owner']),
+          row,
+        ),
+      );
       return row;
     });
+    await ctx.outbox.flush();
     return presentWaiver(row, app.number);
   } catch (err) {
     await ctx.storage.remove(stored.key);

@@ -3,6 +3,10 @@ import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
 import type { PayAppRow, PaymentRow } from './payments.repository';
 import { memberEmails } from './payments.repository';
+import { chargedCents } from './payments.policy';
+import { waiverOptions } from '../lien-waivers/lien-waivers.policy';
+import { listWaivers, paymentsOf } from '../lien-waivers/lien-waivers.repository';
+import { waiverRequestedMail } from '../lien-waivers/waiver-emails';
 
 const METHOD = { card: 'card', us_bank_account: 'ACH bank debit' } as const;
 const FOOTER =
@@ -23,6 +27,7 @@ export async function queueReceipt(
   const lines = [
     `Payment received for pay application ${app.number} on ${project.name}.`,
     `Amount: ${formatCentsPlain(payment.amountCents)} by ${payment.method ? METHOD[payment.method] : 'online payment'}.`,
+    feeLine(payment),
     `Paid to date on this application: ${formatCentsPlain(app.paidCents)} of ${formatCentsPlain(app.currentDueCents)} due.`,
     `Payment reference: ${payment.stripePaymentIntentId ?? payment.id}.`,
     `Details: ${ctx.appUrl}/projects/${project.id}/payments`,
@@ -38,7 +43,16 @@ export async function queueReceipt(
   });
 }
 
-/** Failure notice to the owner: the balance is open again. */
+/** The processing fee, who bore it, and what was charged. */
+function feeLine(payment: PaymentRow): string {
+  if (payment.feeCents === null) return 'Processing fee: not reported by the processor.';
+  const fee = formatCentsPlain(payment.feeCents);
+  return payment.feeBearer === 'payer'
+    ? `Processing fee: ${fee}, paid by the payer under this contract; total charged ${formatCentsPlain(chargedCents(payment))}.`
+    : `Processing fee: ${fee}, absorbed by the payee; total charged ${formatCentsPlain(chargedCents(payment))}.`;
+}
+
+/** Failure notice to the owner (the payer) and the subcontractor: the balance is open again. */
 export async function queueFailureNotice(
   tx: Executor,
   ctx: { appUrl: string },
@@ -46,7 +60,7 @@ export async function queueFailureNotice(
   app: PayAppRow,
   payment: PaymentRow,
 ) {
-  const to = await memberEmails(tx, project.id, ['owner']);
+  const to = await memberEmails(tx, project.id, ['owner', 'subcontractor']);
   const lines = [
     `A payment of ${formatCentsPlain(payment.amountCents)} for pay application ${app.number} on ${project.name} did not go through.`,
     `Reason: ${payment.failureMessage ?? 'not given by the processor'}.`,
@@ -61,4 +75,25 @@ export async function queueFailureNotice(
     text: lines.join('\n\n'),
     html: html(lines),
   });
+}
+
+/**
+ * A settled payment makes an unconditional waiver due (waiver policy): the subcontractor is asked for it, once
+ * per payment (the caller runs only when the payment first moves to succeeded).
+ */
+export async function queueWaiverRequest(
+  tx: Executor,
+  ctx: { appUrl: string },
+  project: { id: string; name: string },
+  app: PayAppRow,
+) {
+  const due = waiverOptions(app, await paymentsOf(tx, app.id), await listWaivers(tx, { payAppId: app.id })).find(
+    (o) => o.allowed && o.kind.startsWith('unconditional'),
+  );
+  if (!due) return;
+  const to = await memberEmails(tx, project.id, ['subcontractor']);
+  await enqueueEmail(
+    tx,
+    waiverRequestedMail({ appUrl: ctx.appUrl, project, payAppNumber: app.number }, to, due.kind, due.amountCents),
+  );
 }

@@ -12,7 +12,14 @@ export const PAYABLE_STATUSES: readonly PayAppStatus[] = ['certified', 'partiall
  * payment to a lower or equal rank, so a late `processing` after `succeeded` is ignored. Canceled only ends an
  * attempt nobody paid; refunds are handled apart.
  */
-const RANK: Record<PaymentStatus, number> = { created: 0, canceled: 1, processing: 2, succeeded: 3, failed: 3, refunded: 4 };
+const RANK: Record<PaymentStatus, number> = {
+  created: 0,
+  canceled: 1,
+  processing: 2,
+  succeeded: 3,
+  failed: 3,
+  refunded: 4,
+};
 
 export function canMovePayment(from: PaymentStatus, to: PaymentStatus): boolean {
   if (to === 'refunded') return from === 'succeeded';
@@ -32,9 +39,24 @@ export type AmountDecision = { ok: true; amountCents: number } | { ok: false; me
  * The amount to charge: the whole balance, or the owner's partial amount where the project allows partial
  * payments and it does not exceed the balance.
  */
-export function chargeAmount(balance: number, partialAllowed: boolean, partialAmountCents: number | undefined): AmountDecision {
+export function chargeAmount(
+  balance: number,
+  partialAllowed: boolean,
+  partialAmountCents: number | undefined,
+): AmountDecision {
   if (partialAmountCents === undefined) return { ok: true, amountCents: balance };
-  if (!partialAllowed) return { ok: false, message: 'This project does not accept partial payments; pay the whole balance.' };
-  if (partialAmountCents > balance) return { ok: false, message: `The amount is more than the balance of ${balance} cents.` };
+  if (!partialAllowed)
+    return { ok: false, message: 'This project does not accept partial payments; pay the whole balance.' };
+  if (partialAmountCents > balance)
+    return { ok: false, message: `The amount is more than the balance of ${balance} cents.` };
   return { ok: true, amountCents: partialAmountCents };
+}
+
+/** What the payer is charged for a payment: its amount, plus the fee when the payer bore it. */
+export function chargedCents(p: {
+  amountCents: number;
+  feeCents: number | null;
+  feeBearer: 'payer' | 'payee';
+}): number {
+  return p.feeBearer === 'payer' ? sumCents([p.amountCents, p.feeCents ?? 0]) : p.amountCents;
 }

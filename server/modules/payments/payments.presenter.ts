@@ -1,6 +1,8 @@
+import type { FeeBearer } from '../../../src/shared/constants';
 import { sumCents } from '../../../src/shared/domain/money';
+import { feeQuote, type FeeRates } from '../../../src/shared/domain/payment-fees';
 import type { PayablePayAppView, PaymentView } from '../../../src/shared/schemas/payment';
-import { balanceCents, PAYABLE_STATUSES } from './payments.policy';
+import { balanceCents, chargedCents, PAYABLE_STATUSES } from './payments.policy';
 import type { HistoryRow, PayAppRow, PaymentRow } from './payments.repository';
 
 export function presentPayment(row: PaymentRow, payAppNumber: number, history: HistoryRow[]): PaymentView {
@@ -11,6 +13,8 @@ export function presentPayment(row: PaymentRow, payAppNumber: number, history: H
     payAppNumber,
     amountCents: row.amountCents,
     feeCents: row.feeCents,
+    feeBearer: row.feeBearer,
+    chargedCents: chargedCents(row),
     method: row.method,
     status: row.status,
     stripeCheckoutSessionId: row.stripeCheckoutSessionId,
@@ -32,7 +36,8 @@ export function presentPayment(row: PaymentRow, payAppNumber: number, history: H
 export function presentPayApp(
   app: PayAppRow,
   payments: PaymentRow[],
-  allowPartialPayments: boolean,
+  project: { allowPartialPayments: boolean; processingFeeBearer: FeeBearer },
+  feeRates: FeeRates,
 ): PayablePayAppView {
   const processing = sumCents(
     payments.filter((p) => p.payAppId === app.id && p.status === 'processing').map((p) => p.amountCents),
@@ -51,6 +56,12 @@ export function presentPayApp(
     processingCents: processing,
     balanceCents: balance,
     payable: PAYABLE_STATUSES.includes(app.status) && balance > 0,
-    allowPartialPayments,
+    allowPartialPayments: project.allowPartialPayments,
+    feeBearer: project.processingFeeBearer,
+    feeRates,
+    feeQuotes: {
+      card: feeQuote(Math.max(balance, 0), 'card', project.processingFeeBearer, feeRates),
+      us_bank_account: feeQuote(Math.max(balance, 0), 'us_bank_account', project.processingFeeBearer, feeRates),
+    },
   };
 }

@@ -6,9 +6,9 @@ import type { Executor } from '../../db/client';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid } from '../projects/project-access';
 import { findProject } from '../projects/projects.repository';
-import { queueFailureNotice, queueReceipt } from './payment-emails';
+import { queueFailureNotice, queueReceipt, queueWaiverRequest } from './payment-emails';
 import { readPaymentSignal, type PaymentSignal } from './payment-events';
-import { canMovePayment } from './payments.policy';
+import { canMovePayment, chargedCents } from './payments.policy';
 import * as repo from './payments.repository';
 
 export type WebhookOutcome = 'applied' | 'duplicate' | 'ignored';
@@ -23,7 +23,11 @@ async function movePayApp(tx: Executor, payment: repo.PaymentRow, to: PaymentSig
     paid = sumCents([paid, payment.amountCents]);
     action = paid >= app.currentDueCents ? 'payment_settled' : 'payment_partial';
   }
-  if (to === 'failed' && app.status === 'payment_processing' && (await repo.processingCentsOf(tx, app.id, payment.id)) === 0) {
+  if (
+    to === 'failed' &&
+    app.status === 'payment_processing' &&
+    (await repo.processingCentsOf(tx, app.id, payment.id)) === 0
+  ) {
     action = paid > 0 ? 'payment_partial' : 'payment_reopened';
   }
   const status = (action && nextStatus(app.status, action)) ?? app.status;
@@ -46,17 +50,32 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
   if (await repo.eventSeen(ctx.db, event.id)) return 'duplicate';
   const signal = readPaymentSignal(event);
   // The fee is known once the charge settled; ask outside the transaction (no network call inside one).
-  const fee = signal?.to === 'succeeded' && signal.paymentIntentId
-    ? await ctx.payments!.retrievePaymentIntent(signal.paymentIntentId).then((pi) => pi.feeCents, () => null)
-    : null;
+  const fee =
+    signal?.to === 'succeeded' && signal.paymentIntentId
+      ? await ctx.payments!.retrievePaymentIntent(signal.paymentIntentId).then(
+          (pi) => pi.feeCents,
+          () => null,
+        )
+      : null;
   const result = await ctx.db.transaction(async (tx) => {
     if (!(await repo.claimEvent(tx, event))) return { outcome: 'duplicate' as const };
     const payment = signal ? await findTarget(tx, signal) : undefined;
     if (!signal || !payment) return { outcome: 'ignored' as const };
     const audit = (action: string, before: unknown, after: unknown) =>
-      recordAudit(tx, { projectId: payment.projectId, actorUserId: null, objectType: 'payment', objectId: payment.id, action, before, after: { ...(after as object), stripeEventId: event.id } });
-    if (signal.amountCents !== null && signal.amountCents !== payment.amountCents) {
-      ctx.logger.warn({ eventId: event.id, paymentId: payment.id }, 'Stripe event amount differs from the payment; not applied');
+      recordAudit(tx, {
+        projectId: payment.projectId,
+        actorUserId: null,
+        objectType: 'payment',
+        objectId: payment.id,
+        action,
+        before,
+        after: { ...(after as object), stripeEventId: event.id },
+      });
+    if (signal.amountCents !== null && signal.amountCents !== chargedCents(payment)) {
+      ctx.logger.warn(
+        { eventId: event.id, paymentId: payment.id },
+        'Stripe event amount differs from the payment; not applied',
+      );
       await audit('payment.event_rejected', null, { reason: 'amount_mismatch', eventAmountCents: signal.amountCents });
       return { outcome: 'ignored' as const };
     }
@@ -78,11 +97,21 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
     });
     await repo.addHistory(tx, payment.id, payment.status, signal.to, signal.note, event.id);
     const app = signal.to === 'canceled' ? null : await movePayApp(tx, updated, signal.to);
-    await audit(`payment.${signal.to}`, { status: payment.status, payAppStatus: app?.before.status }, { status: signal.to, payAppStatus: app?.after.status, paidCents: app?.after.paidCents });
+    await audit(
+      `payment.${signal.to}`,
+      { status: payment.status, payAppStatus: app?.before.status },
+      { status: signal.to, payAppStatus: app?.after.status, paidCents: app?.after.paidCents },
+    );
     const project = (await findProject(tx, payment.projectId))!;
-    if (app && signal.to === 'succeeded') await queueReceipt(tx, ctx, project, app.after, updated);
+    if (app && signal.to === 'succeeded') {
+      await queueReceipt(tx, ctx, project, app.after, updated);
+      await queueWaiverRequest(tx, ctx, project, app.after);
+    }
     if (app && signal.to === 'failed') await queueFailureNotice(tx, ctx, project, app.after, updated);
-    return { outcome: 'applied' as const, failedSession: signal.to === 'failed' ? updated.stripeCheckoutSessionId : null };
+    return {
+      outcome: 'applied' as const,
+      failedSession: signal.to === 'failed' ? updated.stripeCheckoutSessionId : null,
+    };
   });
   if (result.outcome === 'applied') {
     await ctx.outbox.flush();

@@ -47,6 +47,7 @@ export function presentSettings(row: ProjectRow): ProjectSettings {
     majorItemThresholdBps: row.majorItemThresholdBps,
     paymentTermsDays: row.paymentTermsDays,
     allowPartialPayments: row.allowPartialPayments,
+    processingFeeBearer: row.processingFeeBearer,
     ownerApprovesChangeOrders: row.ownerApprovesChangeOrders,
     swellPercent: row.swellPercent,
     shrinkagePercent: row.shrinkagePercent,

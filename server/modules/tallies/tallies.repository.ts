@@ -3,7 +3,17 @@ import type { PayAppStatus } from '../../../src/shared/constants';
 import type { TallyListQuery } from '../../../src/shared/schemas/tally';
 import type { Executor } from '../../db/client';
 import { keyset } from '../../lib/paging';
-import { bidItems, payApps, projects, tallies, tallyEvidence, tallyRevisions, user } from '../../db/schema';
+import {
+  bidItems,
+  changeOrderDocuments,
+  changeOrders,
+  payApps,
+  projects,
+  tallies,
+  tallyEvidence,
+  tallyRevisions,
+  user,
+} from '../../db/schema';
 
 export type TallyRow = typeof tallies.$inferSelect;
 export type EvidenceRow = typeof tallyEvidence.$inferSelect;
@@ -220,15 +230,20 @@ export async function listLineTallies(db: Executor, payAppId: string, bidItemId:
 }
 
 /**
- * Bytes of the files a project stores (its tallies' evidence), after locking the project's row for the rest of the
+ * Bytes of the files a project stores (tally evidence and change order documents), after locking the project's row for the rest of the
  * transaction: the quota check and the insert that follows cannot interleave with another upload's.
  */
 export async function lockedProjectStoredBytes(tx: Executor, projectId: string): Promise<number> {
   await tx.select({ id: projects.id }).from(projects).where(eq(projects.id, projectId)).for('update');
-  const [row] = await tx
+  const [evidence] = await tx
     .select({ bytes: sum(tallyEvidence.sizeBytes) })
     .from(tallyEvidence)
     .innerJoin(tallies, eq(tallies.id, tallyEvidence.tallyId))
     .where(eq(tallies.projectId, projectId));
-  return Number(row?.bytes ?? 0);
+  const [documents] = await tx
+    .select({ bytes: sum(changeOrderDocuments.sizeBytes) })
+    .from(changeOrderDocuments)
+    .innerJoin(changeOrders, eq(changeOrders.id, changeOrderDocuments.changeOrderId))
+    .where(eq(changeOrders.projectId, projectId));
+  return Number(evidence?.bytes ?? 0) + Number(documents?.bytes ?? 0);
 }

@@ -16,6 +16,11 @@ import { MAX_LINE_AMOUNT_CENTS } from './money-limits';
  * read only where the project allows partial payments. Any other amount the client sends is ignored.
  */
 export const createPaymentSchema = z.object({
+  /**
+   * Card or ACH bank debit, chosen on the payment form so its fee and total are known before checkout. Required
+   * where the payer bears the fee; without it (payee absorbs) checkout offers both and the fee follows the method.
+   */
+  method: z.enum(PAYMENT_METHODS, { error: 'Choose card or ACH bank debit.' }).optional(),
   partialAmountCents: z
     .number({ error: 'Enter the amount in whole cents.' })
     .int('Enter the amount in whole cents.')
@@ -36,8 +41,13 @@ export type PaymentView = {
   projectId: string;
   payAppId: string;
   payAppNumber: number;
+  /** Applied to the pay application. */
   amountCents: number;
+  /** The processing fee (quoted from the fee schedule, or as the processor reported it); null until known. */
   feeCents: number | null;
+  feeBearer: FeeBearer;
+  /** What the payer was charged: amount + fee when the payer bore it, else the amount. */
+  chargedCents: number;
   method: PaymentMethod | null;
   status: PaymentStatus;
   stripeCheckoutSessionId: string | null;
@@ -64,6 +74,11 @@ export type PayablePayAppView = {
   /** Whether an owner could start a payment now (status and balance), whatever the viewer's role. */
   payable: boolean;
   allowPartialPayments: boolean;
+  /** Who bears the processing fee on this project, and the rates the form quotes with (feeQuote). */
+  feeBearer: FeeBearer;
+  feeRates: FeeRates;
+  /** The quote for paying the whole balance, per method. */
+  feeQuotes: Record<PaymentMethod, FeeQuote>;
 };
 
 export type PayAppPaymentsView = { payApp: PayablePayAppView; payments: PaymentView[] };

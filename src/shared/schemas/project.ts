@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ACCESS_ROLES, COMPANY_KINDS, PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../constants';
+import { ACCESS_ROLES, COMPANY_KINDS, FEE_BEARERS, PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../constants';
 
 const percentBps = z.number().int().min(0).max(10_000);
 
@@ -24,6 +24,8 @@ export const projectSettingsSchema = z.object({
   majorItemThresholdBps: percentBps,
   paymentTermsDays: z.number().int().min(0).max(365),
   allowPartialPayments: z.boolean(),
+  /** Who bears card and ACH processing fees: the payer adds them to the charge, or the payee absorbs them. */
+  processingFeeBearer: z.enum(FEE_BEARERS, { error: 'Choose payer or payee.' }),
   ownerApprovesChangeOrders: z.boolean(),
   /** Default material factors (editable defaults, common practice: common earth swells about 25 %). */
   swellPercent: z.number().finite().min(0).max(200),
@@ -45,6 +47,7 @@ export const PROJECT_DEFAULTS: ProjectSettings = {
   majorItemThresholdBps: 1000,
   paymentTermsDays: 30,
   allowPartialPayments: false,
+  processingFeeBearer: 'payee',
   ownerApprovesChangeOrders: false,
   swellPercent: 25,
   shrinkagePercent: 10,

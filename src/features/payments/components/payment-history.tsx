@@ -7,7 +7,8 @@ import { PaymentStatusBadge } from './payment-status-badge';
 
 /** Every payment on the job, newest first, with its state and what the processor said. */
 export function PaymentHistory({ payments, label = 'Payment history' }: { payments: PaymentView[]; label?: string }) {
-  if (payments.length === 0) return <EmptyState title="No payments yet">Payments appear here once the owner starts one.</EmptyState>;
+  if (payments.length === 0)
+    return <EmptyState title="No payments yet">Payments appear here once the owner starts one.</EmptyState>;
   return (
     <Table aria-label={label}>
       <TableHead>
@@ -17,6 +18,7 @@ export function PaymentHistory({ payments, label = 'Payment history' }: { paymen
           <TableHeaderCell>Method</TableHeaderCell>
           <TableHeaderCell className="text-right">Amount</TableHeaderCell>
           <TableHeaderCell className="text-right">Fee</TableHeaderCell>
+          <TableHeaderCell className="text-right">Charged</TableHeaderCell>
           <TableHeaderCell>Status</TableHeaderCell>
           <TableHeaderCell>Notes</TableHeaderCell>
         </TableRow>
@@ -28,12 +30,24 @@ export function PaymentHistory({ payments, label = 'Payment history' }: { paymen
             <TableCell>No. {p.payAppNumber}</TableCell>
             <TableCell>{p.method ? METHOD_LABELS[p.method] : '—'}</TableCell>
             <TableCell className="text-right tabular-nums">{formatMoney(p.amountCents)}</TableCell>
-            <TableCell className="text-right tabular-nums text-stone-600">{p.feeCents === null ? '—' : formatMoney(p.feeCents)}</TableCell>
+            <TableCell className="text-right text-stone-600 tabular-nums">
+              {p.feeCents === null ? '—' : formatMoney(p.feeCents)}
+              <span className="block text-xs">
+                {p.feeCents === null ? '' : p.feeBearer === 'payer' ? 'paid by payer' : 'absorbed by payee'}
+              </span>
+            </TableCell>
+            <TableCell className="text-right tabular-nums">{formatMoney(p.chargedCents)}</TableCell>
             <TableCell>
               <PaymentStatusBadge status={p.status} />
             </TableCell>
             <TableCell className="max-w-xs text-xs text-stone-600">
-              {p.status === 'failed' ? p.failureMessage : p.status === 'processing' ? 'The bank confirms ACH debits in up to four business days.' : p.settledAt ? `Settled ${formatDate(p.settledAt)}` : ''}
+              {p.status === 'failed'
+                ? p.failureMessage
+                : p.status === 'processing'
+                  ? 'The bank confirms ACH debits in up to four business days.'
+                  : p.settledAt
+                    ? `Settled ${formatDate(p.settledAt)}`
+                    : ''}
             </TableCell>
           </TableRow>
         ))}

@@ -72,6 +72,12 @@ export function ProjectOverview({ project }: { project: ProjectView }) {
               <dd>{UNIT_SYSTEM_LABELS[project.units]}</dd>
               <dt className="text-stone-600">Payment terms</dt>
               <dd className="tabular-nums">{project.paymentTermsDays} days</dd>
+              <dt className="text-stone-600">Processing fees</dt>
+              <dd>
+                {project.processingFeeBearer === 'payer'
+                  ? 'Added to the payment (the payer bears them)'
+                  : 'Absorbed by the payee'}
+              </dd>
             </dl>
           </CardBody>
         </Card>
