@@ -90,6 +90,7 @@ describe('starting from the inbox', () => {
     await page.waitForURL(/\/pay-apps\/[^/]+$/);
     await page.getByText('Certified: $25,096.09 waits on your payment.').waitFor();
     const card = page.getByRole('region', { name: 'Pay application 2', exact: true });
+    await card.getByRole('radio', { name: /^Card/ }).check();
     await card.getByRole('button', { name: 'Continue to payment' }).click();
     await page.waitForURL(`${server.standinUrl}/pay/**`);
     await page.getByLabel(/4242 4242 4242 4242/).check();

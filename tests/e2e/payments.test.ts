@@ -39,11 +39,16 @@ async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
   await page.goto(`${server.url}/projects/${projectId}/payments`);
   const card = page.getByRole('region', { name: `Pay application ${number}`, exact: true });
   await card.getByRole('button', { name: 'Continue to payment' }).waitFor();
+  // The payer chooses the method first and sees its processing fee and the total (issue 11, item 7).
+  await card.getByRole('radio', { name: choice.source.includes('4242') ? /^Card/ : /^ACH/ }).check();
+  await card.getByText(/Processing fee \$[\d,.]+ added; you are charged \$[\d,.]+\./).first().waitFor();
   await shot(page, `before-${number}`);
   await card.getByRole('button', { name: 'Continue to payment' }).click();
   await page.waitForURL(`${server.standinUrl}/pay/**`);
   expect(await page.textContent('body')).toContain('Local test checkout — no real money moves');
-  expect(await page.textContent('body')).toContain('$13,621.90');
+  // The demo's payer bears the processing fee: the checkout charges $13,621.90 plus the quoted fee (card
+  // 2.9 % + $0.30 grossed up; ACH 0.8 % capped at $5; src/shared/domain/payment-fees.ts).
+  expect(await page.textContent('body')).toContain(choice.source.includes('4242') ? '$14,029.04' : '$13,626.90');
   await page.getByLabel(choice).check();
   await shot(page, `checkout-${number}`);
   await page.getByRole('button', { name: 'Confirm test payment' }).click();
