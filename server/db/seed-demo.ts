@@ -50,13 +50,11 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
         companyIds[kind] = row!.id;
       }
       for (const person of DEMO_PEOPLE) {
-        await tx
-          .insert(companyMembers)
-          .values({
-            userId: userIds.get(person.email)!,
-            companyId: companyIds[person.company],
-            isAdmin: person.isAdmin,
-          });
+        await tx.insert(companyMembers).values({
+          userId: userIds.get(person.email)!,
+          companyId: companyIds[person.company],
+          isAdmin: person.isAdmin,
+        });
       }
       const [project] = await tx
         .insert(projects)

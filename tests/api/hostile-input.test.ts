@@ -25,9 +25,26 @@ import { createProjectSchema, updateProjectSchema } from '../../src/shared/schem
 import { createTallySchema, updateTallySchema } from '../../src/shared/schemas/tally';
 import { forecastInputSchema } from '../../src/shared/schemas/variance';
 import { setMeasurementProfileSchema } from '../../src/shared/schemas/provisions/profile';
-import { createMaterialSourceSchema, createScaleTicketSchema, createTruckSchema, createTruckTicketSchema, importTruckTicketsSchema } from '../../src/shared/schemas/provisions/tickets';
-import { makeChangeOrder, makeDailySheet, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
-import { addStoredMovementSchema, createAdjustmentSchema, createForceAccountSheetSchema, createStoredMaterialSchema } from '../../src/shared/schemas/provisions/accounts';
+import {
+  createMaterialSourceSchema,
+  createScaleTicketSchema,
+  createTruckSchema,
+  createTruckTicketSchema,
+  importTruckTicketsSchema,
+} from '../../src/shared/schemas/provisions/tickets';
+import {
+  makeChangeOrder,
+  makeDailySheet,
+  makeProfiledItem,
+  makeSource,
+  makeStoredMaterial,
+} from '../setup/provisions-factories';
+import {
+  addStoredMovementSchema,
+  createAdjustmentSchema,
+  createForceAccountSheetSchema,
+  createStoredMaterialSchema,
+} from '../../src/shared/schemas/provisions/accounts';
 import { changeOrders, disputes, invitations, payAppLines, tallyEvidence } from '../../server/db/schema';
 import { hashToken } from '../../server/modules/invitations/invitation-token';
 import { REAUTH_FIELD } from '../../server/middleware/require-recent-auth';
@@ -225,17 +242,90 @@ const ROUTES: Record<string, Spec> = {
     signedName: ids.subName,
   })),
   // Measurement and payment provisions (issue 15).
-  'PUT /api/bid-items/:bidItemId/measurement-profile': json('general_contractor', setMeasurementProfileSchema, () => ({ profile: 'plan_quantity', payDecimals: 1, stage: 'interim', settings: { percentComplete: 40, substantialErrorPercent: 5, substantialErrorCents: 500_000 } })),
-  'POST /api/projects/:projectId/trucks': json('subcontractor', createTruckSchema, () => ({ label: 'T-12', hauler: 'Orchard Haul', bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' })),
-  'POST /api/projects/:projectId/truck-tickets': json('subcontractor', createTruckTicketSchema, (ids) => ({ bidItemId: ids.truckItemId, deliveredOn: '2026-05-04', truckLabel: 'T-12', material: 'Select borrow', source: 'Hollis pit', loadedAt: 'Face 2', deliveredTo: 'Sta 14+00', loadCheckerInitials: 'RB', deliveryCheckerInitials: 'MK', loadVolumeCy: 11.2 })),
-  'POST /api/projects/:projectId/truck-tickets/import': json('subcontractor', importTruckTicketsSchema, (ids) => ({ bidItemId: ids.truckItemId, csv: 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n' })),
-  'POST /api/projects/:projectId/material-sources': json('subcontractor', createMaterialSourceSchema, () => ({ name: 'Hollis pit', weighedLoads: [{ netTons: 18.42, volumeCy: 12.5 }, { netTons: 19.1, volumeCy: 13 }, { netTons: 18.75, volumeCy: 12.7 }], statedMoisturePercent: 5 })),
-  'POST /api/projects/:projectId/daily-sheets': json('subcontractor', createForceAccountSheetSchema, (ids) => ({ changeOrderId: ids.approvedChangeOrderId, workedOn: '2026-06-02', description: 'Muck removal at the inlet', labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }], equipment: [{ unit: 'Excavator', hours: 6, rateCents: 18_500, standbyHours: 2, standbyRateCents: 9250 }], materials: [{ description: 'Geotextile', invoiceCents: 41_238 }], markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 } })),
+  'PUT /api/bid-items/:bidItemId/measurement-profile': json('general_contractor', setMeasurementProfileSchema, () => ({
+    profile: 'plan_quantity',
+    payDecimals: 1,
+    stage: 'interim',
+    settings: { percentComplete: 40, substantialErrorPercent: 5, substantialErrorCents: 500_000 },
+  })),
+  'POST /api/projects/:projectId/trucks': json('subcontractor', createTruckSchema, () => ({
+    label: 'T-12',
+    hauler: 'Orchard Haul',
+    bedVolumeCy: 11.38,
+    measuredBy: 'R. Baines',
+    measuredOn: '2026-04-28',
+  })),
+  'POST /api/projects/:projectId/truck-tickets': json('subcontractor', createTruckTicketSchema, (ids) => ({
+    bidItemId: ids.truckItemId,
+    deliveredOn: '2026-05-04',
+    truckLabel: 'T-12',
+    material: 'Select borrow',
+    source: 'Hollis pit',
+    loadedAt: 'Face 2',
+    deliveredTo: 'Sta 14+00',
+    loadCheckerInitials: 'RB',
+    deliveryCheckerInitials: 'MK',
+    loadVolumeCy: 11.2,
+  })),
+  'POST /api/projects/:projectId/truck-tickets/import': json('subcontractor', importTruckTicketsSchema, (ids) => ({
+    bidItemId: ids.truckItemId,
+    csv: 'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n',
+  })),
+  'POST /api/projects/:projectId/material-sources': json('subcontractor', createMaterialSourceSchema, () => ({
+    name: 'Hollis pit',
+    weighedLoads: [
+      { netTons: 18.42, volumeCy: 12.5 },
+      { netTons: 19.1, volumeCy: 13 },
+      { netTons: 18.75, volumeCy: 12.7 },
+    ],
+    statedMoisturePercent: 5,
+  })),
+  'POST /api/projects/:projectId/daily-sheets': json('subcontractor', createForceAccountSheetSchema, (ids) => ({
+    changeOrderId: ids.approvedChangeOrderId,
+    workedOn: '2026-06-02',
+    description: 'Muck removal at the inlet',
+    labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }],
+    equipment: [{ unit: 'Excavator', hours: 6, rateCents: 18_500, standbyHours: 2, standbyRateCents: 9250 }],
+    materials: [{ description: 'Geotextile', invoiceCents: 41_238 }],
+    markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 },
+  })),
   'POST /api/daily-sheets/:sheetId/sign': none('subcontractor'),
-  'POST /api/projects/:projectId/stored-materials': json('subcontractor', createStoredMaterialSchema, (ids) => ({ bidItemId: ids.bidItemId, description: '24 in RCP', unit: 'LF', unitCostCents: 5840, neededQuantity: 400, storedAt: 'East yard' })),
-  'POST /api/stored-materials/:storedMaterialId/movements': json('subcontractor', addStoredMovementSchema, () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' })),
-  'POST /api/projects/:projectId/pay-adjustments': json('general_contractor', createAdjustmentSchema, () => ({ kind: 'fuel_adjustment', appliesOn: '2026-06-30', description: 'June diesel index', fuelKind: 'excavation', quantityCy: 25_000, baseIndex: 2.85, currentIndex: 3.215, triggerPercent: 0 })),
-  'POST /api/projects/:projectId/scale-tickets': json('subcontractor', createScaleTicketSchema, (ids) => ({ bidItemId: ids.weightItemId, sourceId: ids.sourceId, ticketNumber: '40117', weighedOn: '2026-05-04', grossTons: 33.85, tareTons: 13.85, material: 'Base', moisturePercent: 8, scaleCheckerInitials: 'JT', deliveryCheckerInitials: 'MK' })),
+  'POST /api/projects/:projectId/stored-materials': json('subcontractor', createStoredMaterialSchema, (ids) => ({
+    bidItemId: ids.bidItemId,
+    description: '24 in RCP',
+    unit: 'LF',
+    unitCostCents: 5840,
+    neededQuantity: 400,
+    storedAt: 'East yard',
+  })),
+  'POST /api/stored-materials/:storedMaterialId/movements': json('subcontractor', addStoredMovementSchema, () => ({
+    kind: 'added',
+    movedOn: '2026-05-12',
+    quantity: 40,
+    invoiceRef: 'INV-3381',
+  })),
+  'POST /api/projects/:projectId/pay-adjustments': json('general_contractor', createAdjustmentSchema, () => ({
+    kind: 'fuel_adjustment',
+    appliesOn: '2026-06-30',
+    description: 'June diesel index',
+    fuelKind: 'excavation',
+    quantityCy: 25_000,
+    baseIndex: 2.85,
+    currentIndex: 3.215,
+    triggerPercent: 0,
+  })),
+  'POST /api/projects/:projectId/scale-tickets': json('subcontractor', createScaleTicketSchema, (ids) => ({
+    bidItemId: ids.weightItemId,
+    sourceId: ids.sourceId,
+    ticketNumber: '40117',
+    weighedOn: '2026-05-04',
+    grossTons: 33.85,
+    tareTons: 13.85,
+    material: 'Base',
+    moisturePercent: 8,
+    scaleCheckerInitials: 'JT',
+    deliveryCheckerInitials: 'MK',
+  })),
 };
 
 const SEED = Number(process.env.FC_SEED ?? 20261202);

@@ -56,17 +56,27 @@ afterAll(async () => {
 
 const draftTally = async () => {
   const item = await makeBidItem(t.database.db, w.home.id);
-  return makeTally(t.database.db, { projectId: w.home.id, bidItemId: item.id, authorUserId: w.people.subcontractor.id, measuredOn: '2026-10-05', quantity: 10, status: 'draft' });
+  return makeTally(t.database.db, {
+    projectId: w.home.id,
+    bidItemId: item.id,
+    authorUserId: w.people.subcontractor.id,
+    measuredOn: '2026-10-05',
+    quantity: 10,
+    status: 'draft',
+  });
 };
 
 type File = [bytes: Buffer, name: string, contentType?: string];
 const evidence = (tallyId: string, ...files: File[]) => {
   let req = sub.post(`/api/tallies/${tallyId}/evidence`);
-  for (const [bytes, filename, contentType] of files) req = req.attach('files', bytes, contentType ? { filename, contentType } : filename);
+  for (const [bytes, filename, contentType] of files)
+    req = req.attach('files', bytes, contentType ? { filename, contentType } : filename);
   return req;
 };
 const importCsv = (bytes: Buffer | string, filename = 'schedule.csv', contentType = 'text/csv') =>
-  gc.post(`/api/projects/${w.home.id}/bid-items/import`).attach('file', Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes), { filename, contentType });
+  gc
+    .post(`/api/projects/${w.home.id}/bid-items/import`)
+    .attach('file', Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes), { filename, contentType });
 
 async function saved() {
   const db = t.database.db;
@@ -91,12 +101,16 @@ async function expectRefused(send: () => Promise<request.Response>, status: numb
 
 describe('the upload routes', () => {
   it('are exactly the evidence and change order document uploads and the bid schedule import: every other route refuses a multipart form with 415', async () => {
-    const routes = registeredRoutes(t.app).filter((r) => /^(POST|PUT|PATCH) /.test(r) && r !== 'POST /api/webhooks/stripe');
+    const routes = registeredRoutes(t.app).filter(
+      (r) => /^(POST|PUT|PATCH) /.test(r) && r !== 'POST /api/webhooks/stripe',
+    );
     for (const route of routes.filter((r) => !UPLOAD_ROUTES.includes(r))) {
       const [method, template] = route.split(' ') as [string, string];
       const target = template.replace(/:(\w+)/g, () => w.home.id);
       const agent = sub as unknown as Record<string, (p: string) => request.Test>;
-      const res = await agent[method.toLowerCase()]!(target).set('Origin', TEST_ORIGIN).attach('file', FILES.csv, 'a.csv');
+      const res = await agent[method.toLowerCase()]!(target)
+        .set('Origin', TEST_ORIGIN)
+        .attach('file', FILES.csv, 'a.csv');
       expect(res.status, route).toBe(415);
       expectErrorShape(res, route);
     }
@@ -113,7 +127,11 @@ describe('oversized uploads (OWASP ASVS 4.0.3 12.1.1, API4:2023)', () => {
   });
 
   it('refuses a bid schedule over MAX_CSV_UPLOAD_BYTES with 413', async () => {
-    await expectRefused(() => importCsv(`${HEADER}\n${'A,'.repeat(MAX_CSV_UPLOAD_BYTES / 2 + 1)}`), 413, 'UPLOAD_FILE_SIZE');
+    await expectRefused(
+      () => importCsv(`${HEADER}\n${'A,'.repeat(MAX_CSV_UPLOAD_BYTES / 2 + 1)}`),
+      413,
+      'UPLOAD_FILE_SIZE',
+    );
   });
 
   it(`refuses more than ${MAX_EVIDENCE_FILES_PER_TALLY} files in one upload, a second file to the import, and a cut-off form`, async () => {
@@ -122,7 +140,12 @@ describe('oversized uploads (OWASP ASVS 4.0.3 12.1.1, API4:2023)', () => {
     await expectRefused(() => evidence(tally.id, ...many), 400, 'UPLOAD_FILE_COUNT');
     await expectRefused(() => importCsv(FILES.csv).attach('file', FILES.csv, 'second.csv'), 400, 'UPLOAD_FILE_COUNT');
     const cut = `--x\r\nContent-Disposition: form-data; name="files"; filename="a.csv"\r\nContent-Type: text/csv\r\n\r\nstation,cut`;
-    await expectRefused(() => sub.post(`/api/tallies/${tally.id}/evidence`).set('Content-Type', 'multipart/form-data; boundary=x').send(cut), 400, 'UPLOAD_MALFORMED');
+    await expectRefused(
+      () =>
+        sub.post(`/api/tallies/${tally.id}/evidence`).set('Content-Type', 'multipart/form-data; boundary=x').send(cut),
+      400,
+      'UPLOAD_MALFORMED',
+    );
   });
 });
 
@@ -141,18 +164,32 @@ describe('a wrong type behind a right extension (content checked by its magic by
 
   it.each(disguised)('refuses %s as evidence, naming the file, and saves nothing', async (_what, file, names) => {
     const tally = await draftTally();
-    const res = await expectRefused(() => evidence(tally.id, [FILES.csv, 'good.csv'], file), 400, 'EVIDENCE_REJECTED', names);
-    expect(res.body.error.details).toEqual([{ path: 'files.1', message: expect.stringContaining(file[1].split('.')[0]!) }]);
+    const res = await expectRefused(
+      () => evidence(tally.id, [FILES.csv, 'good.csv'], file),
+      400,
+      'EVIDENCE_REJECTED',
+      names,
+    );
+    expect(res.body.error.details).toEqual([
+      { path: 'files.1', message: expect.stringContaining(file[1].split('.')[0]!) },
+    ]);
   });
 
   it.each([
     ['a PNG', tinyPng(), /image\/png/],
     ['an ELF executable', elfHeader(), /x-elf/],
     ['a PDF', FILES.pdf, /application\/pdf/],
-    ['a Windows executable', Buffer.concat([Buffer.from('MZ'), Buffer.alloc(62, 0), Buffer.from('PE\0\0')]), /x-msdownload/],
-  ])('refuses %s named schedule.csv at the import with 400 UPLOAD_NOT_CSV naming its real type', async (_what, bytes, names) => {
-    await expectRefused(() => importCsv(bytes), 400, 'UPLOAD_NOT_CSV', names);
-  });
+    [
+      'a Windows executable',
+      Buffer.concat([Buffer.from('MZ'), Buffer.alloc(62, 0), Buffer.from('PE\0\0')]),
+      /x-msdownload/,
+    ],
+  ])(
+    'refuses %s named schedule.csv at the import with 400 UPLOAD_NOT_CSV naming its real type',
+    async (_what, bytes, names) => {
+      await expectRefused(() => importCsv(bytes), 400, 'UPLOAD_NOT_CSV', names);
+    },
+  );
 });
 
 describe('compressed files renamed .csv (ASVS 12.1.2: refused before anything expands them)', () => {
@@ -175,11 +212,31 @@ describe('CSV encodings (RFC 3629 well-formed UTF-8; Unicode 15 section 23.8 byt
   const utf16be = Buffer.from(utf16le.subarray(2)).swap16();
   const bad: [what: string, bytes: Buffer, names: RegExp][] = [
     ['UTF-16LE with its byte-order mark', utf16le, /UTF-16 text \(byte-order mark FFFE\)/],
-    ['UTF-16BE with its byte-order mark', Buffer.concat([Buffer.from([0xfe, 0xff]), utf16be]), /UTF-16 text \(byte-order mark FEFF\)/],
+    [
+      'UTF-16BE with its byte-order mark',
+      Buffer.concat([Buffer.from([0xfe, 0xff]), utf16be]),
+      /UTF-16 text \(byte-order mark FEFF\)/,
+    ],
     ['UTF-16LE without a byte-order mark', Buffer.from(schedule, 'utf16le'), /looks like UTF-16/],
     ['Windows-1252 (é as byte E9) on line 2', Buffer.from(schedule, 'latin1'), /byte 0xE9 on line 2/],
-    ['an overlong encoding of "/" (C0 AF)', Buffer.concat([Buffer.from(`${HEADER}\nE-1,a`), Buffer.from([0xc0, 0xaf]), Buffer.from(',CY,bank,1,1,no,grid\n')]), /byte 0xC0 on line 2/],
-    ['an encoded surrogate (ED A0 80, CESU-8)', Buffer.concat([Buffer.from(`${HEADER}\n\nE-1,a`), Buffer.from([0xed, 0xa0, 0x80]), Buffer.from(',CY,bank,1,1,no,grid\n')]), /byte 0xED on line 3/],
+    [
+      'an overlong encoding of "/" (C0 AF)',
+      Buffer.concat([
+        Buffer.from(`${HEADER}\nE-1,a`),
+        Buffer.from([0xc0, 0xaf]),
+        Buffer.from(',CY,bank,1,1,no,grid\n'),
+      ]),
+      /byte 0xC0 on line 2/,
+    ],
+    [
+      'an encoded surrogate (ED A0 80, CESU-8)',
+      Buffer.concat([
+        Buffer.from(`${HEADER}\n\nE-1,a`),
+        Buffer.from([0xed, 0xa0, 0x80]),
+        Buffer.from(',CY,bank,1,1,no,grid\n'),
+      ]),
+      /byte 0xED on line 3/,
+    ],
   ];
 
   it.each(bad)('refuses %s at the import, naming the encoding problem', async (_what, bytes, names) => {
@@ -192,14 +249,22 @@ describe('CSV encodings (RFC 3629 well-formed UTF-8; Unicode 15 section 23.8 byt
   });
 
   it('imports UTF-8 with a byte-order mark, the text intact', async () => {
-    const res = await importCsv(Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from(schedule.replace('E-1', 'BOM-1'))]));
+    const res = await importCsv(
+      Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from(schedule.replace('E-1', 'BOM-1'))]),
+    );
     expect(res.status).toBe(201);
     expect(res.body.bidItems[0]).toMatchObject({ itemNumber: 'BOM-1', description: 'Déblai ordinaire' });
   });
 });
 
 describe('formula injection (OWASP "CSV Injection"): stored as written, neutralised on the pay application CSV export', () => {
-  const attacks = ['=HYPERLINK("http://x.test","pay here")', '+1+cmd|\' /C calc\'!A0', '-2+3+cmd|\' /C calc\'!A0', '@SUM(1+1)*cmd|\' /C calc\'!A0', '=1+1'];
+  const attacks = [
+    '=HYPERLINK("http://x.test","pay here")',
+    "+1+cmd|' /C calc'!A0",
+    "-2+3+cmd|' /C calc'!A0",
+    "@SUM(1+1)*cmd|' /C calc'!A0",
+    '=1+1',
+  ];
 
   it('keeps each cell as text on import and prefixes an apostrophe in the export', async () => {
     const rows = attacks.map((a, i) => `INJ-${i},"${a.replace(/"/g, '""')}",CY,bank,2.50,100,no,manual`);
@@ -207,9 +272,17 @@ describe('formula injection (OWASP "CSV Injection"): stored as written, neutrali
     expect(imported.status).toBe(201);
     expect(imported.body.bidItems.map((b: { description: string }) => b.description)).toEqual(attacks);
     for (const item of imported.body.bidItems as { id: string }[]) {
-      await makeTally(t.database.db, { projectId: w.home.id, bidItemId: item.id, authorUserId: w.people.subcontractor.id, measuredOn: '2026-10-12', quantity: 12.5 });
+      await makeTally(t.database.db, {
+        projectId: w.home.id,
+        bidItemId: item.id,
+        authorUserId: w.people.subcontractor.id,
+        measuredOn: '2026-10-12',
+        quantity: 12.5,
+      });
     }
-    const created = await sub.post(`/api/projects/${w.home.id}/pay-apps`).send({ periodStart: '2026-10-01', periodEnd: '2026-10-31' });
+    const created = await sub
+      .post(`/api/projects/${w.home.id}/pay-apps`)
+      .send({ periodStart: '2026-10-01', periodEnd: '2026-10-31' });
     expect(created.status).toBe(201);
     const csv = await sub.get(`/api/pay-apps/${created.body.payApp.id}/export.csv`);
     expect(csv.status).toBe(200);
@@ -223,16 +296,37 @@ describe('formula injection (OWASP "CSV Injection"): stored as written, neutrali
   });
 
   it('neutralises a leading tab or carriage return too (they cannot reach a trimmed description)', () => {
-    expect(['\t=1+1', '\r=1+1', '=x', '+x', '-x', '@x'].map(neutralise)).toEqual(["'\t=1+1", "'\r=1+1", "'=x", "'+x", "'-x", "'@x"]);
+    expect(['\t=1+1', '\r=1+1', '=x', '+x', '-x', '@x'].map(neutralise)).toEqual([
+      "'\t=1+1",
+      "'\r=1+1",
+      "'=x",
+      "'+x",
+      "'-x",
+      "'@x",
+    ]);
     expect(neutralise('Excavation')).toBe('Excavation');
   });
 });
 
 describe('path tricks in file names (ASVS 12.3.1, 12.3.2)', () => {
   const names = [
-    '../../etc/passwd.csv', '..\\..\\windows\\win.ini.csv', '/etc/passwd.csv', 'C:\\Windows\\System32\\drivers.csv', '....//....//x.csv',
-    '%2e%2e%2fpasswd.csv', 'CON.csv', 'nul.csv', 'LPT1.csv', 'com1.tar.csv', 'AUX.CSV', `${'x'.repeat(500)}.csv`, '.htaccess.csv',
-    'invoice\u202Evsc.csv', 'a"b;c.csv', '. .report.csv', 'ü\u0308ber.csv',
+    '../../etc/passwd.csv',
+    '..\\..\\windows\\win.ini.csv',
+    '/etc/passwd.csv',
+    'C:\\Windows\\System32\\drivers.csv',
+    '....//....//x.csv',
+    '%2e%2e%2fpasswd.csv',
+    'CON.csv',
+    'nul.csv',
+    'LPT1.csv',
+    'com1.tar.csv',
+    'AUX.CSV',
+    `${'x'.repeat(500)}.csv`,
+    '.htaccess.csv',
+    'invoice\u202Evsc.csv',
+    'a"b;c.csv',
+    '. .report.csv',
+    'ü\u0308ber.csv',
   ];
   const RESERVED = /^(con|prn|aux|nul|com\d|lpt\d)$/i;
 
@@ -255,7 +349,9 @@ describe('path tricks in file names (ASVS 12.3.1, 12.3.2)', () => {
       expect(readFileSync(path.join(root, row.storageKey)).equals(FILES.csv)).toBe(true);
       const dl = await sub.get(`/api/evidence/${row.id}/download`);
       expect(dl.status).toBe(200);
-      expect(dl.headers['content-disposition']).toMatch(/^attachment; filename="[\w.\- ]+"; filename\*=UTF-8''[\w.\-%]+$/);
+      expect(dl.headers['content-disposition']).toMatch(
+        /^attachment; filename="[\w.\- ]+"; filename\*=UTF-8''[\w.\-%]+$/,
+      );
     }
     const added = filesUnder(parent).filter((f) => !before.includes(f));
     expect(added.sort()).toEqual(rows.map((r) => path.join('uploads', r.storageKey)).sort());
@@ -265,7 +361,8 @@ describe('path tricks in file names (ASVS 12.3.1, 12.3.2)', () => {
     const tally = await draftTally();
     for (const name of ['a\u0000b.csv', 'a.csv"\r\nContent-Type: text/html\r\nX: "']) {
       const form = `--x\r\nContent-Disposition: form-data; name="files"; filename="${name}"\r\nContent-Type: text/csv\r\n\r\n${FILES.csv.toString()}\r\n--x--\r\n`;
-      const send = () => sub.post(`/api/tallies/${tally.id}/evidence`).set('Content-Type', 'multipart/form-data; boundary=x').send(form);
+      const send = () =>
+        sub.post(`/api/tallies/${tally.id}/evidence`).set('Content-Type', 'multipart/form-data; boundary=x').send(form);
       const before = await saved();
       const res = await send();
       // busboy refuses the header (400 UPLOAD_MALFORMED), or reads a name that is then sanitised like any other.
@@ -281,27 +378,51 @@ describe('path tricks in file names (ASVS 12.3.1, 12.3.2)', () => {
 
 describe('the survey upload of POST /api/calc/surface (streamed to a worker; nothing is stored)', () => {
   const points = 'x,y,z\n0,0,1\n10,0,1\n0,10,1\n10,10,2\n';
-  const form = (boundary: string, ...parts: string[]) => `${parts.map((p) => `--${boundary}\r\n${p}`).join('\r\n')}\r\n--${boundary}--\r\n`;
-  const file = (name: string, body: string | Buffer) => `Content-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${body}`;
+  const form = (boundary: string, ...parts: string[]) =>
+    `${parts.map((p) => `--${boundary}\r\n${p}`).join('\r\n')}\r\n--${boundary}--\r\n`;
+  const file = (name: string, body: string | Buffer) =>
+    `Content-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${body}`;
   const unit = 'Content-Disposition: form-data; name="unit"\r\n\r\nft';
-  const send = (body: string | Buffer, boundary = 'x') => sub.post('/api/calc/surface').set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
+  const send = (body: string | Buffer, boundary = 'x') =>
+    sub.post('/api/calc/surface').set('Content-Type', `multipart/form-data; boundary=${boundary}`).send(body);
 
   it('computes a good form, and refuses a cut-off form, a third file, an unexpected field and a form with no boundary', async () => {
     expect((await send(form('x', unit, file('existing', points), file('design', points)))).status).toBe(200);
     await expectRefused(() => send(`--x\r\n${file('existing', points)}`), 400, 'UPLOAD_MALFORMED');
-    await expectRefused(() => send(form('x', unit, file('existing', points), file('design', points), file('design', points))), 400, 'UPLOAD_PART_COUNT');
-    await expectRefused(() => send(form('x', unit, file('existing', points), file('other', points))), 400, 'UPLOAD_UNEXPECTED_FILE');
-    await expectRefused(() => sub.post('/api/calc/surface').set('Content-Type', 'multipart/form-data').send(form('x', unit)), 400, 'UPLOAD_MALFORMED');
+    await expectRefused(
+      () => send(form('x', unit, file('existing', points), file('design', points), file('design', points))),
+      400,
+      'UPLOAD_PART_COUNT',
+    );
+    await expectRefused(
+      () => send(form('x', unit, file('existing', points), file('other', points))),
+      400,
+      'UPLOAD_UNEXPECTED_FILE',
+    );
+    await expectRefused(
+      () => sub.post('/api/calc/surface').set('Content-Type', 'multipart/form-data').send(form('x', unit)),
+      400,
+      'UPLOAD_MALFORMED',
+    );
   });
 
   it('refuses a survey that is not UTF-8 text (UTF-16, a PNG) with the file named, and a gzip bomb with 413', async () => {
     const utf16 = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(points, 'utf16le')]);
-    const bin = (b: Buffer) => Buffer.concat([Buffer.from(`--x\r\n${unit}\r\n--x\r\n${file('existing', '')}`), b, Buffer.from(`\r\n--x\r\n${file('design', points)}\r\n--x--\r\n`)]);
+    const bin = (b: Buffer) =>
+      Buffer.concat([
+        Buffer.from(`--x\r\n${unit}\r\n--x\r\n${file('existing', '')}`),
+        b,
+        Buffer.from(`\r\n--x\r\n${file('design', points)}\r\n--x--\r\n`),
+      ]);
     const res = await expectRefused(() => send(bin(utf16)), 400, 'VALIDATION_FAILED');
     expect(res.body.error.details[0].path).toMatch(/^existing/);
     await expectRefused(() => send(bin(tinyPng())), 400, 'VALIDATION_FAILED');
     const bomb = gzipBomb(140 * 1024 * 1024); // past the upload limit of two 64 MB surveys
-    const big = await sub.post('/api/calc/surface').set('Content-Type', 'multipart/form-data; boundary=x').set('Content-Encoding', 'gzip').send(bomb);
+    const big = await sub
+      .post('/api/calc/surface')
+      .set('Content-Type', 'multipart/form-data; boundary=x')
+      .set('Content-Encoding', 'gzip')
+      .send(bomb);
     expect(big.status).toBe(413);
     expectErrorShape(big, 'gzip bomb');
   });

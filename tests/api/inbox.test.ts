@@ -114,7 +114,14 @@ beforeAll(async () => {
   const invite = (email: string, projectId: string, expiresAt: Date) =>
     db
       .insert(invitations)
-      .values({ projectId, email, role: 'general_contractor', tokenHash: `inbox-${email}`, invitedByUserId: gc, expiresAt })
+      .values({
+        projectId,
+        email,
+        role: 'general_contractor',
+        tokenHash: `inbox-${email}`,
+        invitedByUserId: gc,
+        expiresAt,
+      })
       .returning();
   ids.invitation = (await invite('new.owner@example.test', world.home.id, new Date(Date.now() + 7 * DAY)))[0]!.id;
   ids.expiredInvitation = (await invite('late.owner@example.test', world.home.id, new Date(Date.now() - DAY)))[0]!.id;

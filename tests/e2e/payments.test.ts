@@ -33,7 +33,8 @@ afterAll(async () => {
 
 const signIn = (page: Page, email: string) => signInDemo(page, server.url, email);
 
-const shot = (page: Page, name: string) => (shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined);
+const shot = (page: Page, name: string) =>
+  shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined;
 
 async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
   await page.goto(`${server.url}/projects/${projectId}/payments`);
@@ -41,7 +42,10 @@ async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
   await card.getByRole('button', { name: 'Continue to payment' }).waitFor();
   // The payer chooses the method first and sees its processing fee and the total (issue 11, item 7).
   await card.getByRole('radio', { name: choice.source.includes('4242') ? /^Card/ : /^ACH/ }).check();
-  await card.getByText(/Processing fee \$[\d,.]+ added; you are charged \$[\d,.]+\./).first().waitFor();
+  await card
+    .getByText(/Processing fee \$[\d,.]+ added; you are charged \$[\d,.]+\./)
+    .first()
+    .waitFor();
   await shot(page, `before-${number}`);
   await card.getByRole('button', { name: 'Continue to payment' }).click();
   await page.waitForURL(`${server.standinUrl}/pay/**`);
@@ -66,7 +70,9 @@ describe('paying a certified application in the browser', () => {
     await page.getByText('Payment received.').waitFor();
     await shot(page, 'after-card');
     const receipt = await waitForMail(server.mailbox, (m) => m.subject.startsWith('Receipt: pay application 901'));
-    expect(receipt.to).toEqual(expect.arrayContaining(['owner@tallyard.test', 'gc@tallyard.test', 'sub@tallyard.test']));
+    expect(receipt.to).toEqual(
+      expect.arrayContaining(['owner@tallyard.test', 'gc@tallyard.test', 'sub@tallyard.test']),
+    );
     await page.close();
   });
 
@@ -93,7 +99,10 @@ describe('paying a certified application in the browser', () => {
     await shot(page, 'sub-payments');
     await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Waivers' }).click();
     const section = page.getByRole('region', { name: 'Waivers for pay application 901' });
-    await section.getByRole('button', { name: /Issue for/ }).first().click();
+    await section
+      .getByRole('button', { name: /Issue for/ })
+      .first()
+      .click();
     await section.getByLabel('Type your full name to sign').fill('Rosa Delgado');
     await shot(page, 'waiver-sign');
     await section.getByRole('button', { name: 'Sign and issue' }).click();

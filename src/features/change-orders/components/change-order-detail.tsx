@@ -34,7 +34,9 @@ export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly A
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center gap-3">
-        <h2 className="text-lg font-semibold text-stone-900">Change order {co.number}: {co.title}</h2>
+        <h2 className="text-lg font-semibold text-stone-900">
+          Change order {co.number}: {co.title}
+        </h2>
         <Badge tone={badge.tone}>{badge.label}</Badge>
       </div>
       {co.reason ? <p className="max-w-3xl text-stone-700">{co.reason}</p> : null}
@@ -42,21 +44,35 @@ export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly A
       <DocumentsPanel changeOrderId={co.id} canAttach={canAttach(co, roles)} open={co.status === 'proposed'} />
       <div className="grid gap-4 md:grid-cols-2">
         <Card>
-          <CardHeader><CardTitle>Approvals</CardTitle></CardHeader>
+          <CardHeader>
+            <CardTitle>Approvals</CardTitle>
+          </CardHeader>
           <CardBody className="flex flex-col gap-1 text-sm">
-            <p>General contractor: {co.gcApproval ? `${co.gcApproval.by.name}, ${formatDate(co.gcApproval.at)}` : 'not yet'}</p>
-            {co.ownerApprovalRequired ? <p>Owner: {co.ownerApproval ? `${co.ownerApproval.by.name}, ${formatDate(co.ownerApproval.at)}` : 'not yet'}</p> : null}
+            <p>
+              General contractor:{' '}
+              {co.gcApproval ? `${co.gcApproval.by.name}, ${formatDate(co.gcApproval.at)}` : 'not yet'}
+            </p>
+            {co.ownerApprovalRequired ? (
+              <p>
+                Owner:{' '}
+                {co.ownerApproval ? `${co.ownerApproval.by.name}, ${formatDate(co.ownerApproval.at)}` : 'not yet'}
+              </p>
+            ) : null}
             {co.decisionNote ? <p className="text-stone-700">Decision note: {co.decisionNote}</p> : null}
           </CardBody>
         </Card>
         <Card>
-          <CardHeader><CardTitle>History</CardTitle></CardHeader>
+          <CardHeader>
+            <CardTitle>History</CardTitle>
+          </CardHeader>
           <CardBody>
             <ol className="flex flex-col gap-2 text-sm">
               {co.history.map((h, i) => (
                 <li key={i} className="border-l-2 border-stone-200 pl-3">
                   <p className="font-medium text-stone-900">{historyLabel(h.action)}</p>
-                  <p className="text-xs text-stone-600">{h.actor?.name ?? 'System'} · {formatDate(h.at)}</p>
+                  <p className="text-xs text-stone-600">
+                    {h.actor?.name ?? 'System'} · {formatDate(h.at)}
+                  </p>
                   {h.note ? <p className="text-stone-700">“{h.note}”</p> : null}
                 </li>
               ))}

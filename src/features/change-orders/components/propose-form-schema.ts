@@ -1,7 +1,11 @@
 import { z } from 'zod';
 import type { ChangeOrderItemKind, MeasurementBasis, MeasurementMethod, PayUnit } from '@/shared/constants';
 import { parseDollarsToCents } from '@/shared/parse-money';
-import { createChangeOrderSchema, type ChangeOrderItemInput, type CreateChangeOrderInput } from '@/shared/schemas/change-order';
+import {
+  createChangeOrderSchema,
+  type ChangeOrderItemInput,
+  type CreateChangeOrderInput,
+} from '@/shared/schemas/change-order';
 
 /** One change as typed: numbers and money stay text until the whole form is read. */
 export type ItemFields = {
@@ -27,7 +31,15 @@ export const blankItem = (kind: ChangeOrderItemKind = 'change_quantity', bidItem
   bidItemId,
   quantityDelta: '',
   unitPrice: '',
-  newItem: { itemNumber: '', description: '', payUnit: 'CY', basis: 'bank', method: 'manual', unitPrice: '', contractQuantity: '' },
+  newItem: {
+    itemNumber: '',
+    description: '',
+    payUnit: 'CY',
+    basis: 'bank',
+    method: 'manual',
+    unitPrice: '',
+    contractQuantity: '',
+  },
 });
 
 const NUMBER = /^-?\d*\.?\d+$/;
@@ -58,10 +70,18 @@ export const proposeFormSchema = z
     }
     const items = values.items.map((item, i): ChangeOrderItemInput => {
       if (item.kind === 'change_quantity') {
-        return { kind: item.kind, bidItemId: item.bidItemId, quantityDelta: number(item.quantityDelta, ['items', i, 'quantityDelta'], 'a quantity change') };
+        return {
+          kind: item.kind,
+          bidItemId: item.bidItemId,
+          quantityDelta: number(item.quantityDelta, ['items', i, 'quantityDelta'], 'a quantity change'),
+        };
       }
       if (item.kind === 'change_price') {
-        return { kind: item.kind, bidItemId: item.bidItemId, newUnitPriceCents: cents(item.unitPrice, ['items', i, 'unitPrice']) };
+        return {
+          kind: item.kind,
+          bidItemId: item.bidItemId,
+          newUnitPriceCents: cents(item.unitPrice, ['items', i, 'unitPrice']),
+        };
       }
       const { unitPrice, contractQuantity, ...rest } = item.newItem;
       return {

@@ -9,7 +9,12 @@ import { LineBackupList } from './line-backup';
 import { LineReviewBadge } from './pay-app-labels';
 import type { LineDecision, ReviewDraft } from './review-draft';
 
-type Props = { app: PayAppDetail; reviewing: boolean; draft: ReviewDraft; onDecide: (lineId: string, d: LineDecision | null) => void };
+type Props = {
+  app: PayAppDetail;
+  reviewing: boolean;
+  draft: ReviewDraft;
+  onDecide: (lineId: string, d: LineDecision | null) => void;
+};
 const num = 'text-right tabular-nums whitespace-nowrap';
 
 /** Lines: previous, this period and to date quantities (units shown), amounts and retainage; inline review for the reviewer. */
@@ -65,8 +70,22 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
                       aria-label={`Review of item ${l.itemNumber}`}
                       className="h-8 w-36 text-xs"
                       value={d?.decision ?? ''}
-                      onChange={(e) => onDecide(l.id, e.target.value ? { decision: e.target.value as LineDecision['decision'], reason: d?.reason ?? '', counter: d?.counter ?? String(l.thisPeriodQuantity) } : null)}
-                      options={[{ value: 'approve', label: 'Approve' }, { value: 'dispute', label: 'Dispute' }]}
+                      onChange={(e) =>
+                        onDecide(
+                          l.id,
+                          e.target.value
+                            ? {
+                                decision: e.target.value as LineDecision['decision'],
+                                reason: d?.reason ?? '',
+                                counter: d?.counter ?? String(l.thisPeriodQuantity),
+                              }
+                            : null,
+                        )
+                      }
+                      options={[
+                        { value: 'approve', label: 'Approve' },
+                        { value: 'dispute', label: 'Dispute' },
+                      ]}
                     >
                       <option value="">{l.reviewStatus === 'approved' ? 'Approved' : 'Decide…'}</option>
                     </Select>
@@ -82,7 +101,11 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
                     className="inline-flex items-center gap-1 text-xs font-medium whitespace-nowrap text-spruce-800 hover:underline"
                     onClick={() => toggle(l.id)}
                   >
-                    {open.has(l.id) ? <ChevronDown aria-hidden className="size-3.5" /> : <ChevronRight aria-hidden className="size-3.5" />}
+                    {open.has(l.id) ? (
+                      <ChevronDown aria-hidden className="size-3.5" />
+                    ) : (
+                      <ChevronRight aria-hidden className="size-3.5" />
+                    )}
                     Tallies
                   </button>
                 </TableCell>
@@ -90,7 +113,12 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
               {open.has(l.id) ? (
                 <tr className="bg-stone-50">
                   <td colSpan={11} className="px-4 py-3">
-                    <LineBackupList projectId={app.projectId} payAppId={app.id} lineId={l.id} itemNumber={l.itemNumber} />
+                    <LineBackupList
+                      projectId={app.projectId}
+                      payAppId={app.id}
+                      lineId={l.id}
+                      itemNumber={l.itemNumber}
+                    />
                   </td>
                 </tr>
               ) : null}
@@ -100,11 +128,20 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
                     <div className="flex flex-wrap items-end gap-3 text-xs">
                       <label className="flex min-w-72 flex-1 flex-col gap-0.5 text-stone-700">
                         Reason for the dispute of item {l.itemNumber}
-                        <Input value={d.reason} onChange={(e) => onDecide(l.id, { ...d, reason: e.target.value })} placeholder="What the evidence does not support" />
+                        <Input
+                          value={d.reason}
+                          onChange={(e) => onDecide(l.id, { ...d, reason: e.target.value })}
+                          placeholder="What the evidence does not support"
+                        />
                       </label>
                       <label className="flex w-44 flex-col gap-0.5 text-stone-700">
                         Counter quantity this period ({l.payUnit})
-                        <Input inputMode="decimal" className="text-right tabular-nums" value={d.counter} onChange={(e) => onDecide(l.id, { ...d, counter: e.target.value })} />
+                        <Input
+                          inputMode="decimal"
+                          className="text-right tabular-nums"
+                          value={d.counter}
+                          onChange={(e) => onDecide(l.id, { ...d, counter: e.target.value })}
+                        />
                       </label>
                     </div>
                   </td>
@@ -119,7 +156,9 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
           <TableCell colSpan={7}>Totals ({app.lines.length} lines)</TableCell>
           <TableCell className={num}>{formatMoney(app.earnedToDateCents)}</TableCell>
           <TableCell className={num}>{formatMoney(app.retainageCents)}</TableCell>
-          <TableCell className="text-xs font-normal text-stone-600">{sum((l) => (l.reviewStatus === 'approved' ? 1 : 0))} of {app.lines.length} approved</TableCell>
+          <TableCell className="text-xs font-normal text-stone-600">
+            {sum((l) => (l.reviewStatus === 'approved' ? 1 : 0))} of {app.lines.length} approved
+          </TableCell>
         </tr>
       </TableFoot>
     </Table>

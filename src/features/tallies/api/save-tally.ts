@@ -52,6 +52,12 @@ export async function saveDirectTally(
     ? await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, body)
     : await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, body);
   // A refused file leaves the draft saved without it; the caller says so and the tally page takes the file again.
-  const filesError = files.length > 0 ? await uploadEvidence(tally.id, [...files], () => undefined).then(() => null, (err: unknown) => err) : null;
+  const filesError =
+    files.length > 0
+      ? await uploadEvidence(tally.id, [...files], () => undefined).then(
+          () => null,
+          (err: unknown) => err,
+        )
+      : null;
   return { tally, filesError };
 }
