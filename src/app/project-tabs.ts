@@ -40,7 +40,8 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     path: 'pay-basis',
     label: 'Pay basis',
     screen: () => import('./routes/project-pay-basis'),
-    summary: 'How each item is measured and paid, with its loads, scale tickets, time-and-materials days, stored materials and deductions.',
+    summary:
+      'How each item is measured and paid, with its loads, scale tickets, time-and-materials days, stored materials and deductions.',
   },
   {
     path: 'pay-apps',

@@ -5,7 +5,8 @@ import { isFrozen, PAY_APP_TRANSITIONS, type PayAppAction } from '../../../src/s
 export const canCreatePayApp = (roles: AccessRole[]) => roles.includes('subcontractor');
 
 /** Whether the person's roles may take this action, from the transition table. */
-export const mayTake = (action: PayAppAction, roles: AccessRole[]) => PAY_APP_TRANSITIONS[action].by.some((r) => r !== 'system' && roles.includes(r));
+export const mayTake = (action: PayAppAction, roles: AccessRole[]) =>
+  PAY_APP_TRANSITIONS[action].by.some((r) => r !== 'system' && roles.includes(r));
 
 const CONTRACTOR_SIDE: readonly AccessRole[] = [
   'subcontractor',
@@ -25,4 +26,5 @@ export function canSeePayApp(roles: AccessRole[], status: PayAppStatus): boolean
 }
 
 /** Dispute threads are between the two contractors. */
-export const canComment = (roles: AccessRole[]) => roles.includes('subcontractor') || roles.includes('general_contractor');
+export const canComment = (roles: AccessRole[]) =>
+  roles.includes('subcontractor') || roles.includes('general_contractor');

@@ -2,7 +2,15 @@ import { and, asc, desc, eq, gte, inArray, sql } from 'drizzle-orm';
 import type { PaymentStatus, ProjectRole } from '../../../src/shared/constants';
 import { sumCents } from '../../../src/shared/domain/money';
 import type { Executor } from '../../db/client';
-import { payApps, payAppStatusHistory, paymentStatusHistory, payments, projectMembers, stripeEvents, user } from '../../db/schema';
+import {
+  payApps,
+  payAppStatusHistory,
+  paymentStatusHistory,
+  payments,
+  projectMembers,
+  stripeEvents,
+  user,
+} from '../../db/schema';
 
 export type PayAppRow = typeof payApps.$inferSelect;
 export type PaymentRow = typeof payments.$inferSelect;
@@ -29,17 +37,31 @@ export async function recentPaymentCents(db: Executor, payAppId: string, since: 
   const [row] = await db
     .select({ cents: sql<string>`coalesce(sum(${payments.amountCents}), 0)` })
     .from(payments)
-    .where(and(eq(payments.payAppId, payAppId), gte(payments.createdAt, since), inArray(payments.status, ['created', 'processing', 'succeeded'])));
+    .where(
+      and(
+        eq(payments.payAppId, payAppId),
+        gte(payments.createdAt, since),
+        inArray(payments.status, ['created', 'processing', 'succeeded']),
+      ),
+    );
   return Number(row?.cents ?? 0);
 }
 
 export async function historyOf(db: Executor, paymentIds: string[]): Promise<HistoryRow[]> {
   if (paymentIds.length === 0) return [];
-  return db.select().from(paymentStatusHistory).where(inArray(paymentStatusHistory.paymentId, paymentIds)).orderBy(asc(paymentStatusHistory.createdAt));
+  return db
+    .select()
+    .from(paymentStatusHistory)
+    .where(inArray(paymentStatusHistory.paymentId, paymentIds))
+    .orderBy(asc(paymentStatusHistory.createdAt));
 }
 
 export async function findPayment(db: Executor, by: { id?: string; sessionId?: string; paymentIntentId?: string }) {
-  const cond = by.id ? eq(payments.id, by.id) : by.sessionId ? eq(payments.stripeCheckoutSessionId, by.sessionId) : eq(payments.stripePaymentIntentId, by.paymentIntentId!);
+  const cond = by.id
+    ? eq(payments.id, by.id)
+    : by.sessionId
+      ? eq(payments.stripeCheckoutSessionId, by.sessionId)
+      : eq(payments.stripePaymentIntentId, by.paymentIntentId!);
   const [row] = await db.select().from(payments).where(cond).limit(1).for('update');
   return row;
 }
@@ -57,13 +79,30 @@ export async function insertPayment(db: Executor, values: typeof payments.$infer
   return row!;
 }
 
-export async function updatePayment(db: Executor, id: string, values: Partial<typeof payments.$inferInsert>): Promise<PaymentRow> {
-  const [row] = await db.update(payments).set({ ...values, updatedAt: new Date() }).where(eq(payments.id, id)).returning();
+export async function updatePayment(
+  db: Executor,
+  id: string,
+  values: Partial<typeof payments.$inferInsert>,
+): Promise<PaymentRow> {
+  const [row] = await db
+    .update(payments)
+    .set({ ...values, updatedAt: new Date() })
+    .where(eq(payments.id, id))
+    .returning();
   return row!;
 }
 
-export async function addHistory(db: Executor, paymentId: string, from: PaymentStatus | null, to: PaymentStatus, note: string, stripeEventId?: string) {
-  await db.insert(paymentStatusHistory).values({ paymentId, fromStatus: from, toStatus: to, note, stripeEventId: stripeEventId ?? null });
+export async function addHistory(
+  db: Executor,
+  paymentId: string,
+  from: PaymentStatus | null,
+  to: PaymentStatus,
+  note: string,
+  stripeEventId?: string,
+) {
+  await db
+    .insert(paymentStatusHistory)
+    .values({ paymentId, fromStatus: from, toStatus: to, note, stripeEventId: stripeEventId ?? null });
 }
 
 /** Records an event id; false when it was already recorded (the event has been applied before). */
@@ -81,10 +120,27 @@ export async function eventSeen(db: Executor, eventId: string): Promise<boolean>
   return rows.length > 0;
 }
 
-export async function movePayApp(db: Executor, app: PayAppRow, values: { status: PayAppRow['status']; paidCents: number }, note: string) {
-  await db.update(payApps).set({ ...values, updatedAt: new Date() }).where(eq(payApps.id, app.id));
+export async function movePayApp(
+  db: Executor,
+  app: PayAppRow,
+  values: { status: PayAppRow['status']; paidCents: number },
+  note: string,
+) {
+  await db
+    .update(payApps)
+    .set({ ...values, updatedAt: new Date() })
+    .where(eq(payApps.id, app.id));
   if (values.status !== app.status) {
-    await db.insert(payAppStatusHistory).values({ payAppId: app.id, fromStatus: app.status, toStatus: values.status, revision: app.revision, note, actorUserId: null });
+    await db
+      .insert(payAppStatusHistory)
+      .values({
+        payAppId: app.id,
+        fromStatus: app.status,
+        toStatus: values.status,
+        revision: app.revision,
+        note,
+        actorUserId: null,
+      });
   }
 }
 
@@ -98,8 +154,20 @@ export async function memberEmails(db: Executor, projectId: string, roles: Proje
 }
 
 export const openPayments = (db: Executor, payAppId: string) =>
-  db.select().from(payments).where(and(eq(payments.payAppId, payAppId), eq(payments.status, 'created'), sql`${payments.stripeCheckoutSessionId} is not null`));
+  db
+    .select()
+    .from(payments)
+    .where(
+      and(
+        eq(payments.payAppId, payAppId),
+        eq(payments.status, 'created'),
+        sql`${payments.stripeCheckoutSessionId} is not null`,
+      ),
+    );
 
 /** Every attempt not yet paid, failed or canceled: with a checkout session, or one being opened right now. */
 export const unfinishedPayments = (db: Executor, payAppId: string) =>
-  db.select().from(payments).where(and(eq(payments.payAppId, payAppId), eq(payments.status, 'created')));
+  db
+    .select()
+    .from(payments)
+    .where(and(eq(payments.payAppId, payAppId), eq(payments.status, 'created')));

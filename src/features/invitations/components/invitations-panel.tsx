@@ -48,7 +48,9 @@ export function InvitationsPanel({ projectId, seat }: { projectId: string; seat:
                 <TableHeaderCell>Invited by</TableHeaderCell>
                 <TableHeaderCell>Status</TableHeaderCell>
                 <TableHeaderCell>Link valid until</TableHeaderCell>
-                <TableHeaderCell><span className="sr-only">Commands</span></TableHeaderCell>
+                <TableHeaderCell>
+                  <span className="sr-only">Commands</span>
+                </TableHeaderCell>
               </tr>
             </TableHead>
             <TableBody>
@@ -60,7 +62,9 @@ export function InvitationsPanel({ projectId, seat }: { projectId: string; seat:
                   <TableCell>
                     <Badge tone={STATE_BADGES[inv.state].tone}>{STATE_BADGES[inv.state].label}</Badge>
                   </TableCell>
-                  <TableCell className="text-stone-700">{inv.state === 'accepted' ? '—' : formatDate(inv.expiresAt)}</TableCell>
+                  <TableCell className="text-stone-700">
+                    {inv.state === 'accepted' ? '—' : formatDate(inv.expiresAt)}
+                  </TableCell>
                   <TableCell className="text-right">
                     {inv.state === 'accepted' ? null : (
                       <Button

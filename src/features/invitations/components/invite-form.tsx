@@ -42,7 +42,15 @@ export function InviteForm({ projectId, seat }: { projectId: string; seat: Proje
   return (
     <form noValidate onSubmit={submit} aria-label="Invite someone" className="flex flex-wrap items-start gap-3">
       <Field label="E-mail" error={errors.email?.message} className="min-w-64 flex-1">
-        {(control) => <Input type="email" autoComplete="off" placeholder="name@company.com" {...control} {...form.register('email')} />}
+        {(control) => (
+          <Input
+            type="email"
+            autoComplete="off"
+            placeholder="name@company.com"
+            {...control}
+            {...form.register('email')}
+          />
+        )}
       </Field>
       <Field label="Role on this job" error={errors.role?.message} className="w-56">
         {(control) => <Input {...control} readOnly value={ROLE_LABELS[seat]} className="bg-stone-50" />}
