@@ -1,11 +1,10 @@
 import { Download, Upload } from 'lucide-react';
 import { useRef } from 'react';
 import { toast } from 'sonner';
-import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { UploadError, UploadProgress } from '@/components/ui/upload-status';
 import { ErrorState, LoadingState } from '@/components/ui/states';
-import { errorMessage, isApiError } from '@/lib/api-client';
 import { formatDate } from '@/lib/format';
 import type { ChangeOrderDocumentView } from '@/shared/schemas/change-order';
 import { useAttachChangeOrderDocuments, useChangeOrderDocuments } from '../api/change-order-documents';
@@ -37,7 +36,6 @@ export function DocumentsPanel({
   const query = useChangeOrderDocuments(changeOrderId);
   const attach = useAttachChangeOrderDocuments(changeOrderId);
   const documents = query.data ?? [];
-  const percent = Math.round(attach.progress * 100);
   return (
     <Card>
       <CardHeader>
@@ -66,35 +64,8 @@ export function DocumentsPanel({
         ) : null}
       </CardHeader>
       <CardBody className="flex flex-col gap-2">
-        {attach.isPending ? (
-          <div className="flex items-center gap-3">
-            <div
-              role="progressbar"
-              aria-label="Upload progress"
-              aria-valuemin={0}
-              aria-valuemax={100}
-              aria-valuenow={percent}
-              className="h-2 flex-1 overflow-hidden rounded-full bg-stone-200"
-            >
-              <div className="h-full bg-spruce-600 transition-[width]" style={{ width: `${percent}%` }} />
-            </div>
-            <span className="w-28 text-right text-xs text-stone-600 tabular-nums">
-              {attach.progress < 1 ? `${percent} % sent` : 'Checking files…'}
-            </span>
-          </div>
-        ) : null}
-        {attach.isError ? (
-          <Alert>
-            {errorMessage(attach.error)}
-            {isApiError(attach.error) && attach.error.details.length ? (
-              <ul className="mt-1 list-disc pl-5">
-                {attach.error.details.map((d) => (
-                  <li key={d.path}>{d.message}</li>
-                ))}
-              </ul>
-            ) : null}
-          </Alert>
-        ) : null}
+        {attach.isPending ? <UploadProgress progress={attach.progress} /> : null}
+        {attach.isError ? <UploadError error={attach.error} /> : null}
         {query.isPending ? <LoadingState label="Loading the documents…" /> : null}
         {query.isError ? <ErrorState error={query.error} onRetry={() => void query.refetch()} /> : null}
         {query.isSuccess && documents.length === 0 ? (

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { CreateTallyInput, TallyView, UpdateTallyInput } from '@/shared/schemas/tally';
+import type { CreateTallyInput, TallyView } from '@/shared/schemas/tally';
 import { tallyKeys } from './keys';
 import { uploadEvidence } from './upload-evidence';
 
@@ -8,21 +8,6 @@ import { uploadEvidence } from './upload-evidence';
 function useTallyMutation<TInput, TResult>(fn: (input: TInput) => Promise<TResult>) {
   const client = useQueryClient();
   return useMutation({ mutationFn: fn, onSuccess: () => client.invalidateQueries({ queryKey: tallyKeys.all }) });
-}
-
-export function useCreateTally(projectId: string) {
-  return useTallyMutation(
-    async (input: CreateTallyInput) =>
-      (await api.post<{ tally: TallyView }>(`/api/projects/${encodeURIComponent(projectId)}/tallies`, input)).tally,
-  );
-}
-
-/** A draft's changes; the server merges them and computes the quantity again. */
-export function useUpdateTally(tallyId: string) {
-  return useTallyMutation(
-    async (input: UpdateTallyInput) =>
-      (await api.patch<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`, input)).tally,
-  );
 }
 
 export function useMarkReady() {

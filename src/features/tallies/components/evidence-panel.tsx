@@ -1,20 +1,40 @@
 import { Download, Trash2, Upload } from 'lucide-react';
 import { useRef } from 'react';
 import { toast } from 'sonner';
-import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
-import { errorMessage, isApiError } from '@/lib/api-client';
+import { UploadError, UploadProgress } from '@/components/ui/upload-status';
+import { errorMessage } from '@/lib/api-client';
 import { formatDate } from '@/lib/format';
 import type { EvidenceView } from '@/shared/schemas/tally';
 import { useDeleteEvidence } from '../api/save-tally';
 import { useUploadEvidence } from '../api/upload-evidence';
 
-const size = (bytes: number) => (bytes < 1024 ? `${bytes} B` : bytes < 1024 ** 2 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1024 ** 2).toFixed(1)} MB`);
-const KIND_LABELS: Record<EvidenceView['kind'], string> = { csv: 'CSV', pdf: 'PDF', image: 'Image', landxml: 'LandXML' };
+const size = (bytes: number) =>
+  bytes < 1024
+    ? `${bytes} B`
+    : bytes < 1024 ** 2
+      ? `${(bytes / 1024).toFixed(1)} kB`
+      : `${(bytes / 1024 ** 2).toFixed(1)} MB`;
+const KIND_LABELS: Record<EvidenceView['kind'], string> = {
+  csv: 'CSV',
+  pdf: 'PDF',
+  image: 'Image',
+  landxml: 'LandXML',
+};
 
 /** The files behind a tally: download for everyone on the project; upload (with progress) and remove for its writers. */
-export function EvidencePanel({ tallyId, evidence, canUpload, canRemove }: { tallyId: string; evidence: EvidenceView[]; canUpload: boolean; canRemove: boolean }) {
+export function EvidencePanel({
+  tallyId,
+  evidence,
+  canUpload,
+  canRemove,
+}: {
+  tallyId: string;
+  evidence: EvidenceView[];
+  canUpload: boolean;
+  canRemove: boolean;
+}) {
   const input = useRef<HTMLInputElement>(null);
   const upload = useUploadEvidence(tallyId);
   const remove = useDeleteEvidence();
@@ -34,7 +54,8 @@ export function EvidencePanel({ tallyId, evidence, canUpload, canRemove }: { tal
               onChange={(e) => {
                 const files = [...(e.target.files ?? [])];
                 e.target.value = '';
-                if (files.length) upload.mutate(files, { onSuccess: (added) => toast.success(`Added ${added.length} file(s)`) });
+                if (files.length)
+                  upload.mutate(files, { onSuccess: (added) => toast.success(`Added ${added.length} file(s)`) });
               }}
             />
             <Button variant="secondary" size="sm" disabled={upload.isPending} onClick={() => input.current?.click()}>
@@ -45,28 +66,13 @@ export function EvidencePanel({ tallyId, evidence, canUpload, canRemove }: { tal
         ) : null}
       </CardHeader>
       <CardBody className="flex flex-col gap-2">
-        {upload.isPending ? (
-          <div className="flex items-center gap-3">
-            <div role="progressbar" aria-label="Upload progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(upload.progress * 100)} className="h-2 flex-1 overflow-hidden rounded-full bg-stone-200">
-              <div className="h-full bg-spruce-600 transition-[width]" style={{ width: `${Math.round(upload.progress * 100)}%` }} />
-            </div>
-            <span className="w-28 text-right text-xs text-stone-600 tabular-nums">{upload.progress < 1 ? `${Math.round(upload.progress * 100)} % sent` : 'Checking files…'}</span>
-          </div>
-        ) : null}
-        {upload.isError ? (
-          <Alert>
-            {errorMessage(upload.error)}
-            {isApiError(upload.error) && upload.error.details.length ? (
-              <ul className="mt-1 list-disc pl-5">
-                {upload.error.details.map((d) => (
-                  <li key={d.path}>{d.message}</li>
-                ))}
-              </ul>
-            ) : null}
-          </Alert>
-        ) : null}
+        {upload.isPending ? <UploadProgress progress={upload.progress} /> : null}
+        {upload.isError ? <UploadError error={upload.error} /> : null}
         {evidence.length === 0 ? (
-          <p className="text-sm text-stone-600">No files yet. {canUpload ? 'Add survey files, tickets, photos or LandXML surfaces (CSV, PDF, PNG, JPEG, .xml).' : ''}</p>
+          <p className="text-sm text-stone-600">
+            No files yet.{' '}
+            {canUpload ? 'Add survey files, tickets, photos or LandXML surfaces (CSV, PDF, PNG, JPEG, .xml).' : ''}
+          </p>
         ) : (
           <ul className="divide-y divide-stone-100">
             {evidence.map((e) => (
@@ -78,12 +84,22 @@ export function EvidencePanel({ tallyId, evidence, canUpload, canRemove }: { tal
                   </span>
                 </span>
                 <span className="flex shrink-0 gap-1">
-                  <a href={e.downloadUrl} download className="inline-flex items-center gap-1 rounded px-2 py-1 text-xs font-medium text-spruce-800 hover:bg-spruce-50 focus-visible:outline-2 focus-visible:outline-spruce-600">
+                  <a
+                    href={e.downloadUrl}
+                    download
+                    className="inline-flex items-center gap-1 rounded px-2 py-1 text-xs font-medium text-spruce-800 hover:bg-spruce-50 focus-visible:outline-2 focus-visible:outline-spruce-600"
+                  >
                     <Download aria-hidden className="size-3.5" />
                     Download
                   </a>
                   {canRemove ? (
-                    <Button variant="ghost" size="sm" aria-label={`Remove ${e.fileName}`} disabled={remove.isPending} onClick={() => remove.mutate(e.id, { onError: (err) => toast.error(errorMessage(err)) })}>
+                    <Button
+                      variant="ghost"
+                      size="sm"
+                      aria-label={`Remove ${e.fileName}`}
+                      disabled={remove.isPending}
+                      onClick={() => remove.mutate(e.id, { onError: (err) => toast.error(errorMessage(err)) })}
+                    >
                       <Trash2 aria-hidden />
                     </Button>
                   ) : null}
