@@ -49,7 +49,8 @@ beforeAll(async () => {
     projectId: w.home.id,
     actorUserId: null,
     objectType: 'bid_item',
-    objectId: itemId.replace(/.$/, '0'),
+    // Another id than the item's, whatever its last digit (a fixed '0' was the item's own id 1 time in 16).
+    objectId: itemId.replace(/.$/, (c) => (c === '0' ? '1' : '0')),
     action: 'bid_item.updated',
   });
 });
