@@ -7,6 +7,7 @@ import { makeBidItem, makeUser, makeWorld } from '../setup/factories';
 import { FILES, makeTally } from '../setup/pay-cycle-factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { createTestApp, signedInAgent, TEST_ORIGIN, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+import { waitForMails } from '../setup/mail';
 
 // OWASP ASVS 4.0.3 V2 (authentication) and V3 (sessions): accounts by invitation only, password reset by an
 // e-mailed link with the same answer for every address (2.5.x, and 2.2.x for enumeration), a password change that
@@ -23,17 +24,9 @@ afterAll(() => t.close());
 
 const outsider = () => request.agent(t.app).set('Origin', TEST_ORIGIN);
 const users = async () => (await t.database.db.select({ n: count() }).from(user))[0]!.n;
-const resetMailTo = (email: string) =>
-  t.mailbox.messages().filter((m) => m.to.includes(email) && /new .*password/i.test(m.subject));
 
-async function waitForMail(email: string) {
-  for (let i = 0; i < 50; i++) {
-    const found = resetMailTo(email);
-    if (found.length > 0) return found;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  return resetMailTo(email);
-}
+const waitForMail = (email: string) =>
+  waitForMails(t.mailbox, (m) => m.to.includes(email) && /new .*password/i.test(m.subject));
 
 describe('an outsider with only network access', () => {
   it('cannot create an account through sign-up, and sign-up answers alike for known and unknown addresses', async () => {

@@ -6,6 +6,7 @@ import { auditEvents } from '../../server/db/schema';
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { makeBillableProject } from '../setup/pay-cycle-factories';
 import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+import { waitForMail as waitForMailIn } from '../setup/mail';
 
 // Invented figures (test data), worked by hand: A-1 1,000 CY at $7.25, B-2 500 LF at $42.10;
 // October measures 400 CY of A-1 and 120.25 LF of B-2, November 100 CY of A-1.
@@ -294,14 +295,8 @@ describe('original beside current: a change order moves the contract everywhere'
   });
 });
 
-const waitForMail = async (email: string, subject: RegExp) => {
-  for (let i = 0; i < 50; i++) {
-    const found = t.mailbox.messages().find((m) => m.to.includes(email) && subject.test(m.subject));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`no mail to ${email} matching ${subject}`);
-};
+const waitForMail = (email: string, subject: RegExp) =>
+  waitForMailIn(t.mailbox, (m) => m.to.includes(email) && subject.test(m.subject));
 
 describe('disputes that cannot go wrong silently (November, A-1 claims 100 CY)', () => {
   let disputeId: string;
@@ -312,12 +307,10 @@ describe('disputes that cannot go wrong silently (November, A-1 claims 100 CY)',
       (await (await as('subcontractor')).post(`/api/pay-apps/${nov.id}/submit`).send({ expectedRevision: 0 })).status,
     ).toBe(200);
     const gc = await as('general_contractor');
-    const res = await gc
-      .post(`/api/pay-apps/${nov.id}/review`)
-      .send({
-        expectedRevision: 0,
-        lines: [{ lineId: a1(), decision: 'dispute', reason: 'More was hauled', counterQuantity: 150 }],
-      });
+    const res = await gc.post(`/api/pay-apps/${nov.id}/review`).send({
+      expectedRevision: 0,
+      lines: [{ lineId: a1(), decision: 'dispute', reason: 'More was hauled', counterQuantity: 150 }],
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('COUNTER_ABOVE_CLAIM');
     expect(res.body.error.details[0].path).toBe('lines.0.counterQuantity');
@@ -370,21 +363,17 @@ describe('disputes that cannot go wrong silently (November, A-1 claims 100 CY)',
   });
 
   it('takes a third quantity with its reason: the line is recomputed, the thread says so, the reviewer is mailed', async () => {
-    const res = await (
-      await as('subcontractor')
-    )
-      .post(`/api/pay-apps/${nov.id}/revise`)
-      .send({
-        expectedRevision: 0,
-        lines: [
-          {
-            lineId: a1(),
-            action: 'propose',
-            proposedQuantity: 95,
-            comment: 'Five loads were topsoil; the rest is on the tickets',
-          },
-        ],
-      });
+    const res = await (await as('subcontractor')).post(`/api/pay-apps/${nov.id}/revise`).send({
+      expectedRevision: 0,
+      lines: [
+        {
+          lineId: a1(),
+          action: 'propose',
+          proposedQuantity: 95,
+          comment: 'Five loads were topsoil; the rest is on the tickets',
+        },
+      ],
+    });
     expect(res.status).toBe(200);
     const app = res.body.payApp;
     // 95 CY x $8.00 = $760.00 this period, on top of the $2,900.00 certified
@@ -411,12 +400,10 @@ describe('disputes that cannot go wrong silently (November, A-1 claims 100 CY)',
       (await (await as('subcontractor')).post(`/api/pay-apps/${nov.id}/submit`).send({ expectedRevision: 1 })).status,
     ).toBe(200);
     const gc = await as('general_contractor');
-    const returned = await gc
-      .post(`/api/pay-apps/${nov.id}/review`)
-      .send({
-        expectedRevision: 1,
-        lines: [{ lineId: a1(), decision: 'dispute', reason: 'Check the tickets', counterQuantity: 90 }],
-      });
+    const returned = await gc.post(`/api/pay-apps/${nov.id}/review`).send({
+      expectedRevision: 1,
+      lines: [{ lineId: a1(), decision: 'dispute', reason: 'Check the tickets', counterQuantity: 90 }],
+    });
     const open = returned.body.payApp.disputes.find((d: { status: string }) => d.status === 'open');
     expect((await gc.post(`/api/disputes/${open.id}/withdraw`).send({})).status).toBe(400);
     const res = await gc.post(`/api/disputes/${open.id}/withdraw`).send({ note: 'Tickets 12 to 16 found' });

@@ -4,6 +4,7 @@ import { tallies } from '../../server/db/schema';
 import { addMember, makeBidItem, makeProject, makeUser, makeWorld } from '../setup/factories';
 import { auditActions, makeBillableProject, makeTally } from '../setup/pay-cycle-factories';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
+import { waitForMail as waitForMailIn } from '../setup/mail';
 
 /** Every flag of the application, acknowledged: these tests certify after looking at them. */
 const flagKeys = async (
@@ -27,14 +28,8 @@ type Who = keyof typeof w.people | 'outsider';
 const as = (who: Who) => signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
 const october = { periodStart: '2026-10-01', periodEnd: '2026-10-31' };
 const mailTo = (email: string) => t.mailbox.messages().filter((m) => m.to.includes(email));
-const waitForMail = async (email: string, subject: RegExp) => {
-  for (let i = 0; i < 50; i++) {
-    const found = mailTo(email).find((m) => subject.test(m.subject));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`no mail to ${email} matching ${subject}`);
-};
+const waitForMail = (email: string, subject: RegExp) =>
+  waitForMailIn(t.mailbox, (m) => m.to.includes(email) && subject.test(m.subject));
 type Line = { id: string; itemNumber: string };
 const line = (app: { lines: Line[] }, item: string) => app.lines.find((l) => l.itemNumber === item)!;
 
@@ -121,12 +116,10 @@ describe('pay applications: the October period, step by step', () => {
 
   it('refuses review and certify of a draft (409 PAY_APP_WRONG_STATUS) and submit by the general contractor (403)', async () => {
     const gc = await as('general_contractor');
-    const review = await gc
-      .post(`/api/pay-apps/${id}/review`)
-      .send({
-        expectedRevision: 0,
-        lines: [{ lineId: (await gc.get(`/api/pay-apps/${id}`)).body.payApp.lines[0].id, decision: 'approve' }],
-      });
+    const review = await gc.post(`/api/pay-apps/${id}/review`).send({
+      expectedRevision: 0,
+      lines: [{ lineId: (await gc.get(`/api/pay-apps/${id}`)).body.payApp.lines[0].id, decision: 'approve' }],
+    });
     expect(review.status).toBe(409);
     expect(review.body.error.code).toBe('PAY_APP_WRONG_STATUS');
     expect((await gc.post(`/api/pay-apps/${id}/certify`).send({})).body.error.code).toBe('PAY_APP_WRONG_STATUS');
@@ -241,12 +234,10 @@ describe('pay applications: the October period, step by step', () => {
     ).toBe(403);
     const missing = await sub.post(`/api/pay-apps/${id}/revise`).send({ expectedRevision: 0, lines: [] });
     expect(missing.status).toBe(400);
-    const res = await sub
-      .post(`/api/pay-apps/${id}/revise`)
-      .send({
-        expectedRevision: 0,
-        lines: [{ lineId: line(app, 'B-2').id, action: 'accept', comment: 'Agreed, run 3 moves to November.' }],
-      });
+    const res = await sub.post(`/api/pay-apps/${id}/revise`).send({
+      expectedRevision: 0,
+      lines: [{ lineId: line(app, 'B-2').id, action: 'accept', comment: 'Agreed, run 3 moves to November.' }],
+    });
     expect(res.status).toBe(200);
     const revised = res.body.payApp;
     expect(revised).toMatchObject({ status: 'draft', revision: 1 });
@@ -295,12 +286,10 @@ describe('pay applications: the October period, step by step', () => {
       expect((await (action === 'submit' ? sub : gc).post(`/api/pay-apps/${id}/${action}`).send({})).status).toBe(409);
     expect(
       (
-        await gc
-          .post(`/api/pay-apps/${id}/review`)
-          .send({
-            expectedRevision: 1,
-            lines: [{ lineId: line(app, 'A-1').id, decision: 'dispute', reason: 'late', counterQuantity: 1 }],
-          })
+        await gc.post(`/api/pay-apps/${id}/review`).send({
+          expectedRevision: 1,
+          lines: [{ lineId: line(app, 'A-1').id, decision: 'dispute', reason: 'late', counterQuantity: 1 }],
+        })
       ).status,
     ).toBe(409);
     expect((await sub.post(`/api/pay-apps/${id}/revise`).send({ expectedRevision: 1, lines: [] })).status).toBe(409);

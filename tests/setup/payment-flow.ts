@@ -1,5 +1,4 @@
-import { expect, vi } from 'vitest';
-import type { CaughtMail, SmtpSink } from '../../server/integrations/mailer/smtp-sink';
+import { expect } from 'vitest';
 import type { Standin } from '../../stripe-standin/src/index';
 
 type Agent = {
@@ -58,14 +57,4 @@ export async function eventsOf(standin: Standin, paymentIntentOrSession: string)
   );
 }
 
-/** The first caught message matching `match`, waiting for the outbox to send it. */
-export function waitForMail(mailbox: SmtpSink, match: (m: CaughtMail) => boolean): Promise<CaughtMail> {
-  return vi.waitFor(
-    () => {
-      const found = mailbox.messages().find(match);
-      if (!found) throw new Error('no such mail yet');
-      return found;
-    },
-    { timeout: 5000, interval: 50 },
-  );
-}
+export { waitForMail } from './mail';
