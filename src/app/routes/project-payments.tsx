@@ -1,5 +1,5 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
-import { useProject } from '@/features/projects/api/get-project';
+import { canEditBidSchedule, useProject } from '@/features/projects/api/get-project';
 import { PaymentsScreen, projectPaymentsQueryOptions } from '@/features/payments';
 import { prefetchWhenSignedIn } from '../prefetch';
 
@@ -14,7 +14,11 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Payments · Tallyard`}</title>
-      <PaymentsScreen projectId={projectId} canPay={project.myRoles.includes('owner')} />
+      <PaymentsScreen
+        projectId={projectId}
+        canPay={project.myRoles.includes('owner')}
+        canManageContract={canEditBidSchedule(project)}
+      />
     </>
   );
 }
