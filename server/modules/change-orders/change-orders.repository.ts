@@ -3,7 +3,7 @@ import type { ProjectRole } from '../../../src/shared/constants';
 import type { CreateChangeOrderInput } from '../../../src/shared/schemas/change-order';
 import type { Executor } from '../../db/client';
 import { changeOrderItems, changeOrders, companyMembers, projectMembers, user } from '../../db/schema';
-import { seatCompanyId, type ProjectParties } from '../projects/projects.policy';
+import { seatCompanyId, type ProjectParties } from '../../../src/shared/policies/projects';
 
 export type ChangeOrderRow = typeof changeOrders.$inferSelect;
 export type ChangeOrderItemRow = typeof changeOrderItems.$inferSelect;
