@@ -1,5 +1,5 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
-import { canEditBidSchedule, useProject } from '@/features/projects/api/get-project';
+import { useProject } from '@/features/projects/api/get-project';
 import { PaymentsScreen, projectPaymentsQueryOptions } from '@/features/payments';
 import { prefetchWhenSignedIn } from '../prefetch';
 
@@ -17,7 +17,7 @@ export function Component() {
       <PaymentsScreen
         projectId={projectId}
         canPay={project.myRoles.includes('owner')}
-        canManageContract={canEditBidSchedule(project)}
+        canManageContract={project.can.manageContract}
       />
     </>
   );
