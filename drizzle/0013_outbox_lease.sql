@@ -1,0 +1,1 @@
+ALTER TABLE "email_outbox" ADD COLUMN "leased_until" timestamp with time zone;
