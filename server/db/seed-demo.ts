@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import type { CompanyKind } from '../../src/shared/constants';
 import type { Auth } from '../auth';
 import type { Storage } from '../integrations/storage/storage';
@@ -6,13 +6,32 @@ import { seedPayCycle } from './demo/seed-pay-cycle';
 import { seedProvisions } from './demo/seed-provisions';
 import type { Db } from './client';
 import { DEMO_BID_ITEMS, DEMO_COMPANIES, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from './demo/demo-data';
-import { bidItems, companies, companyMembers, projectMembers, projects, user } from './schema';
+import { bidItems, companies, companyMembers, emailOutbox, projectMembers, projects, user } from './schema';
 import { recordAudit } from '../modules/audit/audit.repository';
 import { insertAccount, prepareAccount } from '../modules/accounts/accounts.service';
 import { DemoClock } from './demo/demo-clock';
 
 const DEMO_SET_UP_AT = '2026-07-21T16:00:00.000Z';
 const DEMO_PAY_BASIS_AT = '2026-11-24T09:30:00.000Z';
+
+/**
+ * Runs a seeding step whose hand-offs are history: the e-mails it queues are marked undelivered, never sent to the
+ * demo addresses.
+ */
+async function asHistory<T>(db: Db, step: () => Promise<T>): Promise<T> {
+  const before = new Set((await db.select({ id: emailOutbox.id }).from(emailOutbox)).map((r) => r.id));
+  const result = await step();
+  const queued = (await db.select({ id: emailOutbox.id }).from(emailOutbox))
+    .map((r) => r.id)
+    .filter((id) => !before.has(id));
+  if (queued.length > 0) {
+    await db
+      .update(emailOutbox)
+      .set({ status: 'sent', lastError: 'Demo history: not delivered' })
+      .where(inArray(emailOutbox.id, queued));
+  }
+  return result;
+}
 
 /**
  * Seeds the demo scenario once. Returns false when the demo is already there (idempotent: a marker is the
@@ -28,7 +47,7 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
       .limit(1);
     if (!project) return false;
     const cycle = await seedPayCycle(db, storage, project.id);
-    return (await seedProvisions(db, project.id)) || cycle;
+    return (await asHistory(db, () => seedProvisions(db, project.id))) || cycle;
   }
 
   // Hashed before the transaction (scrypt is slow); the demo people are created with everything else in it.
@@ -85,6 +104,6 @@ export async function seedDemo(db: Db, auth: Auth, storage: Storage): Promise<bo
     }),
   );
   await seedPayCycle(db, storage, projectId);
-  await clock.step(DEMO_PAY_BASIS_AT, () => seedProvisions(db, projectId));
+  await clock.step(DEMO_PAY_BASIS_AT, () => asHistory(db, () => seedProvisions(db, projectId)));
   return true;
 }

@@ -96,6 +96,7 @@ const ROUTES: Record<string, Scope> = {
   'GET /api/projects/:projectId/trucks': 'project',
   'POST /api/projects/:projectId/trucks': 'project',
   'GET /api/projects/:projectId/truck-tickets': 'project',
+  'GET /api/projects/:projectId/truck-tickets/totals': 'project',
   'POST /api/projects/:projectId/truck-tickets': 'project',
   'POST /api/projects/:projectId/truck-tickets/import': 'project',
   'GET /api/projects/:projectId/material-sources': 'project',

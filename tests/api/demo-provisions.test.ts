@@ -35,10 +35,11 @@ describe('demo project: one item of each way of paying (invented data)', () => {
   it('has loads with one flagged truck, scale tickets, signed daily sheets, stored riprap and adjustments', async () => {
     const agent = await signedInAgent(t.app, 'gc@tallyard.test', 'tallyard-demo');
     const loads = (await agent.get(`/api/projects/${projectId}/truck-tickets`)).body;
-    expect(loads.tickets).toHaveLength(17);
-    expect(loads.tickets.filter((x: { flags: string[] }) => x.flags.includes('unregistered_truck'))).toHaveLength(1);
-    expect(loads.totals.byDay.map((d: { key: string }) => d.key)).toEqual(['2026-09-14', '2026-09-15', '2026-09-16']);
-    expect((await agent.get(`/api/projects/${projectId}/scale-tickets`)).body.tickets).toHaveLength(5);
+    expect(loads.items).toHaveLength(17);
+    expect(loads.items.filter((x: { flags: string[] }) => x.flags.includes('unregistered_truck'))).toHaveLength(1);
+    const { totals } = (await agent.get(`/api/projects/${projectId}/truck-tickets/totals`)).body;
+    expect(totals.byDay.map((d: { key: string }) => d.key)).toEqual(['2026-09-14', '2026-09-15', '2026-09-16']);
+    expect((await agent.get(`/api/projects/${projectId}/scale-tickets`)).body.items).toHaveLength(5);
     const sheets = (await agent.get(`/api/projects/${projectId}/daily-sheets`)).body.sheets;
     expect(sheets.map((s: { complete: boolean }) => s.complete)).toEqual([true, false]);
     const stored = (await agent.get(`/api/projects/${projectId}/stored-materials`)).body.materials;

@@ -88,14 +88,18 @@ describe('truck register and truck tickets', () => {
     }
     const list = await sub.get(`/api/projects/${w.home.id}/truck-tickets?bidItemId=${item.id}`);
     expect(list.status).toBe(200);
-    const flags = list.body.tickets.map((x: { flags: string[] }) => x.flags.join(','));
-    expect(flags).toEqual(['', '', '', 'unregistered_truck', 'over_capacity', '']);
+    expect(list.body.nextCursor).toBeNull();
+    // Newest first, as every paged list.
+    const flags = list.body.items.map((x: { flags: string[] }) => x.flags.join(','));
+    expect(flags).toEqual(['', 'over_capacity', 'unregistered_truck', '', '', '']);
+    const totals = await sub.get(`/api/projects/${w.home.id}/truck-tickets/totals?bidItemId=${item.id}`);
+    expect(totals.status).toBe(200);
     // 11.38 + 11.38 + 15.56 = 38.32 CY on the 4th (two flagged loads left out); 10.50 on the 5th.
-    expect(list.body.totals.byDay).toEqual([
+    expect(totals.body.totals.byDay).toEqual([
       { key: '2026-05-04', loads: 3, computedCy: 38.32, payCy: 38.3, flagged: 2 },
       { key: '2026-05-05', loads: 1, computedCy: 10.5, payCy: 10.5, flagged: 0 },
     ]);
-    expect(list.body.totals.byItem).toEqual([{ key: item.id, loads: 4, computedCy: 48.82, payCy: 48.8, flagged: 2 }]);
+    expect(totals.body.totals.byItem).toEqual([{ key: item.id, loads: 4, computedCy: 48.82, payCy: 48.8, flagged: 2 }]);
   });
 
   it("refuses tickets on an item that is not paid by truck measure (400 PROFILE_MISMATCH) and on another project's item", async () => {
@@ -198,7 +202,7 @@ describe('material sources and scale tickets', () => {
     expect(
       (await owner.post(`/api/projects/${w.home.id}/scale-tickets`).send({ ...body, ticketNumber: '40118' })).status,
     ).toBe(403);
-    expect((await owner.get(`/api/projects/${w.home.id}/scale-tickets`)).body.tickets).toHaveLength(1);
+    expect((await owner.get(`/api/projects/${w.home.id}/scale-tickets`)).body.items).toHaveLength(1);
   });
 
   it('refuses a tare at or above gross naming the tare, and a source of another project', async () => {
@@ -223,5 +227,51 @@ describe('material sources and scale tickets', () => {
     const cross = await sub.post(`/api/projects/${w.home.id}/scale-tickets`).send({ ...base, tareTons: 10 });
     expect(cross.status).toBe(400);
     expect(cross.body.error.details[0].path).toBe('sourceId');
+  });
+});
+
+describe('the ticket lists are paged (a job keeps thousands of loads)', () => {
+  it('walks every truck ticket once, newest first, a page at a time, while the totals count them all', async () => {
+    const item = await makeProfiledItem(t.database.db, w.home.id, 'truck_measure', { itemNumber: 'TM-P' });
+    const gc = await as('general_contractor');
+    const header =
+      'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker,load_volume_cy';
+    // One import is one statement: the rows share created_at, and the id must break the ties.
+    const rows = Array.from(
+      { length: 7 },
+      (_, i) => `2026-06-0${1 + (i % 3)},T-12,Select borrow,Hollis pit,F,S,RB,MK,10`,
+    );
+    const imported = await gc
+      .post(`/api/projects/${w.home.id}/truck-tickets/import`)
+      .send({ bidItemId: item.id, csv: `${header}\n${rows.join('\n')}\n` });
+    expect(imported.status).toBe(201);
+    const seen: string[] = [];
+    let cursor: string | null = null;
+    let pages = 0;
+    do {
+      const url = `/api/projects/${w.home.id}/truck-tickets?bidItemId=${item.id}&limit=3${cursor ? `&cursor=${cursor}` : ''}`;
+      const page = await gc.get(url);
+      expect(page.status).toBe(200);
+      expect(page.body.items.length).toBeLessThanOrEqual(3);
+      seen.push(...page.body.items.map((x: { id: string }) => x.id));
+      cursor = page.body.nextCursor;
+      pages++;
+    } while (cursor);
+    expect(pages).toBe(3);
+    expect(new Set(seen).size).toBe(7);
+    const totals = await gc.get(`/api/projects/${w.home.id}/truck-tickets/totals?bidItemId=${item.id}`);
+    expect(totals.body.totals.byItem).toEqual([{ key: item.id, loads: 7, computedCy: 70, payCy: 70, flagged: 0 }]);
+  });
+
+  it('refuses a bad limit or cursor on either list with 400 naming the field', async () => {
+    const owner = await as('owner');
+    for (const list of ['truck-tickets', 'scale-tickets']) {
+      const big = await owner.get(`/api/projects/${w.home.id}/${list}?limit=100000`);
+      expect(big.status).toBe(400);
+      expect(big.body.error.details[0].path).toBe('limit');
+      const forged = await owner.get(`/api/projects/${w.home.id}/${list}?cursor=bm90LW91cnM`);
+      expect(forged.status).toBe(400);
+      expect(forged.body.error.details[0].path).toBe('cursor');
+    }
   });
 });

@@ -271,6 +271,7 @@ const RULES: Record<string, Rule> = {
     body: () => ({ label: `T-${++serial}`, bedVolumeCy: 11.38, measuredBy: 'R. Baines', measuredOn: '2026-04-28' }),
   },
   'GET /api/projects/:projectId/truck-tickets': { may: ALL },
+  'GET /api/projects/:projectId/truck-tickets/totals': { may: ALL },
   'POST /api/projects/:projectId/truck-tickets': {
     may: FIELD,
     body: (f) => ({ bidItemId: f.truckItemId, ...TRUCK_TICKET }),

@@ -223,6 +223,23 @@ describe('tallies: who may do what, and the draft life', () => {
     expect(await auditActions(t.database.db, id)).toEqual(['tally.created', 'tally.updated', 'tally.ready']);
   });
 
+  it('answers each reader with what it may do (`can`), the same rules the server enforces', async () => {
+    const sub = await as('subcontractor');
+    const { body } = await sub.post(url()).send(endArea(items.cut.id));
+    const id = body.tally.id;
+    const all = { edit: true, delete: true, markReady: true, addEvidence: true, removeEvidence: true };
+    const none = { edit: false, delete: false, markReady: false, addEvidence: false, removeEvidence: false };
+    expect(body.tally.can).toEqual(all);
+    expect((await sub.get(`/api/projects/${w.home.id}`)).body.project.can).toMatchObject({ createTally: true });
+    for (const who of ['general_contractor', 'owner', 'admin'] as const) {
+      const agent = await as(who);
+      expect((await agent.get(`/api/tallies/${id}`)).body.tally.can).toEqual(none);
+      expect((await agent.get(`/api/projects/${w.home.id}`)).body.project.can).toMatchObject({ createTally: false });
+    }
+    const ready = await sub.post(`/api/tallies/${id}/ready`);
+    expect(ready.body.tally.can).toEqual(none);
+  });
+
   it('filters the list by status, bid item and period', async () => {
     const agent = await as('subcontractor');
     await agent.post(url()).send(endArea(items.metric.id, { measuredOn: '2026-11-02' }));

@@ -36,7 +36,8 @@ const ANSWERS: Record<string, unknown> = {
     ],
   },
   'truck-tickets': {
-    tickets: [
+    nextCursor: null,
+    items: [
       {
         id: 'k1',
         bidItemId: 'i1',
@@ -53,10 +54,12 @@ const ANSWERS: Record<string, unknown> = {
         flags: ['unregistered_truck'],
       },
     ],
+  },
+  'truck-tickets/totals': {
     totals: { byDay: [{ key: '2026-09-15', loads: 0, computedCy: 0, payCy: 0, flagged: 1 }], byItem: [] },
   },
   'material-sources': { sources: [] },
-  'scale-tickets': { tickets: [] },
+  'scale-tickets': { items: [], nextCursor: null },
   'daily-sheets': { sheets: [] },
   'stored-materials': { materials: [] },
   'pay-adjustments': {
@@ -81,7 +84,8 @@ function stubFetch(importAnswer?: { status: number; body: unknown }) {
         headers: { 'Content-Type': 'application/json' },
       });
     }
-    const key = Object.keys(ANSWERS).find((k) => path.endsWith(`/${k}`));
+    const route = path.split('?')[0]!;
+    const key = Object.keys(ANSWERS).find((k) => route.endsWith(`/${k}`));
     return new Response(JSON.stringify(key ? ANSWERS[key] : {}), {
       status: key ? 200 : 404,
       headers: { 'Content-Type': 'application/json' },

@@ -36,6 +36,7 @@ const DRAFT: TallyView = {
   evidenceCount: 1,
   createdAt: '2026-11-12T15:00:00.000Z',
   updatedAt: '2026-11-12T15:00:00.000Z',
+  can: { edit: true, delete: true, markReady: true, addEvidence: true, removeEvidence: true },
 };
 
 describe('editing a draft tally', () => {

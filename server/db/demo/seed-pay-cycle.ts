@@ -149,9 +149,9 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
     // Between the second and third periods the borrow area grows and dewatering is added by change order.
     if (index === 1) {
       const co = await clock.step(day(9, '13:00'), () =>
-        proposeChangeOrder(db, sub, projectId, demoChangeOrder(itemIds)),
+        proposeChangeOrder(ctx, sub, projectId, demoChangeOrder(itemIds)),
       );
-      await clock.step(day(14, '10:30'), () => approveChangeOrder(db, gc, co.id, DEMO_CHANGE_ORDER.approvalNote));
+      await clock.step(day(14, '10:30'), () => approveChangeOrder(ctx, gc, co.id, DEMO_CHANGE_ORDER.approvalNote));
     }
   }
 
@@ -160,7 +160,7 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
     for (const f of DEMO_FORECASTS) {
       await setForecast(db, sub, itemIds.get(f.itemNumber)!, { forecastQuantity: f.forecastQuantity, note: f.note });
     }
-    await draftVarianceChangeOrder(db, sub, itemIds.get(DEMO_FORECASTS[0]!.itemNumber)!);
+    await draftVarianceChangeOrder(ctx, sub, itemIds.get(DEMO_FORECASTS[0]!.itemNumber)!);
   });
   // The demo's past hand-offs are history: their e-mails are not sent to the demo addresses.
   const queued = (await db.select({ id: emailOutbox.id }).from(emailOutbox))

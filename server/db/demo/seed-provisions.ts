@@ -84,13 +84,15 @@ export async function seedProvisions(db: Db, projectId: string): Promise<boolean
     });
   }
 
-  const proposed = await proposeChangeOrder(db, gc, projectId, {
+  // The demo's history: its hand-off mail is queued like any other and marked undelivered by the demo seed.
+  const changeOrders = { db, appUrl: '' };
+  const proposed = await proposeChangeOrder(changeOrders, gc, projectId, {
     title: 'Buried timber crib at the outlet, on time and materials',
     reason:
       'An old timber crib was found under the outlet structure; removal is paid on time and materials up to $15,000.',
     items: [{ kind: 'add_item', newItem: data.DEMO_FORCE_ACCOUNT_ITEM }],
   });
-  await approveChangeOrder(db, gc, proposed.id, 'Agreed on time and materials');
+  await approveChangeOrder(changeOrders, gc, proposed.id, 'Agreed on time and materials');
   await setProfile(db, gc, await idOf(data.DEMO_FORCE_ACCOUNT_ITEM.itemNumber), {
     profile: 'force_account',
     stage: 'interim',

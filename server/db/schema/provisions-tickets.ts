@@ -75,7 +75,12 @@ export const truckTickets = pgTable(
       .references(() => user.id),
     ...timestamps,
   },
-  (t) => [index().on(t.projectId, t.deliveredOn), index().on(t.bidItemId)],
+  (t) => [
+    index().on(t.projectId, t.deliveredOn),
+    index().on(t.bidItemId),
+    // The list's keyset order (server/lib/paging.ts).
+    index('truck_tickets_page').on(t.projectId, t.createdAt, t.id),
+  ],
 );
 
 /** A material source's weighed loads and its ton-to-volume factor (tons per CY). */
@@ -126,5 +131,9 @@ export const scaleTickets = pgTable(
       .references(() => user.id),
     ...timestamps,
   },
-  (t) => [unique('scale_tickets_project_number').on(t.projectId, t.ticketNumber), index().on(t.bidItemId)],
+  (t) => [
+    unique('scale_tickets_project_number').on(t.projectId, t.ticketNumber),
+    index().on(t.bidItemId),
+    index('scale_tickets_page').on(t.projectId, t.createdAt, t.id),
+  ],
 );

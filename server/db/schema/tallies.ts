@@ -51,7 +51,13 @@ export const tallies = pgTable(
       .references(() => user.id),
     ...timestamps,
   },
-  (t) => [index().on(t.projectId, t.measuredOn), index().on(t.bidItemId), index().on(t.payAppId)],
+  (t) => [
+    index().on(t.projectId, t.measuredOn),
+    index().on(t.bidItemId),
+    index().on(t.payAppId),
+    // The list's keyset order (server/lib/paging.ts).
+    index('tallies_page').on(t.projectId, t.createdAt, t.id),
+  ],
 );
 
 /** A draft's earlier state, kept each time it is saved again: its inputs, result and quantity as they were. */

@@ -15,7 +15,7 @@ import { AppError, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canManageContract } from '../projects/projects.policy';
+import { canManageContract } from '../../../src/shared/policies/projects';
 import { presentBidItem } from './bid-items.presenter';
 import * as repo from './bid-items.repository';
 

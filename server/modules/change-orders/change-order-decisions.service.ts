@@ -1,15 +1,19 @@
 import type { BidItemInput } from '../../../src/shared/schemas/bid-item';
+import type { ProjectRole } from '../../../src/shared/constants';
 import type { ChangeOrderView } from '../../../src/shared/schemas/change-order';
 import type { Db, Executor } from '../../db/client';
 import { bidItems } from '../../db/schema';
 import type { Actor } from '../../lib/actor';
 import { conflict, forbidden } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
+import { enqueueEmail } from '../notifications/outbox';
+import type { ProjectRow } from '../projects/projects.repository';
+import { changeOrderApprovedMail, changeOrderRejectedMail } from './change-order-emails';
 import { checkChangeOrderItems } from './change-order-checks';
 import { loadContract, type LoadedContract } from './contract-quantities.repository';
 import { decisionSides, isFullyApproved, type ApprovalSide } from './change-orders.policy';
 import * as repo from './change-orders.repository';
-import { loadChangeOrder, presentContext, viewOf } from './change-orders.service';
+import { loadChangeOrder, presentContext, viewOf, type ChangeOrderContext } from './change-orders.service';
 
 const stale = () =>
   conflict(
@@ -29,6 +33,24 @@ async function loadForDecision(db: Db, actor: Actor, id: string) {
   }
   if (loaded.row.status !== 'proposed') throw stale();
   return { ...loaded, sides };
+}
+
+/**
+ * Who hears of a decision: the proposer's side and the subcontractor, and the general contractor's side too when the
+ * owner's decision settled it (the general contractor keeps the contract). Never the person who decided.
+ */
+async function decisionAddresses(
+  tx: Executor,
+  project: ProjectRow,
+  row: repo.ChangeOrderRow,
+  side: ApprovalSide,
+  actorUserId: string,
+) {
+  const seats = new Set<ProjectRole>(['subcontractor']);
+  const proposerSeat = await repo.seatOf(tx, project.id, row.proposedByUserId);
+  if (proposerSeat) seats.add(proposerSeat);
+  if (side === 'owner') seats.add('general_contractor');
+  return repo.seatAddresses(tx, project, [...seats], actorUserId);
 }
 
 /**
@@ -66,7 +88,12 @@ async function applyChanges(tx: Executor, changeOrderId: string, projectId: stri
  * Records the approval of the actor's side (general contractor, or owner where the project requires it). The
  * change order is approved, and applied, once every required side has approved. A stale decision gets 409.
  */
-export async function approveChangeOrder(db: Db, actor: Actor, id: string, note: string): Promise<ChangeOrderView> {
+export async function approveChangeOrder(
+  { db, appUrl }: ChangeOrderContext,
+  actor: Actor,
+  id: string,
+  note: string,
+): Promise<ChangeOrderView> {
   const { row, project, sides } = await loadForDecision(db, actor, id);
   const side: ApprovalSide | undefined = sides.find((s) => (s === 'gc' ? !row.gcApprovedAt : !row.ownerApprovedAt));
   if (!side) throw conflict('CHANGE_ORDER_ALREADY_APPROVED', 'Your side has already approved this change order.');
@@ -98,12 +125,28 @@ export async function approveChangeOrder(db: Db, actor: Actor, id: string, note:
       before: { status: row.status },
       after: { status: after.status, side, note, ...(complete ? { applied } : {}) },
     });
-    return viewOf(tx, project, after);
+    const view = await viewOf(tx, project, after);
+    if (complete) {
+      await enqueueEmail(
+        tx,
+        changeOrderApprovedMail(
+          { appUrl, project, actorName: actor.name },
+          await decisionAddresses(tx, project, row, side, actor.userId),
+          view,
+        ),
+      );
+    }
+    return view;
   });
 }
 
 /** Rejects with a note; either deciding side may reject while the change order is proposed. */
-export async function rejectChangeOrder(db: Db, actor: Actor, id: string, note: string): Promise<ChangeOrderView> {
+export async function rejectChangeOrder(
+  { db, appUrl }: ChangeOrderContext,
+  actor: Actor,
+  id: string,
+  note: string,
+): Promise<ChangeOrderView> {
   const { row, project, sides } = await loadForDecision(db, actor, id);
   return db.transaction(async (tx) => {
     const after = await repo.updateIfProposed(tx, id, {
@@ -121,6 +164,15 @@ export async function rejectChangeOrder(db: Db, actor: Actor, id: string, note: 
       before: { status: row.status },
       after: { status: after.status, side: sides[0], note },
     });
-    return viewOf(tx, project, after);
+    const view = await viewOf(tx, project, after);
+    await enqueueEmail(
+      tx,
+      changeOrderRejectedMail(
+        { appUrl, project, actorName: actor.name },
+        await decisionAddresses(tx, project, row, sides[0]!, actor.userId),
+        view,
+      ),
+    );
+    return view;
   });
 }

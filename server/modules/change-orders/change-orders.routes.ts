@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import {
   approveChangeOrderSchema,
   createChangeOrderSchema,
@@ -13,16 +13,19 @@ import * as documents from './change-order-documents.service';
 import { approveChangeOrder, rejectChangeOrder } from './change-order-decisions.service';
 import * as service from './change-orders.service';
 
-export function changeOrdersRouter({ db, storage }: AppContext): Router {
+export function changeOrdersRouter(ctx: AppContext): Router {
+  const { db, storage, outbox } = ctx;
   const router = Router();
+  // A decision or proposal queues its e-mail in its transaction; the outbox sends it once the answer is out.
+  const mailAfterAnswer = (res: Response) => res.on('finish', () => void outbox.flush());
   router.get('/projects/:projectId/change-orders', async (req, res) => {
     res.json({ changeOrders: await service.listChangeOrders(db, getActor(res), req.params.projectId) });
   });
   router.post('/projects/:projectId/change-orders', async (req, res) => {
     const input = createChangeOrderSchema.parse(req.body);
-    res
-      .status(201)
-      .json({ changeOrder: await service.proposeChangeOrder(db, getActor(res), req.params.projectId, input) });
+    const changeOrder = await service.proposeChangeOrder(ctx, getActor(res), req.params.projectId, input);
+    mailAfterAnswer(res);
+    res.status(201).json({ changeOrder });
   });
   router.get('/projects/:projectId/contract-quantities', async (req, res) => {
     res.json({ contractQuantities: await service.listContractQuantities(db, getActor(res), req.params.projectId) });
@@ -32,11 +35,15 @@ export function changeOrdersRouter({ db, storage }: AppContext): Router {
   });
   router.post('/change-orders/:id/approve', async (req, res) => {
     const { note } = approveChangeOrderSchema.parse(req.body ?? {});
-    res.json({ changeOrder: await approveChangeOrder(db, getActor(res), req.params.id, note) });
+    const changeOrder = await approveChangeOrder(ctx, getActor(res), req.params.id, note);
+    mailAfterAnswer(res);
+    res.json({ changeOrder });
   });
   router.post('/change-orders/:id/reject', async (req, res) => {
     const { note } = rejectChangeOrderSchema.parse(req.body ?? {});
-    res.json({ changeOrder: await rejectChangeOrder(db, getActor(res), req.params.id, note) });
+    const changeOrder = await rejectChangeOrder(ctx, getActor(res), req.params.id, note);
+    mailAfterAnswer(res);
+    res.json({ changeOrder });
   });
   router.get('/change-orders/:id/documents', async (req, res) => {
     res.json({ documents: await documents.listChangeOrderDocuments(db, getActor(res), req.params.id) });

@@ -3,17 +3,20 @@ import type {
   ContractQuantityView,
   CreateChangeOrderInput,
 } from '../../../src/shared/schemas/change-order';
+import type { AppContext } from '../../app-context';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { listObjectAudit, listProjectAudit } from '../audit/audit-query.repository';
 import { recordAudit } from '../audit/audit.repository';
+import { enqueueEmail } from '../notifications/outbox';
 import { listBidItems } from '../bid-items/bid-items.repository';
 import { isUuid, loadProjectAccess, type ProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { checkChangeOrderItems } from './change-order-checks';
+import { changeOrderProposedMail } from './change-order-emails';
 import { presentChangeOrder, type PresentContext } from './change-orders.presenter';
-import { canProposeChangeOrder } from './change-orders.policy';
+import { canProposeChangeOrder, decisionSides } from './change-orders.policy';
 import * as repo from './change-orders.repository';
 import { contractQuantities, loadContract, quantitiesOf } from './contract-quantities.repository';
 
@@ -84,9 +87,24 @@ export async function getChangeOrder(db: Db, actor: Actor, id: string): Promise<
   return viewOf(db, project, row);
 }
 
-/** Either contractor proposes; the change order gets the project's next number. */
+/**
+ * What a change order's hand-offs need: the database, and the app's address for the link in their e-mails (queued
+ * in the same transaction; the outbox sends them once the answer is out).
+ */
+export type ChangeOrderContext = Pick<AppContext, 'db' | 'appUrl'>;
+
+/** The seats that decide change orders on a project: the general contractor's, and the owner's where it approves too. */
+export const decidingSeats = (project: ProjectRow) =>
+  decisionSides(['general_contractor', 'owner'], project.ownerApprovesChangeOrders).map((side) =>
+    side === 'gc' ? ('general_contractor' as const) : ('owner' as const),
+  );
+
+/**
+ * Either contractor proposes; the change order gets the project's next number, and those who decide it get an
+ * e-mail (never the proposer).
+ */
 export async function proposeChangeOrder(
-  db: Db,
+  { db, appUrl }: ChangeOrderContext,
   actor: Actor,
   projectId: string,
   input: CreateChangeOrderInput,
@@ -112,7 +130,16 @@ export async function proposeChangeOrder(
         note: row.reason,
       },
     });
-    return viewOf(tx, project, row);
+    const view = await viewOf(tx, project, row);
+    await enqueueEmail(
+      tx,
+      changeOrderProposedMail(
+        { appUrl, project, actorName: actor.name },
+        await repo.seatAddresses(tx, project, decidingSeats(project), actor.userId),
+        view,
+      ),
+    );
+    return view;
   });
 }
 

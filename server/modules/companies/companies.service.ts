@@ -1,7 +1,7 @@
 import type { CompanyView } from '../../../src/shared/schemas/project';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
-import { canCreateProject } from '../projects/projects.policy';
+import { canCreateProject } from '../../../src/shared/policies/projects';
 import { presentCompany } from '../projects/projects.presenter';
 import { listedCompanies } from './companies.repository';
 

@@ -1,5 +1,5 @@
 import type { AccessRole } from '../../../src/shared/constants';
-import { canManageContract } from '../projects/projects.policy';
+import { canManageContract } from '../../../src/shared/policies/projects';
 
 /**
  * Measurement and payment provisions (issue 15). How an item is paid is a contract term: the general contractor's

@@ -20,7 +20,9 @@ export function registerOf(trucks: TruckRow[]): Map<string, RegisteredTruck> {
   return new Map(trucks.map((t) => [t.label.toUpperCase(), { id: t.label.toUpperCase(), bedVolumeCy: t.bedVolumeCy }]));
 }
 
-const lineOf = (r: TruckTicketRow) => ({
+type TotalLine = Pick<TruckTicketRow, 'truckLabel' | 'deliveredOn' | 'bidItemId' | 'loadVolumeCy'>;
+
+const lineOf = (r: TotalLine) => ({
   truckId: r.truckLabel.toUpperCase(),
   date: r.deliveredOn,
   bidItemId: r.bidItemId,
@@ -46,7 +48,7 @@ export function presentTicket(r: TruckTicketRow, register: Map<string, Registere
   };
 }
 
-export function presentTotals(rows: TruckTicketRow[], register: Map<string, RegisteredTruck>): TicketTotalsView {
+export function presentTotals(rows: TotalLine[], register: Map<string, RegisteredTruck>): TicketTotalsView {
   const lines = rows.map(lineOf);
   return { byDay: ticketTotals(lines, register, 'date'), byItem: ticketTotals(lines, register, 'bidItemId') };
 }

@@ -5,16 +5,18 @@ import {
   createTruckTicketSchema,
   importTruckTicketsSchema,
 } from '../../../src/shared/schemas/provisions/tickets';
+import { pageQuerySchema } from '../../../src/shared/schemas/paging';
 import { isoDateSchema } from '../../../src/shared/schemas/tally';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
 import * as service from './haul-tickets.service';
 
-const ticketQuerySchema = z.object({
+const ticketFilterSchema = z.object({
   bidItemId: z.uuid().optional(),
   from: isoDateSchema.optional(),
   to: isoDateSchema.optional(),
 });
+const ticketPageSchema = ticketFilterSchema.extend(pageQuerySchema.shape);
 
 export function haulTicketsRouter({ db }: AppContext): Router {
   const router = Router();
@@ -26,8 +28,12 @@ export function haulTicketsRouter({ db }: AppContext): Router {
     res.status(201).json({ truck: await service.registerTruck(db, getActor(res), req.params.projectId, input) });
   });
   router.get('/projects/:projectId/truck-tickets', async (req, res) => {
-    const filter = ticketQuerySchema.parse(req.query);
-    res.json(await service.listTickets(db, getActor(res), req.params.projectId, filter));
+    const query = ticketPageSchema.parse(req.query);
+    res.json(await service.listTickets(db, getActor(res), req.params.projectId, query));
+  });
+  router.get('/projects/:projectId/truck-tickets/totals', async (req, res) => {
+    const filter = ticketFilterSchema.parse(req.query);
+    res.json({ totals: await service.ticketTotals(db, getActor(res), req.params.projectId, filter) });
   });
   router.post('/projects/:projectId/truck-tickets', async (req, res) => {
     const input = createTruckTicketSchema.parse(req.body);

@@ -4,9 +4,11 @@ import type {
   ImportTruckTicketsInput,
 } from '../../../src/shared/schemas/provisions/tickets';
 import { parseTruckTicketCsv, type TruckTicketRow } from '../../../src/shared/truck-ticket-csv';
+import type { Page, PageQuery } from '../../../src/shared/schemas/paging';
 import type { Db, Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { conflict, validationFailed } from '../../lib/app-error';
+import { pageOf } from '../../lib/paging';
 import { loadProjectAccess } from '../projects/project-access';
 import { canKeepFieldRecords } from '../field-records/field-records.policy';
 import { isUniqueViolation, itemMeasuredBy, recordChange } from '../field-records/record-change';
@@ -41,11 +43,32 @@ export async function registerTruck(db: Db, actor: Actor, projectId: string, inp
   }
 }
 
-export async function listTickets(db: Db, actor: Actor, projectId: string, filter: repo.TicketFilter) {
+/** One page of tickets (newest first), each checked against the register. */
+export async function listTickets(
+  db: Db,
+  actor: Actor,
+  projectId: string,
+  query: repo.TicketFilter & PageQuery,
+): Promise<Page<TruckTicketView>> {
   await loadProjectAccess(db, actor, projectId);
-  const [rows, trucks] = await Promise.all([repo.listTickets(db, projectId, filter), repo.listTrucks(db, projectId)]);
+  const [rows, trucks] = await Promise.all([repo.pageTickets(db, projectId, query), repo.listTrucks(db, projectId)]);
   const register = registerOf(trucks);
-  return { tickets: rows.map((r) => presentTicket(r, register)), totals: presentTotals(rows, register) };
+  return pageOf(
+    rows,
+    query.limit,
+    (r) => ({ at: r.pageKey, id: r.ticket.id }),
+    (r) => presentTicket(r.ticket, register),
+  );
+}
+
+/** Totals per day and per item over every ticket of the filter (the list itself is paged). */
+export async function ticketTotals(db: Db, actor: Actor, projectId: string, filter: repo.TicketFilter) {
+  await loadProjectAccess(db, actor, projectId);
+  const [lines, trucks] = await Promise.all([
+    repo.ticketTotalLines(db, projectId, filter),
+    repo.listTrucks(db, projectId),
+  ]);
+  return presentTotals(lines, registerOf(trucks));
 }
 
 async function saveTickets(tx: Executor, actor: Actor, projectId: string, bidItemId: string, rows: TruckTicketRow[]) {

@@ -11,7 +11,7 @@ import { decisionSides } from '../change-orders/change-orders.policy';
 import { canIssueWaiver, waiverOptions } from '../lien-waivers/lien-waivers.policy';
 import { mayTake } from '../pay-apps/pay-apps.policy';
 import { balanceCents, canPay, PAYABLE_STATUSES } from '../payments/payments.policy';
-import { canManagePeople, managedSeat } from '../projects/projects.policy';
+import { canManagePeople, managedSeat } from '../../../src/shared/policies/projects';
 
 /**
  * The person's own move on a pay application, read from the transition table: the first of these actions that

@@ -3,7 +3,7 @@ import type { InboxEntryView, InboxView } from '../../../src/shared/schemas/inbo
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { balanceCents } from '../payments/payments.policy';
-import { accessRoles } from '../projects/projects.policy';
+import { accessRoles } from '../../../src/shared/policies/projects';
 import { listVisibleProjects, rolesByProject, type ProjectRow } from '../projects/projects.repository';
 import { presentCounts, presentEntry, type EntryDraft } from './inbox.presenter';
 import { changeOrderWaits, followsInvitations, payAppStep, paymentDue, paymentDueAt, waiverStep } from './inbox.policy';

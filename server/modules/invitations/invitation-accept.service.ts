@@ -7,7 +7,7 @@ import { companyMembers, projectMembers } from '../../db/schema';
 import { AppError, conflict, forbidden, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { insertAccount, prepareAccount, type PreparedAccount } from '../accounts/accounts.service';
-import { seatCompanyId } from '../projects/projects.policy';
+import { seatCompanyId } from '../../../src/shared/policies/projects';
 import { memberRoles } from '../projects/projects.repository';
 import { hashToken, TOKEN_SHAPE } from './invitation-token';
 import { checkSeat } from './seat-rules';

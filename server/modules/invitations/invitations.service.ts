@@ -8,7 +8,7 @@ import { AppError, conflict, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { enqueueEmail } from '../notifications/outbox';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canManagePeople, managedSeat } from '../projects/projects.policy';
+import { canManagePeople, managedSeat } from '../../../src/shared/policies/projects';
 import { memberRoles } from '../projects/projects.repository';
 import { SEAT_NAMES } from './seat-rules';
 import { eq } from 'drizzle-orm';

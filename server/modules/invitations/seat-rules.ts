@@ -1,6 +1,6 @@
 import type { ProjectRole } from '../../../src/shared/constants';
 import { AppError, conflict } from '../../lib/app-error';
-import { seatCompanyId, type ProjectParties } from '../projects/projects.policy';
+import { seatCompanyId, type ProjectParties } from '../../../src/shared/policies/projects';
 
 /** Seat names in running text ("the subcontractor seat"). */
 export const SEAT_NAMES: Record<ProjectRole, string> = {

@@ -5,7 +5,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canReadProject } from '../projects/projects.policy';
+import { canReadProject } from '../../../src/shared/policies/projects';
 import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { findPayApp } from '../payments/payments.repository';
 import { renderWaiverPdf } from './lien-waiver-pdf';

@@ -20,17 +20,26 @@ const mail = (f: Facts, template: string, to: string[], subject: string, parts: 
   html: layoutHtml(parts),
 });
 
-/** To the subcontractor: a payment settled, so the unconditional waiver for it is now asked for. */
+/**
+ * To the subcontractor: a waiver is now due. A conditional one once the application is certified (the payer may ask
+ * for it before paying the balance), an unconditional one once a payment has settled.
+ */
 export function waiverRequestedMail(f: Facts, to: string[], kind: LienWaiverKind, amountCents: number): QueuedMail {
+  const title = LIEN_WAIVER_TITLES[kind];
+  const conditional = kind.startsWith('conditional');
   return mail(
     f,
     'lien_waiver.requested',
     to,
-    `Lien waiver requested: pay application ${f.payAppNumber}, ${f.project.name}`,
+    conditional
+      ? `Conditional lien waiver requested: pay application ${f.payAppNumber}, ${f.project.name}`
+      : `Lien waiver requested: pay application ${f.payAppNumber}, ${f.project.name}`,
     {
-      heading: `${LIEN_WAIVER_TITLES[kind]} requested`,
+      heading: `${title} requested`,
       paragraphs: [
-        `The payment for pay application ${f.payAppNumber} on ${f.project.name} has settled. The ${LIEN_WAIVER_TITLES[kind].toLowerCase()} for ${formatMoney(amountCents)} can now be signed.`,
+        conditional
+          ? `Pay application ${f.payAppNumber} on ${f.project.name} is certified. The ${title.toLowerCase()} for the ${formatMoney(amountCents)} still due can now be signed; it takes effect only once that payment is received.`
+          : `The payment for pay application ${f.payAppNumber} on ${f.project.name} has settled. The ${title.toLowerCase()} for ${formatMoney(amountCents)} can now be signed.`,
         'Check the exceptions it lists (retainage still held, disputed amounts, unpaid change orders) and add any of your own before signing.',
       ],
       action: { href: `${f.appUrl}/projects/${f.project.id}/waivers`, label: 'Review and sign the waiver' },

@@ -5,7 +5,7 @@ import { AppError, conflict, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { SEAT_NAMES } from '../invitations/seat-rules';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canManagePeople, managedSeat } from '../projects/projects.policy';
+import { canManagePeople, managedSeat } from '../../../src/shared/policies/projects';
 import * as repo from './members.repository';
 
 /**

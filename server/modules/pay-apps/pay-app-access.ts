@@ -2,7 +2,7 @@ import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { notFound } from '../../lib/app-error';
 import { isUuid } from '../projects/project-access';
-import { accessRoles, canReadProject } from '../projects/projects.policy';
+import { accessRoles, canReadProject } from '../../../src/shared/policies/projects';
 import { canSeePayApp } from './pay-apps.policy';
 import * as repo from './pay-apps.repository';
 

@@ -8,6 +8,7 @@ import type { Actor } from '../../lib/actor';
 import type { ConfirmRecentAuth } from '../../middleware/require-recent-auth';
 import { AppError, validationFailed } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
+import { queueWaiverRequest } from '../lien-waivers/waiver-requests';
 import { enqueueEmail } from '../notifications/outbox';
 import type { ProjectRow } from '../projects/projects.repository';
 import { loadPayAppAccess } from './pay-app-access';
@@ -156,6 +157,8 @@ export async function certifyPayApp(
         project.paymentTermsDays,
       ),
     );
+    // Certified, the conditional waiver for the balance is due (the waiver policy's timing).
+    await queueWaiverRequest(tx, ctx, project, row, 'conditional');
   });
 }
 

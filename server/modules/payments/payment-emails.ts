@@ -4,9 +4,6 @@ import { enqueueEmail } from '../notifications/outbox';
 import type { PayAppRow, PaymentRow } from './payments.repository';
 import { memberEmails } from './payments.repository';
 import { chargedCents } from './payments.policy';
-import { waiverOptions } from '../lien-waivers/lien-waivers.policy';
-import { listWaivers, paymentsOf } from '../lien-waivers/lien-waivers.repository';
-import { waiverRequestedMail } from '../lien-waivers/waiver-emails';
 
 const METHOD = { card: 'card', us_bank_account: 'ACH bank debit' } as const;
 const FOOTER =
@@ -75,25 +72,4 @@ export async function queueFailureNotice(
     text: lines.join('\n\n'),
     html: html(lines),
   });
-}
-
-/**
- * A settled payment makes an unconditional waiver due (waiver policy): the subcontractor is asked for it, once
- * per payment (the caller runs only when the payment first moves to succeeded).
- */
-export async function queueWaiverRequest(
-  tx: Executor,
-  ctx: { appUrl: string },
-  project: { id: string; name: string },
-  app: PayAppRow,
-) {
-  const due = waiverOptions(app, await paymentsOf(tx, app.id), await listWaivers(tx, { payAppId: app.id })).find(
-    (o) => o.allowed && o.kind.startsWith('unconditional'),
-  );
-  if (!due) return;
-  const to = await memberEmails(tx, project.id, ['subcontractor']);
-  await enqueueEmail(
-    tx,
-    waiverRequestedMail({ appUrl: ctx.appUrl, project, payAppNumber: app.number }, to, due.kind, due.amountCents),
-  );
 }

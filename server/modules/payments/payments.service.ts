@@ -9,7 +9,7 @@ import { recordAudit } from '../audit/audit.repository';
 import { isFrozen } from '../../../src/shared/domain/pay-app-status';
 import { sumCents } from '../../../src/shared/domain/money';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canReadProject } from '../projects/projects.policy';
+import { canReadProject } from '../../../src/shared/policies/projects';
 import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import { balanceCents, canPay, chargeAmount, chargedCents, PAYABLE_STATUSES } from './payments.policy';
 import { feeQuote } from '../../../src/shared/domain/payment-fees';

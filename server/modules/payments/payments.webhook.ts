@@ -6,7 +6,8 @@ import type { Executor } from '../../db/client';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid } from '../projects/project-access';
 import { findProject } from '../projects/projects.repository';
-import { queueFailureNotice, queueReceipt, queueWaiverRequest } from './payment-emails';
+import { queueWaiverRequest } from '../lien-waivers/waiver-requests';
+import { queueFailureNotice, queueReceipt } from './payment-emails';
 import { readPaymentSignal, type PaymentSignal } from './payment-events';
 import { canMovePayment, chargedCents } from './payments.policy';
 import * as repo from './payments.repository';
@@ -105,7 +106,7 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
     const project = (await findProject(tx, payment.projectId))!;
     if (app && signal.to === 'succeeded') {
       await queueReceipt(tx, ctx, project, app.after, updated);
-      await queueWaiverRequest(tx, ctx, project, app.after);
+      await queueWaiverRequest(tx, ctx, project, app.after, 'unconditional');
     }
     if (app && signal.to === 'failed') await queueFailureNotice(tx, ctx, project, app.after, updated);
     return {

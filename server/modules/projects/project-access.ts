@@ -2,7 +2,7 @@ import type { AccessRole } from '../../../src/shared/constants';
 import type { Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { forbidden, notFound } from '../../lib/app-error';
-import { accessRoles, canReadProject } from './projects.policy';
+import { accessRoles, canReadProject } from '../../../src/shared/policies/projects';
 import { findProject, memberRoles, type ProjectRow } from './projects.repository';
 
 export type ProjectAccess = { project: ProjectRow; roles: AccessRole[] };

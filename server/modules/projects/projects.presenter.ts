@@ -1,3 +1,4 @@
+import { projectCan } from '../../../src/shared/policies/projects';
 import type { AccessRole } from '../../../src/shared/constants';
 import type {
   CompanyView,
@@ -28,6 +29,7 @@ export function presentProjectSummary(
     contractNumber: row.contractNumber,
     units: row.units,
     myRoles,
+    can: projectCan(myRoles),
     ...totals,
   };
 }

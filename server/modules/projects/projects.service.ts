@@ -16,7 +16,7 @@ import { contractLockedSince } from '../bid-items/bid-items.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import { eq } from 'drizzle-orm';
 import { loadProjectAccess } from './project-access';
-import { accessRoles, canCreateProject, canManageContract } from './projects.policy';
+import { accessRoles, canCreateProject, canManageContract } from '../../../src/shared/policies/projects';
 import {
   presentCompany,
   presentProject,

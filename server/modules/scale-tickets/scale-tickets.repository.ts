@@ -1,6 +1,8 @@
 import { and, asc, eq } from 'drizzle-orm';
+import type { PageQuery } from '../../../src/shared/schemas/paging';
 import type { Executor } from '../../db/client';
 import { materialSources, scaleTickets } from '../../db/schema';
+import { keyset } from '../../lib/paging';
 
 export type MaterialSourceRow = typeof materialSources.$inferSelect;
 export type ScaleTicketRow = typeof scaleTickets.$inferSelect;
@@ -30,12 +32,15 @@ export async function insertSource(
   return row!;
 }
 
-export async function listScaleTickets(db: Executor, projectId: string): Promise<ScaleTicketRow[]> {
+/** One page of a project's scale tickets, newest first by (created_at, id) (server/lib/paging.ts). */
+export async function pageScaleTickets(db: Executor, projectId: string, q: PageQuery) {
+  const page = keyset(scaleTickets.createdAt, scaleTickets.id, q);
   return db
-    .select()
+    .select({ ticket: scaleTickets, pageKey: page.key })
     .from(scaleTickets)
-    .where(eq(scaleTickets.projectId, projectId))
-    .orderBy(asc(scaleTickets.weighedOn), asc(scaleTickets.ticketNumber));
+    .where(and(eq(scaleTickets.projectId, projectId), page.after))
+    .orderBy(...page.order)
+    .limit(page.fetch);
 }
 
 export async function ticketNumberTaken(db: Executor, projectId: string, ticketNumber: string): Promise<boolean> {

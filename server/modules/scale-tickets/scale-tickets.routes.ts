@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { createMaterialSourceSchema, createScaleTicketSchema } from '../../../src/shared/schemas/provisions/tickets';
+import { pageQuerySchema } from '../../../src/shared/schemas/paging';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
 import * as service from './scale-tickets.service';
@@ -14,7 +15,8 @@ export function scaleTicketsRouter({ db }: AppContext): Router {
     res.status(201).json({ source: await service.addSource(db, getActor(res), req.params.projectId, input) });
   });
   router.get('/projects/:projectId/scale-tickets', async (req, res) => {
-    res.json({ tickets: await service.listScaleTickets(db, getActor(res), req.params.projectId) });
+    const query = pageQuerySchema.parse(req.query);
+    res.json(await service.listScaleTickets(db, getActor(res), req.params.projectId, query));
   });
   router.post('/projects/:projectId/scale-tickets', async (req, res) => {
     const input = createScaleTicketSchema.parse(req.body);

@@ -1,8 +1,10 @@
 import { conversionFactor, netWeight } from '../../../src/shared/domain/provisions/weight';
 import type { CreateMaterialSourceInput, CreateScaleTicketInput } from '../../../src/shared/schemas/provisions/tickets';
+import type { PageQuery } from '../../../src/shared/schemas/paging';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { conflict, validationFailed } from '../../lib/app-error';
+import { pageOf } from '../../lib/paging';
 import { loadProjectAccess } from '../projects/project-access';
 import { canKeepFieldRecords } from '../field-records/field-records.policy';
 import { asAppError, isUniqueViolation, itemMeasuredBy, recordChange } from '../field-records/record-change';
@@ -46,11 +48,20 @@ export async function addSource(db: Db, actor: Actor, projectId: string, input: 
   }
 }
 
-export async function listScaleTickets(db: Db, actor: Actor, projectId: string) {
+/** One page of scale tickets (newest first), each with its source's conversion. */
+export async function listScaleTickets(db: Db, actor: Actor, projectId: string, query: PageQuery) {
   await loadProjectAccess(db, actor, projectId);
-  const [rows, sources] = await Promise.all([repo.listScaleTickets(db, projectId), repo.listSources(db, projectId)]);
+  const [rows, sources] = await Promise.all([
+    repo.pageScaleTickets(db, projectId, query),
+    repo.listSources(db, projectId),
+  ]);
   const byId = new Map(sources.map((s) => [s.id, s]));
-  return rows.map((r) => presentScaleTicket(r, byId.get(r.sourceId)));
+  return pageOf(
+    rows,
+    query.limit,
+    (r) => ({ at: r.pageKey, id: r.ticket.id }),
+    (r) => presentScaleTicket(r.ticket, byId.get(r.ticket.sourceId)),
+  );
 }
 
 /** A weighed load; a ticket number already on the project is refused (409), never saved twice. */

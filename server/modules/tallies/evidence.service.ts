@@ -6,7 +6,7 @@ import { AppError, notFound } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { sizeOf, storeCheckedFiles, type CheckedFile } from './evidence-files';
 import { assertProjectQuota, DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
-import { canAddEvidence, canWriteTallies } from './tallies.policy';
+import { canAddEvidence, canWriteTallies } from '../../../src/shared/policies/tallies';
 import { presentEvidence } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { audit } from './tallies.service';

@@ -1,3 +1,4 @@
+import type { TallyCan } from '../../../src/shared/policies/tallies';
 import type {
   EvidenceKind,
   EvidenceView,
@@ -8,7 +9,7 @@ import type {
 } from '../../../src/shared/schemas/tally';
 import type { EvidenceRow, RevisionRow, TallyJoined, TallySummaryRow } from './tallies.repository';
 
-export function presentTally(row: TallyJoined, evidenceCount: number): TallyView {
+export function presentTally(row: TallyJoined, evidenceCount: number, can: TallyCan): TallyView {
   const { tally } = row;
   return {
     id: tally.id,
@@ -28,6 +29,7 @@ export function presentTally(row: TallyJoined, evidenceCount: number): TallyView
     evidenceCount,
     createdAt: tally.createdAt.toISOString(),
     updatedAt: tally.updatedAt.toISOString(),
+    can,
   };
 }
 

@@ -17,7 +17,7 @@ import { findBidItem } from '../bid-items/bid-items.repository';
 import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
-import { canWriteTallies, isEditableTally } from './tallies.policy';
+import { canWriteTallies, isEditableTally, tallyCan } from '../../../src/shared/policies/tallies';
 import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
@@ -52,10 +52,12 @@ export async function listTallies(
 }
 
 export async function getTally(db: Db, actor: Actor, tallyId: string) {
-  const { row } = await loadTallyAccess(db, actor, tallyId);
+  const { row, roles } = await loadTallyAccess(db, actor, tallyId);
   const evidence = (await listEvidence(db, tallyId)).map((e) => presentEvidence(e.evidence, e.uploadedBy));
   const revisions = (await repo.listRevisions(db, tallyId)).map((r) => presentRevision(r.revision, r.replacedBy));
-  return { tally: presentTally(row, evidence.length), evidence, revisions };
+  const payAppStatus = await repo.payAppStatusOf(db, row.tally.payAppId);
+  const can = tallyCan(roles, { status: row.tally.status, payAppStatus });
+  return { tally: presentTally(row, evidence.length, can), evidence, revisions };
 }
 
 async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: string) {
@@ -211,12 +213,21 @@ export async function markReady(db: Db, actor: Actor, tallyId: string) {
 }
 
 export async function deleteTally(db: Db, actor: Actor, tallyId: string, removeFile: (key: string) => Promise<void>) {
-  const { row } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
+  const { row, roles } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (row.tally.status !== 'draft') throw tallyNotDraft(row.tally.status);
   const files = await listEvidence(db, tallyId);
+  const can = tallyCan(roles, { status: row.tally.status, payAppStatus: null });
   await db.transaction(async (tx) => {
     if (!(await repo.deleteTallyIfDraft(tx, tallyId))) throw tallyNotDraft('no longer a draft');
-    await audit(tx, actor, row.tally.projectId, tallyId, 'tally.deleted', presentTally(row, files.length), undefined);
+    await audit(
+      tx,
+      actor,
+      row.tally.projectId,
+      tallyId,
+      'tally.deleted',
+      presentTally(row, files.length, can),
+      undefined,
+    );
   });
   await Promise.all(files.map((f) => removeFile(f.evidence.storageKey).catch(() => undefined)));
 }

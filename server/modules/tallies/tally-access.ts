@@ -3,7 +3,7 @@ import type { Executor } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canReadProject } from '../projects/projects.policy';
+import { canReadProject } from '../../../src/shared/policies/projects';
 import { canSeePayApp } from '../pay-apps/pay-apps.policy';
 import type { PayAppStatus } from '../../../src/shared/constants';
 import * as repo from './tallies.repository';

@@ -7,7 +7,7 @@ import { AppError, conflict, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
 import { canProposeChangeOrder } from '../change-orders/change-orders.policy';
-import { proposeChangeOrder } from '../change-orders/change-orders.service';
+import { proposeChangeOrder, type ChangeOrderContext } from '../change-orders/change-orders.service';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import * as repo from './variance.repository';
 import { watchRows } from './variance.service';
@@ -60,7 +60,12 @@ export async function setForecast(
  * One click from the watch: a proposed change order for the quantity beyond the band (plus when over, minus
  * when under). 409 when the item is within its band or a quantity change order for it is still open.
  */
-export async function draftVarianceChangeOrder(db: Db, actor: Actor, bidItemId: string): Promise<ChangeOrderView> {
+export async function draftVarianceChangeOrder(
+  ctx: ChangeOrderContext,
+  actor: Actor,
+  bidItemId: string,
+): Promise<ChangeOrderView> {
+  const { db } = ctx;
   const { item, project } = await loadItem(db, actor, bidItemId);
   const row = (await watchRows(db, project)).rows.find((r) => r.bidItemId === bidItemId)!;
   if (row.status !== 'over' && row.status !== 'under') {
@@ -75,7 +80,7 @@ export async function draftVarianceChangeOrder(db: Db, actor: Actor, bidItemId: 
   const delta = row.status === 'over' ? row.quantityBeyondBand : -row.quantityBeyondBand;
   const edge = row.status === 'over' ? `above ${row.band!.upper}` : `below ${row.band!.lower}`;
   return proposeChangeOrder(
-    db,
+    ctx,
     actor,
     project.id,
     {

@@ -5,7 +5,8 @@ import { getActor } from '../../lib/actor';
 import { draftVarianceChangeOrder, setForecast } from './forecasts.service';
 import { projectVariance } from './variance.service';
 
-export function varianceRouter({ db }: AppContext): Router {
+export function varianceRouter(ctx: AppContext): Router {
+  const { db, outbox } = ctx;
   const router = Router();
   router.get('/projects/:projectId/variance', async (req, res) => {
     res.json(await projectVariance(db, getActor(res), req.params.projectId));
@@ -15,7 +16,9 @@ export function varianceRouter({ db }: AppContext): Router {
     res.json({ row: await setForecast(db, getActor(res), req.params.bidItemId, input) });
   });
   router.post('/bid-items/:bidItemId/variance-change-order', async (req, res) => {
-    res.status(201).json({ changeOrder: await draftVarianceChangeOrder(db, getActor(res), req.params.bidItemId) });
+    const changeOrder = await draftVarianceChangeOrder(ctx, getActor(res), req.params.bidItemId);
+    res.on('finish', () => void outbox.flush()); // the proposal's e-mail to those who decide it
+    res.status(201).json({ changeOrder });
   });
   return router;
 }

@@ -1,7 +1,7 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { bidItemsQueryOptions } from '@/features/bid-items/api/get-bid-items';
 import { BidSchedule } from '@/features/bid-items/components/bid-schedule';
-import { canEditBidSchedule, useProject } from '@/features/projects/api/get-project';
+import { useProject } from '@/features/projects/api/get-project';
 import { prefetchWhenSignedIn } from '../prefetch';
 
 export function loader({ params }: LoaderFunctionArgs) {
@@ -18,7 +18,7 @@ export function Component() {
       <BidSchedule
         projectId={projectId}
         units={project.units}
-        canEdit={canEditBidSchedule(project)}
+        canEdit={project.can.manageContract}
         canPropose={project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor')}
       />
     </>

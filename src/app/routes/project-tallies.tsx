@@ -18,7 +18,7 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Tallies · Tallyard`}</title>
-      <TalliesScreen projectId={projectId} bidItems={bidItems} canWrite={project.myRoles.includes('subcontractor')} />
+      <TalliesScreen projectId={projectId} bidItems={bidItems} canWrite={project.can.createTally} />
     </>
   );
 }

@@ -1,5 +1,4 @@
 import { useParams, type LoaderFunctionArgs } from 'react-router';
-import { usePayApps } from '@/features/pay-apps/api/get-pay-apps';
 import { useProject } from '@/features/projects/api/get-project';
 import { tallyQueryOptions } from '@/features/tallies/api/get-tallies';
 import { TallyDetail } from '@/features/tallies/components/tally-detail';
@@ -13,15 +12,10 @@ export function loader({ params }: LoaderFunctionArgs) {
 export function Component() {
   const { projectId = '', tallyId = '' } = useParams();
   const project = useProject(projectId);
-  const payApps = usePayApps(projectId).data ?? [];
   return (
     <>
       <title>{`${project.name} · Tally · Tallyard`}</title>
-      <TallyDetail
-        tallyId={tallyId}
-        canWrite={project.myRoles.includes('subcontractor')}
-        payAppStatusOf={(id) => payApps.find((a) => a.id === id)?.status}
-      />
+      <TallyDetail tallyId={tallyId} />
     </>
   );
 }

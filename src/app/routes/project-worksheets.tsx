@@ -7,7 +7,7 @@ import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-sc
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
-  const canSave = project.myRoles.includes('subcontractor');
+  const canSave = project.can.createTally;
   const bidItems = useBidItems(projectId);
   return (
     <>

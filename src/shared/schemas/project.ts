@@ -1,3 +1,4 @@
+import type { ProjectCan } from '../policies/projects';
 import { z } from 'zod';
 import { ACCESS_ROLES, COMPANY_KINDS, FEE_BEARERS, PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../constants';
 
@@ -89,6 +90,8 @@ export type ProjectSummaryView = {
   contractNumber: string;
   units: (typeof UNIT_SYSTEMS)[number];
   myRoles: (typeof ACCESS_ROLES)[number][];
+  /** What the person may start on the project (src/shared/policies/projects.ts); screens read this, not myRoles. */
+  can: ProjectCan;
   /** The bid schedule as set up, before any change order. */
   originalContractSumCents: number;
   /** Net of the approved change orders (current - original). */

@@ -1,3 +1,4 @@
+import type { TallyCan } from '../policies/tallies';
 import { z } from 'zod';
 import { pageQuerySchema } from './paging';
 import {
@@ -169,4 +170,6 @@ export type TallyView = {
   evidenceCount: number;
   createdAt: string;
   updatedAt: string;
+  /** What the reader may do with it now (src/shared/policies/tallies.ts); screens read this, never the roles. */
+  can: TallyCan;
 };

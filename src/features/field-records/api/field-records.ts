@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { fetchAllPages } from '@/lib/paging';
 import type { MeasurementProfileView, SetMeasurementProfileInput } from '@/shared/schemas/provisions/profile';
 import type { CreateTruckInput } from '@/shared/schemas/provisions/tickets';
 import type {
@@ -19,6 +20,9 @@ export const fieldRecordKeys = {
 };
 
 const enc = encodeURIComponent;
+/** A paged list (newest entry first) in the order the screens read: by a date, then in the order entered. */
+const byDate = <T>(items: T[], dateOf: (t: T) => string): T[] =>
+  items.reverse().sort((a, b) => dateOf(a).localeCompare(dateOf(b)));
 const list = <T>(projectId: string, path: string, pick: (body: never) => T) =>
   queryOptions({
     queryKey: fieldRecordKeys.of(projectId, path),
@@ -28,12 +32,27 @@ const list = <T>(projectId: string, path: string, pick: (body: never) => T) =>
 export const profilesQuery = (projectId: string) =>
   list(projectId, 'measurement-profiles', (b: { profiles: MeasurementProfileView[] }) => b.profiles);
 export const trucksQuery = (projectId: string) => list(projectId, 'trucks', (b: { trucks: TruckView[] }) => b.trucks);
+/** Every ticket (the list is paged; the screen shows all of them, by delivery date) and the totals over all. */
 export const truckTicketsQuery = (projectId: string) =>
-  list(projectId, 'truck-tickets', (b: { tickets: TruckTicketView[]; totals: TicketTotalsView }) => b);
+  queryOptions({
+    queryKey: fieldRecordKeys.of(projectId, 'truck-tickets'),
+    queryFn: async () => {
+      const base = `/api/projects/${enc(projectId)}/truck-tickets`;
+      const [tickets, { totals }] = await Promise.all([
+        fetchAllPages<TruckTicketView>(base),
+        api.get<{ totals: TicketTotalsView }>(`${base}/totals`),
+      ]);
+      return { tickets: byDate(tickets, (t) => t.deliveredOn), totals };
+    },
+  });
 export const sourcesQuery = (projectId: string) =>
   list(projectId, 'material-sources', (b: { sources: MaterialSourceView[] }) => b.sources);
 export const scaleTicketsQuery = (projectId: string) =>
-  list(projectId, 'scale-tickets', (b: { tickets: ScaleTicketView[] }) => b.tickets);
+  queryOptions({
+    queryKey: fieldRecordKeys.of(projectId, 'scale-tickets'),
+    queryFn: async () =>
+      byDate(await fetchAllPages<ScaleTicketView>(`/api/projects/${enc(projectId)}/scale-tickets`), (t) => t.weighedOn),
+  });
 export const dailySheetsQuery = (projectId: string) =>
   list(projectId, 'daily-sheets', (b: { sheets: DailySheetView[] }) => b.sheets);
 export const storedMaterialsQuery = (projectId: string) =>

@@ -17,11 +17,6 @@ export function useProject(projectId: string) {
   return useSuspenseQuery(projectQueryOptions(projectId)).data;
 }
 
-/** The general contractor's side (its seat and its admin) edits the bid schedule; everyone else reads it. */
-export function canEditBidSchedule(project: Pick<ProjectView, 'myRoles'>): boolean {
-  return project.myRoles.includes('general_contractor') || project.myRoles.includes('general_contractor_admin');
-}
-
 /** The seat whose people the signed-in admin invites and removes here (its own company's), or null. */
 export function managedSeat(project: Pick<ProjectView, 'myRoles'>): ProjectRole | null {
   const admin = project.myRoles.find((r) => r.endsWith('_admin'));

@@ -21,15 +21,7 @@ import { worksheetOf } from './tally-labels';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
-export function TallyDetail({
-  tallyId,
-  canWrite,
-  payAppStatusOf,
-}: {
-  tallyId: string;
-  canWrite: boolean;
-  payAppStatusOf?: (payAppId: string) => string | undefined;
-}) {
+export function TallyDetail({ tallyId }: { tallyId: string }) {
   const query = useTally(tallyId);
   const ready = useMarkReady();
   const remove = useDeleteTally();
@@ -39,8 +31,8 @@ export function TallyDetail({
   if (query.isPending) return <LoadingState label="Loading the tally…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
   const { tally, evidence, revisions } = query.data;
-  const draft = tally.status === 'draft';
-  const backWithSub = tally.payAppId ? ['returned', 'draft'].includes(payAppStatusOf?.(tally.payAppId) ?? '') : false;
+  // What the reader may do comes from the server's policy (tally.can), never from roles or statuses here.
+  const { can } = tally;
   const unit = tally.bidItem.payUnit;
   const worksheet = tally.method === 'manual' ? null : worksheetOf({ method: tally.method, payUnit: unit });
   const worksheetUrl = `/projects/${encodeURIComponent(tally.projectId)}/worksheets?tally=${encodeURIComponent(tally.id)}`;
@@ -63,11 +55,13 @@ export function TallyDetail({
         </div>
         <div className="flex items-center gap-2">
           <TallyStatusBadge status={tally.status} />
-          {canWrite && draft ? (
+          {can.delete ? (
+            <Button variant="secondary" onClick={() => setConfirm('delete')}>
+              <Trash2 aria-hidden /> Delete
+            </Button>
+          ) : null}
+          {can.edit ? (
             <>
-              <Button variant="secondary" onClick={() => setConfirm('delete')}>
-                <Trash2 aria-hidden /> Delete
-              </Button>
               {worksheet ? (
                 <Link className={cn(buttonVariants({ variant: 'secondary' }))} to={worksheetUrl}>
                   <Pencil aria-hidden /> Edit in its worksheet
@@ -77,9 +71,11 @@ export function TallyDetail({
                   <Pencil aria-hidden /> Edit
                 </Button>
               )}
-              <Button onClick={() => setConfirm('ready')}>
-                <CheckCircle2 aria-hidden /> Mark ready to bill
-              </Button>
+              {can.markReady ? (
+                <Button onClick={() => setConfirm('ready')}>
+                  <CheckCircle2 aria-hidden /> Mark ready to bill
+                </Button>
+              ) : null}
             </>
           ) : worksheet ? (
             <Link className={cn(buttonVariants({ variant: 'secondary' }))} to={worksheetUrl}>
@@ -128,8 +124,8 @@ export function TallyDetail({
       <EvidencePanel
         tallyId={tally.id}
         evidence={evidence}
-        canUpload={canWrite && (draft || backWithSub)}
-        canRemove={canWrite && draft}
+        canUpload={can.addEvidence}
+        canRemove={can.removeEvidence}
       />
       <EvidencePreviews evidence={evidence} />
       <RevisionHistory revisions={revisions} unit={unit} />

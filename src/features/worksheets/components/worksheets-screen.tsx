@@ -8,7 +8,7 @@ import { Dialog } from '@/components/ui/dialog';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { cn } from '@/lib/cn';
 import { formatQuantity } from '@/lib/format';
-import { MEASUREMENT_METHOD_LABELS, METHOD_BILLING, type UnitSystem } from '@/shared/constants';
+import { MEASUREMENT_METHOD_LABELS, METHOD_BILLING, type TallyStatus, type UnitSystem } from '@/shared/constants';
 import type { BidItemView } from '@/shared/schemas/bid-item';
 import type { TallyView } from '@/shared/schemas/tally';
 import { useTally } from '../api/get-tally';
@@ -21,6 +21,13 @@ import { WorksheetFilesContext } from '../lib/worksheet-files';
 import { BillingBar, type BillChoice } from './billing-bar';
 import { SaveTallyForm } from './save-tally-form';
 import { WORKSHEET_BLURBS, WORKSHEET_SCREENS } from './worksheet-screens';
+
+/** Why a tally opened here is read-only, by its status (the reader's permissions come from `tally.can`). */
+const TALLY_STATE_PHRASES: Record<TallyStatus, string> = {
+  draft: 'a draft someone else keeps',
+  ready: 'marked ready to bill',
+  billed: 'on a pay application',
+};
 
 type WorksheetsScreenProps = {
   projectId: string;
@@ -66,7 +73,7 @@ function Worksheets({
   const asked = params.get('method');
   const method: WorksheetMethod = tally && isMethod(tally.method) ? tally.method : isMethod(asked) ? asked : 'end-area';
   const saved = useMemo(() => splitTallyInputs(tally?.inputs ?? null), [tally]);
-  const editable = tally === null || tally.status === 'draft';
+  const editable = tally === null || tally.can.edit;
   const matching = bidItems.filter((b) => b.method === method);
   const [choice, setChoice] = useState<BillChoice>(() => ({
     bidItemId: tally?.bidItem.id ?? params.get('item') ?? (matching.length === 1 ? matching[0]!.id : ''),
@@ -119,7 +126,7 @@ function Worksheets({
       ...(sanityReason ? { sanityReason } : {}),
     };
     const { tally: result, evidence } = await save.mutateAsync({
-      tallyId: tally?.status === 'draft' ? tally.id : null,
+      tallyId: tally?.can.edit ? tally.id : null,
       body,
       files: [...files.values()],
     });
@@ -166,7 +173,7 @@ function Worksheets({
                 </Link>
                 {editable
                   ? '; saving keeps the earlier inputs as a revision.'
-                  : ` is ${tally.status === 'billed' ? 'on a pay application' : 'marked ready to bill'}; changes here are not saved.`}
+                  : ` is ${TALLY_STATE_PHRASES[tally.status]}; changes here are not saved.`}
               </p>
             ) : null}
           </div>

@@ -87,12 +87,29 @@ export function spacingCheck(
     flaggedCount++;
     if (flagged.length >= SPACING_CHECK.maxListed) continue;
     const gap = frustumGap(a.cutArea, b.cutArea, length) + frustumGap(a.fillArea, b.fillArea, length);
-    flagged.push({ from: a.station, to: b.station, length, cutChange, fillChange, estimatedOverstatement: cubicToVolume(gap, unit) });
+    flagged.push({
+      from: a.station,
+      to: b.station,
+      length,
+      cutChange,
+      fillChange,
+      estimatedOverstatement: cubicToVolume(gap, unit),
+    });
   }
-  return { maxSpacing, maxAreaChange: SPACING_CHECK.maxAreaChange, flaggedCount, flagged, dropEveryOther: dropEveryOther(stations, unit, rule) };
+  return {
+    maxSpacing,
+    maxAreaChange: SPACING_CHECK.maxAreaChange,
+    flaggedCount,
+    flagged,
+    dropEveryOther: dropEveryOther(stations, unit, rule),
+  };
 }
 
-function dropEveryOther(stations: readonly StationInput[], unit: LengthUnit, rule: ZeroAreaEndRule): SpacingReport['dropEveryOther'] {
+function dropEveryOther(
+  stations: readonly StationInput[],
+  unit: LengthUnit,
+  rule: ZeroAreaEndRule,
+): SpacingReport['dropEveryOther'] {
   const n = stations.length;
   if (n < 3) return null;
   const full = averageEndAreaTotals(stations, 1, rule);
@@ -117,9 +134,12 @@ function dropEveryOther(stations: readonly StationInput[], unit: LengthUnit, rul
 
 export function spacingTrail(report: SpacingReport, unit: LengthUnit): string[] {
   const lines = [
-    `Spacing check (common practice, from memory): segments over ${fmt(report.maxSpacing, 0)} ${unit} whose cut or fill area changes by more than ${fmt(report.maxAreaChange * 100, 0)} %: ${fmt(report.flaggedCount, 0)} flagged`,
-    ...listSome(report.flagged, 5, (f) =>
-      `  ${formatStation(f.from, unit)} to ${formatStation(f.to, unit)} (${fmt(f.length)} ${unit}): end areas may overstate it by about ${fmtVolume(f.estimatedOverstatement, unit)}`,
+    `Spacing check (common practice): segments over ${fmt(report.maxSpacing, 0)} ${unit} whose cut or fill area changes by more than ${fmt(report.maxAreaChange * 100, 0)} %: ${fmt(report.flaggedCount, 0)} flagged`,
+    ...listSome(
+      report.flagged,
+      5,
+      (f) =>
+        `  ${formatStation(f.from, unit)} to ${formatStation(f.to, unit)} (${fmt(f.length)} ${unit}): end areas may overstate it by about ${fmtVolume(f.estimatedOverstatement, unit)}`,
     ),
   ];
   const d = report.dropEveryOther;

@@ -152,7 +152,7 @@ function present(
     `Net V = (cell area / 4) x weighted sum = ${cubicStep((cellArea / 4) * weighted, unit)} (surveying texts, borrow-pit method)`,
     split === 'exact-bilinear'
       ? `${fmt(t.mixedCells, 0)} cells have corners in both cut and fill: split exactly under the bilinear surface through their four corners (integrated in closed form); net unchanged`
-      : `${fmt(t.mixedCells, 0)} cells have corners in both cut and fill: split by the transition-square formula V_cut = (A/4)(sum cut)^2 / (sum cut + sum fill) (surveying texts, from memory); net unchanged`,
+      : `${fmt(t.mixedCells, 0)} cells have corners in both cut and fill: split by the transition-square formula V_cut = (A/4)(sum cut)^2 / (sum cut + sum fill) (surveying texts, transition-square method); net unchanged`, // formula from memory of the texts
     `Cut = ${fmtVolume(cut, unit)}; fill = ${fmtVolume(fill, unit)}; net = ${fmtVolume(cut - fill, unit)}`,
   ];
   if (t.weightCounts[0] > 0)

@@ -95,7 +95,7 @@ export function spoilPlan(input: SpoilInput): SpoilResult {
   const height = (width / 2) * tan;
   trail.push(
     `Spoil bank ${fmtLength(length, unit)} long: loose area per unit length A = V / L = ${fmtArea(area, unit)}`,
-    `Triangular section at ${fmt(angleOfReposeDeg, 1)} deg: B = sqrt(4 A / tan a) = ${fmtLength(width, unit, 3)}; H = (B/2) tan a = ${fmtLength(height, unit, 3)} (derivation; textbook form from memory)`,
+    `Triangular section at ${fmt(angleOfReposeDeg, 1)} deg: B = sqrt(4 A / tan a) = ${fmtLength(width, unit, 3)}; H = (B/2) tan a = ${fmtLength(height, unit, 3)} (derived from the section's area and the angle of repose)`, // textbook form, from memory
     `Footprint B x L = ${fmtArea(width * length, unit)}; ridge ${fmtLength(setback + width / 2, unit, 2)} from the edge (setback + B/2)`,
   );
   return {

@@ -49,11 +49,18 @@ export interface TrenchResult {
 function slopeFor(input: TrenchInput): number {
   if (input.protection === 'box') return 0;
   const soil = input.soilClass;
-  if (!soil) throw new DomainError('SOIL_CLASS_REQUIRED', `A soil class is needed to ${input.protection === 'slope' ? 'slope' : 'bench'} a trench`, ['soilClass']);
+  if (!soil)
+    throw new DomainError(
+      'SOIL_CLASS_REQUIRED',
+      `A soil class is needed to ${input.protection === 'slope' ? 'slope' : 'bench'} a trench`,
+      ['soilClass'],
+    );
   if (input.protection === 'bench' && (soil === 'C' || soil === 'A-short-term')) {
     throw new DomainError(
       'BENCHING_NOT_ALLOWED',
-      soil === 'C' ? 'Type C soil may not be benched (29 CFR 1926 Subpart P App. B)' : 'The short-term 1/2:1 exception is for simple slopes; bench Type A at 3/4:1',
+      soil === 'C'
+        ? 'Type C soil may not be benched (29 CFR 1926 Subpart P App. B)'
+        : 'The short-term 1/2:1 exception is for simple slopes; bench Type A at 3/4:1',
       ['soilClass'],
     );
   }
@@ -65,7 +72,11 @@ function runResult(run: TrenchRunInput, i: number, input: TrenchInput, slope: nu
   assertNonNegative(run.length, ['runs', i, 'length'], true);
   assertNonNegative(run.depth, ['runs', i, 'depth'], true);
   assertNonNegative(run.bottomWidth, ['runs', i, 'bottomWidth'], true);
-  if (input.protection === 'slope' && input.soilClass === 'A-short-term' && run.depth > limit('shortTermMaxDepth', unit)) {
+  if (
+    input.protection === 'slope' &&
+    input.soilClass === 'A-short-term' &&
+    run.depth > limit('shortTermMaxDepth', unit)
+  ) {
     throw new DomainError(
       'SHORT_TERM_DEPTH_EXCEEDED',
       `The short-term 1/2:1 slope applies only to Type A excavations ${fmtLength(limit('shortTermMaxDepth', unit), unit)} deep or less (Table B-1)`,
@@ -83,7 +94,14 @@ function runResult(run: TrenchRunInput, i: number, input: TrenchInput, slope: nu
     const rise = depth / benches;
     area -= benches * slope * rise * rise;
   }
-  const result: TrenchRunResult = { length, depth, bottomWidth, topWidth, area, volume: cubicToVolume(area * length, unit) };
+  const result: TrenchRunResult = {
+    length,
+    depth,
+    bottomWidth,
+    topWidth,
+    area,
+    volume: cubicToVolume(area * length, unit),
+  };
   if (benches !== undefined) result.benches = benches;
   return result;
 }
@@ -106,13 +124,30 @@ export function trenchVolume(input: TrenchInput): TrenchResult {
       : `${protection === 'slope' ? 'Sloped' : 'Benched'} in ${soil}: Table B-1 slope ${TABLE_B1[soil!].label} (H:V) (29 CFR 1926 Subpart P App. B)`,
     'Top width = bottom width + 2 x (H per V) x depth; area = (bottom + top) / 2 x depth',
   ];
-  if (protection === 'bench') trail.push(`Benches of equal rise, at most ${fmtLength(limit('benchMaxRise', unit), unit)} (App. B Figure B-1, from memory), back corners on the slope line`);
-  runs.slice(0, 20).forEach((r, i) =>
-    trail.push(`Run ${i + 1}: ${fmtLength(r.length, unit)} long, ${fmtLength(r.depth, unit)} deep, bottom ${fmtLength(r.bottomWidth, unit)}, top ${fmtLength(r.topWidth, unit)}; area ${fmt(r.area)}; V = ${cubicStep(r.area * r.length, unit)}`),
-  );
+  if (protection === 'bench')
+    trail.push(
+      `Benches of equal rise, at most ${fmtLength(limit('benchMaxRise', unit), unit)} (OSHA 29 CFR 1926 Subpart P App. B Figure B-1), back corners on the slope line`,
+    );
+  runs
+    .slice(0, 20)
+    .forEach((r, i) =>
+      trail.push(
+        `Run ${i + 1}: ${fmtLength(r.length, unit)} long, ${fmtLength(r.depth, unit)} deep, bottom ${fmtLength(r.bottomWidth, unit)}, top ${fmtLength(r.topWidth, unit)}; area ${fmt(r.area)}; V = ${cubicStep(r.area * r.length, unit)}`,
+      ),
+    );
   if (runs.length > 20) trail.push(`... and ${runs.length - 20} more runs`);
   trail.push(`Total = ${fmtVolume(volume, unit)}`);
-  return { unit, protection, soilClass: soil, slope, volume, volumeUnit: volumeUnitOf(unit), runs, cautions: trenchCautions(input, runs), trail };
+  return {
+    unit,
+    protection,
+    soilClass: soil,
+    slope,
+    volume,
+    volumeUnit: volumeUnitOf(unit),
+    runs,
+    cautions: trenchCautions(input, runs),
+    trail,
+  };
 }
 
 /**

@@ -3,9 +3,13 @@ import {
   ADMIN_ROLES,
   type AccessRole,
   type AdminRole,
+  type CompanyKind,
   type ProjectRole,
-} from '../../../src/shared/constants';
-import type { Actor } from '../../lib/actor';
+} from '../constants';
+import { canWriteTallies } from './tallies';
+
+/** The parts of the signed-in person these rules look at (the server's Actor has them). */
+type Person = { companyId: string | null; companyKind: CompanyKind | null; isAdmin: boolean };
 
 /** The parts of a project its access rules look at. */
 export type ProjectParties = {
@@ -36,7 +40,7 @@ export function seatOfCompany(project: ProjectParties, companyId: string | null)
  * company's admin role: it manages its own company's people, never another company's, and never the contract
  * unless it is the general contractor's.
  */
-export function accessRoles(actor: Actor, project: ProjectParties, memberRoles: ProjectRole[]): AccessRole[] {
+export function accessRoles(actor: Person, project: ProjectParties, memberRoles: ProjectRole[]): AccessRole[] {
   const seat = seatOfCompany(project, actor.companyId);
   const roles: AccessRole[] = [...new Set(memberRoles)].filter((r) => r === seat);
   if (seat && actor.isAdmin) roles.push(ADMIN_ROLE_OF[seat]);
@@ -61,4 +65,18 @@ export function managedSeat(roles: AccessRole[]): ProjectRole | null {
 }
 
 /** Projects are set up by a general contractor's people (or its admin). */
-export const canCreateProject = (actor: Actor) => actor.companyKind === 'general_contractor';
+export const canCreateProject = (actor: Pick<Person, 'companyKind'>) => actor.companyKind === 'general_contractor';
+
+/** What the person may start on the project; the project's presenter attaches it, screens read it. */
+export type ProjectCan = {
+  /** Contract settings and the bid schedule (the general contractor's side). */
+  manageContract: boolean;
+  createTally: boolean;
+};
+
+export function projectCan(roles: AccessRole[]): ProjectCan {
+  return {
+    manageContract: canManageContract(roles),
+    createTally: canWriteTallies(roles),
+  };
+}
