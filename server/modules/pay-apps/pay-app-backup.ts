@@ -1,13 +1,13 @@
-import { eq } from 'drizzle-orm';
+import { and, asc, between, eq } from 'drizzle-orm';
 import type { DailySheetView, ScaleTicketView, TruckTicketView } from '../../../src/shared/schemas/provisions/views';
 import type { Db } from '../../db/client';
-import { changeOrders } from '../../db/schema';
+import { changeOrders, scaleTickets } from '../../db/schema';
 import { presentSheet } from '../force-account/force-account.presenter';
 import { listSheets } from '../force-account/force-account.repository';
 import { presentTicket, registerOf } from '../haul-tickets/haul-tickets.presenter';
 import { listTickets, listTrucks } from '../haul-tickets/haul-tickets.repository';
 import { presentScaleTicket } from '../scale-tickets/scale-tickets.presenter';
-import { listScaleTickets, listSources } from '../scale-tickets/scale-tickets.repository';
+import { listSources } from '../scale-tickets/scale-tickets.repository';
 
 /** The field records behind a pay application, for the PDF's appendices: those dated within its period. */
 export type PayAppBackup = {
@@ -30,7 +30,11 @@ export async function payAppBackup(
   const [tickets, trucks, scale, sources, sheets, orders] = await Promise.all([
     listTickets(db, projectId, { from, to }),
     listTrucks(db, projectId),
-    listScaleTickets(db, projectId),
+    db
+      .select()
+      .from(scaleTickets)
+      .where(and(eq(scaleTickets.projectId, projectId), between(scaleTickets.weighedOn, from, to)))
+      .orderBy(asc(scaleTickets.weighedOn), asc(scaleTickets.ticketNumber)),
     listSources(db, projectId),
     listSheets(db, projectId),
     db
