@@ -14,7 +14,11 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Payments · Tallyard`}</title>
-      <PaymentsScreen projectId={projectId} canPay={project.myRoles.includes('owner')} />
+      <PaymentsScreen
+        projectId={projectId}
+        canPay={project.myRoles.includes('owner')}
+        canManageContract={project.can.manageContract}
+      />
     </>
   );
 }
