@@ -13,18 +13,30 @@ import { payAppDetail } from './pay-apps.service';
 export function exportRoutes(ctx: AppContext): Router {
   const router = Router();
   const load = async (actorRes: Parameters<typeof getActor>[0], payAppId: string) => {
-    const { project } = await loadPayAppAccess(ctx.db, getActor(actorRes), payAppId);
-    return { project, app: await payAppDetail(ctx.db, payAppId) };
+    const { project, roles } = await loadPayAppAccess(ctx.db, getActor(actorRes), payAppId);
+    return { project, app: await payAppDetail(ctx.db, payAppId, roles) };
   };
   router.get('/pay-apps/:payAppId/export.pdf', async (req, res) => {
     const { project, app } = await load(res, req.params.payAppId);
-    const names = new Map((await findCompanies(ctx.db, [project.subcontractorCompanyId, project.generalContractorCompanyId, project.ownerCompanyId])).map((c) => [c.id, c.name]));
+    const names = new Map(
+      (
+        await findCompanies(ctx.db, [
+          project.subcontractorCompanyId,
+          project.generalContractorCompanyId,
+          project.ownerCompanyId,
+        ])
+      ).map((c) => [c.id, c.name]),
+    );
     const pdf = await payAppPdf(app, {
       projectName: project.name,
       contractNumber: project.contractNumber,
       location: project.location,
       bandOverBps: project.bandOverBps,
-      parties: { subcontractor: names.get(project.subcontractorCompanyId) ?? '', generalContractor: names.get(project.generalContractorCompanyId) ?? '', owner: names.get(project.ownerCompanyId) ?? '' },
+      parties: {
+        subcontractor: names.get(project.subcontractorCompanyId) ?? '',
+        generalContractor: names.get(project.generalContractorCompanyId) ?? '',
+        owner: names.get(project.ownerCompanyId) ?? '',
+      },
     });
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', attachment(exportFileName(project.name, app.number, app.periodEnd, 'pdf')));

@@ -1,3 +1,4 @@
+import type { PayAppCan } from '../policies/pay-apps';
 import { z } from 'zod';
 import type { DisputeResolution, DisputeStatus, LineReviewStatus, PayAppStatus, PayUnit } from '../constants';
 import type { PayAppFlag } from '../domain/pay-app-flags';
@@ -172,4 +173,6 @@ export type PayAppDetail = PayAppSummary & {
   flags: PayAppFlag[];
   /** Earned to date over the contract sum, basis points. */
   percentCompleteBps: number;
+  /** What the reader may do now (src/shared/policies/pay-apps.ts); screens read this, never the roles. */
+  can: PayAppCan;
 };

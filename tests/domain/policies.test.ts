@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ACCESS_ROLES, PAY_APP_STATUSES, TALLY_STATUSES, type AccessRole } from '../../src/shared/constants';
+import { isFrozen } from '../../src/shared/domain/pay-app-status';
+import { payAppCan } from '../../src/shared/policies/pay-apps';
 import { canManageContract, projectCan } from '../../src/shared/policies/projects';
 import { canAddEvidence, tallyCan } from '../../src/shared/policies/tallies';
 
@@ -49,11 +51,43 @@ describe('tally policy', () => {
 describe('project policy', () => {
   it('project.can follows the predicates for every role', () => {
     for (const roles of ALL_ROLE_SETS) {
+      const owner = roles.includes('owner') || roles.includes('owner_admin');
       expect(projectCan(roles)).toEqual({
         manageContract: roles.includes('general_contractor') || roles.includes('general_contractor_admin'),
         createTally: roles.includes('subcontractor'),
+        createPayApp: roles.includes('subcontractor'),
+        seeDraftPayApps: roles.length > 0 && !owner,
+        pay: roles.includes('owner'),
+        issueWaiver: roles.includes('subcontractor'),
       });
       expect(projectCan(roles).manageContract).toBe(canManageContract(roles));
+    }
+  });
+});
+
+describe('pay application policy', () => {
+  // The transition table (src/shared/domain/pay-app-status.ts) says who moves an application from which status;
+  // `can` must agree with it for every role and status.
+  it('offers each move only to its role, from the statuses the table allows', () => {
+    for (const roles of ALL_ROLE_SETS) {
+      for (const status of PAY_APP_STATUSES) {
+        const can = payAppCan(roles, status);
+        const sub = roles.includes('subcontractor');
+        const gc = roles.includes('general_contractor');
+        expect(can.submit).toBe(sub && status === 'draft');
+        expect(can.answer).toBe(sub && status === 'returned');
+        expect(can.review).toBe(gc && (status === 'submitted' || status === 'in_review'));
+        expect(can.certify).toBe(gc && (status === 'submitted' || status === 'in_review'));
+        expect(can.comment).toBe(sub || gc);
+        expect(can.pay).toBe(roles.includes('owner') && (status === 'certified' || status === 'partially_paid'));
+        expect(can.issueWaiver).toBe(sub && isFrozen(status));
+      }
+    }
+  });
+
+  it('no admin role alone moves an application', () => {
+    for (const admin of ['subcontractor_admin', 'general_contractor_admin', 'owner_admin'] as const) {
+      for (const status of PAY_APP_STATUSES) expect(Object.values(payAppCan([admin], status))).not.toContain(true);
     }
   });
 });
