@@ -5,4 +5,8 @@ import type { BenchModule } from './types';
  * SelfMeasuredBench items that measure themselves against absolute budgets. Each benchmark runs in its own child
  * process, in this order.
  */
-export const benchModules: (() => Promise<BenchModule>)[] = [() => import('./engine'), () => import('./quality/index')];
+export const benchModules: (() => Promise<BenchModule>)[] = [
+  () => import('./engine'),
+  () => import('./landxml'),
+  () => import('./quality/index'),
+];

@@ -6,7 +6,8 @@ import { createMemoryRouter, RouterProvider } from 'react-router';
 import { afterEach, describe, expect, it } from 'vitest';
 import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-screen';
 import { parseNumberTable, readNumber } from '@/features/worksheets/lib/csv';
-import { readLandXmlSurfaces } from '@/features/worksheets/lib/landxml';
+import { readSectionLandXml } from '@/features/worksheets/end-area/section-file';
+import { readSurvey } from '@/features/worksheets/surface/surface-file';
 import { TrenchWorksheet } from '@/features/worksheets/trench/trench-worksheet';
 
 afterEach(cleanup);
@@ -66,9 +67,39 @@ describe('Worksheet file readers', () => {
   it('reads LandXML points as northing easting elevation (LandXML 1.2 schema, <P>) into x = easting, y = northing', () => {
     const xml = `<?xml version="1.0"?><LandXML xmlns="http://www.landxml.org/schema/LandXML-1.2"><Surfaces><Surface name="Pad">
       <Definition><Pnts><P id="1">5000.5 2000.25 101.2</P><P id="2">5010 2003 bad</P></Pnts></Definition></Surface></Surfaces></LandXML>`;
-    const { surfaces, issues } = readLandXmlSurfaces(xml);
-    expect(surfaces[0]!.points).toEqual([[2000.25, 5000.5, 101.2]]);
-    expect(issues).toEqual([expect.objectContaining({ column: 'Pad, <P id="2">' })]);
+    expect(readSurvey(xml, 'm').issues).toEqual([expect.objectContaining({ column: 'Pad, <P id="2">' })]);
+    const good = xml
+      .replace('2003 bad', '2003 101.5')
+      .replace('<Surfaces>', '<Units><Metric linearUnit="meter"/></Units><Surfaces>');
+    const read = readSurvey(good, 'm');
+    expect(read.rows).toEqual([
+      [2000.25, 5000.5, 101.2],
+      [2003, 5010, 101.5],
+    ]);
+    expect(read.note).toMatch(/LandXML surface "Pad": 2 points/);
+  });
+
+  it('asks the column order of a point file without a header, and reads PNEZD from a header (common practice)', () => {
+    expect(readSurvey('1,5000,2000,100,EG\n2,5001,2001,100,EG', 'ft').needsOrder).toBe(true);
+    expect(readSurvey('1,5000,2000,100,EG\n2,5001,2001,100,EG', 'ft', 'PNEZD').rows[0]).toEqual([2000, 5000, 100]);
+    expect(readSurvey('P,N,E,Z,D\n1,5000,2000,100,EG', 'ft').rows[0]).toEqual([2000, 5000, 100]);
+    expect(readSurvey('x,y,z\n1,2,3', 'ft').rows[0]).toEqual([1, 2, 3]);
+  });
+
+  it('reads LandXML cross sections with the station equation shown and refuses a line with a gap (LandXML 1.2 schema: CrossSect, PntList2D, StaEquation)', () => {
+    const xml = `<LandXML><Units><Imperial linearUnit="foot" elevationUnit="foot"/></Units><Alignments><Alignment name="A" staStart="0">
+      <StaEquation staInternal="100" staAhead="500"/><CrossSects>
+      <CrossSect sta="150"><CrossSectSurf name="ground"><PntList2D>-10 100 10 100</PntList2D></CrossSectSurf><CrossSectSurf name="design"><PntList2D>-10 99 10 99</PntList2D></CrossSectSurf></CrossSect>
+      <CrossSect sta="200"><CrossSectSurf name="ground"><PntList2D>-10 100 -2 100</PntList2D><PntList2D>2 100 10 100</PntList2D></CrossSectSurf><CrossSectSurf name="design"><PntList2D>-10 99 10 99</PntList2D></CrossSectSurf></CrossSect>
+      </CrossSects></Alignment></Alignments></LandXML>`;
+    const { sections, issues } = readSectionLandXml(xml, 'ft');
+    expect(sections).toEqual([expect.objectContaining({ station: 150, shown: 550 })]);
+    expect(issues).toEqual([
+      expect.objectContaining({
+        column: '<CrossSect sta="200"> ground',
+        message: expect.stringMatching(/gap \(offsets -2 to 2\)/),
+      }),
+    ]);
   });
 
   it('reports a bad CSV cell by line and column', () => {

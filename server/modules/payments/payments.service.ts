@@ -54,6 +54,8 @@ export async function listForProject(ctx: AppContext, actor: Actor, projectId: s
   return {
     payApps: apps.map((a) => presentPayApp(a, rows, project, ctx.feeRates)),
     payments: rows.map((r) => presentPayment(r, numbers.get(r.payAppId) ?? 0, history)),
+    feeBearer: project.processingFeeBearer,
+    feeRates: ctx.feeRates,
   };
 }
 

@@ -7,6 +7,7 @@ import { Input } from '@/components/ui/input';
 import { errorMessage } from '@/lib/api-client';
 import { changePasswordSchema, MIN_PASSWORD_LENGTH, type ChangePasswordValues } from '@/shared/schemas/account';
 import { useChangePassword } from '../api/passwords';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 /** The signed-in person's new password; their other sessions (other browsers, other devices) end. */
 export function ChangePasswordForm() {
@@ -16,6 +17,7 @@ export function ChangePasswordForm() {
     mode: 'onTouched',
     defaultValues: { currentPassword: '', password: '', confirm: '' },
   });
+  useClearOnEdit(form, change.reset);
   const { errors } = form.formState;
   const submit = form.handleSubmit(({ currentPassword, password }) =>
     change.mutate({ currentPassword, password }, { onSuccess: () => form.reset() }),

@@ -8,6 +8,7 @@ import { Input } from '@/components/ui/input';
 import { errorMessage } from '@/lib/api-client';
 import { forgotPasswordSchema, type ForgotPasswordValues } from '@/shared/schemas/account';
 import { useRequestPasswordReset } from '../api/passwords';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 /** Asks for a reset link by e-mail. The same confirmation shows whether or not an account uses the address. */
 export function ForgotPasswordForm() {
@@ -17,6 +18,7 @@ export function ForgotPasswordForm() {
     mode: 'onTouched',
     defaultValues: { email: '' },
   });
+  useClearOnEdit(form, request.reset);
   const { errors } = form.formState;
   const submit = form.handleSubmit(({ email }) => request.mutate(email));
 

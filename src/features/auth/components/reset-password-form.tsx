@@ -8,6 +8,7 @@ import { Input } from '@/components/ui/input';
 import { errorMessage } from '@/lib/api-client';
 import { MIN_PASSWORD_LENGTH, resetPasswordSchema, type ResetPasswordValues } from '@/shared/schemas/account';
 import { useResetPassword } from '../api/passwords';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 const linkClass = 'text-spruce-700 font-medium underline-offset-2 hover:underline';
 
@@ -19,6 +20,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
     mode: 'onTouched',
     defaultValues: { password: '', confirm: '' },
   });
+  useClearOnEdit(form, reset.reset);
   const { errors } = form.formState;
   const submit = form.handleSubmit(({ password }) => reset.mutate({ token, password }));
 

@@ -9,6 +9,7 @@ import { errorMessage } from '@/lib/api-client';
 import { useSignIn } from '../api/sign-in';
 import { DemoSignIns } from './demo-sign-ins';
 import { DEMO_PASSWORD, signInSchema, type SignInValues } from './sign-in-schema';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
   const signIn = useSignIn();
@@ -17,6 +18,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
     mode: 'onTouched',
     defaultValues: { email: '', password: '' },
   });
+  useClearOnEdit(form, signIn.reset);
   const { errors } = form.formState;
 
   const submit = form.handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }));

@@ -24,6 +24,7 @@ import {
   type BidItemFormInput,
   type BidItemFormOutput,
 } from './bid-item-form-schema';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 const PAY_UNIT_OPTIONS = optionsOf(PAY_UNITS, (unit) => `${unit} (${PAY_UNIT_LABELS[unit]})`);
 const BASIS_OPTIONS = optionsOf(MEASUREMENT_BASES, (basis) => BASIS_LABELS[basis]);
@@ -44,6 +45,7 @@ export function BidItemForm({ defaultValues, submitLabel, onSubmit, onCancel }: 
     mode: 'onTouched',
     defaultValues,
   });
+  useClearOnEdit(form, () => setFormError(null));
   const { errors, isSubmitting } = form.formState;
   const payUnit = useWatch({ control: form.control, name: 'payUnit' });
 

@@ -9,6 +9,7 @@ import { Input } from '@/components/ui/input';
 import { errorMessage } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { MIN_PASSWORD_LENGTH } from '@/shared/schemas/invitation';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 const schema = z
   .object({
@@ -23,6 +24,7 @@ type Values = z.infer<typeof schema>;
 export function NewAccountForm({ email, onSubmit }: { email: string; onSubmit: (v: { name: string; password: string }) => Promise<unknown> }) {
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<Values>({ resolver: zodResolver(schema), mode: 'onTouched', defaultValues: { name: '', password: '', confirm: '' } });
+  useClearOnEdit(form, () => setFormError(null));
   const { errors, isSubmitting } = form.formState;
   const submit = form.handleSubmit(async ({ name, password }) => {
     setFormError(null);

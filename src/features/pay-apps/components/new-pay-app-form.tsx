@@ -22,6 +22,12 @@ export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId:
   const [values, setValues] = useState({ ...defaultPeriod(lastPeriodEnd), isFinal: false });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const create = useCreatePayApp(projectId);
+  /** A changed input clears the last attempt's refusal (its field message and the alert). */
+  function edit(change: Partial<typeof values>) {
+    setValues({ ...values, ...change });
+    setErrors({});
+    create.reset();
+  }
   function submit(event: React.FormEvent) {
     event.preventDefault();
     const parsed = createPayAppSchema.safeParse(values);
@@ -36,14 +42,14 @@ export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId:
     <form onSubmit={submit} className="flex flex-col gap-3" noValidate>
       <div className="grid gap-3 sm:grid-cols-2">
         <Field label="Period starts" error={errors.periodStart}>
-          {(c) => <Input {...c} type="date" value={values.periodStart} onChange={(e) => setValues({ ...values, periodStart: e.target.value })} />}
+          {(c) => <Input {...c} type="date" value={values.periodStart} onChange={(e) => edit({ periodStart: e.target.value })} />}
         </Field>
         <Field label="Period ends" error={errors.periodEnd}>
-          {(c) => <Input {...c} type="date" value={values.periodEnd} onChange={(e) => setValues({ ...values, periodEnd: e.target.value })} />}
+          {(c) => <Input {...c} type="date" value={values.periodEnd} onChange={(e) => edit({ periodEnd: e.target.value })} />}
         </Field>
       </div>
       <label className="flex items-center gap-2 text-sm">
-        <Checkbox checked={values.isFinal} onChange={(e) => setValues({ ...values, isFinal: e.target.checked })} />
+        <Checkbox checked={values.isFinal} onChange={(e) => edit({ isFinal: e.target.checked })} />
         Final application of the contract
       </label>
       {create.isError ? <Alert>{errorMessage(create.error)}</Alert> : null}

@@ -13,6 +13,7 @@ import { UNIT_SYSTEMS, type CompanyKind } from '@/shared/constants';
 import type { CompanyView, CreateProjectInput, ProjectView } from '@/shared/schemas/project';
 import { useCreateProject } from '../api/create-project';
 import { NEW_JOB_DEFAULTS, NEW_JOB_FIELDS, newJobFormSchema, type NewJobFormInput } from './new-job-schema';
+import { useClearOnEdit } from '@/lib/use-clear-on-edit';
 
 const UNIT_OPTIONS = optionsOf(UNIT_SYSTEMS, (units) => UNIT_SYSTEM_LABELS[units]);
 
@@ -36,6 +37,7 @@ export function NewJobForm({ companies, onCreated, onCancel }: NewJobFormProps) 
     mode: 'onTouched',
     defaultValues: NEW_JOB_DEFAULTS,
   });
+  useClearOnEdit(form, () => setFormError(null));
   const { errors } = form.formState;
   const subcontractors = companyOptions(companies, 'subcontractor');
   const owners = companyOptions(companies, 'owner');

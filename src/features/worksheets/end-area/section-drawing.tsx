@@ -25,14 +25,25 @@ export function SectionDrawing({ section, unit }: { section: WorkedSection; unit
   const au = result.areaUnit;
   return (
     <figure>
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Cross section at station ${formatStation(section.station, unit)}`} className="w-full rounded-md border border-stone-200 bg-white">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        role="img"
+        aria-label={`Cross section at station ${formatStation(section.station, unit)}`}
+        className="w-full rounded-md border border-stone-200 bg-white"
+      >
         {result.regions.map((r, i) => (
           <polygon key={i} points={path(r.polygon)} fill={r.kind === 'cut' ? CUT_COLOUR : FILL_COLOUR} opacity={0.75} />
         ))}
         <polyline points={path(section.ground)} fill="none" stroke="#66361f" strokeWidth={2} />
         <polyline points={path(section.design)} fill="none" stroke="#1c1917" strokeWidth={1.5} strokeDasharray="6 3" />
         <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} stroke="#a8a29e" />
-        {([[x0, 'start'], [(x0 + x1) / 2, 'middle'], [x1, 'end']] as const).map(([o, anchor]) => (
+        {(
+          [
+            [x0, 'start'],
+            [(x0 + x1) / 2, 'middle'],
+            [x1, 'end'],
+          ] as const
+        ).map(([o, anchor]) => (
           <text key={anchor} x={x(o)} y={H - 10} fontSize={10} textAnchor={anchor} fill="#57534e">
             {fmt2(o)} {unit}
           </text>
@@ -44,9 +55,15 @@ export function SectionDrawing({ section, unit }: { section: WorkedSection; unit
         ))}
       </svg>
       <figcaption className="mt-1 flex flex-wrap gap-x-4 text-xs text-stone-600">
-        <span>Station {formatStation(section.station, unit)}</span>
-        <span><span className="inline-block size-2.5 rounded-sm align-middle" style={{ background: CUT_COLOUR }} /> cut {fmt2(result.cutArea)} {au}</span>
-        <span><span className="inline-block size-2.5 rounded-sm align-middle" style={{ background: FILL_COLOUR }} /> fill {fmt2(result.fillArea)} {au}</span>
+        <span>Station {formatStation(section.shown ?? section.station, unit)}</span>
+        <span>
+          <span className="inline-block size-2.5 rounded-sm align-middle" style={{ background: CUT_COLOUR }} /> cut{' '}
+          {fmt2(result.cutArea)} {au}
+        </span>
+        <span>
+          <span className="inline-block size-2.5 rounded-sm align-middle" style={{ background: FILL_COLOUR }} /> fill{' '}
+          {fmt2(result.fillArea)} {au}
+        </span>
         <span>solid: ground · dashed: design · vertical scale exaggerated</span>
       </figcaption>
     </figure>

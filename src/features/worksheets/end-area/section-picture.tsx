@@ -14,10 +14,15 @@ export function SectionPicture({ sections, unit }: { sections: readonly WorkedSe
     <div className="space-y-2">
       <Field label="Cross section shown" className="max-w-48">
         {(c) => (
-          <Select {...c} value={String(Math.min(index, sections.length - 1))} onChange={(e) => setIndex(Number(e.target.value))}>
+          <Select
+            {...c}
+            value={String(Math.min(index, sections.length - 1))}
+            onChange={(e) => setIndex(Number(e.target.value))}
+          >
             {sections.map((s, i) => (
               <option key={s.station} value={i}>
-                Station {formatStation(s.station, unit)}
+                Station {formatStation(s.shown ?? s.station, unit)}
+                {s.shown !== undefined ? ` (continuous ${formatStation(s.station, unit)})` : ''}
               </option>
             ))}
           </Select>

@@ -1,32 +1,46 @@
 import type { LengthUnit } from '@/shared/constants';
 import { runCalc } from '@/shared/domain/calc';
 import { isDomainError, type DomainIssue } from '@/shared/domain/domain-error';
-import { pointsFromRows, surfaceVolumeFromPoints, type SurfaceResult } from '@/shared/domain/earthwork/surface';
-import { parseNumberTable, type FileIssue } from '../lib/csv';
-import { readLandXmlSurfaces } from '../lib/landxml';
+import {
+  pointsFromRows,
+  surfaceVolumeFromPoints,
+  type PayLimits,
+  type SurfaceResult,
+} from '@/shared/domain/earthwork/surface';
+import type { PointOrder } from '@/shared/landxml';
+import type { FileIssue } from '../lib/csv';
+import { readSurvey } from './surface-file';
 
 export type SurfaceSide = 'existing' | 'design';
 export type SurfaceWork = {
   result: SurfaceResult | null;
   issues: DomainIssue[];
   fileIssues: Record<SurfaceSide, FileIssue[]>;
+  /** What each file was read as (LandXML units, point order), or null. */
+  fileNotes: Record<SurfaceSide, string | null>;
+  /** Point files whose column order must be asked. */
+  needsOrder: Record<SurfaceSide, boolean>;
+  /** Pay limits measured within: from a LandXML file's boundaries (design first), else those kept. */
+  payLimits: PayLimits | null;
   /** Up to 1,500 plan points of each survey, for the picture. */
   preview: Record<SurfaceSide, { x: number; y: number }[]>;
   /** The calc API body the result came from (what a tally stores), or null without a result. */
-  inputs: { unit: LengthUnit; existing: [number, number, number][]; design: [number, number, number][] } | null;
+  inputs: {
+    unit: LengthUnit;
+    existing: [number, number, number][];
+    design: [number, number, number][];
+    payLimits?: PayLimits;
+  } | null;
+};
+
+export type SurfaceOptions = {
+  orders?: Partial<Record<SurfaceSide, PointOrder>>;
+  /** Pay limits of a saved tally, kept while neither file brings its own. */
+  keptPayLimits?: PayLimits | null;
 };
 
 /** Above this many points in all, the work runs in a Web Worker so typing stays smooth. */
 export const WORKER_THRESHOLD = 40_000;
-
-function readPoints(text: string): { rows: [number, number, number][]; issues: FileIssue[] } {
-  if (text.trimStart().startsWith('<')) {
-    const { surfaces, issues } = readLandXmlSurfaces(text);
-    return { rows: surfaces[0]?.points ?? [], issues };
-  }
-  const { values, issues } = parseNumberTable(text, ['x', 'y', 'z']);
-  return { rows: values as [number, number, number][], issues };
-}
 
 /** A spread-out sample: every point when few, else 1,500 picked by a fixed pseudo-random walk (no stripes). */
 function sample(rows: readonly [number, number, number][]): { x: number; y: number }[] {
@@ -43,24 +57,44 @@ function sample(rows: readonly [number, number, number][]): { x: number; y: numb
   return out;
 }
 
-/** Parses both surveys (CSV x,y,z or LandXML) and works cut and fill with the shared engine. */
-export function workSurfaces(unit: LengthUnit, existingText: string, designText: string): SurfaceWork {
-  const existing = readPoints(existingText);
-  const design = readPoints(designText);
+/** Parses both surveys (x,y,z CSV, PNEZD/PENZD point files, or LandXML) and works cut and fill with the engine. */
+export function workSurfaces(
+  unit: LengthUnit,
+  existingText: string,
+  designText: string,
+  options: SurfaceOptions = {},
+): SurfaceWork {
+  const existing = readSurvey(existingText, unit, options.orders?.existing);
+  const design = readSurvey(designText, unit, options.orders?.design);
   const fileIssues = { existing: existing.issues, design: design.issues };
+  const fileNotes = { existing: existing.note, design: design.note };
+  const needsOrder = { existing: existing.needsOrder, design: design.needsOrder };
   const preview = { existing: sample(existing.rows), design: sample(design.rows) };
-  if (existing.issues.length || design.issues.length)
-    return { result: null, issues: [], fileIssues, preview, inputs: null };
+  const payLimits = design.payLimits ?? existing.payLimits ?? options.keptPayLimits ?? null;
+  const base = { fileIssues, fileNotes, needsOrder, preview, payLimits };
+  if (existing.issues.length || design.issues.length || existing.needsOrder || design.needsOrder)
+    return { ...base, result: null, issues: [], inputs: null };
+  const inputs = {
+    unit,
+    existing: existing.rows,
+    design: design.rows,
+    ...(payLimits ? { payLimits } : {}),
+  };
   try {
     const big = existing.rows.length + design.rows.length > WORKER_THRESHOLD;
     // Small surveys go through the calc schema for its field messages; big ones were checked row by row above.
     const result = big
-      ? surfaceVolumeFromPoints(unit, pointsFromRows(existing.rows), pointsFromRows(design.rows))
-      : runCalc('surface', { unit, existing: existing.rows, design: design.rows });
-    return { result, issues: [], fileIssues, preview, inputs: { unit, existing: existing.rows, design: design.rows } };
+      ? surfaceVolumeFromPoints(
+          unit,
+          pointsFromRows(existing.rows),
+          pointsFromRows(design.rows),
+          payLimits ?? undefined,
+        )
+      : runCalc('surface', inputs);
+    return { ...base, result, issues: [], inputs };
   } catch (error) {
     const issues = isDomainError(error) ? error.issues : [{ path: '', message: String(error) }];
-    return { result: null, issues, fileIssues, preview, inputs: null };
+    return { ...base, result: null, issues, inputs: null };
   }
 }
 

@@ -1,4 +1,6 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
+import type { PayLimits } from '@/shared/domain/earthwork/surface';
+import { POINT_ORDERS, type PointOrder } from '@/shared/landxml';
 import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { ResultPanel } from '../components/result-panel';
@@ -6,17 +8,67 @@ import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns
 import type { WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
 import { PlanChart } from './plan-chart';
-import { rowsText, sampleSurfaces } from './surface-work';
+import { rowsText, sampleSurfaces, type SurfaceSide, type SurfaceWork } from './surface-work';
 import { useSurfaceWork } from './use-surface-work';
 
 const HINT =
-  'CSV rows of x (east), y (north), z; or a LandXML <Surface> (its <P> points are northing easting elevation).';
+  'CSV rows of x (east), y (north), z; a point file (point, northing, easting, elevation, description: PNEZD or PENZD); or a LandXML 1.2 file (its first <Surface>, units read from <Units>).';
+
+/** What the file was read as, and the column order of a point file when its data do not tell it. */
+function FileReading({
+  side,
+  work,
+  order,
+  onOrder,
+}: {
+  side: SurfaceSide;
+  work: SurfaceWork | null;
+  order: PointOrder | undefined;
+  onOrder: (order: PointOrder) => void;
+}) {
+  const note = work?.fileNotes[side] ?? null;
+  const ask = work?.needsOrder[side] ?? false;
+  return (
+    <>
+      {ask || order ? (
+        <label className="flex items-center gap-2 text-xs text-stone-700">
+          Column order of this point file
+          <select
+            className="rounded-md border border-stone-300 bg-white px-2 py-1 text-xs"
+            value={order ?? ''}
+            onChange={(e) => onOrder(e.target.value as PointOrder)}
+          >
+            <option value="" disabled>
+              Choose…
+            </option>
+            {POINT_ORDERS.map((o) => (
+              <option key={o} value={o}>
+                {o === 'PNEZD'
+                  ? 'PNEZD: point, northing, easting, elevation'
+                  : 'PENZD: point, easting, northing, elevation'}
+              </option>
+            ))}
+          </select>
+        </label>
+      ) : null}
+      {ask ? (
+        <p role="status" className="text-xs text-clay-800">
+          The file has no header naming its columns: say which order it is in.
+        </p>
+      ) : null}
+      {note ? <p className="text-xs text-stone-600">{note}</p> : null}
+    </>
+  );
+}
 
 export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const [texts, setTexts] = useState(() =>
     initial ? { existing: rowsText(initial.existing), design: rowsText(initial.design) } : sampleSurfaces(unit),
   );
-  const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design);
+  const [orders, setOrders] = useState<Partial<Record<SurfaceSide, PointOrder>>>({});
+  const kept = (initial?.payLimits as PayLimits | undefined) ?? null;
+  const options = useMemo(() => ({ orders, keptPayLimits: kept }), [orders, kept]);
+  const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design, options);
   useEffect(() => {
     const ok = !busy && work?.result && work.inputs;
     onInputs(ok ? work.inputs : null, ok ? (work.result as unknown as Record<string, unknown>) : null);
@@ -34,6 +86,12 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             onChange={(t) => setTexts((s) => ({ ...s, existing: t }))}
             accept=".csv,.txt,.xml,.landxml"
           />
+          <FileReading
+            side="existing"
+            work={work}
+            order={orders.existing}
+            onOrder={(o) => setOrders((s) => ({ ...s, existing: o }))}
+          />
           <FileIssues issues={work?.fileIssues.existing ?? []} fileLabel="Existing survey" />
           <FileSource
             label={`Design survey (${u.length})`}
@@ -41,6 +99,12 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             value={texts.design}
             onChange={(t) => setTexts((s) => ({ ...s, design: t }))}
             accept=".csv,.txt,.xml,.landxml"
+          />
+          <FileReading
+            side="design"
+            work={work}
+            order={orders.design}
+            onOrder={(o) => setOrders((s) => ({ ...s, design: o }))}
           />
           <FileIssues issues={work?.fileIssues.design ?? []} fileLabel="Design survey" />
           {busy ? (

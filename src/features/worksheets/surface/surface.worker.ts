@@ -1,11 +1,11 @@
 /// <reference lib="webworker" />
 import type { LengthUnit } from '@/shared/constants';
-import { workSurfaces } from './surface-work';
+import { workSurfaces, type SurfaceOptions } from './surface-work';
 
-type Job = { id: number; unit: LengthUnit; existing: string; design: string };
+type Job = { id: number; unit: LengthUnit; existing: string; design: string; options: SurfaceOptions };
 
-/** Large surveys: parse and triangulate off the main thread. */
+/** Large surveys: read (the streaming LandXML reader, point files) and triangulate off the main thread. */
 self.onmessage = (event: MessageEvent<Job>) => {
-  const { id, unit, existing, design } = event.data;
-  self.postMessage({ id, work: workSurfaces(unit, existing, design) });
+  const { id, unit, existing, design, options } = event.data;
+  self.postMessage({ id, work: workSurfaces(unit, existing, design, options) });
 };

@@ -1,17 +1,25 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { LengthUnit } from '@/shared/constants';
 import { useDebounced } from '../lib/live-calc';
-import { WORKER_THRESHOLD, workSurfaces, type SurfaceWork } from './surface-work';
+import { WORKER_THRESHOLD, workSurfaces, type SurfaceOptions, type SurfaceWork } from './surface-work';
 
 /** Rough point count of a text (its lines), to choose between the main thread and the worker. */
 const lines = (text: string) => text.length / 20;
 
 /** Live surface work: in place for small surveys, in a Web Worker for large ones (the last answer wins). */
-export function useSurfaceWork(unit: LengthUnit, existing: string, design: string): { work: SurfaceWork | null; busy: boolean } {
+export function useSurfaceWork(
+  unit: LengthUnit,
+  existing: string,
+  design: string,
+  options: SurfaceOptions,
+): { work: SurfaceWork | null; busy: boolean } {
   const big = lines(existing) + lines(design) > WORKER_THRESHOLD;
-  const texts = useMemo(() => ({ existing, design }), [existing, design]);
+  const texts = useMemo(() => ({ existing, design, options }), [existing, design, options]);
   const held = useDebounced(texts, big ? 500 : 200);
-  const small = useMemo(() => (big ? null : workSurfaces(unit, held.existing, held.design)), [big, unit, held]);
+  const small = useMemo(
+    () => (big ? null : workSurfaces(unit, held.existing, held.design, held.options)),
+    [big, unit, held],
+  );
   const [answer, setAnswer] = useState<{ id: number; work: SurfaceWork } | null>(null);
   const [asked, setAsked] = useState(0);
   const worker = useRef<Worker | null>(null);
@@ -26,7 +34,7 @@ export function useSurfaceWork(unit: LengthUnit, existing: string, design: strin
     w.onmessage = (event: MessageEvent<{ id: number; work: SurfaceWork }>) => {
       if (event.data.id === counter.current) setAnswer(event.data);
     };
-    w.postMessage({ id, unit, existing: held.existing, design: held.design });
+    w.postMessage({ id, unit, existing: held.existing, design: held.design, options: held.options });
   }, [big, unit, held]);
 
   useEffect(() => () => worker.current?.terminate(), []);
