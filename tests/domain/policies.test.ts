@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ACCESS_ROLES, PAY_APP_STATUSES, TALLY_STATUSES, type AccessRole } from '../../src/shared/constants';
 import { isFrozen } from '../../src/shared/domain/pay-app-status';
+import { changeOrderCan } from '../../src/shared/policies/change-orders';
 import { payAppCan } from '../../src/shared/policies/pay-apps';
 import { canManageContract, projectCan } from '../../src/shared/policies/projects';
 import { canAddEvidence, tallyCan } from '../../src/shared/policies/tallies';
@@ -59,6 +60,7 @@ describe('project policy', () => {
         seeDraftPayApps: roles.length > 0 && !owner,
         pay: roles.includes('owner'),
         issueWaiver: roles.includes('subcontractor'),
+        proposeChangeOrder: roles.includes('subcontractor') || roles.includes('general_contractor'),
       });
       expect(projectCan(roles).manageContract).toBe(canManageContract(roles));
     }
@@ -88,6 +90,51 @@ describe('pay application policy', () => {
   it('no admin role alone moves an application', () => {
     for (const admin of ['subcontractor_admin', 'general_contractor_admin', 'owner_admin'] as const) {
       for (const status of PAY_APP_STATUSES) expect(Object.values(payAppCan([admin], status))).not.toContain(true);
+    }
+  });
+});
+
+describe('change order policy', () => {
+  const proposed = { status: 'proposed' as const, gcApprovedAt: null, ownerApprovedAt: null };
+  const gcDone = { ...proposed, gcApprovedAt: new Date('2026-11-02T10:00:00Z') };
+
+  it('the general contractor decides; the owner only where the project asks for its approval', () => {
+    expect(changeOrderCan(['general_contractor'], proposed, false)).toEqual({
+      decide: true,
+      decideAs: 'gc',
+      attachDocuments: true,
+    });
+    expect(changeOrderCan(['owner'], proposed, false)).toEqual({
+      decide: false,
+      decideAs: null,
+      attachDocuments: false,
+    });
+    expect(changeOrderCan(['owner'], proposed, true)).toEqual({
+      decide: true,
+      decideAs: 'owner',
+      attachDocuments: true,
+    });
+    expect(changeOrderCan(['subcontractor'], proposed, true)).toEqual({
+      decide: false,
+      decideAs: null,
+      attachDocuments: true,
+    });
+  });
+
+  it('a side that has approved decides no more; the other side still does', () => {
+    expect(changeOrderCan(['general_contractor'], gcDone, true).decide).toBe(false);
+    expect(changeOrderCan(['owner'], gcDone, true).decideAs).toBe('owner');
+  });
+
+  it('a decided change order takes no decision and no documents from anyone', () => {
+    for (const status of ['approved', 'rejected'] as const) {
+      for (const roles of ALL_ROLE_SETS) {
+        expect(changeOrderCan(roles, { ...proposed, status }, true)).toEqual({
+          decide: false,
+          decideAs: null,
+          attachDocuments: false,
+        });
+      }
     }
   });
 });

@@ -7,7 +7,7 @@ import type {
   ProjectRole,
 } from '../../../src/shared/constants';
 import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-app-status';
-import { decisionSides } from '../change-orders/change-orders.policy';
+import { decisionSides } from '../../../src/shared/policies/change-orders';
 import { canIssueWaiver, waiverOptions } from '../../../src/shared/policies/lien-waivers';
 import { mayTake } from '../../../src/shared/policies/pay-apps';
 import { balanceCents, canPay, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';

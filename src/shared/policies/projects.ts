@@ -6,6 +6,7 @@ import {
   type CompanyKind,
   type ProjectRole,
 } from '../constants';
+import { canProposeChangeOrder } from './change-orders';
 import { canIssueWaiver } from './lien-waivers';
 import { canCreatePayApp, canSeePayApp } from './pay-apps';
 import { canPay } from './payments';
@@ -80,6 +81,8 @@ export type ProjectCan = {
   seeDraftPayApps: boolean;
   pay: boolean;
   issueWaiver: boolean;
+  /** Propose a change order (and forecast quantities, which end in one). */
+  proposeChangeOrder: boolean;
 };
 
 export function projectCan(roles: AccessRole[]): ProjectCan {
@@ -90,5 +93,6 @@ export function projectCan(roles: AccessRole[]): ProjectCan {
     seeDraftPayApps: canSeePayApp(roles, 'draft'),
     pay: canPay(roles),
     issueWaiver: canIssueWaiver(roles),
+    proposeChangeOrder: canProposeChangeOrder(roles),
   };
 }
