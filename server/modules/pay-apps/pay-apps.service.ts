@@ -1,5 +1,8 @@
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
+import { changeOrderSummary } from '../../../src/shared/domain/change-order-summary';
+import { currentContract } from '../../../src/shared/domain/contract';
 import { payAppFlags } from '../../../src/shared/domain/pay-app-flags';
+import { payAppPackage } from '../../../src/shared/domain/pay-app-package';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
@@ -9,6 +12,8 @@ import { loadPayAppAccess } from './pay-app-access';
 import { canCreatePayApp, canSeePayApp } from './pay-apps.policy';
 import { presentDispute, presentHistory, presentLine, presentSummary, presentTally } from './pay-apps.presenter';
 import * as repo from './pay-apps.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
+import { adjustmentsThrough, approvedChangeOrders, compiledAt } from './pay-app-provisions.repository';
 
 export async function listPayApps(db: Db, actor: Actor, projectId: string) {
   const { roles } = await loadProjectAccess(db, actor, projectId);
@@ -36,6 +41,7 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
       return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
     }),
   );
+  const pkg = await packageOf(db, app, lines);
   return {
     ...presentSummary(app, app.certifiedBy?.name ?? null),
     lines,
@@ -45,6 +51,41 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
     contractSumCents,
     flags: payAppFlags(lines, bandOverBps, evidence),
     percentCompleteBps,
+    ...pkg,
+  };
+}
+
+/**
+ * The package figures (payAppPackage, pure) from the stored lines, with the change orders approved up to the
+ * application's compilation (the contract its lines were priced on) and the deductions it counted.
+ */
+async function packageOf(
+  db: Db,
+  app: NonNullable<Awaited<ReturnType<typeof repo.findPayAppDetail>>>,
+  lines: ReturnType<typeof presentLine>[],
+) {
+  const [contract, previousCutOff, adjustments] = await Promise.all([
+    loadContract(db, app.projectId),
+    compiledAt(db, app.projectId, app.number - 1),
+    adjustmentsThrough(db, app.projectId, app.periodEnd),
+  ]);
+  const approved = await approvedChangeOrders(db, app.projectId, contract.inputs.changes);
+  const counted = adjustments.filter((a) => a.createdAt <= app.createdAt);
+  return {
+    package: payAppPackage({
+      lines,
+      originalContractCents: currentContract(contract.inputs.items, []).contractSumCents,
+      changeOrders: changeOrderSummary(
+        contract.inputs.items,
+        approved,
+        app.createdAt.toISOString(),
+        previousCutOff?.toISOString() ?? null,
+      ),
+      retainageBps: app.retainageBps,
+      adjustmentsCents: app.adjustmentsCents,
+      previousCertifiedCents: app.previousCertifiedCents,
+    }),
+    adjustments: counted.map(({ createdAt: _c, ...a }) => a),
   };
 }
 

@@ -13,7 +13,8 @@ import { DisputeThreads } from './dispute-threads';
 import { PayAppCommands } from './pay-app-commands';
 import { PayAppStatusBadge, periodText } from './pay-app-labels';
 import { PayAppLinesTable } from './pay-app-lines-table';
-import { PayAppTotals } from './pay-app-totals';
+import { ChangeOrderSummaryCard, PayAppTotals } from './pay-app-totals';
+import { ScheduleOfValues } from './schedule-of-values';
 import { RevisePanel } from './revise-panel';
 import { approveRemaining, reviewBody, type ReviewDraft } from './review-draft';
 import { StatusHistory } from './status-history';
@@ -165,6 +166,7 @@ export function PayAppDetailScreen({
           <Button onClick={saveReview}>Return to the subcontractor</Button>
         </div>
       </Dialog>
+      <ScheduleOfValues app={app} />
       {isSub && app.status === 'returned' ? <RevisePanel key={app.revision} app={app} /> : null}
       {PAYABLE.has(app.status) ? payment : null}
       <div className="grid gap-4 lg:grid-cols-[1.4fr_1fr]">
@@ -172,7 +174,10 @@ export function PayAppDetailScreen({
           <DisputeThreads app={app} canComment={isSub || isGc} />
           <StatusHistory app={app} />
         </div>
-        <PayAppTotals app={app} />
+        <div className="flex flex-col gap-4">
+          <PayAppTotals app={app} />
+          <ChangeOrderSummaryCard app={app} />
+        </div>
       </div>
     </div>
   );
