@@ -14,8 +14,8 @@ import { payAppDetail } from './pay-apps.service';
 export function exportRoutes(ctx: AppContext): Router {
   const router = Router();
   const load = async (actorRes: Parameters<typeof getActor>[0], payAppId: string) => {
-    const { project } = await loadPayAppAccess(ctx.db, getActor(actorRes), payAppId);
-    return { project, app: await payAppDetail(ctx.db, payAppId) };
+    const { project, roles } = await loadPayAppAccess(ctx.db, getActor(actorRes), payAppId);
+    return { project, app: await payAppDetail(ctx.db, payAppId, roles) };
   };
   router.get('/pay-apps/:payAppId/export.pdf', async (req, res) => {
     const { project, app } = await load(res, req.params.payAppId);

@@ -1,3 +1,4 @@
+import type { AccessRole } from '../../../src/shared/constants';
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
 import { changeOrderSummary } from '../../../src/shared/domain/change-order-summary';
 import { currentContract } from '../../../src/shared/domain/contract';
@@ -9,7 +10,7 @@ import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
 import { loadPayAppAccess } from './pay-app-access';
-import { canCreatePayApp, canSeePayApp } from './pay-apps.policy';
+import { canCreatePayApp, canSeePayApp, payAppCan } from '../../../src/shared/policies/pay-apps';
 import { presentDispute, presentHistory, presentLine, presentSummary, presentTally } from './pay-apps.presenter';
 import * as repo from './pay-apps.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
@@ -23,7 +24,7 @@ export async function listPayApps(db: Db, actor: Actor, projectId: string) {
 }
 
 /** One application with its lines, history, disputes with their threads, and the tallies it bills (one read). */
-export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDetail> {
+export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]): Promise<PayAppDetail> {
   const app = (await repo.findPayAppDetail(db, payAppId))!;
   const lines = app.lines.map(presentLine);
   const contractSumCents = sumCents(lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)));
@@ -51,6 +52,7 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
     contractSumCents,
     flags: payAppFlags(lines, bandOverBps, evidence),
     percentCompleteBps,
+    can: payAppCan(roles, app.status),
     ...pkg,
   };
 }
@@ -90,12 +92,12 @@ async function packageOf(
 }
 
 export async function getPayApp(db: Db, actor: Actor, payAppId: string) {
-  await loadPayAppAccess(db, actor, payAppId);
-  return payAppDetail(db, payAppId);
+  const { roles } = await loadPayAppAccess(db, actor, payAppId);
+  return payAppDetail(db, payAppId, roles);
 }
 
 export async function createPayApp(db: Db, actor: Actor, projectId: string, input: CreatePayAppInput) {
-  const { project } = await loadProjectAccess(db, actor, projectId, canCreatePayApp);
+  const { project, roles } = await loadProjectAccess(db, actor, projectId, canCreatePayApp);
   const app = await db.transaction((tx) => createPayAppFromTallies(tx, { project, userId: actor.userId, ...input }));
-  return payAppDetail(db, app.id);
+  return payAppDetail(db, app.id, roles);
 }

@@ -1,3 +1,4 @@
+import type { PayAppCan } from '../policies/pay-apps';
 import { z } from 'zod';
 import type {
   AdjustmentKind,
@@ -184,6 +185,8 @@ export type PayAppDetail = PayAppSummary & {
   flags: PayAppFlag[];
   /** Earned to date over the contract sum, basis points. */
   percentCompleteBps: number;
+  /** What the reader may do now (src/shared/policies/pay-apps.ts); screens read this, never the roles. */
+  can: PayAppCan;
   /** Schedule of values, summary lines and change order summary (src/shared/domain/pay-app-package.ts). */
   package: PayAppPackage;
   /** The deductions and adjustments the application counts (dated up to its period's end). */
