@@ -108,7 +108,7 @@ function Rows({
         </div>
       ))}
       <Button type="button" variant="link" size="sm" className="self-start" onClick={() => rows.append(empty as never)}>
-        Add a {title.toLowerCase().replace(/s$/, '')} row
+        Add {title === 'Equipment' ? 'an equipment' : `a ${title.toLowerCase().replace(/s$/, '')}`} row
       </Button>
     </fieldset>
   );
