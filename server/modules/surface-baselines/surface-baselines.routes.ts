@@ -11,7 +11,7 @@ export function surfaceBaselinesRouter(ctx: AppContext): Router {
   const { db, storage } = ctx;
   const router = Router();
   router.get('/projects/:projectId/surface-baselines', async (req, res) => {
-    res.json({ baselines: await service.listBaselines(db, getActor(res), req.params.projectId) });
+    res.json(await service.listBaselines(db, getActor(res), req.params.projectId));
   });
   router.post('/projects/:projectId/surface-baselines', baselineUpload, async (req, res) => {
     const input = recordBaselineSchema.parse(req.body ?? {});

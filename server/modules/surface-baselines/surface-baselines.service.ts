@@ -1,4 +1,4 @@
-import type { SurfaceBaselineView } from '../../../src/shared/schemas/surface-baseline';
+import type { SurfaceBaselineList, SurfaceBaselineView } from '../../../src/shared/schemas/surface-baseline';
 import type { RecordBaselineInput } from '../../../src/shared/schemas/surface-baseline';
 import { baselineSideOf, canRecordBaseline } from '../../../src/shared/policies/surface-baselines';
 import type { Db } from '../../db/client';
@@ -16,11 +16,11 @@ import * as repo from './surface-baselines.repository';
 const areaName = (area: string) => (area === '' ? 'the whole project' : `area "${area}"`);
 
 /** Everyone on the project sees its baselines, newest state first within each area. */
-export async function listBaselines(db: Db, actor: Actor, projectId: string): Promise<SurfaceBaselineView[]> {
+export async function listBaselines(db: Db, actor: Actor, projectId: string): Promise<SurfaceBaselineList> {
   const { roles } = await loadProjectAccess(db, actor, projectId);
   const rows = await repo.listBaselines(db, projectId);
   const names = await repo.userNames(db, rows.flatMap(peopleOf));
-  return rows.map((r) => presentBaseline(r, names, roles));
+  return { baselines: rows.map((r) => presentBaseline(r, names, roles)), can: { record: canRecordBaseline(roles) } };
 }
 
 /**

@@ -36,6 +36,9 @@ export type SurfaceBaselineView = {
   can: BaselineCan;
 };
 
+/** The project's baselines, and whether the reader may record one (either measuring party). */
+export type SurfaceBaselineList = { baselines: SurfaceBaselineView[]; can: { record: boolean } };
+
 export const BASELINE_STATUS_LABELS: Record<BaselineStatus, string> = {
   proposed: 'Awaiting acceptance',
   locked: 'Locked',
