@@ -51,6 +51,7 @@ export const routes: RouteObject[] = [
       { path: 'jobs', lazy: () => import('./routes/jobs'), ErrorBoundary: RouteError },
       { path: 'mailbox', lazy: () => import('./routes/mailbox'), ErrorBoundary: RouteError },
       { path: 'account/password', lazy: () => import('./routes/account-password'), ErrorBoundary: RouteError },
+      { path: 'company', lazy: () => import('./routes/company'), ErrorBoundary: RouteError },
       {
         path: 'projects/:projectId',
         lazy: () => import('./routes/project-shell'),

@@ -58,6 +58,7 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/projects/:projectId/invitations': 'project',
   'DELETE /api/invitations/:id': 'project',
   'DELETE /api/projects/:projectId/members/:userId': 'project',
+  'GET /api/companies/:companyId': 'company',
   'GET /api/companies/:companyId/members': 'company',
   'DELETE /api/companies/:companyId/members/:userId': 'company',
   'GET /api/projects/:projectId/audit': 'project',

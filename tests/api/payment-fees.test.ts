@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { emailOutbox, payApps, payments, projects } from '../../server/db/schema';
-import { feeQuote } from '../../src/shared/domain/payment-fees';
+import { DEFAULT_FEE_RATES, feeQuote } from '../../src/shared/domain/payment-fees';
 import { makeWorld } from '../setup/factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { confirm, eventsOf, hook, startPayment, waitForMail } from '../setup/payment-flow';
@@ -154,5 +154,18 @@ describe('the setting itself', () => {
     expect([bad.status, bad.body.error.details[0].path]).toEqual([400, 'processingFeeBearer']);
     const [row] = await t.database.db.select().from(projects).where(eq(projects.id, world.home.id));
     expect(row!.processingFeeBearer).toBe('payer');
+  });
+
+  it('every person of the project reads the setting and the fee schedule the server charges by; another project’s person gets 404', async () => {
+    await bearer('payer');
+    for (const role of ['general_contractor', 'subcontractor', 'owner', 'owner_admin'] as const) {
+      const res = await (
+        await signedInAgent(t.app, world.people[role].email)
+      ).get(`/api/projects/${world.home.id}/payments`);
+      expect(res.status, role).toBe(200);
+      expect(res.body, role).toMatchObject({ feeBearer: 'payer', feeRates: DEFAULT_FEE_RATES });
+    }
+    const outsider = await signedInAgent(t.app, world.outsider.email);
+    expect((await outsider.get(`/api/projects/${world.home.id}/payments`)).status).toBe(404);
   });
 });

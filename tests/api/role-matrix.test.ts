@@ -190,6 +190,7 @@ const RULES: Record<string, Rule> = {
   // The fixture's invitation is to the owner seat: the owner's admin revokes it.
   'DELETE /api/invitations/:id': { may: ['owner_admin'] },
   'DELETE /api/projects/:projectId/members/:userId': { may: ['subcontractor_admin'] },
+  'GET /api/companies/:companyId': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'GET /api/companies/:companyId/members': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'DELETE /api/companies/:companyId/members/:userId': { may: ['subcontractor_admin'], hiddenFrom: NOT_OF_SUB_COMPANY },
   'GET /api/projects/:projectId/audit': { may: ALL },

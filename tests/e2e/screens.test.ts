@@ -66,7 +66,11 @@ async function screensOf(page: Page): Promise<string[]> {
   return paths;
 }
 
-async function walk(context: BrowserContext, email: string): Promise<{ problems: Problem[]; seen: number }> {
+async function walk(
+  context: BrowserContext,
+  email: string,
+  pathsOf: (page: Page) => Promise<string[]> = screensOf,
+): Promise<{ problems: Problem[]; seen: number }> {
   const page = await context.newPage();
   const problems: Problem[] = [];
   let where = 'sign-in';
@@ -75,7 +79,7 @@ async function walk(context: BrowserContext, email: string): Promise<{ problems:
   });
   page.on('pageerror', (e) => problems.push(`${email} ${where}: uncaught ${e.message}`));
   await signInDemo(page, server.url, email);
-  const paths = await screensOf(page);
+  const paths = await pathsOf(page);
   for (const width of WIDTHS) {
     await page.setViewportSize({ width, height: 900 });
     for (const path of paths) {
@@ -103,4 +107,18 @@ describe('every main screen at 390 px and 1366 px', () => {
       expect(problems).toEqual([]);
     }, 240_000);
   }
+
+  it('fits the window and logs no console error, for the company admin (admin@tallyard.test), company page included', async () => {
+    const context = await browser.newContext();
+    const { problems, seen } = await walk(context, 'admin@tallyard.test', async (page) => {
+      await openScreen(page, '/company');
+      // The demo company's people, with their seats, and the admin link in the header.
+      await page.getByRole('table', { name: 'People of the company' }).waitFor();
+      await page.getByRole('link', { name: 'Company' }).first().waitFor();
+      return ['/inbox', '/jobs', '/company', '/account/password'];
+    });
+    await context.close();
+    expect(seen).toBe(4);
+    expect(problems).toEqual([]);
+  }, 240_000);
 });

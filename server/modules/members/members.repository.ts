@@ -1,6 +1,6 @@
-import { and, count, eq, inArray, or } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNull, or, type SQL } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
-import { companyMembers, projectMembers, projects, session, user } from '../../db/schema';
+import { companies, companyMembers, invitations, projectMembers, projects, session, user } from '../../db/schema';
 
 /** The seat a person holds on a project, with the person's name and e-mail. */
 export async function findSeat(db: Executor, projectId: string, userId: string) {
@@ -41,22 +41,68 @@ export async function adminCount(db: Executor, companyId: string): Promise<numbe
   return row!.n;
 }
 
+/** A role on a project whose seat this company fills (the project names it for that party). */
+function seatOfCompany(role: AnyRoleColumn, companyId: string): SQL {
+  return or(
+    and(eq(role, 'subcontractor'), eq(projects.subcontractorCompanyId, companyId)),
+    and(eq(role, 'general_contractor'), eq(projects.generalContractorCompanyId, companyId)),
+    and(eq(role, 'owner'), eq(projects.ownerCompanyId, companyId)),
+  )!;
+}
+type AnyRoleColumn = typeof projectMembers.role | typeof invitations.role;
+
 /** The seats a person holds on projects where this company fills that seat (the seats held through the company). */
 export async function seatsThroughCompany(db: Executor, companyId: string, userId: string) {
   return db
     .select({ id: projectMembers.id, projectId: projectMembers.projectId, role: projectMembers.role })
     .from(projectMembers)
     .innerJoin(projects, eq(projects.id, projectMembers.projectId))
-    .where(
-      and(
-        eq(projectMembers.userId, userId),
-        or(
-          and(eq(projectMembers.role, 'subcontractor'), eq(projects.subcontractorCompanyId, companyId)),
-          and(eq(projectMembers.role, 'general_contractor'), eq(projects.generalContractorCompanyId, companyId)),
-          and(eq(projectMembers.role, 'owner'), eq(projects.ownerCompanyId, companyId)),
-        ),
-      ),
-    );
+    .where(and(eq(projectMembers.userId, userId), seatOfCompany(projectMembers.role, companyId)));
+}
+
+export async function findCompany(db: Executor, companyId: string) {
+  const [row] = await db
+    .select({ id: companies.id, name: companies.name, kind: companies.kind })
+    .from(companies)
+    .where(eq(companies.id, companyId))
+    .limit(1);
+  return row;
+}
+
+/** Every seat the company's people hold through it, with the job's name, for the company page. */
+export async function companySeats(db: Executor, companyId: string) {
+  return db
+    .select({
+      userId: projectMembers.userId,
+      projectId: projects.id,
+      projectName: projects.name,
+      role: projectMembers.role,
+    })
+    .from(projectMembers)
+    .innerJoin(projects, eq(projects.id, projectMembers.projectId))
+    .innerJoin(companyMembers, eq(companyMembers.userId, projectMembers.userId))
+    .where(and(eq(companyMembers.companyId, companyId), seatOfCompany(projectMembers.role, companyId)))
+    .orderBy(asc(projects.name));
+}
+
+/** Invitations to this company's seats not yet accepted (expired ones too: the page says so). */
+export async function openInvitations(db: Executor, companyId: string) {
+  return db
+    .select({
+      id: invitations.id,
+      email: invitations.email,
+      role: invitations.role,
+      projectId: projects.id,
+      projectName: projects.name,
+      invitedBy: user.name,
+      sentAt: invitations.createdAt,
+      expiresAt: invitations.expiresAt,
+    })
+    .from(invitations)
+    .innerJoin(projects, eq(projects.id, invitations.projectId))
+    .innerJoin(user, eq(user.id, invitations.invitedByUserId))
+    .where(and(isNull(invitations.acceptedAt), seatOfCompany(invitations.role, companyId)))
+    .orderBy(asc(invitations.expiresAt));
 }
 
 export async function deleteSeats(db: Executor, ids: string[]) {

@@ -1,4 +1,4 @@
-import type { CompanyMemberView } from '../../../src/shared/schemas/project';
+import type { CompanyMemberView, CompanyPageView } from '../../../src/shared/schemas/project';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { AppError, conflict, notFound } from '../../lib/app-error';
@@ -43,6 +43,34 @@ export async function removeFromProject(db: Db, actor: Actor, projectId: string,
 function checkCompanyAdmin(actor: Actor, companyId: string) {
   if (!isUuid(companyId) || actor.companyId !== companyId) throw notFound('The company');
   if (!actor.isAdmin) throw new AppError(403, 'FORBIDDEN', 'Only an admin of the company manages its people.');
+}
+
+/** The company page: its people with the seats they hold through it, and the invitations still open. */
+export async function companyPage(db: Db, actor: Actor, companyId: string): Promise<CompanyPageView> {
+  checkCompanyAdmin(actor, companyId);
+  const [company, members, seats, open] = await Promise.all([
+    repo.findCompany(db, companyId),
+    repo.listCompanyMembers(db, companyId),
+    repo.companySeats(db, companyId),
+    repo.openInvitations(db, companyId),
+  ]);
+  if (!company) throw notFound('The company');
+  const now = Date.now();
+  return {
+    company,
+    people: members.map((m) => ({
+      ...m,
+      seats: seats
+        .filter((s) => s.userId === m.userId)
+        .map(({ projectId, projectName, role }) => ({ projectId, projectName, role })),
+    })),
+    invitations: open.map((i) => ({
+      ...i,
+      sentAt: i.sentAt.toISOString(),
+      expiresAt: i.expiresAt.toISOString(),
+      expired: i.expiresAt.getTime() <= now,
+    })),
+  };
 }
 
 export async function listCompanyMembers(db: Db, actor: Actor, companyId: string): Promise<CompanyMemberView[]> {

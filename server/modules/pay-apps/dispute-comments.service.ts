@@ -4,7 +4,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, forbidden, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canComment, canSeePayApp } from './pay-apps.policy';
+import { canComment, canSeePayApp } from '../../../src/shared/policies/pay-apps';
 import { findDispute } from './pay-apps.repository';
 
 /** A comment on a dispute thread, by either contractor on the project. */

@@ -4,7 +4,7 @@ import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-ap
 import type { Executor } from '../../db/client';
 import { payApps, payAppStatusHistory } from '../../db/schema';
 import { AppError, forbidden } from '../../lib/app-error';
-import { mayTake } from './pay-apps.policy';
+import { mayTake } from '../../../src/shared/policies/pay-apps';
 import { findPayApp, type PayAppRow } from './pay-apps.repository';
 
 const label = (s: string) => s.replace('_', ' ');

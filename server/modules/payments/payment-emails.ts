@@ -3,7 +3,7 @@ import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
 import type { PayAppRow, PaymentRow } from './payments.repository';
 import { memberEmails } from './payments.repository';
-import { chargedCents } from './payments.policy';
+import { chargedCents } from '../../../src/shared/policies/payments';
 
 const METHOD = { card: 'card', us_bank_account: 'ACH bank debit' } as const;
 const FOOTER =

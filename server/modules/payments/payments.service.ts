@@ -10,8 +10,8 @@ import { isFrozen } from '../../../src/shared/domain/pay-app-status';
 import { sumCents } from '../../../src/shared/domain/money';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../../../src/shared/policies/projects';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
-import { balanceCents, canPay, chargeAmount, chargedCents, PAYABLE_STATUSES } from './payments.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
+import { balanceCents, canPay, chargeAmount, chargedCents, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';
 import { feeQuote } from '../../../src/shared/domain/payment-fees';
 import { PAYMENT_METHODS } from '../../../src/shared/constants';
 import { presentPayApp, presentPayment } from './payments.presenter';
@@ -54,6 +54,8 @@ export async function listForProject(ctx: AppContext, actor: Actor, projectId: s
   return {
     payApps: apps.map((a) => presentPayApp(a, rows, project, ctx.feeRates)),
     payments: rows.map((r) => presentPayment(r, numbers.get(r.payAppId) ?? 0, history)),
+    feeBearer: project.processingFeeBearer,
+    feeRates: ctx.feeRates,
   };
 }
 

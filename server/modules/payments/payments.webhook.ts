@@ -9,7 +9,7 @@ import { findProject } from '../projects/projects.repository';
 import { queueWaiverRequest } from '../lien-waivers/waiver-requests';
 import { queueFailureNotice, queueReceipt } from './payment-emails';
 import { readPaymentSignal, type PaymentSignal } from './payment-events';
-import { canMovePayment, chargedCents } from './payments.policy';
+import { canMovePayment, chargedCents } from '../../../src/shared/policies/payments';
 import * as repo from './payments.repository';
 
 export type WebhookOutcome = 'applied' | 'duplicate' | 'ignored';

@@ -24,7 +24,7 @@ import { computeTally } from './tally-quantity';
 import { surfaceAgainstBaseline } from '../surface-baselines/measure-against';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 import { PAY_APP_STATUSES } from '../../../src/shared/constants';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 
 /**
  * One page of the project's tallies as summaries (no inputs, no engine result). The owner's side does not see

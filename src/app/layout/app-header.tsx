@@ -1,6 +1,7 @@
 import { Menu, X } from 'lucide-react';
 import { useState } from 'react';
 import { Link, NavLink, useLocation, useNavigation } from 'react-router';
+import { useMe } from '@/features/auth/api/get-me';
 import { UserMenu } from '@/features/auth/components/user-menu';
 import { InboxLink } from '@/features/inbox';
 import { MailboxLink } from '@/features/mailbox/components/mailbox-link';
@@ -75,23 +76,33 @@ export function AppHeader() {
   );
 }
 
+const mainLinkClass = ({ isActive }: { isActive: boolean }) =>
+  cn(
+    'rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white',
+    isActive && 'bg-spruce-800 text-white',
+  );
+
 function MainLinks() {
   return (
     <>
       <InboxLink />
-      <NavLink
-        to="/jobs"
-        className={({ isActive }) =>
-          cn(
-            'rounded px-2 py-1 text-sm text-spruce-100 hover:text-white focus-visible:outline-white',
-            isActive && 'bg-spruce-800 text-white',
-          )
-        }
-      >
+      <NavLink to="/jobs" className={mainLinkClass}>
         Jobs
       </NavLink>
+      <CompanyLink />
       <MailboxLink />
     </>
+  );
+}
+
+/** The company page, for its admins only. */
+function CompanyLink() {
+  const me = useMe();
+  if (!me.isAdmin || !me.company) return null;
+  return (
+    <NavLink to="/company" className={mainLinkClass}>
+      Company
+    </NavLink>
   );
 }
 

@@ -82,7 +82,13 @@ export type PayablePayAppView = {
 };
 
 export type PayAppPaymentsView = { payApp: PayablePayAppView; payments: PaymentView[] };
-export type ProjectPaymentsView = { payApps: PayablePayAppView[]; payments: PaymentView[] };
+export type ProjectPaymentsView = {
+  payApps: PayablePayAppView[];
+  payments: PaymentView[];
+  /** The project's setting (who bears processing fees) and the fee schedule the server charges by. */
+  feeBearer: FeeBearer;
+  feeRates: FeeRates;
+};
 
 /** An exception the signer adds to a waiver: what it is and how much, in whole cents. */
 export const waiverExceptionInputSchema = z

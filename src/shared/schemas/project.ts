@@ -83,6 +83,25 @@ export type ProjectMemberView = {
 /** A person of the signed-in admin's company (the company's own people list). */
 export type CompanyMemberView = { userId: string; name: string; email: string; isAdmin: boolean };
 
+/** GET /api/companies/:companyId (its admins only): the company, its people with their seats, open invitations. */
+export type CompanyPageView = {
+  company: CompanyView;
+  people: (CompanyMemberView & {
+    seats: { projectId: string; projectName: string; role: (typeof PROJECT_ROLES)[number] }[];
+  })[];
+  invitations: {
+    id: string;
+    email: string;
+    role: (typeof PROJECT_ROLES)[number];
+    projectId: string;
+    projectName: string;
+    invitedBy: string;
+    sentAt: string;
+    expiresAt: string;
+    expired: boolean;
+  }[];
+};
+
 export type ProjectSummaryView = {
   id: string;
   name: string;

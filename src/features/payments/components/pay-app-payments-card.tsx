@@ -2,7 +2,7 @@ import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { formatDate, formatMoney } from '@/lib/format';
 import type { PayablePayAppView, PaymentView } from '@/shared/schemas/payment';
-import { PAY_APP_STATUS_LABELS } from './labels';
+import { PAY_APP_STATUS_LABELS, PAY_APP_STATUS_TONES } from './labels';
 import { PayForm } from './pay-form';
 import { PaymentStatusBadge } from './payment-status-badge';
 
@@ -16,7 +16,15 @@ function Figure({ label, cents, strong }: { label: string; cents: number; strong
 }
 
 /** One certified application: what is due, paid and still processing; the owner's pay step; its payments. */
-export function PayAppPaymentsCard({ payApp, payments, canPay }: { payApp: PayablePayAppView; payments: PaymentView[]; canPay: boolean }) {
+export function PayAppPaymentsCard({
+  payApp,
+  payments,
+  canPay,
+}: {
+  payApp: PayablePayAppView;
+  payments: PaymentView[];
+  canPay: boolean;
+}) {
   const mine = payments.filter((p) => p.payAppId === payApp.id);
   return (
     <Card aria-label={`Pay application ${payApp.number}`}>
@@ -28,7 +36,7 @@ export function PayAppPaymentsCard({ payApp, payments, canPay }: { payApp: Payab
             {formatDate(payApp.periodStart)} – {formatDate(payApp.periodEnd)}
           </span>
         </CardTitle>
-        <Badge tone={payApp.status === 'paid' ? 'spruce' : payApp.status === 'certified' ? 'neutral' : 'clay'} data-testid="pay-app-status">
+        <Badge tone={PAY_APP_STATUS_TONES[payApp.status] ?? 'clay'} data-testid="pay-app-status">
           {PAY_APP_STATUS_LABELS[payApp.status] ?? payApp.status}
         </Badge>
       </CardHeader>
@@ -41,7 +49,9 @@ export function PayAppPaymentsCard({ payApp, payments, canPay }: { payApp: Payab
         </dl>
         {canPay && payApp.payable ? <PayForm payApp={payApp} /> : null}
         {canPay && !payApp.payable && payApp.processingCents > 0 ? (
-          <p className="text-sm text-stone-600">A bank debit is processing; the balance opens again only if it fails.</p>
+          <p className="text-sm text-stone-600">
+            A bank debit is processing; the balance opens again only if it fails.
+          </p>
         ) : null}
         {mine.length > 0 ? (
           <ul className="flex flex-col gap-1 text-sm" aria-label={`Payments on application ${payApp.number}`}>
@@ -50,7 +60,9 @@ export function PayAppPaymentsCard({ payApp, payments, canPay }: { payApp: Payab
                 <PaymentStatusBadge status={p.status} />
                 <span className="tabular-nums">{formatMoney(p.amountCents)}</span>
                 <span className="text-stone-600">{formatDate(p.createdAt)}</span>
-                {p.status === 'failed' && p.failureMessage ? <span className="text-brick-700 text-xs">{p.failureMessage}</span> : null}
+                {p.status === 'failed' && p.failureMessage ? (
+                  <span className="text-xs text-brick-700">{p.failureMessage}</span>
+                ) : null}
               </li>
             ))}
           </ul>

@@ -3,7 +3,11 @@ import { Badge } from '@/components/ui/badge';
 import type { PaymentStatus } from '@/shared/constants';
 import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES } from './labels';
 
-const ICONS: Partial<Record<PaymentStatus, typeof Clock>> = { processing: Clock, succeeded: CheckCircle2, failed: CircleX };
+const ICONS: Partial<Record<PaymentStatus, typeof Clock>> = {
+  processing: Clock,
+  succeeded: CheckCircle2,
+  failed: CircleX,
+};
 
 export function PaymentStatusBadge({ status }: { status: PaymentStatus }) {
   const Icon = ICONS[status];
