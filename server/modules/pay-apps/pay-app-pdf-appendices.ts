@@ -6,6 +6,7 @@ import { drawTable, sectionTitle, STONE, type PdfColumn, type PdfDoc } from './p
 
 const cy = (n: number) => formatNumber(n, 2);
 const tons = (n: number) => formatNumber(n, 2);
+const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 const sum = (values: number[]) => values.reduce((s, v) => addDecimals(s, v, 4), 0);
 
 function none(doc: PdfDoc, text: string) {
@@ -42,7 +43,7 @@ function truckTickets(doc: PdfDoc, rows: PayAppBackup['truckTickets']) {
     { title: 'Flags', w: 126, cell: (r) => r.flags.map((f) => f.replace(/_/g, ' ')).join(', ') },
   ];
   drawTable(doc, cols, rows, [
-    `${rows.length} loads`,
+    count(rows.length, 'load'),
     '',
     '',
     '',
@@ -83,7 +84,7 @@ function scaleTickets(doc: PdfDoc, rows: PayAppBackup['scaleTickets']) {
     { title: 'Checkers', w: 60, cell: (r) => `${r.scaleCheckerInitials} / ${r.deliveryCheckerInitials}` },
   ];
   drawTable(doc, cols, rows, [
-    `${rows.length} tickets`,
+    count(rows.length, 'ticket'),
     '',
     '',
     '',
@@ -126,7 +127,7 @@ function dailySheets(doc: PdfDoc, rows: PayAppBackup['dailySheets']) {
   ];
   const total = (pick: (r: R) => number) => dollars(sumCents(rows.map(pick)));
   drawTable(doc, cols, rows, [
-    `${rows.length} days`,
+    count(rows.length, 'day'),
     '',
     '',
     total((r) => r.totals.labor.totalCents),
