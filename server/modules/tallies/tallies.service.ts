@@ -14,6 +14,7 @@ import type { Page } from '../../../src/shared/schemas/paging';
 import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
 import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
@@ -75,14 +76,17 @@ async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: strin
  */
 async function sanityReasonFor(
   db: Executor,
-  item: { id: string; contractQuantity: number; payUnit: string },
+  item: { id: string; projectId: string; contractQuantity: number; payUnit: string },
   quantity: number,
   tallyId: string | null,
   reason: string | null | undefined,
 ) {
+  // The current contract quantity (original + approved change orders, src/shared/domain/contract.ts), never the
+  // bid item's original column: an item grown by a change order is judged against what the contract now says.
+  const contract = await loadContract(db, item.projectId);
   const concerns = sanityConcerns({
     quantity,
-    contractQuantity: item.contractQuantity,
+    contractQuantity: contract.byId.get(item.id)?.contractQuantity ?? item.contractQuantity,
     talliedElsewhere: await repo.talliedQuantity(db, item.id, tallyId),
     payUnit: item.payUnit,
   });
