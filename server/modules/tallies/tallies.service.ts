@@ -22,6 +22,7 @@ import { canWriteTallies, isEditableTally, tallyCan } from '../../../src/shared/
 import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
+import { surfaceAgainstBaseline } from '../surface-baselines/measure-against';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 import { PAY_APP_STATUSES } from '../../../src/shared/constants';
 import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
@@ -106,7 +107,12 @@ async function computedColumns(
   tallyId: string | null = null,
 ) {
   const item = await itemOnProject(db, project, input.bidItemId);
-  const result = await computeTally(input, item, project, compute);
+  // Surface tallies measure against the project's locked original ground (surface-baselines/measure-against.ts).
+  const baseline = input.method === 'surface' ? await surfaceAgainstBaseline(db, project.id, input.inputs) : null;
+  const measured = baseline ? { ...input, inputs: baseline.engineInputs } : input;
+  const computed = await computeTally(measured, item, project, compute);
+  const result = baseline ? { ...computed, trail: [baseline.trail, ...computed.trail] } : computed;
+  input = baseline ? { ...measured, inputs: { ...baseline.engineInputs, ...baseline.kept } } : input;
   const sanityReason = await sanityReasonFor(db, item, result.quantity, tallyId, input.sanityReason);
   return {
     sanityReason,
