@@ -12,3 +12,4 @@ export * from './pay-app-relations';
 export * from './provisions-tickets';
 export * from './provisions-accounts';
 export * from './idempotency';
+export * from './surface-baselines';
