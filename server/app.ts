@@ -46,6 +46,7 @@ import { scaleTicketsRouter } from './modules/scale-tickets/scale-tickets.routes
 import { forceAccountRouter } from './modules/force-account/force-account.routes';
 import { payAdjustmentsRouter } from './modules/pay-adjustments/pay-adjustments.routes';
 import { storedMaterialsRouter } from './modules/stored-materials/stored-materials.routes';
+import { surfaceBaselinesRouter } from './modules/surface-baselines/surface-baselines.routes';
 import type { AppContext } from './app-context';
 import { uploadLimits, type UploadLimits } from './lib/upload';
 
@@ -138,6 +139,7 @@ export function createApp(deps: AppDeps): Express {
         /^\/change-orders\/[^/]+\/documents$/,
         /^\/projects\/[^/]+\/bid-items\/import$/,
         /^\/calc\/surface$/,
+        /^\/projects\/[^/]+\/surface-baselines$/,
       ],
     }),
   );
@@ -198,6 +200,8 @@ export function createApp(deps: AppDeps): Express {
   // Measurement and payment provisions (issue 15).
   app.use('/api', measurementProfilesRouter(ctx), haulTicketsRouter(ctx), scaleTicketsRouter(ctx));
   app.use('/api', forceAccountRouter(ctx), storedMaterialsRouter(ctx), payAdjustmentsRouter(ctx));
+  // Signed original ground surfaces (issue 13).
+  app.use('/api', surfaceBaselinesRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

@@ -95,9 +95,13 @@ export type MethodBilling =
       components: readonly TallyComponent[];
       /** Measure the method's volume is in unless the tally says otherwise (cut bank, fill compacted: US Navy EO manual, Table 4-1). */
       measuredBasis: MeasurementBasis | 'by-component';
-      /** Decimals the billed quantity is rounded to: truck measure pays to 0.1 (a state DOT construction manual,
-       * section 109.11); the others keep the stored precision, numeric(16,4). */
-      payDecimals: number;
+      /**
+       * How the billed quantity is rounded. `pay-unit`: to the pay decimals of the item's unit (DEFAULT_PAY_DECIMALS,
+       * the one table of pay precision), from a figure one decimal finer: truck measure, paid to 0.1 CY from the 0.01
+       * figure (a state DOT construction manual, section 109.11). `stored`: kept to the stored precision
+       * (STORED_QUANTITY_DECIMALS, numeric(16,4)); the pay application rounds the line.
+       */
+      payRounding: 'pay-unit' | 'stored';
     }
   | { bills: false; reason: string };
 
@@ -111,18 +115,24 @@ export const METHOD_BILLING: Record<MeasurementMethod, MethodBilling> = {
     yields: 'volume',
     components: TALLY_COMPONENTS,
     measuredBasis: 'by-component',
-    payDecimals: 4,
+    payRounding: 'stored',
   },
-  grid: { bills: true, yields: 'volume', components: TALLY_COMPONENTS, measuredBasis: 'by-component', payDecimals: 4 },
-  pit: { bills: true, yields: 'volume', components: [], measuredBasis: 'bank', payDecimals: 4 },
-  trench: { bills: true, yields: 'volume-or-length', components: [], measuredBasis: 'bank', payDecimals: 4 },
-  'load-count': { bills: true, yields: 'volume', components: [], measuredBasis: 'loose', payDecimals: 1 },
+  grid: {
+    bills: true,
+    yields: 'volume',
+    components: TALLY_COMPONENTS,
+    measuredBasis: 'by-component',
+    payRounding: 'stored',
+  },
+  pit: { bills: true, yields: 'volume', components: [], measuredBasis: 'bank', payRounding: 'stored' },
+  trench: { bills: true, yields: 'volume-or-length', components: [], measuredBasis: 'bank', payRounding: 'stored' },
+  'load-count': { bills: true, yields: 'volume', components: [], measuredBasis: 'loose', payRounding: 'pay-unit' },
   surface: {
     bills: true,
     yields: 'volume',
     components: TALLY_COMPONENTS,
     measuredBasis: 'by-component',
-    payDecimals: 4,
+    payRounding: 'stored',
   },
   spoil: {
     bills: false,
@@ -133,7 +143,7 @@ export const METHOD_BILLING: Record<MeasurementMethod, MethodBilling> = {
     reason:
       'Mass haul gives overhaul in station-yards, which is not a pay unit of the bid schedule; enter it as a direct quantity with its basis.',
   },
-  manual: { bills: true, yields: 'direct', components: [], measuredBasis: 'bank', payDecimals: 4 },
+  manual: { bills: true, yields: 'direct', components: [], measuredBasis: 'bank', payRounding: 'stored' },
 };
 
 export function methodBills(method: MeasurementMethod): boolean {
@@ -330,6 +340,9 @@ export const DEFAULT_PAY_DECIMALS: Record<PayUnit, number> = {
 };
 export const MAX_PAY_DECIMALS = 3;
 
+/** Decimals a quantity is stored with (the numeric(16,4) columns); not a pay rule. */
+export const STORED_QUANTITY_DECIMALS = 4;
+
 /** How a lump-sum item is earned: a percent complete, or the stages of its schedule. */
 export const LUMP_SUM_METHODS = ['percent', 'stages'] as const;
 export type LumpSumMethod = (typeof LUMP_SUM_METHODS)[number];
@@ -378,3 +391,12 @@ export const INBOX_KINDS = [
   'invitation_pending',
 ] as const;
 export type InboxKind = (typeof INBOX_KINDS)[number];
+
+/**
+ * A project's original ground surface (surface baseline): recorded by one party, proposed until both the
+ * subcontractor and the general contractor accept it, then locked; a later accepted one replaces it.
+ */
+export const BASELINE_STATUSES = ['proposed', 'locked', 'replaced'] as const;
+export type BaselineStatus = (typeof BASELINE_STATUSES)[number];
+/** Largest surface baseline file (a LandXML surface of about a million points with its faces). */
+export const MAX_BASELINE_BYTES = 100 * 1024 * 1024;

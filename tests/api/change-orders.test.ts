@@ -230,7 +230,14 @@ describe('change orders: deciding', () => {
         .post(`/api/projects/${w.home.id}/change-orders`)
         .send(quantityChange(item.id, 25))
     ).body.changeOrder;
+    // `can` names the side each reader decides for, and drops it once that side has approved.
+    expect(co.can).toEqual({ decide: false, decideAs: null, attachDocuments: true });
+    const canOf = async (who: 'owner' | 'general_contractor') =>
+      (await (await as(who)).get(`/api/change-orders/${co.id}`)).body.changeOrder.can;
+    expect(await canOf('owner')).toEqual({ decide: true, decideAs: 'owner', attachDocuments: true });
+    expect(await canOf('general_contractor')).toMatchObject({ decide: true, decideAs: 'gc' });
     const first = await (await as('owner')).post(`/api/change-orders/${co.id}/approve`).send({});
+    expect(first.body.changeOrder.can).toMatchObject({ decide: false, decideAs: null });
     expect(first.body.changeOrder).toMatchObject({
       status: 'proposed',
       ownerApproval: { by: { userId: w.people.owner.id } },
@@ -239,6 +246,7 @@ describe('change orders: deciding', () => {
     expect((await (await as('owner')).post(`/api/change-orders/${co.id}/approve`).send({})).status).toBe(409);
     const second = await (await as('general_contractor')).post(`/api/change-orders/${co.id}/approve`).send({});
     expect(second.body.changeOrder.status).toBe('approved');
+    expect(second.body.changeOrder.can).toEqual({ decide: false, decideAs: null, attachDocuments: false });
     const actions = (await db.select().from(auditEvents).where(eq(auditEvents.objectId, co.id))).map((e) => e.action);
     expect(actions).toEqual(['change_order.proposed', 'change_order.owner_approved', 'change_order.approved']);
     await db.update(projects).set({ ownerApprovesChangeOrders: false }).where(eq(projects.id, w.home.id));

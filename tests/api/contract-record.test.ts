@@ -285,7 +285,7 @@ describe('original beside current: a change order moves the contract everywhere'
     expect(sum('thisPeriodAmountCents')).toBe(nov.thisPeriodCents);
 
     const text = await pdfText(nov.id);
-    expect(text).toContain('Contract sum $33,850.00');
+    expect(text).toContain('Contract sum to date $33,850.00');
     expect(text).toMatch(/A-1 .*CY \$8\.00 1,600\.00/);
     const rows = await csvRows(nov.id);
     const a1 = rows.find((r) => r[0] === 'A-1')!;

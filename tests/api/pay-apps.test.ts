@@ -127,6 +127,13 @@ describe('pay applications: the October period, step by step', () => {
     expect((await (await as('owner')).post(`/api/pay-apps/${id}/submit`).send({})).status).toBe(404);
   });
 
+  it('tells each reader what it may do now (`can`): submit for the subcontractor only, review for nobody yet', async () => {
+    const sub = (await (await as('subcontractor')).get(`/api/pay-apps/${id}`)).body.payApp.can;
+    const gc = (await (await as('general_contractor')).get(`/api/pay-apps/${id}`)).body.payApp.can;
+    expect(sub).toMatchObject({ submit: true, review: false, certify: false, answer: false, comment: true });
+    expect(gc).toMatchObject({ submit: false, review: false, certify: false, pay: false, comment: true });
+  });
+
   it('submits: a stale revision is 409 PAY_APP_STALE, then the general contractor gets the e-mail with the link', async () => {
     const sub = await as('subcontractor');
     const stale = await sub.post(`/api/pay-apps/${id}/submit`).send({ expectedRevision: 3 });
@@ -135,6 +142,11 @@ describe('pay applications: the October period, step by step', () => {
     const res = await sub.post(`/api/pay-apps/${id}/submit`).send({ expectedRevision: 0 });
     expect(res.status).toBe(200);
     expect(res.body.payApp.status).toBe('submitted');
+    expect(res.body.payApp.can).toMatchObject({ submit: false, review: false });
+    expect((await (await as('general_contractor')).get(`/api/pay-apps/${id}`)).body.payApp.can).toMatchObject({
+      review: true,
+      certify: true,
+    });
     expect((await sub.post(`/api/pay-apps/${id}/submit`).send({})).status).toBe(409);
     const mail = await waitForMail(w.people.general_contractor.email, /ready for review/);
     expect(mail.text).toContain(`/projects/${w.home.id}/pay-apps/${id}`);

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { quantityChange } from '../setup/change-order-factories';
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { auditActions } from '../setup/pay-cycle-factories';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
@@ -78,6 +79,26 @@ describe('sanity limits before saving', () => {
     const second = await agent.post(url()).send(body); // remaining 77.78, twice that 155.56 < 222.22
     expect(second.body.error.code).toBe('SANITY_REASON_REQUIRED');
     expect(second.body.error.message).toMatch(/more than twice the quantity left on the item \(77\.78 CY/);
+  });
+
+  it('judges against the current contract quantity: original plus the approved change order, not the original', async () => {
+    // 20 CY bid; change order +100 CY approved -> 120 CY (src/shared/domain/contract.ts). 222.22 CY is more than
+    // 10 x 20 = 200 (the original) but within 2 x 120 = 240 and 10 x 120 = 1,200 (the current contract).
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 20 });
+    const agent = await sub();
+    const body = { bidItemId: item.id, measuredOn: '2026-10-15', method: 'end-area', inputs: navy };
+    expect((await agent.post(url()).send(body)).body.error.code).toBe('SANITY_REASON_REQUIRED');
+    const co = await agent.post(`/api/projects/${w.home.id}/change-orders`).send(quantityChange(item.id, 100));
+    const gc = await signedInAgent(t.app, w.people.general_contractor.email);
+    const proposedOnly = await agent.post(url()).send(body);
+    expect(proposedOnly.body.error.code).toBe('SANITY_REASON_REQUIRED'); // a proposed change counts for nothing
+    expect((await gc.post(`/api/change-orders/${co.body.changeOrder.id}/approve`).send({})).status).toBe(200);
+    const saved = await agent.post(url()).send(body);
+    expect(saved.status).toBe(201);
+    expect(saved.body.tally).toMatchObject({ quantity: 222.2222, sanityReason: null });
+    // The remaining limit reads the current quantity too: 120 - 222.22 tallied leaves 0, so a second one asks.
+    const second = await agent.post(url()).send(body);
+    expect(second.body.error.message).toMatch(/quantity left on the item \(0\.00 CY of 120\.00/);
   });
 
   it('refuses a reason shorter than 10 characters', async () => {

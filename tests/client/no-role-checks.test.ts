@@ -14,20 +14,8 @@ import { ACCESS_ROLES, CHANGE_ORDER_STATUSES, PAY_APP_STATUSES, TALLY_STATUSES }
  */
 const PENDING: Record<string, string> = {
   'src/features/auth/api/get-me.ts': 'projects slice (who may set up a project)',
-  'src/features/change-orders/components/change-order-detail.tsx': 'change orders slice',
-  'src/features/change-orders/components/decision-panel.tsx': 'change orders slice',
   'src/features/field-records/components/pay-basis-screen.tsx': 'field records slice',
-  'src/features/pay-apps/components/pay-app-commands.tsx': 'pay applications slice',
-  'src/features/pay-apps/components/pay-app-detail.tsx': 'pay applications slice',
-  'src/features/payments/components/pay-app-payments-card.tsx': 'pay applications slice',
   'src/features/projects/api/get-project.ts': 'projects slice (the seat an admin manages)',
-  'src/app/routes/project-bid-items.tsx': 'change orders slice',
-  'src/app/routes/project-change-orders.tsx': 'change orders slice',
-  'src/app/routes/project-pay-app.tsx': 'pay applications slice',
-  'src/app/routes/project-pay-apps.tsx': 'pay applications slice',
-  'src/app/routes/project-payments.tsx': 'pay applications slice',
-  'src/app/routes/project-quantity-watch.tsx': 'change orders slice',
-  'src/app/routes/project-waivers.tsx': 'waivers slice',
 };
 
 const walk = (dir: string): string[] =>

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { unit as mathUnit } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import {
+  DEFAULT_PAY_DECIMALS,
   MEASUREMENT_METHODS,
   METHOD_BILLING,
   type MeasurementBasis,
@@ -9,6 +10,7 @@ import {
 } from '../../src/shared/constants';
 import { billedQuantity, type BillItem } from '../../src/shared/domain/billed-quantity';
 import { runCalc } from '../../src/shared/domain/calc';
+import { payQuantityOf, precisionFor } from '../../src/shared/domain/provisions/precision';
 import { isDomainError } from '../../src/shared/domain/domain-error';
 
 const us = { swellPercent: 25, shrinkagePercent: 10, units: 'us' as const };
@@ -113,6 +115,20 @@ describe('billed quantity: hand-worked conversions (reference.md section 3)', ()
   it('pays truck measure to 0.1 from the 0.01 figure: 11.38 -> 11.4, 11.34 -> 11.3 (state DOT construction manual section 109.11)', () => {
     expect(bill('load-count', tickets(11.38), item('CY', 'loose')).quantity).toBe(11.4);
     expect(bill('load-count', tickets(11.34), item('CY', 'loose')).quantity).toBe(11.3);
+  });
+
+  it('takes the pay decimals from the one table of pay precision (DEFAULT_PAY_DECIMALS), never from the method table', () => {
+    for (const method of MEASUREMENT_METHODS) expect(METHOD_BILLING[method]).not.toHaveProperty('payDecimals');
+    expect(DEFAULT_PAY_DECIMALS.CY).toBe(1); // truck measure paid to 0.1 CY (state DOT construction manual 109.11)
+    // Loose CY to a loose item: no conversion, so the bill is the ticket total paid to the CY precision.
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 5_000_000 }), (hundredths) => {
+        const capacity = hundredths / 100;
+        const billed = bill('load-count', tickets(capacity), item('CY', 'loose')).quantity;
+        expect(billed).toBe(payQuantityOf(capacity, precisionFor('CY')));
+      }),
+      { numRuns: 200 },
+    );
   });
 
   it('bills tons by density: bank 3,400 lb/CY and loose 2,700 lb/CY (published check, 25.9 % swell); 100 loose CY weigh 270,000 lb = 135.0 tons', () => {

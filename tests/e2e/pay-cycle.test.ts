@@ -329,7 +329,7 @@ describe('pay cycle in the browser', () => {
       new RegExp(`^Pay application ${number} \\(revision ${revised.revision}\\).*is certified`),
     );
     const currentDue = (await gc
-      .locator('dt', { hasText: /^Current due$/ })
+      .locator('dt', { hasText: /^Due on this application$/ })
       .locator('xpath=following-sibling::dd')
       .textContent())!.trim();
     expect(askForPayment.subject).toContain(`${currentDue} due`);
@@ -348,7 +348,7 @@ describe('pay cycle in the browser', () => {
     await statusIs(owner, number, 'Certified');
     expect(
       (await owner
-        .locator('dt', { hasText: /^Current due$/ })
+        .locator('dt', { hasText: /^Due on this application$/ })
         .locator('xpath=following-sibling::dd')
         .textContent())!.trim(),
     ).toBe(currentDue);

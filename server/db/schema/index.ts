@@ -13,3 +13,4 @@ export * from './provisions-tickets';
 export * from './provisions-accounts';
 export * from './idempotency';
 export * from './sign-in-limits';
+export * from './surface-baselines';

@@ -52,6 +52,8 @@ export const payApps = pgTable(
     retainageCents: cents('retainage_cents').notNull().default(0),
     previousCertifiedCents: cents('previous_certified_cents').notNull().default(0),
     currentDueCents: cents('current_due_cents').notNull().default(0),
+    /** Deductions and adjustments dated up to the period's end (negative: deducted), summed at compilation. */
+    adjustmentsCents: cents('adjustments_cents').notNull().default(0),
     paidCents: cents('paid_cents').notNull().default(0),
     submittedAt: timestamp('submitted_at', { withTimezone: true }),
     certifiedAt: timestamp('certified_at', { withTimezone: true }),
@@ -88,6 +90,8 @@ export const payAppLines = pgTable(
     thisPeriodAmountCents: cents('this_period_amount_cents').notNull(),
     amountToDateCents: cents('amount_to_date_cents').notNull(),
     retainageCents: cents('retainage_cents').notNull(),
+    /** Materials stored and not yet built in for the item at the period's end (payable value), at compilation. */
+    storedMaterialsCents: cents('stored_materials_cents').notNull().default(0),
     reviewStatus: lineReviewStatus('review_status').notNull().default('pending'),
     ...timestamps,
   },

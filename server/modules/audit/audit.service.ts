@@ -2,7 +2,7 @@ import type { AuditEventView, AuditPage, AuditQuery } from '../../../src/shared/
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { loadPayAppAccess } from '../pay-apps/pay-app-access';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 import { loadProjectAccess } from '../projects/project-access';
 import { presentAuditEvent } from './audit.presenter';
 import * as repo from './audit-query.repository';

@@ -11,7 +11,7 @@ import type { ProjectRow } from '../projects/projects.repository';
 import { changeOrderApprovedMail, changeOrderRejectedMail } from './change-order-emails';
 import { checkChangeOrderItems } from './change-order-checks';
 import { loadContract, type LoadedContract } from './contract-quantities.repository';
-import { decisionSides, isFullyApproved, type ApprovalSide } from './change-orders.policy';
+import { decisionSides, isFullyApproved, type ApprovalSide } from '../../../src/shared/policies/change-orders';
 import * as repo from './change-orders.repository';
 import { loadChangeOrder, presentContext, viewOf, type ChangeOrderContext } from './change-orders.service';
 
@@ -94,7 +94,7 @@ export async function approveChangeOrder(
   id: string,
   note: string,
 ): Promise<ChangeOrderView> {
-  const { row, project, sides } = await loadForDecision(db, actor, id);
+  const { row, project, sides, roles } = await loadForDecision(db, actor, id);
   const side: ApprovalSide | undefined = sides.find((s) => (s === 'gc' ? !row.gcApprovedAt : !row.ownerApprovedAt));
   if (!side) throw conflict('CHANGE_ORDER_ALREADY_APPROVED', 'Your side has already approved this change order.');
   const now = new Date();
@@ -109,7 +109,7 @@ export async function approveChangeOrder(
     let applied: unknown[] = [];
     const complete = isFullyApproved(marked, project.ownerApprovesChangeOrders);
     if (complete) {
-      const ctx = await presentContext(tx, project, []);
+      const ctx = await presentContext(tx, project, [], roles);
       const items = (await repo.itemsOf(tx, [id])).map((i) => ({ ...i, newItem: i.newItem as BidItemInput | null }));
       checkChangeOrderItems(items, ctx.bidItems, ctx.quantities);
       const contractBefore = await loadContract(tx, project.id);
@@ -125,7 +125,7 @@ export async function approveChangeOrder(
       before: { status: row.status },
       after: { status: after.status, side, note, ...(complete ? { applied } : {}) },
     });
-    const view = await viewOf(tx, project, after);
+    const view = await viewOf(tx, project, after, roles);
     if (complete) {
       await enqueueEmail(
         tx,
@@ -147,7 +147,7 @@ export async function rejectChangeOrder(
   id: string,
   note: string,
 ): Promise<ChangeOrderView> {
-  const { row, project, sides } = await loadForDecision(db, actor, id);
+  const { row, project, sides, roles } = await loadForDecision(db, actor, id);
   return db.transaction(async (tx) => {
     const after = await repo.updateIfProposed(tx, id, {
       status: 'rejected',
@@ -164,7 +164,7 @@ export async function rejectChangeOrder(
       before: { status: row.status },
       after: { status: after.status, side: sides[0], note },
     });
-    const view = await viewOf(tx, project, after);
+    const view = await viewOf(tx, project, after, roles);
     await enqueueEmail(
       tx,
       changeOrderRejectedMail(

@@ -11,7 +11,7 @@ import { sizeOf, storeCheckedFiles, type CheckedFile } from '../tallies/evidence
 import { lockedProjectStoredBytes } from '../tallies/tallies.repository';
 import { assertProjectQuota, DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
 import * as docs from './change-order-documents.repository';
-import { canAttachChangeOrderDocument, documentsOpen } from './change-orders.policy';
+import { canAttachChangeOrderDocument, documentsOpen } from '../../../src/shared/policies/change-orders';
 import * as repo from './change-orders.repository';
 import { loadChangeOrder } from './change-orders.service';
 

@@ -1,3 +1,5 @@
+import type { AccessRole } from '../../../src/shared/constants';
+import { changeOrderCan } from '../../../src/shared/policies/change-orders';
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
 import type { BidItemInput } from '../../../src/shared/schemas/bid-item';
 import type {
@@ -17,6 +19,8 @@ export type PresentContext = {
   prices: Map<string, number>;
   names: Map<string, string>;
   ownerApprovalRequired: boolean;
+  /** The reader's roles on the project: what it may do with each change order (`can`) follows from them. */
+  roles: AccessRole[];
 };
 
 function presentItem(row: ChangeOrderItemRow, ctx: PresentContext): ChangeOrderItemView {
@@ -88,5 +92,6 @@ export function presentChangeOrder(
     items: itemViews,
     history: presentHistory(history),
     createdAt: row.createdAt.toISOString(),
+    can: changeOrderCan(ctx.roles, row, ctx.ownerApprovalRequired),
   };
 }

@@ -1,3 +1,4 @@
+import type { AccessRole } from '../../../src/shared/constants';
 import type {
   ChangeOrderView,
   ContractQuantityView,
@@ -16,11 +17,16 @@ import type { ProjectRow } from '../projects/projects.repository';
 import { checkChangeOrderItems } from './change-order-checks';
 import { changeOrderProposedMail } from './change-order-emails';
 import { presentChangeOrder, type PresentContext } from './change-orders.presenter';
-import { canProposeChangeOrder, decisionSides } from './change-orders.policy';
+import { canProposeChangeOrder, decisionSides } from '../../../src/shared/policies/change-orders';
 import * as repo from './change-orders.repository';
 import { contractQuantities, loadContract, quantitiesOf } from './contract-quantities.repository';
 
-export async function presentContext(db: Executor, project: ProjectRow, userIds: string[]): Promise<PresentContext> {
+export async function presentContext(
+  db: Executor,
+  project: ProjectRow,
+  userIds: string[],
+  roles: AccessRole[],
+): Promise<PresentContext> {
   const [items, contract, names] = await Promise.all([
     listBidItems(db, project.id),
     loadContract(db, project.id),
@@ -32,23 +38,29 @@ export async function presentContext(db: Executor, project: ProjectRow, userIds:
     prices: new Map(contract.items.map((i) => [i.bidItemId, i.unitPriceCents])),
     names,
     ownerApprovalRequired: project.ownerApprovesChangeOrders,
+    roles,
   };
 }
 
 const peopleOf = (rows: repo.ChangeOrderRow[]) =>
   rows.flatMap((r) => [r.proposedByUserId, r.gcApprovedByUserId ?? '', r.ownerApprovedByUserId ?? '']).filter(Boolean);
 
-export async function viewOf(db: Executor, project: ProjectRow, row: repo.ChangeOrderRow): Promise<ChangeOrderView> {
+export async function viewOf(
+  db: Executor,
+  project: ProjectRow,
+  row: repo.ChangeOrderRow,
+  roles: AccessRole[],
+): Promise<ChangeOrderView> {
   const [items, history, ctx] = await Promise.all([
     repo.itemsOf(db, [row.id]),
     listObjectAudit(db, project.id, 'change_order', row.id),
-    presentContext(db, project, peopleOf([row])),
+    presentContext(db, project, peopleOf([row]), roles),
   ]);
   return presentChangeOrder(row, items, history, ctx);
 }
 
 export async function listChangeOrders(db: Db, actor: Actor, projectId: string): Promise<ChangeOrderView[]> {
-  const { project } = await loadProjectAccess(db, actor, projectId);
+  const { project, roles } = await loadProjectAccess(db, actor, projectId);
   const rows = await repo.listChangeOrders(db, projectId);
   const [items, history, ctx] = await Promise.all([
     repo.itemsOf(
@@ -56,7 +68,7 @@ export async function listChangeOrders(db: Db, actor: Actor, projectId: string):
       rows.map((r) => r.id),
     ),
     listProjectAudit(db, projectId, { objectType: 'change_order', limit: 10_000, offset: 0 }),
-    presentContext(db, project, peopleOf(rows)),
+    presentContext(db, project, peopleOf(rows), roles),
   ]);
   return rows.map((row) =>
     presentChangeOrder(
@@ -83,8 +95,8 @@ export async function loadChangeOrder(
 }
 
 export async function getChangeOrder(db: Db, actor: Actor, id: string): Promise<ChangeOrderView> {
-  const { row, project } = await loadChangeOrder(db, actor, id);
-  return viewOf(db, project, row);
+  const { row, project, roles } = await loadChangeOrder(db, actor, id);
+  return viewOf(db, project, row, roles);
 }
 
 /**
@@ -110,9 +122,9 @@ export async function proposeChangeOrder(
   input: CreateChangeOrderInput,
   action = 'change_order.proposed',
 ): Promise<ChangeOrderView> {
-  const { project } = await loadProjectAccess(db, actor, projectId, canProposeChangeOrder);
+  const { project, roles } = await loadProjectAccess(db, actor, projectId, canProposeChangeOrder);
   return db.transaction(async (tx) => {
-    const ctx = await presentContext(tx, project, []);
+    const ctx = await presentContext(tx, project, [], roles);
     checkChangeOrderItems(input.items, ctx.bidItems, ctx.quantities);
     const row = await repo.insertChangeOrder(tx, projectId, actor.userId, input);
     await recordAudit(tx, {
@@ -130,7 +142,7 @@ export async function proposeChangeOrder(
         note: row.reason,
       },
     });
-    const view = await viewOf(tx, project, row);
+    const view = await viewOf(tx, project, row, roles);
     await enqueueEmail(
       tx,
       changeOrderProposedMail(

@@ -7,10 +7,10 @@ import type {
   ProjectRole,
 } from '../../../src/shared/constants';
 import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-app-status';
-import { decisionSides } from '../change-orders/change-orders.policy';
-import { canIssueWaiver, waiverOptions } from '../lien-waivers/lien-waivers.policy';
-import { mayTake } from '../pay-apps/pay-apps.policy';
-import { balanceCents, canPay, PAYABLE_STATUSES } from '../payments/payments.policy';
+import { decisionSides } from '../../../src/shared/policies/change-orders';
+import { canIssueWaiver, waiverOptions } from '../../../src/shared/policies/lien-waivers';
+import { mayTake } from '../../../src/shared/policies/pay-apps';
+import { balanceCents, canPay, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';
 import { canManagePeople, managedSeat } from '../../../src/shared/policies/projects';
 
 /**

@@ -2,7 +2,7 @@ import type { AccessRole } from '../../../src/shared/constants';
 import type { InboxEntryView, InboxView } from '../../../src/shared/schemas/inbox';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
-import { balanceCents } from '../payments/payments.policy';
+import { balanceCents } from '../../../src/shared/policies/payments';
 import { accessRoles } from '../../../src/shared/policies/projects';
 import { listVisibleProjects, rolesByProject, type ProjectRow } from '../projects/projects.repository';
 import { presentCounts, presentEntry, type EntryDraft } from './inbox.presenter';

@@ -6,10 +6,10 @@ import { AppError, forbidden, notFound, validationFailed } from '../../lib/app-e
 import { recordAudit } from '../audit/audit.repository';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../../../src/shared/policies/projects';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 import { findPayApp } from '../payments/payments.repository';
 import { renderWaiverPdf } from './lien-waiver-pdf';
-import { canIssueWaiver, waiverOptions } from './lien-waivers.policy';
+import { canIssueWaiver, waiverOptions } from '../../../src/shared/policies/lien-waivers';
 import { presentWaiver } from './lien-waivers.presenter';
 import * as repo from './lien-waivers.repository';
 import { exceptionsFor } from './waiver-exceptions.service';

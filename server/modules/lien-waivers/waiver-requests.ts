@@ -1,7 +1,7 @@
 import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
 import { memberEmails } from '../payments/payments.repository';
-import { waiverOptions } from './lien-waivers.policy';
+import { waiverOptions } from '../../../src/shared/policies/lien-waivers';
 import { listWaivers, paymentsOf } from './lien-waivers.repository';
 import { waiverRequestedMail } from './waiver-emails';
 

@@ -1,6 +1,7 @@
-import type {
-  MeasurementProfileView,
-  SetMeasurementProfileInput,
+import {
+  PROFILE_SETTING_KEYS,
+  type MeasurementProfileView,
+  type SetMeasurementProfileInput,
 } from '../../../src/shared/schemas/provisions/profile';
 import { checkStageSchedule } from '../../../src/shared/domain/provisions/lump-sum';
 import { checkMobilizationSteps } from '../../../src/shared/domain/provisions/mobilization';
@@ -25,11 +26,7 @@ export async function listProfiles(db: Db, actor: Actor, projectId: string): Pro
 /** Settings that belong to another profile are refused, so a saved profile never carries a stray term. */
 function checkSettings(input: SetMeasurementProfileInput, unit: PayUnit) {
   const s = input.settings;
-  const allowed: Record<string, (keyof typeof s)[]> = {
-    plan_quantity: ['percentComplete', 'substantialErrorPercent', 'substantialErrorCents'],
-    lump_sum: ['percentComplete', 'stages', 'completedStages', 'mobilizationSteps'],
-  };
-  const ok = allowed[input.profile] ?? [];
+  const ok: readonly (keyof typeof s)[] = PROFILE_SETTING_KEYS[input.profile] ?? [];
   const stray = (Object.keys(s) as (keyof typeof s)[]).filter((k) => s[k] !== undefined && !ok.includes(k));
   if (stray.length > 0) {
     throw validationFailed(

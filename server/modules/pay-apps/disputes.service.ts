@@ -9,7 +9,7 @@ import { recordAudit } from '../audit/audit.repository';
 import { enqueueEmail } from '../notifications/outbox';
 import { loadPayAppAccess } from './pay-app-access';
 import { disputeStepMail } from './pay-app-emails';
-import { mayTake } from './pay-apps.policy';
+import { mayTake } from '../../../src/shared/policies/pay-apps';
 import { payAppDetail } from './pay-apps.service';
 import * as repo from './pay-apps.repository';
 
@@ -48,7 +48,7 @@ async function loadOpenDispute(ctx: AppContext, actor: Actor, disputeId: string)
 
 /** The reviewer corrects the reason or counter quantity of an open dispute: a thread entry, an audit event, a mail. */
 export async function editDispute(ctx: AppContext, actor: Actor, disputeId: string, input: EditDisputeInput) {
-  const { app, project, dispute, line } = await loadOpenDispute(ctx, actor, disputeId);
+  const { app, project, dispute, line, roles } = await loadOpenDispute(ctx, actor, disputeId);
   if (input.counterQuantity !== undefined && input.counterQuantity > line.thisPeriodQuantity) {
     throw counterAboveClaim('counterQuantity', line.itemNumber, input.counterQuantity, line.thisPeriodQuantity);
   }
@@ -93,12 +93,12 @@ export async function editDispute(ctx: AppContext, actor: Actor, disputeId: stri
     );
   });
   void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
-  return payAppDetail(ctx.db, app.id);
+  return payAppDetail(ctx.db, app.id, roles);
 }
 
 /** The reviewer withdraws an open dispute: the line is approved as claimed; thread entry, audit event, mail. */
 export async function withdrawDispute(ctx: AppContext, actor: Actor, disputeId: string, note: string) {
-  const { app, project, dispute, line } = await loadOpenDispute(ctx, actor, disputeId);
+  const { app, project, dispute, line, roles } = await loadOpenDispute(ctx, actor, disputeId);
   const body = `Dispute withdrawn; the claimed ${formatQuantity(line.thisPeriodQuantity, line.payUnit)} stands. ${note}`;
   await ctx.db.transaction(async (tx) => {
     const [row] = await tx
@@ -134,7 +134,7 @@ export async function withdrawDispute(ctx: AppContext, actor: Actor, disputeId: 
     );
   });
   void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
-  return payAppDetail(ctx.db, app.id);
+  return payAppDetail(ctx.db, app.id, roles);
 }
 
 export const mailFacts = (

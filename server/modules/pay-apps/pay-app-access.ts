@@ -3,7 +3,7 @@ import type { Actor } from '../../lib/actor';
 import { notFound } from '../../lib/app-error';
 import { isUuid } from '../projects/project-access';
 import { accessRoles, canReadProject } from '../../../src/shared/policies/projects';
-import { canSeePayApp } from './pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 import * as repo from './pay-apps.repository';
 
 /**

@@ -1,5 +1,5 @@
 import { and, eq, inArray } from 'drizzle-orm';
-import type { PayAppStatus } from '../../../src/shared/constants';
+import type { AccessRole, PayAppStatus } from '../../../src/shared/constants';
 import type { PayAppActionInput, ReviewPayAppInput, RevisePayAppInput } from '../../../src/shared/schemas/pay-app';
 import type { AppContext } from '../../app-context';
 import type { Executor } from '../../db/client';
@@ -61,16 +61,16 @@ async function refuseSubmitter(ctx: AppContext, actor: Actor, app: repo.PayAppRo
 }
 
 /** Runs the change in one transaction, then starts sending the mail it queued (never inside the transaction). */
-async function commit(ctx: AppContext, payAppId: string, work: (tx: Executor) => Promise<void>) {
+async function commit(ctx: AppContext, payAppId: string, roles: AccessRole[], work: (tx: Executor) => Promise<void>) {
   await ctx.db.transaction(work);
   void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
-  return payAppDetail(ctx.db, payAppId);
+  return payAppDetail(ctx.db, payAppId, roles);
 }
 
 export async function submitPayApp(ctx: AppContext, actor: Actor, payAppId: string, input: PayAppActionInput) {
   const { app, roles, project } = await loadPayAppAccess(ctx.db, actor, payAppId);
   const to = checkAction(app, 'submit', roles, input.expectedRevision);
-  return commit(ctx, app.id, async (tx) => {
+  return commit(ctx, app.id, roles, async (tx) => {
     const row = await moveStatus(
       tx,
       app,
@@ -109,7 +109,7 @@ export async function certifyPayApp(
     );
   }
   // Flags before money moves: each line beyond the band or billed without evidence is acknowledged by key.
-  const { flags } = await payAppDetail(ctx.db, app.id);
+  const { flags } = await payAppDetail(ctx.db, app.id, roles);
   const acknowledged = new Set(input.acknowledgedFlags ?? []);
   const unseen = flags.filter((f) => !acknowledged.has(f.key));
   if (unseen.length > 0) {
@@ -121,7 +121,7 @@ export async function certifyPayApp(
     );
   }
   await confirmRecentAuth?.();
-  return commit(ctx, app.id, async (tx) => {
+  return commit(ctx, app.id, roles, async (tx) => {
     const row = await moveStatus(
       tx,
       app,
@@ -198,7 +198,7 @@ export async function reviewPayApp(ctx: AppContext, actor: Actor, payAppId: stri
       );
     }
   });
-  return commit(ctx, app.id, async (tx) => {
+  return commit(ctx, app.id, roles, async (tx) => {
     const row = await moveStatus(tx, app, steps, actor.userId);
     for (const decision of ['approve', 'dispute'] as const) {
       const ids = input.lines.filter((l) => l.decision === decision).map((l) => l.lineId);
@@ -257,7 +257,7 @@ export async function revisePayApp(ctx: AppContext, actor: Actor, payAppId: stri
     ]);
   }
   const lineRows = new Map((await repo.listLines(ctx.db, app.id)).map((l) => [l.id, l]));
-  return commit(ctx, app.id, async (tx) => {
+  return commit(ctx, app.id, roles, async (tx) => {
     // The counter taken, or the subcontractor's own proposal; a reply keeps the claim.
     const quantities = new Map(
       open.flatMap((d): [string, number][] => {

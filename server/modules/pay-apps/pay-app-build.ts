@@ -1,7 +1,9 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { sumCents } from '../../../src/shared/domain/money';
 import { payApplication, type PayAppLineInput, type PayAppResult } from '../../../src/shared/domain/pay-app';
-import { addDecimals } from '../../../src/shared/domain/rounding';
+import { currentContract } from '../../../src/shared/domain/contract';
+import { mobilizationLine, type MobilizationStep } from '../../../src/shared/domain/provisions/mobilization';
+import { addDecimals, roundTo } from '../../../src/shared/domain/rounding';
 import type { Executor } from '../../db/client';
 import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
 import { AppError } from '../../lib/app-error';
@@ -9,6 +11,15 @@ import { recordAudit } from '../audit/audit.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import type { ProjectRow } from '../projects/projects.repository';
 import * as repo from './pay-apps.repository';
+import {
+  adjustmentsThrough,
+  mobilizationStepsByItem,
+  profilesByItem,
+  storedMaterialsByItem,
+} from './pay-app-provisions.repository';
+import { precisionFor } from '../../../src/shared/domain/provisions/precision';
+import { settingsQuantityToDate } from '../../../src/shared/domain/provisions/settings-quantity';
+import type { PayUnit } from '../../../src/shared/constants';
 
 export type CreatePayAppArgs = {
   project: ProjectRow;
@@ -55,7 +66,29 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   const number = last.number + 1;
   const items = await repo.projectBidItems(tx, project.id);
   const contract = await loadContract(tx, project.id);
-  const billed = await repo.readyTallies(tx, project.id, periodStart, periodEnd);
+  const steps = await mobilizationStepsByItem(tx, project.id);
+  // A lump sum paid by percent or stages and a plan quantity paid by percent complete take their quantity to date
+  // from the item's settings (mobilization steps come first, below).
+  const profiles = await profilesByItem(tx, project.id);
+  const bySettings = new Map<string, number>();
+  for (const item of items) {
+    const p = profiles.get(item.id);
+    if (!p || steps.has(item.id)) continue;
+    const decimals = precisionFor(item.payUnit as PayUnit, p.payDecimals).measuredDecimals;
+    const quantity = settingsQuantityToDate(
+      p.profile,
+      p.settings,
+      contract.byId.get(item.id)!.contractQuantity,
+      decimals,
+    );
+    if (quantity !== null) bySettings.set(item.id, quantity);
+  }
+  // Those items' tallies stay ready, unbilled: the settings (or the steps) decide what they are paid.
+  const billed = (await repo.readyTallies(tx, project.id, periodStart, periodEnd)).filter(
+    (t) => !steps.has(t.bidItemId) && !bySettings.has(t.bidItemId),
+  );
+  const stored = await storedMaterialsByItem(tx, project.id, periodEnd);
+  const adjustmentsCents = sumCents((await adjustmentsThrough(tx, project.id, periodEnd)).map((a) => a.amountCents));
   const thisPeriod = new Map<string, number>();
   for (const t of billed) thisPeriod.set(t.bidItemId, addDecimals(thisPeriod.get(t.bidItemId) ?? 0, t.quantity));
   const prev = await previousOf(tx, project.id, number);
@@ -64,15 +97,19 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   const bases: PayAppLineInput[] = items.map((item) => {
     const current = contract.byId.get(item.id)!;
     const previous = prev.byItem.get(item.id);
+    const settled = bySettings.get(item.id);
     return {
       unitPriceCents: current.unitPriceCents,
       contractQuantity: current.contractQuantity,
       previousQuantity: previous?.toDateQuantity ?? 0,
-      thisPeriodQuantity: thisPeriod.get(item.id) ?? 0,
+      thisPeriodQuantity:
+        settled === undefined ? (thisPeriod.get(item.id) ?? 0) : roundTo(settled - (previous?.toDateQuantity ?? 0), 4),
       previousAmountCents: previous?.amountToDateCents,
+      storedMaterialsCents: stored.get(item.id) ?? 0,
     };
   });
-  const computed = compute(bases, project, prev.certified);
+  const mobilization = { steps: items.map((item) => steps.get(item.id)), originalContractCents: originalSum(contract) };
+  const computed = compute(bases, project, prev.certified, adjustmentsCents, mobilization);
   const [app] = await tx
     .insert(payApps)
     .values({
@@ -140,7 +177,13 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
  * The engine's pay application arithmetic (src/shared/domain/pay-app.ts) with the project's retainage terms:
  * rates in basis points become percents; the reduced rate applies once earned to date reaches the reduction point.
  */
-function compute(lines: PayAppLineInput[], project: ProjectRow, previousCertified: number[]) {
+function compute(
+  lines: PayAppLineInput[],
+  project: ProjectRow,
+  previousCertified: number[],
+  adjustmentsToDateCents: number,
+  mobilization: Mobilization,
+) {
   const reduction =
     project.retainageReducedBps !== null && project.retainageReductionAtBps !== null
       ? {
@@ -149,15 +192,42 @@ function compute(lines: PayAppLineInput[], project: ProjectRow, previousCertifie
         }
       : undefined;
   const previousCertifiedCents = sumCents(previousCertified);
-  return {
-    ...payApplication({
+  const run = () =>
+    payApplication({
       retainagePercent: project.retainageBps / 100,
       previousCertifiedCents,
       lines,
+      adjustmentsToDateCents,
       retainageReduction: reduction,
-    }),
-    previousCertifiedCents,
-  };
+    });
+  let result = run();
+  if (mobilization.steps.some(Boolean)) {
+    // Mobilization in steps of the original contract earned, counting every other line's work to date (first
+    // pass), then priced with the rest (second pass). The line's quantity is written back into `lines`.
+    const others = sumCents(result.lines.filter((_, i) => !mobilization.steps[i]).map((l) => l.amountToDateCents));
+    lines.forEach((line, i) => {
+      const steps = mobilization.steps[i];
+      if (!steps) return;
+      line.thisPeriodQuantity = mobilizationLine({
+        contractQuantity: line.contractQuantity,
+        mobilizationCents: result.lines[i]!.contractAmountCents,
+        previousQuantity: line.previousQuantity,
+        originalContractCents: mobilization.originalContractCents,
+        otherEarnedToDateCents: others,
+        steps,
+      }).thisPeriodQuantity;
+    });
+    result = run();
+  }
+  return { ...result, previousCertifiedCents };
+}
+
+/** Each line's mobilization steps (undefined: not paid in steps) and the original contract sum they measure. */
+type Mobilization = { steps: (MobilizationStep[] | undefined)[]; originalContractCents: number };
+
+/** The contract sum before any change order (original quantities x original prices). */
+function originalSum(contract: Awaited<ReturnType<typeof loadContract>>): number {
+  return currentContract(contract.inputs.items, []).contractSumCents;
 }
 
 const lineColumns = (l: PayAppResult['lines'][number]) => ({
@@ -166,6 +236,7 @@ const lineColumns = (l: PayAppResult['lines'][number]) => ({
   amountToDateCents: l.amountToDateCents,
   thisPeriodAmountCents: l.thisPeriodAmountCents,
   retainageCents: l.retainageCents,
+  storedMaterialsCents: l.storedMaterialsCents,
 });
 
 export function totalsOf(c: PayAppResult & { previousCertifiedCents: number }) {
@@ -175,6 +246,7 @@ export function totalsOf(c: PayAppResult & { previousCertifiedCents: number }) {
     thisPeriodCents: c.thisPeriodCents,
     retainageCents: c.retainageCents,
     previousCertifiedCents: c.previousCertifiedCents,
+    adjustmentsCents: c.adjustmentsCents,
     currentDueCents: c.currentDueCents,
   };
 }
@@ -183,19 +255,27 @@ export function totalsOf(c: PayAppResult & { previousCertifiedCents: number }) {
 export async function recomputeLines(
   tx: Executor,
   project: ProjectRow,
-  app: { id: string; number: number },
+  app: { id: string; number: number; adjustmentsCents: number },
   quantities: Map<string, number>,
 ) {
   const lines = await repo.listLines(tx, app.id);
   const prev = await previousOf(tx, project.id, app.number);
+  const steps = await mobilizationStepsByItem(tx, project.id);
+  const contract = await loadContract(tx, project.id);
   const bases: PayAppLineInput[] = lines.map((l) => ({
     unitPriceCents: l.unitPriceCents,
     contractQuantity: l.contractQuantity,
     previousQuantity: l.previousQuantity,
     thisPeriodQuantity: quantities.get(l.id) ?? l.thisPeriodQuantity,
     previousAmountCents: l.previousAmountCents,
+    storedMaterialsCents: l.storedMaterialsCents,
   }));
-  const computed = compute(bases, project, prev.certified);
+  // Materials stored and adjustments stay as compiled for the period; mobilization follows the revised lines.
+  const mobilization = {
+    steps: lines.map((l) => steps.get(l.bidItemId)),
+    originalContractCents: originalSum(contract),
+  };
+  const computed = compute(bases, project, prev.certified, app.adjustmentsCents, mobilization);
   for (const [i, l] of lines.entries()) {
     await tx
       .update(payAppLines)

@@ -16,6 +16,7 @@ export function presentSummary(row: PayAppRow, certifiedBy: string | null = null
     thisPeriodCents: row.thisPeriodCents,
     retainageCents: row.retainageCents,
     previousCertifiedCents: row.previousCertifiedCents,
+    adjustmentsCents: row.adjustmentsCents,
     currentDueCents: row.currentDueCents,
     paidCents: row.paidCents,
     submittedAt: row.submittedAt?.toISOString() ?? null,
@@ -41,6 +42,7 @@ export function presentLine(l: PayAppDetailRow['lines'][number]): PayAppLineView
     thisPeriodAmountCents: l.thisPeriodAmountCents,
     amountToDateCents: l.amountToDateCents,
     retainageCents: l.retainageCents,
+    storedMaterialsCents: l.storedMaterialsCents,
     reviewStatus: l.reviewStatus,
   };
 }

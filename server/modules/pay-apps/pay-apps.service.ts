@@ -1,14 +1,20 @@
+import type { AccessRole } from '../../../src/shared/constants';
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
+import { changeOrderSummary } from '../../../src/shared/domain/change-order-summary';
+import { currentContract } from '../../../src/shared/domain/contract';
 import { payAppFlags } from '../../../src/shared/domain/pay-app-flags';
+import { payAppPackage } from '../../../src/shared/domain/pay-app-package';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
 import { loadPayAppAccess } from './pay-app-access';
-import { canCreatePayApp, canSeePayApp } from './pay-apps.policy';
+import { canCreatePayApp, canSeePayApp, payAppCan } from '../../../src/shared/policies/pay-apps';
 import { presentDispute, presentHistory, presentLine, presentSummary, presentTally } from './pay-apps.presenter';
 import * as repo from './pay-apps.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
+import { adjustmentsThrough, approvedChangeOrders, compiledAt } from './pay-app-provisions.repository';
 
 export async function listPayApps(db: Db, actor: Actor, projectId: string) {
   const { roles } = await loadProjectAccess(db, actor, projectId);
@@ -18,7 +24,7 @@ export async function listPayApps(db: Db, actor: Actor, projectId: string) {
 }
 
 /** One application with its lines, history, disputes with their threads, and the tallies it bills (one read). */
-export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDetail> {
+export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]): Promise<PayAppDetail> {
   const app = (await repo.findPayAppDetail(db, payAppId))!;
   const lines = app.lines.map(presentLine);
   const contractSumCents = sumCents(lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)));
@@ -36,6 +42,7 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
       return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
     }),
   );
+  const pkg = await packageOf(db, app, lines);
   return {
     ...presentSummary(app, app.certifiedBy?.name ?? null),
     lines,
@@ -45,16 +52,52 @@ export async function payAppDetail(db: Db, payAppId: string): Promise<PayAppDeta
     contractSumCents,
     flags: payAppFlags(lines, bandOverBps, evidence),
     percentCompleteBps,
+    can: payAppCan(roles, app.status),
+    ...pkg,
+  };
+}
+
+/**
+ * The package figures (payAppPackage, pure) from the stored lines, with the change orders approved up to the
+ * application's compilation (the contract its lines were priced on) and the deductions it counted.
+ */
+async function packageOf(
+  db: Db,
+  app: NonNullable<Awaited<ReturnType<typeof repo.findPayAppDetail>>>,
+  lines: ReturnType<typeof presentLine>[],
+) {
+  const [contract, previousCutOff, adjustments] = await Promise.all([
+    loadContract(db, app.projectId),
+    compiledAt(db, app.projectId, app.number - 1),
+    adjustmentsThrough(db, app.projectId, app.periodEnd),
+  ]);
+  const approved = await approvedChangeOrders(db, app.projectId, contract.inputs.changes);
+  const counted = adjustments.filter((a) => a.createdAt <= app.createdAt);
+  return {
+    package: payAppPackage({
+      lines,
+      originalContractCents: currentContract(contract.inputs.items, []).contractSumCents,
+      changeOrders: changeOrderSummary(
+        contract.inputs.items,
+        approved,
+        app.createdAt.toISOString(),
+        previousCutOff?.toISOString() ?? null,
+      ),
+      retainageBps: app.retainageBps,
+      adjustmentsCents: app.adjustmentsCents,
+      previousCertifiedCents: app.previousCertifiedCents,
+    }),
+    adjustments: counted.map(({ createdAt: _c, ...a }) => a),
   };
 }
 
 export async function getPayApp(db: Db, actor: Actor, payAppId: string) {
-  await loadPayAppAccess(db, actor, payAppId);
-  return payAppDetail(db, payAppId);
+  const { roles } = await loadPayAppAccess(db, actor, payAppId);
+  return payAppDetail(db, payAppId, roles);
 }
 
 export async function createPayApp(db: Db, actor: Actor, projectId: string, input: CreatePayAppInput) {
-  const { project } = await loadProjectAccess(db, actor, projectId, canCreatePayApp);
+  const { project, roles } = await loadProjectAccess(db, actor, projectId, canCreatePayApp);
   const app = await db.transaction((tx) => createPayAppFromTallies(tx, { project, userId: actor.userId, ...input }));
-  return payAppDetail(db, app.id);
+  return payAppDetail(db, app.id, roles);
 }

@@ -2,7 +2,7 @@ import type { FeeBearer } from '../../../src/shared/constants';
 import { sumCents } from '../../../src/shared/domain/money';
 import { feeQuote, type FeeRates } from '../../../src/shared/domain/payment-fees';
 import type { PayablePayAppView, PaymentView } from '../../../src/shared/schemas/payment';
-import { balanceCents, chargedCents, PAYABLE_STATUSES } from './payments.policy';
+import { balanceCents, chargedCents, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';
 import type { HistoryRow, PayAppRow, PaymentRow } from './payments.repository';
 
 export function presentPayment(row: PaymentRow, payAppNumber: number, history: HistoryRow[]): PaymentView {
@@ -13,6 +13,7 @@ export function presentPayment(row: PaymentRow, payAppNumber: number, history: H
     payAppNumber,
     amountCents: row.amountCents,
     feeCents: row.feeCents,
+    reportedFeeCents: row.reportedFeeCents,
     feeBearer: row.feeBearer,
     chargedCents: chargedCents(row),
     method: row.method,

@@ -9,7 +9,7 @@ import { findProject } from '../projects/projects.repository';
 import { queueWaiverRequest } from '../lien-waivers/waiver-requests';
 import { queueFailureNotice, queueReceipt } from './payment-emails';
 import { readPaymentSignal, type PaymentSignal } from './payment-events';
-import { canMovePayment, chargedCents } from './payments.policy';
+import { canMovePayment, chargedCents } from '../../../src/shared/policies/payments';
 import * as repo from './payments.repository';
 
 export type WebhookOutcome = 'applied' | 'duplicate' | 'ignored';
@@ -35,6 +35,15 @@ async function movePayApp(tx: Executor, payment: repo.PaymentRow, to: PaymentSig
   await repo.movePayApp(tx, app, { status, paidCents: paid }, `Payment ${payment.id}: ${to}`);
   return { before: app, after: { ...app, status, paidCents: paid } };
 }
+
+/**
+ * The quoted fee stays as quoted (or, where nothing was quoted, becomes the processor's); the processor's own figure
+ * for the settled charge is kept beside it, once.
+ */
+const fees = (payment: repo.PaymentRow, reported: number | null) => ({
+  feeCents: payment.feeCents ?? reported,
+  reportedFeeCents: payment.reportedFeeCents ?? reported,
+});
 
 async function findTarget(tx: Executor, s: PaymentSignal) {
   if (s.paymentId && isUuid(s.paymentId)) return repo.findPayment(tx, { id: s.paymentId });
@@ -86,13 +95,13 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
       method: payment.method ?? signal.method,
     };
     if (!canMovePayment(payment.status, signal.to)) {
-      await repo.updatePayment(tx, payment.id, { ...ids, feeCents: payment.feeCents ?? fee });
+      await repo.updatePayment(tx, payment.id, { ...ids, ...fees(payment, fee) });
       return { outcome: 'ignored' as const };
     }
     const updated = await repo.updatePayment(tx, payment.id, {
       ...ids,
       status: signal.to,
-      feeCents: payment.feeCents ?? fee,
+      ...fees(payment, fee),
       failureMessage: signal.failureMessage ?? payment.failureMessage,
       settledAt: signal.to === 'succeeded' ? new Date() : payment.settledAt,
     });

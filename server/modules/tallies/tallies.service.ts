@@ -14,6 +14,7 @@ import type { Page } from '../../../src/shared/schemas/paging';
 import { sanityConcerns } from '../../../src/shared/domain/tally-sanity';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
+import { loadContract } from '../change-orders/contract-quantities.repository';
 import { loadProjectAccess } from '../projects/project-access';
 import type { ProjectRow } from '../projects/projects.repository';
 import { listEvidence } from './tallies.repository';
@@ -21,9 +22,10 @@ import { canWriteTallies, isEditableTally, tallyCan } from '../../../src/shared/
 import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
+import { surfaceAgainstBaseline } from '../surface-baselines/measure-against';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 import { PAY_APP_STATUSES } from '../../../src/shared/constants';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 
 /**
  * One page of the project's tallies as summaries (no inputs, no engine result). The owner's side does not see
@@ -74,14 +76,17 @@ async function itemOnProject(db: Executor, project: ProjectRow, bidItemId: strin
  */
 async function sanityReasonFor(
   db: Executor,
-  item: { id: string; contractQuantity: number; payUnit: string },
+  item: { id: string; projectId: string; contractQuantity: number; payUnit: string },
   quantity: number,
   tallyId: string | null,
   reason: string | null | undefined,
 ) {
+  // The current contract quantity (original + approved change orders, src/shared/domain/contract.ts), never the
+  // bid item's original column: an item grown by a change order is judged against what the contract now says.
+  const contract = await loadContract(db, item.projectId);
   const concerns = sanityConcerns({
     quantity,
-    contractQuantity: item.contractQuantity,
+    contractQuantity: contract.byId.get(item.id)?.contractQuantity ?? item.contractQuantity,
     talliedElsewhere: await repo.talliedQuantity(db, item.id, tallyId),
     payUnit: item.payUnit,
   });
@@ -102,7 +107,12 @@ async function computedColumns(
   tallyId: string | null = null,
 ) {
   const item = await itemOnProject(db, project, input.bidItemId);
-  const result = await computeTally(input, item, project, compute);
+  // Surface tallies measure against the project's locked original ground (surface-baselines/measure-against.ts).
+  const baseline = input.method === 'surface' ? await surfaceAgainstBaseline(db, project.id, input.inputs) : null;
+  const measured = baseline ? { ...input, inputs: baseline.engineInputs } : input;
+  const computed = await computeTally(measured, item, project, compute);
+  const result = baseline ? { ...computed, trail: [baseline.trail, ...computed.trail] } : computed;
+  input = baseline ? { ...measured, inputs: { ...baseline.engineInputs, ...baseline.kept } } : input;
   const sanityReason = await sanityReasonFor(db, item, result.quantity, tallyId, input.sanityReason);
   return {
     sanityReason,

@@ -4,7 +4,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../../../src/shared/policies/projects';
-import { canSeePayApp } from '../pay-apps/pay-apps.policy';
+import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
 import type { PayAppStatus } from '../../../src/shared/constants';
 import * as repo from './tallies.repository';
 

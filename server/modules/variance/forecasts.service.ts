@@ -6,7 +6,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, conflict, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { findBidItem } from '../bid-items/bid-items.repository';
-import { canProposeChangeOrder } from '../change-orders/change-orders.policy';
+import { canProposeChangeOrder } from '../../../src/shared/policies/change-orders';
 import { proposeChangeOrder, type ChangeOrderContext } from '../change-orders/change-orders.service';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import * as repo from './variance.repository';

@@ -19,7 +19,7 @@ export function Component() {
         projectId={projectId}
         units={project.units}
         canEdit={project.can.manageContract}
-        canPropose={project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor')}
+        canPropose={project.can.proposeChangeOrder}
       />
     </>
   );

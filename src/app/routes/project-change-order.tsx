@@ -18,7 +18,7 @@ export function Component() {
       <Link to=".." relative="path" className="text-xs text-spruce-700 underline-offset-2 hover:underline">
         ← All change orders
       </Link>
-      <ChangeOrderDetail id={changeOrderId} roles={project.myRoles} />
+      <ChangeOrderDetail id={changeOrderId} />
     </div>
   );
 }

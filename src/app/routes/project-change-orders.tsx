@@ -12,13 +12,12 @@ export function loader({ params }: LoaderFunctionArgs) {
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
-  const canPropose = project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor');
   return (
     <>
       <title>{`${project.name} · Change orders · Tallyard`}</title>
       <ChangeOrderList
         projectId={projectId}
-        canPropose={canPropose}
+        canPropose={project.can.proposeChangeOrder}
         ownerApproves={project.ownerApprovesChangeOrders}
       />
     </>

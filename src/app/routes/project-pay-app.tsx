@@ -18,12 +18,7 @@ export function Component() {
       <title>{`${project.name} · Pay application · Tallyard`}</title>
       <PayAppDetailScreen
         payAppId={payAppId}
-        isOwner={project.myRoles.includes('owner')}
-        payment={
-          <PayAppPaymentPanel projectId={projectId} payAppId={payAppId} canPay={project.myRoles.includes('owner')} />
-        }
-        isSub={project.myRoles.includes('subcontractor')}
-        isGc={project.myRoles.includes('general_contractor')}
+        payment={<PayAppPaymentPanel projectId={projectId} payAppId={payAppId} canPay={project.can.pay} />}
       />
     </>
   );

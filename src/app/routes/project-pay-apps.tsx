@@ -12,12 +12,14 @@ export function loader({ params }: LoaderFunctionArgs) {
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
-  const roles = project.myRoles;
-  const isOwnerOnly = roles.every((r) => r === 'owner' || r === 'owner_admin');
   return (
     <>
       <title>{`${project.name} · Pay apps · Tallyard`}</title>
-      <PayAppsScreen projectId={projectId} canCreate={roles.includes('subcontractor')} isOwner={isOwnerOnly} />
+      <PayAppsScreen
+        projectId={projectId}
+        canCreate={project.can.createPayApp}
+        certifiedOnly={!project.can.seeDraftPayApps}
+      />
     </>
   );
 }

@@ -14,11 +14,7 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Payments · Tallyard`}</title>
-      <PaymentsScreen
-        projectId={projectId}
-        canPay={project.myRoles.includes('owner')}
-        canManageContract={project.can.manageContract}
-      />
+      <PaymentsScreen projectId={projectId} canPay={project.can.pay} canManageContract={project.can.manageContract} />
     </>
   );
 }

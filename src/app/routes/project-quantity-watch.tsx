@@ -12,7 +12,7 @@ export function loader({ params }: LoaderFunctionArgs) {
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
-  const canForecast = project.myRoles.includes('subcontractor') || project.myRoles.includes('general_contractor');
+  const canForecast = project.can.proposeChangeOrder;
   return (
     <>
       <title>{`${project.name} · Quantity watch · Tallyard`}</title>

@@ -16,11 +16,7 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Waivers · Tallyard`}</title>
-      <WaiversScreen
-        projectId={projectId}
-        canIssue={project.myRoles.includes('subcontractor')}
-        signerName={me.user.name}
-      />
+      <WaiversScreen projectId={projectId} canIssue={project.can.issueWaiver} signerName={me.user.name} />
     </>
   );
 }

@@ -1,5 +1,6 @@
 import {
   METHOD_BILLING,
+  STORED_QUANTITY_DECIMALS,
   type MeasurementBasis,
   type MeasurementMethod,
   type PayUnit,
@@ -7,7 +8,7 @@ import {
   type UnitSystem,
 } from '../constants';
 import { DomainError } from './domain-error';
-import { payQuantity as truckPayQuantity } from './earthwork/load-count';
+import { payQuantityOf, precisionFor } from './provisions/precision';
 import { measureFactors } from './earthwork/swell';
 import { fmt, type Trail } from './earthwork/trail';
 import { M3_PER_CY, M_PER_FT } from './earthwork/units';
@@ -167,6 +168,9 @@ function toBasis(
  * Weight items: the bank volume times the density given. Pure; the worksheet preview and the server both call it.
  * Throws DomainError UNIT_MISMATCH (path bidItemId), METHOD_NOT_BILLABLE (method) (path density when a weight item has no density).
  */
+/** The smallest step of a number of decimals, as written: 0 -> "1", 1 -> "0.1", 2 -> "0.01". */
+const step = (decimals: number) => (decimals === 0 ? '1' : `0.${'0'.repeat(decimals - 1)}1`);
+
 export function billedQuantity(
   method: MeasurementMethod,
   inputs: Record<string, unknown> | null,
@@ -180,7 +184,7 @@ export function billedQuantity(
   const isVolume = VOLUME_UNITS.includes(item.payUnit);
   if (billing.yields === 'direct') {
     const trail: Trail = [];
-    const quantity = roundTo(options.directQuantity ?? 0, billing.payDecimals);
+    const quantity = roundTo(options.directQuantity ?? 0, STORED_QUANTITY_DECIMALS);
     trail.push(`Direct quantity ${fmt(quantity, 4)} ${item.payUnit}${isVolume ? ` (${item.basis})` : ''}`);
     const measured = { quantity, unit: item.payUnit, basis: isVolume ? item.basis : null, component: null };
     return { measured, quantity, unit: item.payUnit, basis: isVolume ? item.basis : null, trail };
@@ -239,15 +243,18 @@ export function billedQuantity(
   } else {
     throw mismatch(item, method, billing.yields === 'volume-or-length' ? 'a volume or a length' : 'a volume');
   }
-  if (method === 'load-count') {
-    // Truck measure: compute to 0.01, pay to 0.1 (a state DOT construction manual, section 109.11).
-    quantity = truckPayQuantity(quantity);
-    trail.push(`Paid to 0.1 from the 0.01 figure (truck measure, state DOT construction manual section 109.11)`);
+  // Pay precision has one source: DEFAULT_PAY_DECIMALS per pay unit (src/shared/domain/provisions/precision.ts).
+  let decimals = STORED_QUANTITY_DECIMALS;
+  if (billing.payRounding === 'pay-unit') {
+    const precision = precisionFor(item.payUnit);
+    quantity = payQuantityOf(quantity, precision);
+    decimals = precision.payDecimals;
+    trail.push(
+      `Paid to ${step(precision.payDecimals)} from the ${step(precision.measuredDecimals)} figure (truck measure, state DOT construction manual section 109.11)`,
+    );
   } else {
-    quantity = roundTo(quantity, billing.payDecimals);
+    quantity = roundTo(quantity, STORED_QUANTITY_DECIMALS);
   }
-  trail.push(
-    `Bills ${fmt(quantity, billing.payDecimals)} ${item.payUnit}${basis ? ` ${basis}` : ''} to item ${item.itemNumber}`,
-  );
+  trail.push(`Bills ${fmt(quantity, decimals)} ${item.payUnit}${basis ? ` ${basis}` : ''} to item ${item.itemNumber}`);
   return { measured, quantity, unit: item.payUnit, basis, trail };
 }

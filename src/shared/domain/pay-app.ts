@@ -18,6 +18,11 @@ export interface PayAppLineInput {
    * previous amount is previous quantity x unit price.
    */
   previousAmountCents?: Cents;
+  /**
+   * Materials stored for the item and not yet built in at the period's end (payable value, cents; default 0).
+   * Retainage is held on work and stored materials alike.
+   */
+  storedMaterialsCents?: Cents;
 }
 
 export interface PayAppInput {
@@ -26,6 +31,8 @@ export interface PayAppInput {
   /** Sum of the amounts certified on earlier applications, cents. */
   previousCertifiedCents: Cents;
   lines: readonly PayAppLineInput[];
+  /** Deductions and adjustments dated up to the period's end, cents (negative: deducted; default 0). */
+  adjustmentsToDateCents?: Cents;
   /**
    * Optional reduction: once the work is this far complete (earned to date / contract amount, percent), every
    * line's retainage is taken at `reducedPercent` instead (e.g. 5 % after 50 % complete).
@@ -40,7 +47,9 @@ export interface PayAppLineResult {
   amountToDateCents: Cents;
   /** Amount to date - previous amount, so the columns always add across. */
   thisPeriodAmountCents: Cents;
-  /** Retainage held to date on the line. */
+  /** Materials stored at the period's end (as given). */
+  storedMaterialsCents: Cents;
+  /** Retainage held to date on the line: on amount to date + materials stored. */
   retainageCents: Cents;
 }
 
@@ -49,11 +58,18 @@ export interface PayAppResult {
   contractAmountCents: Cents;
   earnedToDateCents: Cents;
   thisPeriodCents: Cents;
+  /** Sum of the lines' materials stored. */
+  storedMaterialsCents: Cents;
+  /** Deductions and adjustments to date (as given). */
+  adjustmentsCents: Cents;
   retainageCents: Cents;
   /** Rate applied (percent), after any reduction. */
   retainagePercentApplied: number;
   percentComplete: number | null;
-  /** Earned to date - retainage to date - previous certified (negative: a credit). */
+  /**
+   * Earned to date + materials stored - retainage to date + adjustments to date - previous certified (negative:
+   * a credit).
+   */
   currentDueCents: Cents;
   trail: Trail;
 }
@@ -67,6 +83,16 @@ function checkLine(line: PayAppLineInput, i: number): void {
   assertFinite(line.thisPeriodQuantity, ['lines', i, 'thisPeriodQuantity']);
   if (line.previousAmountCents !== undefined && !Number.isSafeInteger(line.previousAmountCents)) {
     throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['lines', i, 'previousAmountCents']);
+  }
+  if (
+    line.storedMaterialsCents !== undefined &&
+    (!Number.isSafeInteger(line.storedMaterialsCents) || line.storedMaterialsCents < 0)
+  ) {
+    throw new DomainError('INVALID_NUMBER', 'Materials stored are whole cents, 0 or more', [
+      'lines',
+      i,
+      'storedMaterialsCents',
+    ]);
   }
   if (line.previousQuantity + line.thisPeriodQuantity < 0) {
     throw new DomainError('INVALID_QUANTITY', 'The quantity to date cannot go below 0', [
@@ -95,14 +121,18 @@ export function reachesPercent(earnedCents: Cents, contractCents: Cents, percent
 /**
  * Pay application arithmetic in integer cents (dinero.js). Per line: to-date quantity = previous + this period;
  * amount to date = to-date quantity x unit price, rounded to the cent once; retainage on the line's amount to
- * date, rounded once. Totals are sums of the line figures, so they always equal the sum of their lines. Current
- * due = earned to date - retainage to date - previous certified.
+ * date plus materials stored, rounded once. Totals are sums of the line figures, so they always equal the sum of
+ * their lines. Current due = earned to date + materials stored - retainage to date + adjustments to date -
+ * previous certified (earlier current-due amounts already hold earlier adjustments, so adjustments count to date).
  */
 export function payApplication(input: PayAppInput): PayAppResult {
   assertNonNegative(input.retainagePercent, ['retainagePercent']);
   assertFinite(input.previousCertifiedCents, ['previousCertifiedCents']);
   if (!Number.isSafeInteger(input.previousCertifiedCents))
     throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['previousCertifiedCents']);
+  const adjustmentsCents = input.adjustmentsToDateCents ?? 0;
+  if (!Number.isSafeInteger(adjustmentsCents))
+    throw new DomainError('INVALID_NUMBER', 'Amounts are whole cents', ['adjustmentsToDateCents']);
   input.lines.forEach(checkLine);
   const priced = input.lines.map((l, i) => {
     // Exact decimal sum (1.00005 + 0 stays 1.00005): the quantity is priced as given, rounded once to the cent.
@@ -122,6 +152,7 @@ export function payApplication(input: PayAppInput): PayAppResult {
       contractAmountCents: lineAmountCents(l.contractQuantity, l.unitPriceCents, ['lines', i, 'contractQuantity']),
       previousAmountCents,
       amountToDateCents,
+      storedMaterialsCents: l.storedMaterialsCents ?? 0,
     };
   });
   const contractAmountCents = checkedSum(
@@ -145,8 +176,17 @@ export function payApplication(input: PayAppInput): PayAppResult {
   const lines: PayAppLineResult[] = priced.map((p, i) => ({
     ...p,
     thisPeriodAmountCents: subtractCents(p.amountToDateCents, p.previousAmountCents),
-    retainageCents: percentOfCents(p.amountToDateCents, rate, ['lines', i, ...ratePath]),
+    retainageCents: percentOfCents(
+      checkedSum([p.amountToDateCents, p.storedMaterialsCents], ['lines', i, 'storedMaterialsCents'], 'The line'),
+      rate,
+      ['lines', i, ...ratePath],
+    ),
   }));
+  const storedMaterialsCents = checkedSum(
+    lines.map((l) => l.storedMaterialsCents),
+    ['lines'],
+    'The materials stored',
+  );
   const retainageCents = checkedSum(
     lines.map((l) => l.retainageCents),
     ['lines'],
@@ -157,13 +197,21 @@ export function payApplication(input: PayAppInput): PayAppResult {
     ['lines'],
     'The amount this period',
   );
-  const currentDue = BigInt(earnedToDateCents) - BigInt(retainageCents) - BigInt(input.previousCertifiedCents);
+  const currentDue =
+    BigInt(earnedToDateCents) +
+    BigInt(storedMaterialsCents) -
+    BigInt(retainageCents) +
+    BigInt(adjustmentsCents) -
+    BigInt(input.previousCertifiedCents);
   if (currentDue > BigInt(Number.MAX_SAFE_INTEGER) || currentDue < -BigInt(Number.MAX_SAFE_INTEGER)) {
     throw new DomainError('INVALID_NUMBER', 'The current amount due is beyond the largest amount stored', [
       'previousCertifiedCents',
     ]);
   }
-  const currentDueCents = subtractCents(subtractCents(earnedToDateCents, retainageCents), input.previousCertifiedCents);
+  const currentDueCents = subtractCents(
+    sumCents([earnedToDateCents, storedMaterialsCents, adjustmentsCents]),
+    sumCents([retainageCents, input.previousCertifiedCents]),
+  );
   const $ = (c: number) => `$${fmt(c / 100)}`;
   const trail: Trail = [
     `${lines.length} lines: amount to date = previous amount as certified + this period at the current unit price (to date x price - previous x price, each rounded once to the cent)`,
@@ -171,13 +219,17 @@ export function payApplication(input: PayAppInput): PayAppResult {
     reduced
       ? `Retainage reduced to ${fmt(rate, 2)} % after ${fmt(reduction!.afterPercentComplete, 2)} % complete; per line, rounded once: ${$(retainageCents)}`
       : `Retainage ${fmt(rate, 2)} % per line, rounded once: ${$(retainageCents)}`,
-    `Current due = earned to date - retainage to date - previous certified = ${$(earnedToDateCents)} - ${$(retainageCents)} - ${$(input.previousCertifiedCents)} = ${$(currentDueCents)}`,
+    storedMaterialsCents !== 0 || adjustmentsCents !== 0
+      ? `Current due = earned to date + materials stored - retainage to date + adjustments to date - previous certified = ${$(earnedToDateCents)} + ${$(storedMaterialsCents)} - ${$(retainageCents)} + ${$(adjustmentsCents)} - ${$(input.previousCertifiedCents)} = ${$(currentDueCents)}`
+      : `Current due = earned to date - retainage to date - previous certified = ${$(earnedToDateCents)} - ${$(retainageCents)} - ${$(input.previousCertifiedCents)} = ${$(currentDueCents)}`,
   ];
   return {
     lines,
     contractAmountCents,
     earnedToDateCents,
     thisPeriodCents,
+    storedMaterialsCents,
+    adjustmentsCents,
     retainageCents,
     retainagePercentApplied: rate,
     percentComplete,

@@ -6,6 +6,10 @@ import {
   type CompanyKind,
   type ProjectRole,
 } from '../constants';
+import { canProposeChangeOrder } from './change-orders';
+import { canIssueWaiver } from './lien-waivers';
+import { canCreatePayApp, canSeePayApp } from './pay-apps';
+import { canPay } from './payments';
 import { canWriteTallies } from './tallies';
 
 /** The parts of the signed-in person these rules look at (the server's Actor has them). */
@@ -72,11 +76,23 @@ export type ProjectCan = {
   /** Contract settings and the bid schedule (the general contractor's side). */
   manageContract: boolean;
   createTally: boolean;
+  createPayApp: boolean;
+  /** Sees applications before certification (the contractors' sides); the owner's side sees certified ones. */
+  seeDraftPayApps: boolean;
+  pay: boolean;
+  issueWaiver: boolean;
+  /** Propose a change order (and forecast quantities, which end in one). */
+  proposeChangeOrder: boolean;
 };
 
 export function projectCan(roles: AccessRole[]): ProjectCan {
   return {
     manageContract: canManageContract(roles),
     createTally: canWriteTallies(roles),
+    createPayApp: canCreatePayApp(roles),
+    seeDraftPayApps: canSeePayApp(roles, 'draft'),
+    pay: canPay(roles),
+    issueWaiver: canIssueWaiver(roles),
+    proposeChangeOrder: canProposeChangeOrder(roles),
   };
 }

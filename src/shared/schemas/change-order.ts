@@ -1,3 +1,4 @@
+import type { ChangeOrderCan } from '../policies/change-orders';
 import { z } from 'zod';
 import type { ChangeOrderItemKind, ChangeOrderStatus, PayUnit } from '../constants';
 import type { EvidenceKind } from './tally';
@@ -86,6 +87,8 @@ export type ChangeOrderView = {
   items: ChangeOrderItemView[];
   history: ChangeOrderHistoryEntry[];
   createdAt: string;
+  /** What the reader may do now (src/shared/policies/change-orders.ts); the screen reads this, never the roles. */
+  can: ChangeOrderCan;
 };
 
 /** Contract quantity of a bid item: original + approved changes (in the item's pay unit). */

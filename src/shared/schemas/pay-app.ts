@@ -1,5 +1,14 @@
+import type { PayAppCan } from '../policies/pay-apps';
 import { z } from 'zod';
-import type { DisputeResolution, DisputeStatus, LineReviewStatus, PayAppStatus, PayUnit } from '../constants';
+import type {
+  AdjustmentKind,
+  DisputeResolution,
+  DisputeStatus,
+  LineReviewStatus,
+  PayAppStatus,
+  PayUnit,
+} from '../constants';
+import type { PayAppPackage } from '../domain/pay-app-package';
 import type { PayAppFlag } from '../domain/pay-app-flags';
 import { isoDateSchema } from './tally';
 
@@ -112,6 +121,8 @@ export type PayAppSummary = {
   thisPeriodCents: number;
   retainageCents: number;
   previousCertifiedCents: number;
+  /** Deductions and adjustments dated up to the period's end (negative: deducted). */
+  adjustmentsCents: number;
   currentDueCents: number;
   paidCents: number;
   submittedAt: string | null;
@@ -135,6 +146,8 @@ export type PayAppLineView = {
   thisPeriodAmountCents: number;
   amountToDateCents: number;
   retainageCents: number;
+  /** Materials stored and not yet built in at the period's end (payable value). */
+  storedMaterialsCents: number;
   reviewStatus: LineReviewStatus;
 };
 
@@ -172,4 +185,10 @@ export type PayAppDetail = PayAppSummary & {
   flags: PayAppFlag[];
   /** Earned to date over the contract sum, basis points. */
   percentCompleteBps: number;
+  /** What the reader may do now (src/shared/policies/pay-apps.ts); screens read this, never the roles. */
+  can: PayAppCan;
+  /** Schedule of values, summary lines and change order summary (src/shared/domain/pay-app-package.ts). */
+  package: PayAppPackage;
+  /** The deductions and adjustments the application counts (dated up to its period's end). */
+  adjustments: { id: string; kind: AdjustmentKind; appliesOn: string; description: string; amountCents: number }[];
 };

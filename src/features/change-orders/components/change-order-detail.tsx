@@ -2,34 +2,23 @@ import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { formatDate } from '@/lib/format';
-import type { AccessRole } from '@/shared/constants';
-import type { ChangeOrderView } from '@/shared/schemas/change-order';
 import { useChangeOrder } from '../api/change-orders';
 import { ChangeItemsTable } from './change-items-table';
 import { historyLabel, STATUS_BADGES } from './change-order-words';
 import { DecisionPanel } from './decision-panel';
 import { DocumentsPanel } from './documents-panel';
+import type { ChangeOrderStatus } from '@/shared/constants';
 
-/** The side this person still has to decide for, if any. */
-function pendingSide(co: ChangeOrderView, roles: readonly AccessRole[]): 'gc' | 'owner' | null {
-  if (co.status !== 'proposed') return null;
-  if (roles.includes('general_contractor') && !co.gcApproval) return 'gc';
-  if (co.ownerApprovalRequired && roles.includes('owner') && !co.ownerApproval) return 'owner';
-  return null;
-}
+/** Documents are attached while a change order is proposed; a decided one keeps those it was decided on. */
+const DOCUMENTS_OPEN: Record<ChangeOrderStatus, boolean> = { proposed: true, approved: false, rejected: false };
 
-/** Those who propose attach documents, and the owner where the owner decides too (the server checks again). */
-const canAttach = (co: ChangeOrderView, roles: readonly AccessRole[]) =>
-  roles.includes('subcontractor') ||
-  roles.includes('general_contractor') ||
-  (co.ownerApprovalRequired && roles.includes('owner'));
-
-export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly AccessRole[] }) {
+/** One change order; what the reader may do with it (decide, attach documents) comes from the server (`co.can`). */
+export function ChangeOrderDetail({ id }: { id: string }) {
   const query = useChangeOrder(id);
   if (query.isPending) return <LoadingState label="Loading the change order…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
   const co = query.data;
-  const side = pendingSide(co, roles);
+  const side = co.can.decideAs;
   const badge = STATUS_BADGES[co.status];
   return (
     <div className="flex flex-col gap-4">
@@ -41,7 +30,7 @@ export function ChangeOrderDetail({ id, roles }: { id: string; roles: readonly A
       </div>
       {co.reason ? <p className="max-w-3xl text-stone-700">{co.reason}</p> : null}
       <ChangeItemsTable items={co.items} totalCents={co.amountDeltaCents} />
-      <DocumentsPanel changeOrderId={co.id} canAttach={canAttach(co, roles)} open={co.status === 'proposed'} />
+      <DocumentsPanel changeOrderId={co.id} canAttach={co.can.attachDocuments} open={DOCUMENTS_OPEN[co.status]} />
       <div className="grid gap-4 md:grid-cols-2">
         <Card>
           <CardHeader>

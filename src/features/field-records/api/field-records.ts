@@ -3,6 +3,7 @@ import { api } from '@/lib/api-client';
 import { fetchAllPages } from '@/lib/paging';
 import type { MeasurementProfileView, SetMeasurementProfileInput } from '@/shared/schemas/provisions/profile';
 import type { CreateTruckInput } from '@/shared/schemas/provisions/tickets';
+import type { ChangeOrderStatus } from '@/shared/constants';
 import type {
   DailySheetView,
   MaterialSourceView,
@@ -101,3 +102,45 @@ export function useSignDailySheet() {
       (await api.post<{ sheet: DailySheetView }>(`/api/daily-sheets/${enc(sheetId)}/sign`)).sheet,
   });
 }
+
+/** The project's change orders, for choosing the one that authorised a force account day. */
+export type ChangeOrderChoice = { id: string; number: number; title: string; status: ChangeOrderStatus };
+export const changeOrderChoicesQuery = (projectId: string) =>
+  list(projectId, 'change-orders', (b: { changeOrders: ChangeOrderChoice[] }) =>
+    b.changeOrders.map(({ id, number, title, status }) => ({ id, number, title, status })),
+  );
+export const useChangeOrderChoices = (projectId: string) => useQuery(changeOrderChoicesQuery(projectId));
+
+/** One POST of a field record to `path` under the project (or a full path), answering the record. */
+function usePost<I, O>(path: (input: I) => string, pick: (body: never) => O) {
+  return useMutation({
+    mutationFn: async (input: I) => pick(await api.post<never>(path(input), stripRoute(input))),
+  });
+}
+/** Route parameters travel in the path, never in the body (the server's schemas are strict). */
+function stripRoute<I>(input: I): unknown {
+  if (input && typeof input === 'object' && 'storedMaterialId' in input) {
+    const { storedMaterialId: _id, ...rest } = input as Record<string, unknown>;
+    return rest;
+  }
+  return input;
+}
+const under = (projectId: string, what: string) => () => `/api/projects/${enc(projectId)}/${what}`;
+
+export const useRecordTruckTicket = (projectId: string) =>
+  usePost(under(projectId, 'truck-tickets'), (b: { ticket: TruckTicketView }) => b.ticket);
+export const useAddSource = (projectId: string) =>
+  usePost(under(projectId, 'material-sources'), (b: { source: MaterialSourceView }) => b.source);
+export const useRecordScaleTicket = (projectId: string) =>
+  usePost(under(projectId, 'scale-tickets'), (b: { ticket: ScaleTicketView }) => b.ticket);
+export const useRecordDailySheet = (projectId: string) =>
+  usePost(under(projectId, 'daily-sheets'), (b: { sheet: DailySheetView }) => b.sheet);
+export const useAddStoredMaterial = (projectId: string) =>
+  usePost(under(projectId, 'stored-materials'), (b: { material: StoredMaterialView }) => b.material);
+export const useAddStoredMovement = () =>
+  usePost(
+    (input: { storedMaterialId: string }) => `/api/stored-materials/${enc(input.storedMaterialId)}/movements`,
+    (b: { material: StoredMaterialView }) => b.material,
+  );
+export const useRecordAdjustment = (projectId: string) =>
+  usePost(under(projectId, 'pay-adjustments'), (b: { adjustment: PayAdjustmentView }) => b.adjustment);

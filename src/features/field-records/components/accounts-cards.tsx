@@ -5,6 +5,9 @@ import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } fro
 import { errorMessage } from '@/lib/api-client';
 import { formatDate, formatMoney, formatNumber } from '@/lib/format';
 import { useAdjustments, useDailySheets, useSignDailySheet, useStoredMaterials } from '../api/field-records';
+import { AdjustmentForm, StoredMaterialForm, StoredMovementForm } from './account-forms';
+import { DailySheetForm } from './daily-sheet-form';
+import { RecordDialog } from './form-kit';
 import { Empty, RegisterCard } from './section';
 
 /** Force account days: labor, equipment and materials with the contract markups, signed by both sides. */
@@ -16,6 +19,13 @@ export function DailySheetsCard({ projectId, canSign }: { projectId: string; can
       title="Time-and-materials days"
       note="Each day is recorded under the change order that authorised the work and counts once both sides have signed it. Rates and markups are those of the contract."
       query={query}
+      actions={
+        canSign ? (
+          <RecordDialog command="Record a day" title="Record a force account day">
+            {(close) => <DailySheetForm projectId={projectId} onDone={close} />}
+          </RecordDialog>
+        ) : null
+      }
     >
       {(sheets) =>
         sheets.length === 0 ? (
@@ -80,13 +90,20 @@ export function DailySheetsCard({ projectId, canSign }: { projectId: string; can
 }
 
 /** Stored materials: the running account per material, paid at invoice cost up to what the job needs. */
-export function StoredMaterialsCard({ projectId }: { projectId: string }) {
+export function StoredMaterialsCard({ projectId, canRecord }: { projectId: string; canRecord: boolean }) {
   const query = useStoredMaterials(projectId);
   return (
     <RegisterCard
       title="Materials on hand"
       note="Paid on a paid invoice, at invoice cost without overhead or profit, and never beyond what the job still needs. Title, insurance and storage conditions follow the contract."
       query={query}
+      actions={
+        canRecord ? (
+          <RecordDialog command="Open a material account" title="Open a stored material account">
+            {(close) => <StoredMaterialForm projectId={projectId} onDone={close} />}
+          </RecordDialog>
+        ) : null
+      }
     >
       {(materials) =>
         materials.length === 0 ? (
@@ -102,6 +119,7 @@ export function StoredMaterialsCard({ projectId }: { projectId: string }) {
                 <TableHeaderCell className="text-right">Built in</TableHeaderCell>
                 <TableHeaderCell className="text-right">On hand</TableHeaderCell>
                 <TableHeaderCell className="text-right">Payable</TableHeaderCell>
+                {canRecord ? <TableHeaderCell>Movements</TableHeaderCell> : null}
               </TableRow>
             </TableHead>
             <TableBody>
@@ -120,6 +138,13 @@ export function StoredMaterialsCard({ projectId }: { projectId: string }) {
                   <TableCell className="text-right font-medium tabular-nums">
                     {formatMoney(m.account.payableCents)}
                   </TableCell>
+                  {canRecord ? (
+                    <TableCell>
+                      <RecordDialog command="Record" title={`${m.description}: delivery or use`}>
+                        {(close) => <StoredMovementForm material={m} onDone={close} />}
+                      </RecordDialog>
+                    </TableCell>
+                  ) : null}
                 </TableRow>
               ))}
             </TableBody>
@@ -138,13 +163,20 @@ const KIND_LABELS = {
 } as const;
 
 /** Deductions and adjustments, each on its own line, kept apart from the item quantities. */
-export function AdjustmentsCard({ projectId }: { projectId: string }) {
+export function AdjustmentsCard({ projectId, canRecord }: { projectId: string; canRecord: boolean }) {
   const query = useAdjustments(projectId);
   return (
     <RegisterCard
       title="Deductions and adjustments"
       note="Kept on their own lines so each item quantity stands on its own. Amounts follow the contract's terms; the governing contract and statute decide."
       query={query}
+      actions={
+        canRecord ? (
+          <RecordDialog command="Record a deduction or adjustment" title="Record a deduction or adjustment">
+            {(close) => <AdjustmentForm projectId={projectId} onDone={close} />}
+          </RecordDialog>
+        ) : null
+      }
     >
       {(rows) =>
         rows.length === 0 ? (

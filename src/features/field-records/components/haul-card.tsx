@@ -7,6 +7,8 @@ import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } fro
 import { errorMessage, isApiError } from '@/lib/api-client';
 import { formatDate, formatNumber } from '@/lib/format';
 import { useImportTruckTickets, useProfiles, useTrucks, useTruckTickets } from '../api/field-records';
+import { RecordDialog } from './form-kit';
+import { TruckForm, TruckTicketForm } from './haul-forms';
 import { Empty, RegisterCard } from './section';
 
 const FLAG_LABELS = {
@@ -79,6 +81,22 @@ export function HaulCard({ projectId, canRecord }: { projectId: string; canRecor
       title="Trucks and load tickets"
       note="Loads are computed to 0.01 CY and paid to 0.1 CY. A load on a truck missing from the register, or above its measured bed, is flagged and left out of the totals until it is settled."
       query={tickets}
+      actions={
+        canRecord ? (
+          <span className="flex gap-2">
+            <RecordDialog
+              command="Register a truck"
+              title="Register a truck"
+              description="Measure the bed before the truck hauls; loads are checked against it."
+            >
+              {(close) => <TruckForm projectId={projectId} onDone={close} />}
+            </RecordDialog>
+            <RecordDialog command="Record a load" title="Record a load ticket">
+              {(close) => <TruckTicketForm projectId={projectId} onDone={close} />}
+            </RecordDialog>
+          </span>
+        ) : null
+      }
     >
       {(data) => (
         <>

@@ -13,10 +13,10 @@ export function PayBasisScreen({ projectId, myRoles }: { projectId: string; myRo
     <div className="flex flex-col gap-5">
       <ProfilesCard projectId={projectId} canSet={contractSide} />
       <HaulCard projectId={projectId} canRecord={fieldSide} />
-      <ScaleCard projectId={projectId} />
+      <ScaleCard projectId={projectId} canRecord={fieldSide} />
       <DailySheetsCard projectId={projectId} canSign={fieldSide} />
-      <StoredMaterialsCard projectId={projectId} />
-      <AdjustmentsCard projectId={projectId} />
+      <StoredMaterialsCard projectId={projectId} canRecord={fieldSide} />
+      <AdjustmentsCard projectId={projectId} canRecord={contractSide} />
     </div>
   );
 }

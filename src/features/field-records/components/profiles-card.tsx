@@ -5,6 +5,7 @@ import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } fro
 import { errorMessage } from '@/lib/api-client';
 import { formatMoney } from '@/lib/format';
 import { MEASUREMENT_PROFILES, MEASUREMENT_PROFILE_LABELS, type MeasurementProfile } from '@/shared/constants';
+import { settingsFor, type MeasurementProfileView } from '@/shared/schemas/provisions/profile';
 import { useProfiles, useSetProfile } from '../api/field-records';
 import { RegisterCard } from './section';
 
@@ -12,9 +13,17 @@ import { RegisterCard } from './section';
 export function ProfilesCard({ projectId, canSet }: { projectId: string; canSet: boolean }) {
   const query = useProfiles(projectId);
   const setProfile = useSetProfile();
-  const change = (bidItemId: string, profile: MeasurementProfile) =>
+  // The item's stage, precision and the settings the new profile reads are kept: a save never clears a lump
+  // sum's stages or mobilization steps.
+  const change = (p: MeasurementProfileView, profile: MeasurementProfile) =>
     setProfile.mutate(
-      { bidItemId, profile, stage: 'interim', settings: {} },
+      {
+        bidItemId: p.bidItemId,
+        profile,
+        stage: p.stage,
+        ...(p.isDefault || profile !== p.profile ? {} : { payDecimals: p.payDecimals }),
+        settings: settingsFor(profile, p.settings),
+      },
       {
         onSuccess: (p) => toast.success(`Item ${p.itemNumber}: ${p.profileLabel}`),
         onError: (e) => toast.error(errorMessage(e)),
@@ -49,7 +58,7 @@ export function ProfilesCard({ projectId, canSet }: { projectId: string; canSet:
                       aria-label={`How item ${p.itemNumber} is paid`}
                       value={p.profile}
                       disabled={setProfile.isPending}
-                      onChange={(e) => change(p.bidItemId, e.target.value as MeasurementProfile)}
+                      onChange={(e) => change(p, e.target.value as MeasurementProfile)}
                       options={optionsOf(MEASUREMENT_PROFILES, (k) => MEASUREMENT_PROFILE_LABELS[k])}
                     />
                   ) : (

@@ -1,10 +1,12 @@
 import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import { formatDate, formatNumber } from '@/lib/format';
 import { useScaleTickets, useSources } from '../api/field-records';
+import { RecordDialog } from './form-kit';
+import { ScaleTicketForm, SourceForm } from './scale-forms';
 import { Empty, RegisterCard } from './section';
 
 /** Material sources with their ton-to-volume factor, and the weighed loads. */
-export function ScaleCard({ projectId }: { projectId: string }) {
+export function ScaleCard({ projectId, canRecord }: { projectId: string; canRecord: boolean }) {
   const sources = useSources(projectId);
   const tickets = useScaleTickets(projectId);
   const names = new Map((sources.data ?? []).map((s) => [s.id, s.name]));
@@ -13,6 +15,22 @@ export function ScaleCard({ projectId }: { projectId: string }) {
       title="Scale tickets"
       note="Each source's factor comes from at least three weighed and measured loads, computed to 4 decimals and used to 3. Above the stated moisture the net weight is corrected: net × 100 / (100 + M). Volumes are banded to 0.5 CY."
       query={tickets}
+      actions={
+        canRecord ? (
+          <span className="flex gap-2">
+            <RecordDialog
+              command="Add a source"
+              title="Add a material source"
+              description="At least three loads weighed and measured; the factor is computed to 4 decimals and used to 3."
+            >
+              {(close) => <SourceForm projectId={projectId} onDone={close} />}
+            </RecordDialog>
+            <RecordDialog command="Record a scale ticket" title="Record a scale ticket">
+              {(close) => <ScaleTicketForm projectId={projectId} onDone={close} />}
+            </RecordDialog>
+          </span>
+        ) : null
+      }
     >
       {(rows) => (
         <>

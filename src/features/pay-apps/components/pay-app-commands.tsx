@@ -12,7 +12,7 @@ import { useCertifyPayApp, useSubmitPayApp } from '../api/pay-app-actions';
 type Ask = 'submit' | 'certify' | null;
 
 /** Exports for everyone; Submit for the subcontractor on a draft; Certify for the general contractor when all lines are approved. */
-export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub: boolean; isGc: boolean }) {
+export function PayAppCommands({ app }: { app: PayAppDetail }) {
   const [ask, setAskState] = useState<Ask>(null);
   const [reauth, setReauth] = useState<ApiError | null>(null);
   const [password, setPassword] = useState('');
@@ -27,7 +27,6 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
   const submit = useSubmitPayApp(app.id);
   const certify = useCertifyPayApp(app.id);
   const allApproved = app.lines.every((l) => l.reviewStatus === 'approved');
-  const canCertify = isGc && (app.status === 'submitted' || app.status === 'in_review');
   const base = `/api/pay-apps/${encodeURIComponent(app.id)}`;
   const done = {
     onSuccess: () => {
@@ -66,12 +65,12 @@ export function PayAppCommands({ app, isSub, isGc }: { app: PayAppDetail; isSub:
       <a className={buttonVariants({ variant: 'secondary', size: 'md' })} href={`${base}/export.csv`} download>
         <FileDown aria-hidden /> CSV
       </a>
-      {isSub && app.status === 'draft' ? (
+      {app.can.submit ? (
         <Button onClick={() => setAsk('submit')} disabled={submit.isPending}>
           <Send aria-hidden /> Submit{app.revision > 0 ? ` revision ${app.revision}` : ''}
         </Button>
       ) : null}
-      {canCertify ? (
+      {app.can.certify ? (
         <Button
           onClick={() => setAsk('certify')}
           disabled={!allApproved || certify.isPending}

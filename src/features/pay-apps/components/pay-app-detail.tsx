@@ -7,30 +7,23 @@ import { Dialog } from '@/components/ui/dialog';
 import { formatQuantity } from '@/lib/format';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { errorMessage } from '@/lib/api-client';
+import { isFrozen } from '@/shared/domain/pay-app-status';
 import { usePayApp } from '../api/get-pay-apps';
 import { useReviewPayApp } from '../api/pay-app-actions';
 import { DisputeThreads } from './dispute-threads';
 import { PayAppCommands } from './pay-app-commands';
 import { PayAppStatusBadge, periodText } from './pay-app-labels';
 import { PayAppLinesTable } from './pay-app-lines-table';
-import { PayAppTotals } from './pay-app-totals';
+import { ChangeOrderSummaryCard, PayAppTotals } from './pay-app-totals';
+import { ScheduleOfValues } from './schedule-of-values';
 import { RevisePanel } from './revise-panel';
 import { approveRemaining, reviewBody, type ReviewDraft } from './review-draft';
 import { StatusHistory } from './status-history';
 import { nextStepSentence } from './next-step';
 
-type Roles = { isSub: boolean; isGc: boolean; isOwner: boolean };
-const PAYABLE = new Set(['certified', 'payment_processing', 'partially_paid', 'paid']);
-
 /** One pay application: lines with inline review, totals, disputes, revision history, and the commands by role. */
 /** `payment` is the payments feature's card for this application, shown once it is certified (the owner pays there). */
-export function PayAppDetailScreen({
-  payAppId,
-  isSub,
-  isGc,
-  isOwner,
-  payment,
-}: { payAppId: string; payment?: ReactNode } & Roles) {
+export function PayAppDetailScreen({ payAppId, payment }: { payAppId: string; payment?: ReactNode }) {
   const query = usePayApp(payAppId);
   const review = useReviewPayApp(payAppId);
   const [draft, setDraft] = useState<ReviewDraft>({});
@@ -39,7 +32,8 @@ export function PayAppDetailScreen({
   if (query.isPending) return <LoadingState label="Loading the pay application…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
   const app = query.data;
-  const reviewing = isGc && (app.status === 'submitted' || app.status === 'in_review');
+  // What the reader may do comes from the server's policy (app.can), never from roles or statuses here.
+  const reviewing = app.can.review;
   const decided = Object.keys(draft).length;
   const remaining = app.lines.filter((l) => l.reviewStatus !== 'approved' && !(l.id in draft)).length;
   const lineOf = (id: string) => app.lines.find((l) => l.id === id);
@@ -68,9 +62,7 @@ export function PayAppDetailScreen({
       {
         onSuccess: (next) => {
           setDraft({});
-          toast.success(
-            next.status === 'returned' ? 'Returned to the subcontractor with the disputes' : 'Review saved',
-          );
+          toast.success(next.can.review ? 'Review saved' : 'Returned to the subcontractor with the disputes');
         },
       },
     );
@@ -94,10 +86,10 @@ export function PayAppDetailScreen({
             {app.certifiedBy ? ` · certified by ${app.certifiedBy}` : ''}
           </p>
           <p className="mt-1 text-sm font-medium text-spruce-900" data-testid="next-step">
-            {nextStepSentence(app.status, { isSub, isGc, isOwner }, app.currentDueCents)}
+            {nextStepSentence(app.status, app.can, app.currentDueCents)}
           </p>
         </div>
-        <PayAppCommands app={app} isSub={isSub} isGc={isGc} />
+        <PayAppCommands app={app} />
       </div>
       {reviewing ? (
         <Alert tone="success">
@@ -105,7 +97,7 @@ export function PayAppDetailScreen({
           dispute returns the application to the subcontractor.
         </Alert>
       ) : null}
-      {app.flags.length > 0 && app.status !== 'draft' ? (
+      {app.flags.length > 0 ? (
         <section aria-label="Flags" className="rounded-md border border-clay-200 bg-clay-50 px-3 py-2 text-sm">
           <h3 className="font-semibold">Flags before money moves ({app.flags.length})</h3>
           <ul className="mt-1 flex list-disc flex-col gap-0.5 pl-5">
@@ -113,7 +105,9 @@ export function PayAppDetailScreen({
               <li key={f.key}>{f.message}</li>
             ))}
           </ul>
-          {isGc ? <p className="mt-1 text-xs text-stone-600">Certifying asks you to acknowledge each one.</p> : null}
+          {app.can.certify ? (
+            <p className="mt-1 text-xs text-stone-600">Certifying asks you to acknowledge each one.</p>
+          ) : null}
         </section>
       ) : null}
       <PayAppLinesTable
@@ -165,14 +159,18 @@ export function PayAppDetailScreen({
           <Button onClick={saveReview}>Return to the subcontractor</Button>
         </div>
       </Dialog>
-      {isSub && app.status === 'returned' ? <RevisePanel key={app.revision} app={app} /> : null}
-      {PAYABLE.has(app.status) ? payment : null}
+      <ScheduleOfValues app={app} />
+      {app.can.answer ? <RevisePanel key={app.revision} app={app} /> : null}
+      {isFrozen(app.status) ? payment : null}
       <div className="grid gap-4 lg:grid-cols-[1.4fr_1fr]">
         <div className="flex flex-col gap-4">
-          <DisputeThreads app={app} canComment={isSub || isGc} />
+          <DisputeThreads app={app} canComment={app.can.comment} />
           <StatusHistory app={app} />
         </div>
-        <PayAppTotals app={app} />
+        <div className="flex flex-col gap-4">
+          <PayAppTotals app={app} />
+          <ChangeOrderSummaryCard app={app} />
+        </div>
       </div>
     </div>
   );

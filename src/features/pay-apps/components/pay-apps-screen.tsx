@@ -12,7 +12,16 @@ import { NewPayAppForm } from './new-pay-app-form';
 import { PayAppStatusBadge, periodText } from './pay-app-labels';
 
 /** The Pay apps tab: every application of the job, newest first; the subcontractor compiles the next one. */
-export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: string; canCreate: boolean; isOwner: boolean }) {
+/** `certifiedOnly`: the reader sees certified applications only (the owner's side). */
+export function PayAppsScreen({
+  projectId,
+  canCreate,
+  certifiedOnly,
+}: {
+  projectId: string;
+  canCreate: boolean;
+  certifiedOnly: boolean;
+}) {
   const query = usePayApps(projectId);
   const [adding, setAdding] = useState(false);
   const navigate = useNavigate();
@@ -23,7 +32,11 @@ export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: st
   return (
     <div className="flex flex-col gap-3">
       <div className="flex items-center justify-between gap-2">
-        <p className="text-sm text-stone-600">{isOwner ? 'Certified applications, ready for payment.' : 'Each period’s measured work, netted of retainage and earlier certified amounts.'}</p>
+        <p className="text-sm text-stone-600">
+          {certifiedOnly
+            ? 'Certified applications, ready for payment.'
+            : 'Each period’s measured work, netted of retainage and earlier certified amounts.'}
+        </p>
         {canCreate ? (
           <Button onClick={() => setAdding(true)}>
             <Plus aria-hidden /> New pay application
@@ -31,8 +44,12 @@ export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: st
         ) : null}
       </div>
       {apps.length === 0 ? (
-        <EmptyState title={isOwner ? 'Nothing certified yet' : 'No pay applications yet'}>
-          {isOwner ? 'Applications appear here once the general contractor certifies them.' : canCreate ? 'Mark the period’s tallies ready, then compile the application for the period.' : 'The subcontractor has not compiled one yet.'}
+        <EmptyState title={certifiedOnly ? 'Nothing certified yet' : 'No pay applications yet'}>
+          {certifiedOnly
+            ? 'Applications appear here once the general contractor certifies them.'
+            : canCreate
+              ? 'Mark the period’s tallies ready, then compile the application for the period.'
+              : 'The subcontractor has not compiled one yet.'}
         </EmptyState>
       ) : (
         <Table aria-label="Pay applications">
@@ -55,7 +72,9 @@ export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: st
                     Pay app {a.number}
                   </Link>
                 </TableCell>
-                <TableCell className="tabular-nums whitespace-nowrap">{periodText(a.periodStart, a.periodEnd)}</TableCell>
+                <TableCell className="whitespace-nowrap tabular-nums">
+                  {periodText(a.periodStart, a.periodEnd)}
+                </TableCell>
                 <TableCell>
                   <PayAppStatusBadge status={a.status} />
                 </TableCell>
@@ -68,7 +87,12 @@ export function PayAppsScreen({ projectId, canCreate, isOwner }: { projectId: st
           </TableBody>
         </Table>
       )}
-      <Dialog open={adding} onClose={() => setAdding(false)} title="New pay application" description="Bills every ready tally measured within the period.">
+      <Dialog
+        open={adding}
+        onClose={() => setAdding(false)}
+        title="New pay application"
+        description="Bills every ready tally measured within the period."
+      >
         <NewPayAppForm
           projectId={projectId}
           lastPeriodEnd={apps[0]?.periodEnd}

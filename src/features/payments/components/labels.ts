@@ -26,3 +26,10 @@ export const PAY_APP_STATUS_LABELS: Partial<Record<PayAppStatus, string>> = {
   partially_paid: 'Partially paid',
   paid: 'Paid',
 };
+
+export const PAY_APP_STATUS_TONES: Partial<Record<PayAppStatus, 'neutral' | 'spruce' | 'clay'>> = {
+  certified: 'neutral',
+  payment_processing: 'clay',
+  partially_paid: 'clay',
+  paid: 'spruce',
+};

@@ -2,7 +2,7 @@ import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { formatDate, formatMoney } from '@/lib/format';
 import type { PayablePayAppView, PaymentView } from '@/shared/schemas/payment';
-import { PAY_APP_STATUS_LABELS } from './labels';
+import { PAY_APP_STATUS_LABELS, PAY_APP_STATUS_TONES } from './labels';
 import { PayForm } from './pay-form';
 import { PaymentStatusBadge } from './payment-status-badge';
 
@@ -36,10 +36,7 @@ export function PayAppPaymentsCard({
             {formatDate(payApp.periodStart)} – {formatDate(payApp.periodEnd)}
           </span>
         </CardTitle>
-        <Badge
-          tone={payApp.status === 'paid' ? 'spruce' : payApp.status === 'certified' ? 'neutral' : 'clay'}
-          data-testid="pay-app-status"
-        >
+        <Badge tone={PAY_APP_STATUS_TONES[payApp.status] ?? 'clay'} data-testid="pay-app-status">
           {PAY_APP_STATUS_LABELS[payApp.status] ?? payApp.status}
         </Badge>
       </CardHeader>

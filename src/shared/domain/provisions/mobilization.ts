@@ -1,5 +1,6 @@
 import { DomainError, assertNonNegative } from '../domain-error';
 import { percentOfCents, type Cents } from '../money';
+import { roundTo } from '../rounding';
 
 /** A step: once `contractEarnedPercent` % of the original contract is earned, `mobilizationPercent` % is paid. */
 export interface MobilizationStep {
@@ -55,4 +56,41 @@ export function mobilizationEarned(
   }
   const percent = reached?.mobilizationPercent ?? 0;
   return { mobilizationPercent: percent, earnedCents: percentOfCents(mobilizationCents, percent), step: reached };
+}
+
+export interface MobilizationLineInput {
+  /** The mobilization item's contract quantity (usually 1 LS) and its contract amount, cents. */
+  contractQuantity: number;
+  mobilizationCents: Cents;
+  /** Quantity paid to date on the previous certified application. */
+  previousQuantity: number;
+  originalContractCents: Cents;
+  /** Earned to date on every other line of the application (work, not materials stored), cents. */
+  otherEarnedToDateCents: Cents;
+  steps: readonly MobilizationStep[];
+}
+
+export interface MobilizationLine {
+  toDateQuantity: number;
+  thisPeriodQuantity: number;
+  earned: MobilizationEarned;
+}
+
+/**
+ * The mobilization line of a pay application when the item is paid in steps: to date = contract quantity x the
+ * step's percent (4 decimals, the stored precision). What was paid is never taken back by a later dip in the
+ * other items' earnings (common practice: a step once reached stays paid), so to date is at least the previous.
+ */
+export function mobilizationLine(input: MobilizationLineInput): MobilizationLine {
+  assertNonNegative(input.contractQuantity, ['contractQuantity']);
+  assertNonNegative(input.previousQuantity, ['previousQuantity']);
+  const earned = mobilizationEarned(
+    input.mobilizationCents,
+    input.originalContractCents,
+    Math.max(0, input.otherEarnedToDateCents),
+    input.steps,
+  );
+  const stepQuantity = roundTo((input.contractQuantity * earned.mobilizationPercent) / 100, 4);
+  const toDateQuantity = Math.max(stepQuantity, input.previousQuantity);
+  return { toDateQuantity, thisPeriodQuantity: roundTo(toDateQuantity - input.previousQuantity, 4), earned };
 }

@@ -28,6 +28,23 @@ export const profileSettingsSchema = z
   .strict();
 export type ProfileSettings = z.infer<typeof profileSettingsSchema>;
 
+/** The settings each profile reads; any other is refused by the server (a saved profile carries no stray term). */
+export const PROFILE_SETTING_KEYS: Partial<Record<MeasurementProfile, readonly (keyof ProfileSettings)[]>> = {
+  plan_quantity: ['percentComplete', 'substantialErrorPercent', 'substantialErrorCents'],
+  lump_sum: ['percentComplete', 'stages', 'completedStages', 'mobilizationSteps'],
+};
+
+/**
+ * The settings kept when an item's profile changes to `profile`: those the new profile reads, as they were (a
+ * lump sum's stages and mobilization steps survive a save; a switch to a profile that does not read them drops them).
+ */
+export function settingsFor(profile: MeasurementProfile, settings: ProfileSettings): ProfileSettings {
+  const keys = PROFILE_SETTING_KEYS[profile] ?? [];
+  return Object.fromEntries(
+    Object.entries(settings).filter(([k, v]) => v !== undefined && (keys as readonly string[]).includes(k)),
+  ) as ProfileSettings;
+}
+
 export const setMeasurementProfileSchema = z
   .object({
     profile: z.enum(MEASUREMENT_PROFILES),

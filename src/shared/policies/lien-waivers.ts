@@ -1,7 +1,7 @@
-import type { AccessRole, LienWaiverKind } from '../../../src/shared/constants';
-import { subtractCents } from '../../../src/shared/domain/money';
-import { isFrozen } from '../../../src/shared/domain/pay-app-status';
-import type { WaiverOptionView, WaiverRefusalCode } from '../../../src/shared/schemas/payment';
+import type { AccessRole, LienWaiverKind } from '../constants';
+import { subtractCents } from '../domain/money';
+import { isFrozen } from '../domain/pay-app-status';
+import type { WaiverOptionView, WaiverRefusalCode } from '../schemas/payment';
 
 /** The subcontractor (the claimant) issues and signs waivers; everyone on the project reads them. */
 export const canIssueWaiver = (roles: AccessRole[]) => roles.includes('subcontractor');

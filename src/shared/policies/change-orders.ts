@@ -1,4 +1,4 @@
-import type { AccessRole, ChangeOrderStatus } from '../../../src/shared/constants';
+import type { AccessRole, ChangeOrderStatus } from '../constants';
 
 /** Either contractor proposes a change order. */
 export const canProposeChangeOrder = (roles: AccessRole[]) =>
@@ -34,3 +34,26 @@ export const canAttachChangeOrderDocument = (ownerApproves: boolean) => (roles: 
 
 /** Documents are attached while the change order is proposed; a decided one keeps the documents it was decided on. */
 export const documentsOpen = (status: ChangeOrderStatus) => status === 'proposed';
+
+/** What the reader of a change order may do now; the presenter attaches it, the screen shows only these. */
+export type ChangeOrderCan = {
+  /** Approve or reject it, for the side named in `decideAs`. */
+  decide: boolean;
+  decideAs: ApprovalSide | null;
+  attachDocuments: boolean;
+};
+
+type Decidable = { status: ChangeOrderStatus; gcApprovedAt: Date | null; ownerApprovedAt: Date | null };
+
+export function changeOrderCan(roles: AccessRole[], co: Decidable, ownerApproves: boolean): ChangeOrderCan {
+  const proposed = documentsOpen(co.status);
+  const pending = decisionSides(roles, ownerApproves).find((side) =>
+    side === 'gc' ? co.gcApprovedAt === null : co.ownerApprovedAt === null,
+  );
+  const decideAs = proposed ? (pending ?? null) : null;
+  return {
+    decide: decideAs !== null,
+    decideAs,
+    attachDocuments: proposed && canAttachChangeOrderDocument(ownerApproves)(roles),
+  };
+}

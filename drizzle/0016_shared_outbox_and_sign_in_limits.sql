@@ -20,4 +20,5 @@ CREATE TABLE "sign_in_known_addresses" (
 	CONSTRAINT "sign_in_known_addresses_account_address_pk" PRIMARY KEY("account","address")
 );
 --> statement-breakpoint
+ALTER TABLE "email_outbox" ADD COLUMN "leased_until" timestamp with time zone;--> statement-breakpoint
 CREATE INDEX "sign_in_failures_account_failed_at_index" ON "sign_in_failures" USING btree ("account","failed_at");

@@ -1,5 +1,5 @@
-import type { AccessRole, PayAppStatus, PaymentStatus } from '../../../src/shared/constants';
-import { sumCents } from '../../../src/shared/domain/money';
+import type { AccessRole, PayAppStatus, PaymentStatus } from '../constants';
+import { sumCents } from '../domain/money';
 
 /** Only the owner (the payer on the project) starts a payment. */
 export const canPay = (roles: AccessRole[]) => roles.includes('owner');

@@ -1,1 +1,0 @@
-ALTER TABLE "email_outbox" ADD COLUMN "leased_until" timestamp with time zone;

@@ -1,0 +1,181 @@
+import { formatPercentBps } from '../format';
+import type { ChangeOrderSummary } from './change-order-summary';
+import { lineAmountCents, subtractCents, sumCents, type Cents } from './money';
+
+/** One pay application line as stored (amounts in cents, quantities in the item's pay unit). */
+export interface PackageLineInput {
+  itemNumber: string;
+  description: string;
+  contractQuantity: number;
+  unitPriceCents: Cents;
+  previousAmountCents: Cents;
+  thisPeriodAmountCents: Cents;
+  amountToDateCents: Cents;
+  storedMaterialsCents: Cents;
+  retainageCents: Cents;
+}
+
+export interface PackageInput {
+  lines: readonly PackageLineInput[];
+  /** The contract sum before any change order (sum of the original quantities x original prices). */
+  originalContractCents: Cents;
+  changeOrders: ChangeOrderSummary;
+  /** Retainage rate applied, basis points (for the label only). */
+  retainageBps: number;
+  /** Deductions and adjustments dated up to the period's end (negative: deducted). */
+  adjustmentsCents: Cents;
+  /** Sum of the amounts certified on earlier applications. */
+  previousCertifiedCents: Cents;
+}
+
+/** A row of the schedule of values; the totals row has the same shape. */
+export interface ScheduleRow {
+  scheduledValueCents: Cents;
+  previousCents: Cents;
+  thisPeriodCents: Cents;
+  storedMaterialsCents: Cents;
+  /** Previous + this period + materials stored. */
+  completedAndStoredCents: Cents;
+  /** Completed and stored / scheduled value, basis points rounded down; null where nothing is scheduled. */
+  percentBps: number | null;
+  /** Scheduled value - completed and stored (negative where the item ran over). */
+  balanceToFinishCents: Cents;
+  retainageCents: Cents;
+}
+
+export type SummaryKey = (typeof SUMMARY_KEYS)[number];
+export const SUMMARY_KEYS = [
+  'originalContract',
+  'netChangeOrders',
+  'contractToDate',
+  'completedAndStored',
+  'retainage',
+  'earnedLessRetainage',
+  'adjustments',
+  'previousCertified',
+  'currentDue',
+  'balanceToFinish',
+] as const;
+
+export interface SummaryLine {
+  key: SummaryKey;
+  label: string;
+  amountCents: Cents;
+}
+
+export interface PayAppPackage {
+  schedule: (ScheduleRow & { itemNumber: string; description: string })[];
+  totals: ScheduleRow;
+  /** In the order the arithmetic reads: the contract, then what is earned, then what is due. */
+  summary: SummaryLine[];
+  changeOrders: ChangeOrderSummary & {
+    /** Net amount of those approved before the previous application's cut-off. */
+    beforeCents: Cents;
+  };
+}
+
+/** Column titles of the schedule of values, one wording for screen, PDF and CSV. */
+export const SCHEDULE_TITLES = {
+  scheduledValueCents: 'Scheduled value',
+  previousCents: 'Work before',
+  thisPeriodCents: 'Work this period',
+  storedMaterialsCents: 'Materials stored',
+  completedAndStoredCents: 'Done and stored to date',
+  percentBps: '% done',
+  balanceToFinishCents: 'Left to finish',
+  retainageCents: 'Retainage held',
+} as const satisfies Record<keyof ScheduleRow, string>;
+
+/** Labels of the summary lines (our own wording). */
+export function summaryLabel(key: SummaryKey, retainageBps: number): string {
+  const pct = formatPercentBps(retainageBps);
+  const labels: Record<SummaryKey, string> = {
+    originalContract: 'Original contract sum',
+    netChangeOrders: 'Change orders approved, net',
+    contractToDate: 'Contract sum to date',
+    completedAndStored: 'Work done and materials stored to date',
+    retainage: `Less retainage held (${pct})`,
+    earnedLessRetainage: 'Earned less retainage',
+    adjustments: 'Deductions and adjustments to date',
+    previousCertified: 'Less amounts certified before',
+    currentDue: 'Due on this application',
+    balanceToFinish: 'Left to finish, retainage included',
+  };
+  return labels[key];
+}
+
+const percentBps = (part: Cents, whole: Cents): number | null =>
+  whole > 0 ? Number((BigInt(part) * 10_000n) / BigInt(whole)) : null;
+
+function row(
+  scheduledValueCents: Cents,
+  previousCents: Cents,
+  thisPeriodCents: Cents,
+  storedMaterialsCents: Cents,
+  retainageCents: Cents,
+): ScheduleRow {
+  const completedAndStoredCents = sumCents([previousCents, thisPeriodCents, storedMaterialsCents]);
+  return {
+    scheduledValueCents,
+    previousCents,
+    thisPeriodCents,
+    storedMaterialsCents,
+    completedAndStoredCents,
+    percentBps: percentBps(completedAndStoredCents, scheduledValueCents),
+    balanceToFinishCents: subtractCents(scheduledValueCents, completedAndStoredCents),
+    retainageCents,
+  };
+}
+
+/**
+ * The pay application package: schedule of values, summary lines and change order summary, computed once from
+ * the stored lines (pure; the screen, the PDF and the CSV all print this). Each total is the sum of its column;
+ * completed and stored = previous + this period + materials stored; current due = completed and stored -
+ * retainage + adjustments - previously certified, so it equals the compiled application's own figure.
+ */
+export function payAppPackage(input: PackageInput): PayAppPackage {
+  const schedule = input.lines.map((l) => ({
+    itemNumber: l.itemNumber,
+    description: l.description,
+    ...row(
+      lineAmountCents(l.contractQuantity, l.unitPriceCents),
+      l.previousAmountCents,
+      l.thisPeriodAmountCents,
+      l.storedMaterialsCents,
+      l.retainageCents,
+    ),
+  }));
+  const total = (k: keyof Omit<ScheduleRow, 'percentBps'>) => sumCents(schedule.map((r) => r[k]));
+  const totals = row(
+    total('scheduledValueCents'),
+    total('previousCents'),
+    total('thisPeriodCents'),
+    total('storedMaterialsCents'),
+    total('retainageCents'),
+  );
+  const co = input.changeOrders;
+  const contractToDate = sumCents([input.originalContractCents, co.netChangeCents]);
+  const earnedLessRetainage = subtractCents(totals.completedAndStoredCents, totals.retainageCents);
+  const amounts: Record<SummaryKey, Cents> = {
+    originalContract: input.originalContractCents,
+    netChangeOrders: co.netChangeCents,
+    contractToDate,
+    completedAndStored: totals.completedAndStoredCents,
+    retainage: totals.retainageCents,
+    earnedLessRetainage,
+    adjustments: input.adjustmentsCents,
+    previousCertified: input.previousCertifiedCents,
+    currentDue: subtractCents(sumCents([earnedLessRetainage, input.adjustmentsCents]), input.previousCertifiedCents),
+    balanceToFinish: subtractCents(contractToDate, earnedLessRetainage),
+  };
+  return {
+    schedule,
+    totals,
+    summary: SUMMARY_KEYS.map((key) => ({
+      key,
+      label: summaryLabel(key, input.retainageBps),
+      amountCents: amounts[key],
+    })),
+    changeOrders: { ...co, beforeCents: subtractCents(co.netChangeCents, co.sinceLastCents) },
+  };
+}

@@ -1,0 +1,407 @@
+import { eq } from 'drizzle-orm';
+import Papa from 'papaparse';
+import { PDFParse } from 'pdf-parse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { changeOrders } from '../../server/db/schema';
+import { makeBidItem, makeWorld } from '../setup/factories';
+import { makeBillableProject, makeTally } from '../setup/pay-cycle-factories';
+import { makeChangeOrder, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
+import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+
+// Invented figures (test data), every total worked by hand below. Items: A-1 1,000 CY at $7.25, B-2 500 LF at
+// $42.10, C-3 2,000 CY at $4.00 (truck measure), D-4 1,000 CY at $12.00 (weight): original contract $48,300.00.
+// Retainage 10 % on work and stored materials (the project's rate), each line rounded once to the cent.
+let t: TestApp;
+let w: Awaited<ReturnType<typeof makeWorld>>;
+let billable: Awaited<ReturnType<typeof makeBillableProject>>;
+let truckItem: { id: string };
+let weightItem: { id: string };
+let material: { id: string };
+beforeAll(async () => {
+  t = await createTestApp();
+  w = await makeWorld(t.database.db, t.auth);
+  const db = t.database.db;
+  billable = await makeBillableProject(db, w.home.id, w.people.subcontractor.id, (o) => makeBidItem(db, w.home.id, o));
+  truckItem = await makeProfiledItem(db, w.home.id, 'truck_measure', {
+    itemNumber: 'C-3',
+    description: 'Borrow, truck measure',
+    payUnit: 'CY',
+    unitPriceCents: 400,
+    contractQuantity: 2000,
+  });
+  weightItem = await makeProfiledItem(db, w.home.id, 'weight', {
+    itemNumber: 'D-4',
+    description: 'Aggregate base, by weight',
+    payUnit: 'CY',
+    unitPriceCents: 1200,
+    contractQuantity: 1000,
+  });
+  material = await makeStoredMaterial(db, w.home.id, billable.b.id);
+});
+afterAll(() => t.close());
+
+type Who = keyof typeof w.people;
+const as = (who: Who) => signedInAgent(t.app, w.people[who].email);
+
+async function pdfText(payAppId: string) {
+  const res = await (
+    await as('general_contractor')
+  )
+    .get(`/api/pay-apps/${payAppId}/export.pdf`)
+    .buffer(true)
+    .parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+  expect(res.status).toBe(200);
+  const parser = new PDFParse({ data: new Uint8Array(res.body as Buffer) });
+  const { text } = await parser.getText();
+  await parser.destroy();
+  return text.replace(/\s+/g, ' ');
+}
+async function csvRows(payAppId: string) {
+  const res = await (await as('general_contractor')).get(`/api/pay-apps/${payAppId}/export.csv`);
+  expect(res.status).toBe(200);
+  return Papa.parse<Record<string, string>>(res.text, { header: true, skipEmptyLines: true }).data;
+}
+type Summary = { key: string; label: string; amountCents: number };
+type Pkg = {
+  schedule: Record<string, number | string | null>[];
+  totals: Record<string, number | null>;
+  summary: Summary[];
+  changeOrders: {
+    approvedCount: number;
+    netChangeCents: number;
+    sinceLastCents: number;
+    beforeCents: number;
+    lines: { number: number; title: string; amountCents: number }[];
+  };
+};
+const amounts = (pkg: Pkg) => Object.fromEntries(pkg.summary.map((s) => [s.key, s.amountCents]));
+const row = (pkg: Pkg, item: string) => pkg.schedule.find((r) => r.itemNumber === item)!;
+
+async function certify(app: { id: string; revision: number; lines: { id: string }[] }) {
+  const sub = await as('subcontractor');
+  expect((await sub.post(`/api/pay-apps/${app.id}/submit`).send({ expectedRevision: app.revision })).status).toBe(200);
+  const gc = await as('general_contractor');
+  const lines = app.lines.map((l) => ({ lineId: l.id, decision: 'approve' }));
+  expect((await gc.post(`/api/pay-apps/${app.id}/review`).send({ expectedRevision: app.revision, lines })).status).toBe(
+    200,
+  );
+  const flags = (await gc.get(`/api/pay-apps/${app.id}`)).body.payApp.flags as { key: string }[];
+  const res = await gc.post(`/api/pay-apps/${app.id}/certify`).send({
+    expectedRevision: app.revision,
+    reauthPassword: TEST_PASSWORD,
+    acknowledgedFlags: flags.map((f) => f.key),
+  });
+  expect(res.status).toBe(200);
+  return res.body.payApp;
+}
+
+let october: { id: string; revision: number; lines: { id: string }[]; currentDueCents: number; package: Pkg };
+
+describe('the pay application package (October: work, materials stored, a deduction, field records)', () => {
+  it('records the period: stored pipe, liquidated damages, truck and scale tickets, a force account day', async () => {
+    const db = t.database.db;
+    const sub = await as('subcontractor');
+    const gc = await as('general_contractor');
+    // 100 LF of pipe delivered on a paid invoice: 100 x $58.40 = $5,840.00 stored (needed 400 LF).
+    expect(
+      (
+        await sub
+          .post(`/api/stored-materials/${material.id}/movements`)
+          .send({ kind: 'added', movedOn: '2026-10-20', quantity: 100, invoiceRef: 'INV-5521' })
+      ).status,
+    ).toBe(201);
+    // Liquidated damages: 2 days x $125.00 = -$250.00 (23 CFR 635.127 arithmetic, days times the daily amount).
+    expect(
+      (
+        await gc.post(`/api/projects/${w.home.id}/pay-adjustments`).send({
+          kind: 'liquidated_damages',
+          appliesOn: '2026-10-25',
+          description: 'Milestone 1 late by two days',
+          daysOverrun: 2,
+          dailyCents: 12_500,
+        })
+      ).status,
+    ).toBe(201);
+    expect(
+      (
+        await sub.post(`/api/projects/${w.home.id}/trucks`).send({
+          label: 'T-12',
+          bedVolumeCy: 14.5,
+          measuredBy: 'R. Okafor',
+          measuredOn: '2026-09-28',
+        })
+      ).status,
+    ).toBe(201);
+    const ticket = {
+      bidItemId: truckItem.id,
+      truckLabel: 'T-12',
+      material: 'Select borrow',
+      source: 'Hollis pit',
+      loadedAt: 'Hollis pit face 2',
+      deliveredTo: 'Sta 14+00 fill',
+      loadCheckerInitials: 'RO',
+      deliveryCheckerInitials: 'JM',
+    };
+    for (const [deliveredOn, loadVolumeCy] of [
+      ['2026-10-10', null],
+      ['2026-10-10', 13.25],
+      ['2026-11-02', null],
+    ] as const) {
+      expect(
+        (await sub.post(`/api/projects/${w.home.id}/truck-tickets`).send({ ...ticket, deliveredOn, loadVolumeCy }))
+          .status,
+      ).toBe(201);
+    }
+    const source = await makeSource(db, w.home.id, 'Quarry north');
+    expect(
+      (
+        await sub.post(`/api/projects/${w.home.id}/scale-tickets`).send({
+          bidItemId: weightItem.id,
+          sourceId: source.id,
+          ticketNumber: 'S-1001',
+          weighedOn: '2026-10-12',
+          grossTons: 32.4,
+          tareTons: 13.9,
+          material: 'Crushed base',
+          scaleCheckerInitials: 'KL',
+          deliveryCheckerInitials: 'JM',
+        })
+      ).status,
+    ).toBe(201);
+    const co = await makeChangeOrder(db, w.home.id, w.people.general_contractor.id);
+    await db
+      .update(changeOrders)
+      .set({ title: 'Unsuitable subgrade at the inlet', decidedAt: new Date('2026-10-01T12:00:00Z') })
+      .where(eq(changeOrders.id, co.id));
+    const sheet = await sub.post(`/api/projects/${w.home.id}/daily-sheets`).send({
+      changeOrderId: co.id,
+      workedOn: '2026-10-14',
+      description: 'Dig out and replace unsuitable subgrade at the culvert inlet',
+      labor: [{ trade: 'Operator', hours: 8, rateCents: 6250 }],
+      equipment: [{ unit: 'Excavator 30 t', hours: 6, rateCents: 18_500, standbyHours: 0, standbyRateCents: 0 }],
+      materials: [],
+      markups: { laborPercent: 25, equipmentPercent: 15, materialPercent: 15 },
+    });
+    expect(sheet.status).toBe(201);
+    // Labor 8 x $62.50 = $500.00 + 25 % = $625.00; equipment 6 x $185.00 = $1,110.00 + 15 % = $1,276.50.
+    expect(sheet.body.sheet.totalCents).toBe(190_150);
+    await sub.post(`/api/daily-sheets/${sheet.body.sheet.id}/sign`);
+    await gc.post(`/api/daily-sheets/${sheet.body.sheet.id}/sign`);
+  });
+
+  it('compiles October: schedule of values, summary lines and change orders to the cent', async () => {
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(`/api/projects/${w.home.id}/pay-apps`)
+      .send({ periodStart: '2026-10-01', periodEnd: '2026-10-31' });
+    expect(res.status).toBe(201);
+    october = res.body.payApp;
+    const pkg = october.package;
+    // B-2: 120.25 LF x $42.10 = $5,062.525 -> $5,062.53 work; $5,840.00 stored; done and stored $10,902.53 of
+    // $21,050.00 = 51.79 % (rounded down); retainage 10 % of $10,902.53 = $1,090.253 -> $1,090.25.
+    expect(row(pkg, 'B-2')).toMatchObject({
+      scheduledValueCents: 2_105_000,
+      previousCents: 0,
+      thisPeriodCents: 506_253,
+      storedMaterialsCents: 584_000,
+      completedAndStoredCents: 1_090_253,
+      percentBps: 5179,
+      balanceToFinishCents: 1_014_747,
+      retainageCents: 109_025,
+    });
+    // A-1: 400 CY x $7.25 = $2,900.00, retainage $290.00.
+    expect(row(pkg, 'A-1')).toMatchObject({ completedAndStoredCents: 290_000, retainageCents: 29_000 });
+    expect(pkg.totals).toMatchObject({
+      scheduledValueCents: 4_830_000,
+      storedMaterialsCents: 584_000,
+      completedAndStoredCents: 1_380_253,
+      retainageCents: 138_025,
+    });
+    // Earned less retainage $13,802.53 - $1,380.25 = $12,422.28; less $250.00 damages: $12,172.28 due.
+    expect(amounts(pkg)).toEqual({
+      originalContract: 4_830_000,
+      netChangeOrders: 0,
+      contractToDate: 4_830_000,
+      completedAndStored: 1_380_253,
+      retainage: 138_025,
+      earnedLessRetainage: 1_242_228,
+      adjustments: -25_000,
+      previousCertified: 0,
+      currentDue: 1_217_228,
+      balanceToFinish: 3_587_772,
+    });
+    expect(october.currentDueCents).toBe(1_217_228);
+    expect(pkg.changeOrders).toMatchObject({ approvedCount: 1, netChangeCents: 0, sinceLastCents: 0 });
+  });
+
+  it('prints the same figures in the PDF (read back) and the CSV, with the field records as appendices', async () => {
+    const text = await pdfText(october.id);
+    expect(text).toContain('Original contract sum $48,300.00');
+    expect(text).toContain('Work done and materials stored to date $13,802.53');
+    expect(text).toContain('Less retainage held (10 %) $1,380.25');
+    expect(text).toContain('Earned less retainage $12,422.28');
+    expect(text).toContain('Deductions and adjustments to date -$250.00');
+    expect(text).toContain('Due on this application $12,172.28');
+    expect(text).toContain('Left to finish, retainage included $35,877.72');
+    expect(text).toMatch(
+      /B-2 Storm trench \$21,050\.00 \$0\.00 \$5,062\.53 \$5,840\.00 \$10,902\.53 51\.79 % \$10,147\.47 \$1,090\.25/,
+    );
+    expect(text).toMatch(/Total \$48,300\.00 \$0\.00 \$7,962\.53 \$5,840\.00 \$13,802\.53 .* \$1,380\.25/);
+    expect(text).toContain('Milestone 1 late by two days');
+    // Appendix A: two October loads, 14.50 (bed) + 13.25 (written) = 27.75 CY; the November load is not listed.
+    expect(text).toContain('Appendix A - Truck tickets');
+    expect(text).toMatch(/2 loads 27\.75/);
+    // Appendix B: 32.40 - 13.90 = 18.50 t net.
+    expect(text).toMatch(/S-1001 2026-10-12 D-4 .*32\.40 13\.90 18\.50/);
+    // Appendix C: the day, $1,901.50, signed by both sides.
+    expect(text).toMatch(/2026-10-14 CO \d+ Dig out .*\$625\.00 \$1,276\.50 \$0\.00 \$1,901\.50 both sides/);
+
+    const rows = await csvRows(october.id);
+    const b2 = rows.find((r) => r.item_number === 'B-2')!;
+    expect(b2).toMatchObject({
+      scheduled_value: '21050.00',
+      materials_stored: '5840.00',
+      completed_and_stored: '10902.53',
+      percent_done: '51.79',
+      balance_to_finish: '10147.47',
+      retainage: '1090.25',
+    });
+    const summary = (key: string) => rows.find((r) => r.item_number === key)!.amount_to_date;
+    expect(summary('SUMMARY_CURRENT_DUE')).toBe('12172.28');
+    expect(summary('SUMMARY_ADJUSTMENTS')).toBe('-250.00');
+    expect(summary('SUMMARY_BALANCE_TO_FINISH')).toBe('35877.72');
+    expect(summary('CHANGE_ORDERS_NET')).toBe('0.00');
+  });
+});
+
+describe('an approved change order reaches the next application everywhere (issue 11 item 3)', () => {
+  let november: { id: string; currentDueCents: number; package: Pkg };
+  let coNumber: number;
+
+  it('certifies October, approves +600 CY at $8.00 on A-1, and compiles November', async () => {
+    await certify(october);
+    const co = (
+      await (await as('subcontractor')).post(`/api/projects/${w.home.id}/change-orders`).send({
+        title: 'North pad extension',
+        reason: 'The pad grew 40 ft north',
+        items: [
+          { kind: 'change_quantity', bidItemId: billable.a.id, quantityDelta: 600 },
+          { kind: 'change_price', bidItemId: billable.a.id, newUnitPriceCents: 800 },
+        ],
+      })
+    ).body.changeOrder;
+    coNumber = co.number;
+    expect((await (await as('general_contractor')).post(`/api/change-orders/${co.id}/approve`).send({})).status).toBe(
+      200,
+    );
+    // November: A-1 100 CY (the factory's tally of 2026-11-02), B-2 40 LF laid, 40 LF of the stored pipe used.
+    await makeTally(t.database.db, {
+      projectId: w.home.id,
+      bidItemId: billable.b.id,
+      authorUserId: w.people.subcontractor.id,
+      measuredOn: '2026-11-06',
+      quantity: 40,
+    });
+    expect(
+      (
+        await (
+          await as('subcontractor')
+        )
+          .post(`/api/stored-materials/${material.id}/movements`)
+          .send({ kind: 'used', movedOn: '2026-11-06', quantity: 40 })
+      ).status,
+    ).toBe(201);
+    const res = await (
+      await as('subcontractor')
+    )
+      .post(`/api/projects/${w.home.id}/pay-apps`)
+      .send({ periodStart: '2026-11-01', periodEnd: '2026-11-30' });
+    expect(res.status).toBe(201);
+    november = res.body.payApp;
+  });
+
+  it('shows the change on the schedule of values, the summary lines and the change order summary', async () => {
+    const pkg = november.package;
+    // A-1 now 1,600 CY x $8.00 = $12,800.00; to date $2,900.00 certified + (500 - 400) x $8.00 = $3,700.00.
+    expect(row(pkg, 'A-1')).toMatchObject({
+      scheduledValueCents: 1_280_000,
+      previousCents: 290_000,
+      thisPeriodCents: 80_000,
+      completedAndStoredCents: 370_000,
+      percentBps: 2890,
+      balanceToFinishCents: 910_000,
+      retainageCents: 37_000,
+    });
+    // B-2: 160.25 LF x $42.10 = $6,746.525 -> $6,746.53; 60 LF stored x $58.40 = $3,504.00; retainage 10 % of
+    // $10,250.53 -> $1,025.05.
+    expect(row(pkg, 'B-2')).toMatchObject({
+      previousCents: 506_253,
+      thisPeriodCents: 168_400,
+      storedMaterialsCents: 350_400,
+      completedAndStoredCents: 1_025_053,
+      retainageCents: 102_505,
+    });
+    // Contract $48,300.00 + $5,550.00 (1,600 x $8.00 - 1,000 x $7.25) = $53,850.00. Done and stored
+    // $3,700.00 + $10,250.53 = $13,950.53; retainage $370.00 + $1,025.05 = $1,395.05; earned less retainage
+    // $12,555.48; less damages $250.00 and October's $12,172.28: $133.20 due.
+    expect(amounts(pkg)).toEqual({
+      originalContract: 4_830_000,
+      netChangeOrders: 555_000,
+      contractToDate: 5_385_000,
+      completedAndStored: 1_395_053,
+      retainage: 139_505,
+      earnedLessRetainage: 1_255_548,
+      adjustments: -25_000,
+      previousCertified: 1_217_228,
+      currentDue: 13_320,
+      balanceToFinish: 4_129_452,
+    });
+    expect(november.currentDueCents).toBe(13_320);
+    expect(pkg.totals.scheduledValueCents).toBe(5_385_000);
+    expect(pkg.changeOrders).toMatchObject({
+      approvedCount: 2,
+      beforeCents: 0,
+      sinceLastCents: 555_000,
+      netChangeCents: 555_000,
+    });
+    expect(pkg.changeOrders.lines.at(-1)).toMatchObject({
+      number: coNumber,
+      title: 'North pad extension',
+      amountCents: 555_000,
+    });
+  });
+
+  it('prints the change in the PDF and the CSV of November', async () => {
+    const text = await pdfText(november.id);
+    expect(text).toContain('Change orders approved, net $5,550.00');
+    expect(text).toContain('Contract sum to date $53,850.00');
+    expect(text).toContain('Approved since the last application $5,550.00');
+    expect(text).toMatch(new RegExp(`CO ${coNumber} North pad extension \\d{4}-\\d{2}-\\d{2} \\$5,550\\.00`));
+    expect(text).toMatch(/A-1 .* \$12,800\.00 \$2,900\.00 \$800\.00 \$0\.00 \$3,700\.00 28\.9 % \$9,100\.00 \$370\.00/);
+    expect(text).toContain('Due on this application $133.20');
+    const rows = await csvRows(november.id);
+    expect(rows.find((r) => r.item_number === 'A-1')).toMatchObject({
+      unit_price: '8.00',
+      contract_quantity: '1600',
+      scheduled_value: '12800.00',
+      completed_and_stored: '3700.00',
+    });
+    const amount = (key: string) => rows.find((r) => r.item_number === key)!.amount_to_date;
+    expect(amount('SUMMARY_NET_CHANGE_ORDERS')).toBe('5550.00');
+    expect(amount('SUMMARY_CONTRACT_TO_DATE')).toBe('53850.00');
+    expect(amount(`CHANGE_ORDER_${coNumber}`)).toBe('5550.00');
+    expect(amount('CHANGE_ORDERS_SINCE_LAST')).toBe('5550.00');
+    expect(amount('SUMMARY_CURRENT_DUE')).toBe('133.20');
+  });
+
+  it('leaves October as certified: its package still counts only what was approved before it', async () => {
+    const again = (await (await as('owner')).get(`/api/pay-apps/${october.id}`)).body.payApp;
+    expect(amounts(again.package)).toEqual(amounts(october.package));
+    expect(again.package.changeOrders.approvedCount).toBe(1);
+  });
+});
