@@ -81,6 +81,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
       requestMaxBytes: env.UPLOAD_REQUEST_MAX_BYTES,
       tempDir: path.join(layout.root, 'upload-temp'),
     },
+    outboxPollMs: env.OUTBOX_POLL_SECONDS * 1000,
   });
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
@@ -102,6 +103,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     logger.info({ signal }, 'shutting down');
     server.close();
     server.closeAllConnections();
+    (app.locals.stopOutbox as (() => void) | undefined)?.();
     await mailbox?.close();
     await payments.close();
     await database.close();

@@ -20,6 +20,8 @@ const envSchema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
+  /** How often each server looks for due mail (retries, mail another server queued, a dead server's leases). */
+  OUTBOX_POLL_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
   /**
    * The processor's fee rates as JSON (`{"card":{"percentBps":290,"fixedCents":30},"us_bank_account":{"percentBps":80,

@@ -124,7 +124,7 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
     };
   });
   if (result.outcome === 'applied') {
-    await ctx.outbox.flush();
+    void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
     // A declined attempt ends its checkout session, so the owner starts a fresh one from Tallyard.
     if (result.failedSession) await ctx.payments!.expireSession(result.failedSession).catch(() => undefined);
   }
