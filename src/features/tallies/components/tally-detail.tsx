@@ -16,6 +16,7 @@ import { EvidencePanel } from './evidence-panel';
 import { EvidencePreviews } from './evidence-previews';
 import { RevisionHistory } from './revision-history';
 import { InputsSummary } from './inputs-summary';
+import { SurfaceMap } from './surface-map';
 import { DirectQuantityForm } from './direct-quantity-form';
 import { worksheetOf } from './tally-labels';
 import { TallyStatusBadge } from './tally-status-badge';
@@ -106,6 +107,7 @@ export function TallyDetail({ tallyId }: { tallyId: string }) {
             {tally.inputs ? <InputsSummary inputs={tally.inputs} /> : null}
           </CardBody>
         </Card>
+        {tally.method === 'surface' && tally.inputs ? <SurfaceMap inputs={tally.inputs} /> : null}
         <Card>
           <CardHeader>
             <CardTitle>Calculation trail</CardTitle>
