@@ -90,13 +90,20 @@ describe('original ground, as-built surface, tally and map', () => {
     const gc = await signedIn('gc@tallyard.test');
     await openTab(gc, 'Original ground');
     await gc.getByRole('button', { name: 'Accept this surface for my side' }).click();
-    await expect.poll(() => gc.getByText('Locked', { exact: true }).count()).toBe(1);
+    await expect.poll(() => gc.getByText('Not yet accepted').count()).toBe(0);
+    await expect.poll(() => gc.getByText('Awaiting acceptance').count()).toBe(0);
     const sha = await gc.getByTestId('baseline-sha256').textContent();
     expect(sha).toMatch(/^[0-9a-f]{64}$/);
     await snap(gc, 'baseline-locked');
 
-    await openTab(sub, 'Worksheets');
-    await sub.goto(`${sub.url().split('?')[0]}?method=surface`);
+    // From the Tallies tab: a new tally for the surface item opens its worksheet with the item chosen.
+    await openTab(sub, 'Tallies');
+    await sub.getByRole('button', { name: 'New tally' }).click();
+    const dialog = sub.getByRole('dialog', { name: 'New tally' });
+    const select = dialog.getByLabel('Bid item');
+    await select.selectOption((await select.locator('option', { hasText: /^206 / }).getAttribute('value'))!);
+    await dialog.getByRole('link', { name: 'Open the worksheet' }).click();
+    await sub.waitForURL(/\/worksheets\?method=surface&item=/);
     await sub.getByLabel('Measure from the locked original ground').selectOption({ index: 1 });
     await expect.poll(() => sub.getByText(/LandXML surface "Basin original ground": 121 points/).count()).toBe(1);
     await sub.locator('input[type=file]').nth(1).setInputFiles({
@@ -106,7 +113,6 @@ describe('original ground, as-built surface, tally and map', () => {
     });
     await expect.poll(() => sub.getByText(/pay limits from its boundaries/).count()).toBe(1);
     await sub.getByTestId('cut-fill-map').waitFor();
-    await sub.getByLabel('Bills item').selectOption({ label: '206 · Storm basin excavation (CY)' });
     await sub.getByLabel('Part billed').selectOption('cut');
     await snap(sub, 'worksheet-map');
 
