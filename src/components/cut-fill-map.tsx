@@ -14,7 +14,7 @@ const fmt = (v: number) => v.toLocaleString('en-US', { maximumFractionDigits: v 
 type Run = { x: number; y: number; w: number; fill: string };
 
 /** Horizontal runs of cells in the same depth class (a few hundred rectangles instead of thousands of cells). */
-function runsOf(g: DepthGrid, top: number): Run[] {
+function runsOf(g: DepthGrid, top: number, level: number): Run[] {
   const runs: Run[] = [];
   for (let r = 0; r < g.rows; r++) {
     let start = -1;
@@ -25,7 +25,7 @@ function runsOf(g: DepthGrid, top: number): Run[] {
     for (let c = 0; c <= g.columns; c++) {
       const v = c < g.columns ? g.depth[r * g.columns + c]! : NaN;
       let next = '';
-      if (v === v && top > 0 && v !== 0) {
+      if (v === v && top > 0 && Math.abs(v) >= level) {
         const k = Math.min(STEPS - 1, Math.floor((Math.abs(v) / top) * STEPS));
         next = v > 0 ? CUT[k]! : FILL[k]!;
       }
@@ -46,7 +46,10 @@ function runsOf(g: DepthGrid, top: number): Run[] {
  */
 export function CutFillMap({ grid, payLimits, unit }: { grid: DepthGrid; payLimits?: PayLimits | null; unit: string }) {
   const top = Math.max(grid.maxCut, grid.maxFill);
-  const runs = useMemo(() => runsOf(grid, top), [grid, top]);
+  // Depths within survey precision (0.01 ft, 0.003 m; common practice) are left uncoloured: rounding in a file's
+  // elevations must not paint the whole site.
+  const level = unit === 'm' ? 0.003 : 0.01;
+  const runs = useMemo(() => runsOf(grid, top, level), [grid, top, level]);
   const h = (W * grid.rows) / grid.columns;
   const k = W / (grid.columns * grid.cell);
   const px = (x: number) => (x - grid.x0) * k;
