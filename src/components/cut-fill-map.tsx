@@ -124,8 +124,8 @@ export function CutFillMap({ grid, payLimits, unit }: { grid: DepthGrid; payLimi
         <p>
           Bands of {fmt(top / STEPS)} {unit} up to the deepest: cut {fmt(grid.maxCut)} {unit}, fill {fmt(grid.maxFill)}{' '}
           {unit}. Cut where the existing surface is above the design, fill where below; blank where the two surveys do
-          not both reach. The picture samples each {fmt(grid.cell)} {unit} cell at its centre; the volumes come from the
-          exact overlay.
+          not both reach, and where the depth is within ±{level} {unit}. The picture samples each {fmt(grid.cell)}{' '}
+          {unit} cell at its centre; the volumes come from the exact overlay.
         </p>
       </figcaption>
     </figure>
