@@ -16,6 +16,13 @@ const envSchema = z.object({
     .regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://')
     .optional(),
   MAIL_FROM: z.string().default('Tallyard <no-reply@tallyard.test>'),
+  /** Uploads in this S3-compatible bucket instead of DATA_DIR/uploads (several app servers share it). */
+  S3_BUCKET: z.string().min(3).max(63).optional(),
+  /** An S3-compatible endpoint (MinIO and the like); AWS itself when unset. Credentials: AWS_ACCESS_KEY_ID etc. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  /** Path-style addresses (endpoint/bucket/key): on by default with S3_ENDPOINT, as most compatible stores need. */
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
   STRIPE_SECRET_KEY: z.string().optional(),
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
