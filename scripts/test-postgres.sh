@@ -23,4 +23,6 @@ run_pg "$PGBIN/pg_ctl -D $PGDATA -l $PGDATA/server.log -o \"-p $PORT -k /tmp -c 
 cleanup() { run_pg "$PGBIN/pg_ctl -D $PGDATA -m immediate stop >/dev/null" || true; rm -rf "$PGDATA"; }
 trap cleanup EXIT
 echo "== API tests and backup round trip on PostgreSQL ($("$PGBIN/postgres" --version))"
-TEST_DATABASE_URL="postgresql://postgres@127.0.0.1:$PORT/postgres" npx vitest run tests/api tests/server/backup-restore-postgres.test.ts "$@"
+# Test files given as arguments run alone (a quicker check of one area); without any, the whole set.
+if [ $# -gt 0 ]; then set -- "$@"; else set -- tests/api tests/server/backup-restore-postgres.test.ts; fi
+TEST_DATABASE_URL="postgresql://postgres@127.0.0.1:$PORT/postgres" npx vitest run "$@"

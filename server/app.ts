@@ -46,6 +46,7 @@ import { scaleTicketsRouter } from './modules/scale-tickets/scale-tickets.routes
 import { forceAccountRouter } from './modules/force-account/force-account.routes';
 import { payAdjustmentsRouter } from './modules/pay-adjustments/pay-adjustments.routes';
 import { storedMaterialsRouter } from './modules/stored-materials/stored-materials.routes';
+import { surfaceBaselinesRouter } from './modules/surface-baselines/surface-baselines.routes';
 import type { AppContext } from './app-context';
 import { uploadLimits, type UploadLimits } from './lib/upload';
 
@@ -75,6 +76,11 @@ export type AppDeps = {
   compute?: ComputePool;
   /** Upload limits: one request's total, each project's storage quota, the temp folder (defaults in lib/upload.ts). */
   uploads?: Partial<UploadLimits>;
+  /**
+   * How often the outbox looks for due mail besides the nudge after each change (mail another server queued,
+   * retries, leases of a server that died). Off when unset (tests); the server sets it (OUTBOX_POLL_SECONDS).
+   */
+  outboxPollMs?: number;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
@@ -102,7 +108,7 @@ export function createApp(deps: AppDeps): Express {
     payments: deps.payments,
     feeRates: checkFeeRates(deps.feeRates ?? DEFAULT_FEE_RATES),
     recentAuth: {
-      take: recentAuthCheck({ auth, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
+      take: recentAuthCheck({ auth, db, withinMinutes: deps.reauth?.withinMinutes ?? DEFAULT_REAUTH_MINUTES }),
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
       paymentWindowHours: deps.reauth?.paymentWindowHours ?? DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS,
     },
@@ -110,6 +116,9 @@ export function createApp(deps: AppDeps): Express {
   };
   const app = express();
   app.locals.uploadLimits = uploadLimits(deps.uploads);
+  // The outbox of this app: the server stops its polling on shutdown; tests wait on it before reading the database.
+  app.locals.outbox = ctx.outbox;
+  if (deps.outboxPollMs) app.locals.stopOutbox = ctx.outbox.poll(deps.outboxPollMs);
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(securityHeaders());
@@ -133,6 +142,7 @@ export function createApp(deps: AppDeps): Express {
         /^\/change-orders\/[^/]+\/documents$/,
         /^\/projects\/[^/]+\/bid-items\/import$/,
         /^\/calc\/surface$/,
+        /^\/projects\/[^/]+\/surface-baselines$/,
       ],
     }),
   );
@@ -193,6 +203,8 @@ export function createApp(deps: AppDeps): Express {
   // Measurement and payment provisions (issue 15).
   app.use('/api', measurementProfilesRouter(ctx), haulTicketsRouter(ctx), scaleTicketsRouter(ctx));
   app.use('/api', forceAccountRouter(ctx), storedMaterialsRouter(ctx), payAdjustmentsRouter(ctx));
+  // Signed original ground surfaces (issue 13).
+  app.use('/api', surfaceBaselinesRouter(ctx));
   void ctx;
   app.use('/api', apiNotFound);
 

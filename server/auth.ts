@@ -1,7 +1,7 @@
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import type { Db } from './db/client';
-import { account, session, user, verification } from './db/schema';
+import { account, rateLimit, session, user, verification } from './db/schema';
 import { afterAuthHook, beforeAuthHook, CLIENT_IP_HEADER } from './lib/auth-hooks';
 import { authLogger } from './lib/auth-logger';
 import type { Logger } from './lib/logger';
@@ -46,14 +46,14 @@ export type AuthOptions = {
 };
 
 export function createAuth({ db, secret, baseURL, trustedOrigins, secureCookies, ...opts }: AuthOptions) {
-  const signInGuard = opts.signInGuard ?? createSignInGuard();
+  const signInGuard = opts.signInGuard ?? createSignInGuard(db);
   return betterAuth({
     appName: 'Tallyard',
     secret,
     baseURL,
     basePath: '/api/auth',
     trustedOrigins,
-    database: drizzleAdapter(db, { provider: 'pg', schema: { user, session, account, verification } }),
+    database: drizzleAdapter(db, { provider: 'pg', schema: { user, session, account, verification, rateLimit } }),
     emailAndPassword: {
       enabled: true,
       minPasswordLength: MIN_PASSWORD_LENGTH,
@@ -77,6 +77,8 @@ export function createAuth({ db, secret, baseURL, trustedOrigins, secureCookies,
     },
     rateLimit: {
       enabled: opts.rateLimit ?? process.env.NODE_ENV !== 'test',
+      // Counted in the database (table rate_limit), so every app server sharing it counts the same requests.
+      storage: 'database',
       window: 60,
       max: 100,
       customRules: {

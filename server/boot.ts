@@ -11,6 +11,7 @@ import { seedDemo } from './db/seed-demo';
 import { smtpMailer } from './integrations/mailer/mailer';
 import { startSmtpSink } from './integrations/mailer/smtp-sink';
 import { configurePayments } from './integrations/payments/configure';
+import { s3Storage } from './integrations/storage/s3-storage';
 import { localStorage } from './integrations/storage/storage';
 import { isDemo, type Env } from './env';
 import { authSecret, type DataDirLayout } from './lib/data-dir';
@@ -43,7 +44,16 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     logger,
   });
   const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
-  const storage = localStorage(layout.uploads);
+  const storage = env.S3_BUCKET
+    ? await s3Storage({
+        bucket: env.S3_BUCKET,
+        endpoint: env.S3_ENDPOINT,
+        region: env.S3_REGION,
+        forcePathStyle: (env.S3_FORCE_PATH_STYLE ?? (env.S3_ENDPOINT ? 'true' : 'false')) === 'true',
+      })
+    : localStorage(layout.uploads);
+  if (env.S3_BUCKET)
+    logger.info({ bucket: env.S3_BUCKET, endpoint: env.S3_ENDPOINT }, 'uploads go to S3-compatible storage');
   if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');
 
   // Without SMTP_URL (development, tests, the demo: production refuses to start without it) a local sink
@@ -81,6 +91,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
       requestMaxBytes: env.UPLOAD_REQUEST_MAX_BYTES,
       tempDir: path.join(layout.root, 'upload-temp'),
     },
+    outboxPollMs: env.OUTBOX_POLL_SECONDS * 1000,
   });
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
@@ -102,6 +113,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     logger.info({ signal }, 'shutting down');
     server.close();
     server.closeAllConnections();
+    (app.locals.stopOutbox as (() => void) | undefined)?.();
     await mailbox?.close();
     await payments.close();
     await database.close();

@@ -16,10 +16,19 @@ const envSchema = z.object({
     .regex(/^smtps?:\/\//, 'must start with smtp:// or smtps://')
     .optional(),
   MAIL_FROM: z.string().default('Tallyard <no-reply@tallyard.test>'),
+  /** Uploads in this S3-compatible bucket instead of DATA_DIR/uploads (several app servers share it). */
+  S3_BUCKET: z.string().min(3).max(63).optional(),
+  /** An S3-compatible endpoint (MinIO and the like); AWS itself when unset. Credentials: AWS_ACCESS_KEY_ID etc. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  /** Path-style addresses (endpoint/bucket/key): on by default with S3_ENDPOINT, as most compatible stores need. */
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
   STRIPE_SECRET_KEY: z.string().optional(),
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
+  /** How often each server looks for due mail (retries, mail another server queued, a dead server's leases). */
+  OUTBOX_POLL_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
   /**
    * The processor's fee rates as JSON (`{"card":{"percentBps":290,"fixedCents":30},"us_bank_account":{"percentBps":80,

@@ -75,7 +75,7 @@ export function beforeAuthHook(guard: SignInGuard) {
     }
     if (ctx.path === SIGN_IN_PATH) {
       const email = bodyField(ctx.body, 'email');
-      const wait = typeof email === 'string' ? guard.retryAfter(email, clientAddress(ctx.headers)) : 0;
+      const wait = typeof email === 'string' ? await guard.retryAfter(email, clientAddress(ctx.headers)) : 0;
       if (wait > 0) {
         throw new APIError(
           'TOO_MANY_REQUESTS',
@@ -103,9 +103,9 @@ export function afterAuthHook(guard: SignInGuard) {
     const returned = ctx.context.returned;
     const address = clientAddress(ctx.headers);
     if (isAPIError(returned)) {
-      if (returned.statusCode === 401) guard.recordFailure(email, address);
+      if (returned.statusCode === 401) await guard.recordFailure(email, address);
     } else if (returned) {
-      guard.recordSuccess(email, address);
+      await guard.recordSuccess(email, address);
     }
   });
 }

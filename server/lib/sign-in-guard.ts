@@ -1,3 +1,7 @@
+import { and, count, eq, gt, lt, max, min, sql } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { signInFailures, signInKnownAddresses } from '../db/schema';
+
 /**
  * Limits on failed sign-ins, beside better-auth's per-IP rate limit (OWASP ASVS 4.0.3 2.2.1: anti-automation, at
  * most 100 failed attempts per hour on one account; soft lock-out with back-off), keyed so that someone who knows
@@ -10,8 +14,9 @@
  *   sign-ins until the oldest one ages out, except from an address where it signed in successfully within
  *   KNOWN_ADDRESS_DAYS (its owner's usual places keep working during a spread-out guessing attack).
  *
- * A successful sign-in ends its address's back-off but not the hourly count. The state lives in the process's
- * memory (one server per data folder); a restart clears it.
+ * A successful sign-in ends its address's back-off but not the hourly count. The counts live in the database
+ * (tables sign_in_failures and sign_in_known_addresses), so every app server sharing it sees the same failures and
+ * a restart forgets nothing; failures older than the hour are deleted, so a streak quiet for an hour starts over.
  */
 export const FREE_FAILURES = 5;
 export const MAX_BACKOFF_SECONDS = 60;
@@ -19,74 +24,66 @@ export const MAX_FAILURES_PER_HOUR = 100;
 export const KNOWN_ADDRESS_DAYS = 30;
 const HOUR_MS = 60 * 60 * 1000;
 const KNOWN_MS = KNOWN_ADDRESS_DAYS * 24 * HOUR_MS;
-const MAX_TRACKED = 50_000;
-
-type Streak = { streak: number; lastFailure: number };
 
 export type SignInGuard = {
   /** Seconds before this account may try again from this address, or 0. */
-  retryAfter: (account: string, address: string) => number;
-  recordFailure: (account: string, address: string) => void;
-  recordSuccess: (account: string, address: string) => void;
+  retryAfter: (account: string, address: string) => Promise<number>;
+  recordFailure: (account: string, address: string) => Promise<void>;
+  recordSuccess: (account: string, address: string) => Promise<void>;
 };
 
-/** A Map that forgets its oldest entry past MAX_TRACKED (a flood of made-up addresses cannot grow memory). */
-function bounded<V>() {
-  const map = new Map<string, V>();
-  return {
-    get: (k: string) => map.get(k),
-    delete: (k: string) => map.delete(k),
-    set(k: string, v: V) {
-      map.delete(k);
-      map.set(k, v);
-      if (map.size > MAX_TRACKED) map.delete(map.keys().next().value!);
-    },
-  };
-}
-
-export function createSignInGuard(now: () => number = Date.now): SignInGuard {
-  const streaks = bounded<Streak>();
-  const hourly = bounded<number[]>();
-  const known = bounded<Map<string, number>>();
+export function createSignInGuard(db: Db, now: () => number = Date.now): SignInGuard {
   const acct = (account: string) => account.trim().toLowerCase();
-  const pair = (account: string, address: string) => `${acct(account)}\n${address}`;
-  const failuresThisHour = (account: string): number[] => {
-    const since = now() - HOUR_MS;
-    const list = (hourly.get(acct(account)) ?? []).filter((t) => t > since);
-    if (list.length === 0) hourly.delete(acct(account));
-    return list;
-  };
-  const isKnown = (account: string, address: string) => {
-    const at = known.get(acct(account))?.get(address);
-    return at !== undefined && at > now() - KNOWN_MS;
+  const lastSuccess = async (account: string, address: string): Promise<Date | null> => {
+    const [row] = await db
+      .select({ at: signInKnownAddresses.lastSuccessAt })
+      .from(signInKnownAddresses)
+      .where(and(eq(signInKnownAddresses.account, acct(account)), eq(signInKnownAddresses.address, address)));
+    return row?.at ?? null;
   };
   return {
-    retryAfter(account, address) {
+    async retryAfter(account, address) {
       const t = now();
-      const failures = failuresThisHour(account);
-      if (failures.length >= MAX_FAILURES_PER_HOUR && !isKnown(account, address)) {
-        return Math.max(1, Math.ceil((failures[0]! + HOUR_MS - t) / 1000));
+      const [hour] = await db
+        .select({ n: count(), first: min(signInFailures.failedAt) })
+        .from(signInFailures)
+        .where(and(eq(signInFailures.account, acct(account)), gt(signInFailures.failedAt, new Date(t - HOUR_MS))));
+      const known = await lastSuccess(account, address);
+      if (hour!.n >= MAX_FAILURES_PER_HOUR && !(known && known.getTime() > t - KNOWN_MS)) {
+        return Math.max(1, Math.ceil((hour!.first!.getTime() + HOUR_MS - t) / 1000));
       }
-      const entry = streaks.get(pair(account, address));
-      if (!entry || entry.streak < FREE_FAILURES) return 0;
-      const backoffMs = Math.min(2 ** (entry.streak - FREE_FAILURES), MAX_BACKOFF_SECONDS) * 1000;
-      return Math.max(0, Math.ceil((entry.lastFailure + backoffMs - t) / 1000));
+      const [streak] = await db
+        .select({ n: count(), last: max(signInFailures.failedAt) })
+        .from(signInFailures)
+        .where(
+          and(
+            eq(signInFailures.account, acct(account)),
+            eq(signInFailures.address, address),
+            known ? gt(signInFailures.failedAt, known) : undefined,
+          ),
+        );
+      if (streak!.n < FREE_FAILURES) return 0;
+      const backoffMs = Math.min(2 ** (streak!.n - FREE_FAILURES), MAX_BACKOFF_SECONDS) * 1000;
+      return Math.max(0, Math.ceil((streak!.last!.getTime() + backoffMs - t) / 1000));
     },
-    recordFailure(account, address) {
+    async recordFailure(account, address) {
       const t = now();
-      const failures = failuresThisHour(account);
-      failures.push(t);
-      hourly.set(acct(account), failures);
-      const entry = streaks.get(pair(account, address)) ?? { streak: 0, lastFailure: 0 };
-      streaks.set(pair(account, address), { streak: entry.streak + 1, lastFailure: t });
+      await db.transaction(async (tx) => {
+        await tx.insert(signInFailures).values({ account: acct(account), address, failedAt: new Date(t) });
+        // Only the last hour counts; an old row of any account goes as new ones come (a flood of made-up
+        // addresses cannot grow the table beyond an hour of failures, which better-auth's per-IP limit bounds).
+        await tx.delete(signInFailures).where(lt(signInFailures.failedAt, new Date(t - HOUR_MS)));
+      });
     },
-    recordSuccess(account, address) {
-      streaks.delete(pair(account, address));
-      const addresses = known.get(acct(account)) ?? new Map<string, number>();
-      addresses.delete(address);
-      addresses.set(address, now());
-      if (addresses.size > 20) addresses.delete(addresses.keys().next().value!);
-      known.set(acct(account), addresses);
+    async recordSuccess(account, address) {
+      const at = new Date(now());
+      await db
+        .insert(signInKnownAddresses)
+        .values({ account: acct(account), address, lastSuccessAt: at })
+        .onConflictDoUpdate({
+          target: [signInKnownAddresses.account, signInKnownAddresses.address],
+          set: { lastSuccessAt: sql`excluded.last_success_at` },
+        });
     },
   };
 }

@@ -3,6 +3,7 @@ import type { Request, RequestHandler, Response } from 'express';
 import type { Auth } from '../auth';
 import { getActor } from '../lib/actor';
 import { AppError } from '../lib/app-error';
+import type { Db } from '../db/client';
 import { createSignInGuard, type SignInGuard } from '../lib/sign-in-guard';
 import { getSessionInfo } from './require-actor';
 
@@ -17,6 +18,8 @@ export type RecentAuthOptions = {
   /** Whether this request needs it at all (e.g. a payment above a threshold); default always. */
   when?: (req: Request, res: Response) => boolean | Promise<boolean>;
   /** Wrong re-entered passwords back off like failed sign-ins, per person. */
+  /** The database the failed re-authentications are counted in (shared by every app server). */
+  db: Db;
   guard?: SignInGuard;
   now?: () => number;
 };
@@ -47,7 +50,7 @@ export function requireRecentAuth(options: RecentAuthOptions): RequestHandler {
  */
 export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res: Response) => ConfirmRecentAuth {
   const { auth, withinMinutes = DEFAULT_REAUTH_MINUTES, now = Date.now } = options;
-  const guard = options.guard ?? createSignInGuard(now);
+  const guard = options.guard ?? createSignInGuard(options.db, now);
   return (req, res) => {
     const body = req.body as Record<string, unknown> | undefined;
     const typed = body && typeof body === 'object' ? body[REAUTH_FIELD] : undefined;
@@ -55,7 +58,7 @@ export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res:
     return async () => {
       const actor = getActor(res);
       if (typeof typed === 'string' && typed.length > 0) {
-        const wait = guard.retryAfter(actor.userId, req.ip ?? 'unknown');
+        const wait = await guard.retryAfter(actor.userId, req.ip ?? 'unknown');
         if (wait > 0) {
           throw new AppError(429, 'REAUTH_BACKOFF', `Too many wrong passwords. Try again in ${wait} seconds.`);
         }
@@ -64,12 +67,12 @@ export function recentAuthCheck(options: RecentAuthOptions): (req: Request, res:
           .then((r) => r.status === true)
           .catch(() => false);
         if (!ok) {
-          guard.recordFailure(actor.userId, req.ip ?? 'unknown');
+          await guard.recordFailure(actor.userId, req.ip ?? 'unknown');
           throw new AppError(403, 'REAUTH_FAILED', 'That password is not right. Enter your Tallyard password.', [
             { path: REAUTH_FIELD, message: 'Wrong password.' },
           ]);
         }
-        guard.recordSuccess(actor.userId, req.ip ?? 'unknown');
+        await guard.recordSuccess(actor.userId, req.ip ?? 'unknown');
         return;
       }
       const age = now() - getSessionInfo(res).createdAt.getTime();

@@ -37,6 +37,12 @@ export const PROJECT_TABS: readonly ProjectTab[] = [
     summary: 'Cross sections, grid levels, pit corners, trench runs, truck tickets, spoil, surfaces and mass haul.',
   },
   {
+    path: 'original-ground',
+    label: 'Original ground',
+    screen: () => import('./routes/project-baselines'),
+    summary: 'The signed original ground surface each area measures from, with who accepted it and its SHA-256.',
+  },
+  {
     path: 'pay-basis',
     label: 'Pay basis',
     screen: () => import('./routes/project-pay-basis'),

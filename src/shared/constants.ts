@@ -391,3 +391,12 @@ export const INBOX_KINDS = [
   'invitation_pending',
 ] as const;
 export type InboxKind = (typeof INBOX_KINDS)[number];
+
+/**
+ * A project's original ground surface (surface baseline): recorded by one party, proposed until both the
+ * subcontractor and the general contractor accept it, then locked; a later accepted one replaces it.
+ */
+export const BASELINE_STATUSES = ['proposed', 'locked', 'replaced'] as const;
+export type BaselineStatus = (typeof BASELINE_STATUSES)[number];
+/** Largest surface baseline file (a LandXML surface of about a million points with its faces). */
+export const MAX_BASELINE_BYTES = 100 * 1024 * 1024;

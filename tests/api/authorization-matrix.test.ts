@@ -8,6 +8,7 @@ import {
   disputes,
   invitations,
   payAppLines,
+  surfaceBaselines,
   tallyEvidence,
 } from '../../server/db/schema';
 import { makeBidItem, makeWorld } from '../setup/factories';
@@ -112,6 +113,10 @@ const ROUTES: Record<string, Scope> = {
   'POST /api/stored-materials/:storedMaterialId/movements': 'project',
   'GET /api/projects/:projectId/pay-adjustments': 'project',
   'POST /api/projects/:projectId/pay-adjustments': 'project',
+  'GET /api/projects/:projectId/surface-baselines': 'project',
+  'POST /api/projects/:projectId/surface-baselines': 'project',
+  'POST /api/surface-baselines/:baselineId/accept': 'project',
+  'GET /api/surface-baselines/:baselineId/download': 'project',
 };
 
 let t: TestApp;
@@ -179,8 +184,27 @@ beforeAll(async () => {
       expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
+  const [baseline] = await db
+    .insert(surfaceBaselines)
+    .values({
+      projectId: w.home.id,
+      fileName: 'og.xml',
+      contentType: 'application/xml',
+      sizeBytes: 3,
+      sha256: 'x',
+      storageKey: 'baseline/00000000-0000-4000-8000-000000000003',
+      surfaceName: 'OG',
+      pointCount: 0,
+      linearUnit: 'foot',
+      elevationUnit: 'foot',
+      unitsFrom: 'file',
+      points: Buffer.alloc(0),
+      recordedByUserId: gc,
+    })
+    .returning();
   params = {
     projectId: w.home.id,
+    baselineId: baseline!.id,
     bidItemId: item.id,
     tallyId: tally.id,
     evidenceId: evidence!.id,

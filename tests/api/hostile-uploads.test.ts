@@ -34,6 +34,8 @@ const UPLOAD_ROUTES = [
   // A tally with its worksheet files in one request (tally-revisions.test.ts).
   'POST /api/projects/:projectId/tallies',
   'PATCH /api/tallies/:tallyId',
+  // A surveyed baseline surface (LandXML) of the project.
+  'POST /api/projects/:projectId/surface-baselines',
 ];
 const HEADER = 'item_number,description,pay_unit,basis,unit_price,contract_quantity,major,method';
 
@@ -103,7 +105,7 @@ async function expectRefused(send: () => Promise<request.Response>, status: numb
 }
 
 describe('the upload routes', () => {
-  it('are exactly the evidence and change order document uploads, the bid schedule import and a tally with its files: every other route refuses a multipart form with 415', async () => {
+  it('are exactly the evidence and change order document uploads, the bid schedule import, a tally with its files and a baseline surface: every other route refuses a multipart form with 415', async () => {
     const routes = registeredRoutes(t.app).filter(
       (r) => /^(POST|PUT|PATCH) /.test(r) && r !== 'POST /api/webhooks/stripe',
     );

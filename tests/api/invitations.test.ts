@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents, companyMembers, invitations } from '../../server/db/schema';
 import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { makeUser, makeWorld } from '../setup/factories';
+import { waitForMail } from '../setup/mail';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -28,8 +29,7 @@ async function invite(
   t.mailbox.clear();
   const res = await (await as(who)).post(`/api/projects/${w.home.id}/invitations`).send({ email, role });
   expect(res.status).toBe(201);
-  const mail = t.mailbox.messages().find((m) => m.to.includes(email));
-  expect(mail).toBeDefined();
+  const mail = await waitForMail(t.mailbox, (m) => m.to.includes(email));
   const link = new RegExp(`${TEST_ORIGIN}/invitations/([A-Za-z0-9_-]+)`).exec(mail!.text);
   expect(link).not.toBeNull();
   expect(mail!.html).toContain(`href="${link![0]}"`);

@@ -72,11 +72,33 @@ describe('who bears the processing fee (project setting)', () => {
     expect(list.body.payments[0]).toMatchObject({
       amountCents: DUE,
       feeCents: 39_534,
+      reportedFeeCents: 39_534,
       feeBearer: 'payee',
       chargedCents: DUE,
     });
     const receipt = await waitForMail(t.mailbox, (m) => m.subject.includes(`Receipt: pay application ${app.number},`));
     expect(receipt.text).toContain('Processing fee: $395.34, absorbed by the payee; total charged $13,621.90.');
+    expect(receipt.text).not.toContain('The processor reported');
+  });
+
+  it('keeps the fee the processor reported apart from the quote, and the receipt names both where they differ', async () => {
+    await bearer('payee');
+    const app = await newApp();
+    const { paymentId, sessionId } = await startPayment(owner, app.id, { method: 'card' });
+    // As if this server were configured with rates below the processor's: 2.86 % + 30 cents on $13,621.90 quotes
+    // $389.89 (by hand: 38,958.634 cents -> 38,959 + 30); the payee absorbs it, so the charge is the amount either way.
+    await t.database.db.update(payments).set({ feeCents: 38_989 }).where(eq(payments.id, paymentId));
+    await confirm(t.standin, sessionId, { card: CARD_OK });
+    expect(await paymentRow(paymentId)).toMatchObject({
+      status: 'succeeded',
+      feeCents: 38_989,
+      reportedFeeCents: 39_534,
+    });
+    const list = await owner.get(`/api/pay-apps/${app.id}/payments`);
+    expect(list.body.payments[0]).toMatchObject({ feeCents: 38_989, reportedFeeCents: 39_534, chargedCents: DUE });
+    const receipt = await waitForMail(t.mailbox, (m) => m.subject.includes(`Receipt: pay application ${app.number},`));
+    expect(receipt.text).toContain('Processing fee: $389.89, absorbed by the payee');
+    expect(receipt.text).toContain('The processor reported a fee of $395.34 on this charge (quoted $389.89)');
   });
 
   it('the payer bearing it, by card: charged = application amount + fee, the application is paid the amount only', async () => {

@@ -21,14 +21,23 @@ beforeAll(async () => {
   // A stand-in for a sensitive route: certify, or pay above a threshold (amountCents > 1,000,000).
   const guarded = express.Router();
   guarded.use(express.json(), requireActor(t.auth, t.database.db));
-  guarded.post('/certify', requireRecentAuth({ auth: t.auth }), (req, res) => res.json({ ok: true, body: req.body }));
+  guarded.post('/certify', requireRecentAuth({ auth: t.auth, db: t.database.db }), (req, res) =>
+    res.json({ ok: true, body: req.body }),
+  );
   guarded.post(
     '/pay',
-    requireRecentAuth({ auth: t.auth, when: (req) => Number((req.body as { amountCents?: number }).amountCents) > 1_000_000 }),
+    requireRecentAuth({
+      auth: t.auth,
+      db: t.database.db,
+      when: (req) => Number((req.body as { amountCents?: number }).amountCents) > 1_000_000,
+    }),
     (_req, res) => res.json({ ok: true }),
   );
   // Sign-in goes through the real app.
-  app = express().use('/t', guarded).use(t.app).use(errorHandler(createLogger('silent')));
+  app = express()
+    .use('/t', guarded)
+    .use(t.app)
+    .use(errorHandler(createLogger('silent')));
 });
 afterAll(() => t.close());
 

@@ -58,6 +58,10 @@ const TRUCK_TICKET = {
   loadCheckerInitials: 'RB',
   deliveryCheckerInitials: 'MK',
 };
+/** A LandXML surface of three points (LandXML 1.2 schema: Units, Surface, Pnts). */
+const BASELINE_XML = Buffer.from(
+  '<?xml version="1.0"?><LandXML><Units><Metric linearUnit="meter"/></Units><Surfaces><Surface name="OG"><Definition><Pnts><P id="1">0 0 1</P><P id="2">0 10 1</P><P id="3">10 0 1</P></Pnts></Definition></Surface></Surfaces></LandXML>',
+);
 const TRUCK_TICKET_CSV =
   'delivered_on,truck,material,source,loaded_at,delivered_to,load_checker,delivery_checker\n2026-05-04,T-12,Select borrow,Hollis pit,Face 2,Sta 14+00,RB,MK\n';
 
@@ -87,6 +91,8 @@ type Fixture = {
   approvedChangeOrderId: string;
   sheetId: string;
   storedMaterialId: string;
+  /** A proposed original ground surface of the home project. */
+  baselineId: string;
 };
 type Rule = {
   may: Role[];
@@ -325,6 +331,15 @@ const RULES: Record<string, Rule> = {
     body: () => ({ kind: 'added', movedOn: '2026-05-12', quantity: 40, invoiceRef: 'INV-3381' }),
   },
   'GET /api/projects/:projectId/pay-adjustments': { may: ALL },
+  'GET /api/projects/:projectId/surface-baselines': { may: ALL },
+  // One proposal per area at a time: the second measuring party to record for the whole project gets 409.
+  'POST /api/projects/:projectId/surface-baselines': {
+    may: FIELD,
+    upload: { field: 'file', bytes: BASELINE_XML, name: 'og.xml' },
+    passes: [409],
+  },
+  'POST /api/surface-baselines/:baselineId/accept': { may: FIELD },
+  'GET /api/surface-baselines/:baselineId/download': { may: ALL },
   'POST /api/projects/:projectId/pay-adjustments': {
     may: CONTRACT,
     body: () => ({
@@ -458,6 +473,12 @@ async function fixture(payAppStatus: PayAppStatus = 'certified'): Promise<Fixtur
     approvedChangeOrderId: approved.id,
     sheetId: (await makeDailySheet(db, w.home.id, approved.id, gc)).id,
     storedMaterialId: (await makeStoredMaterial(db, w.home.id, item.id)).id,
+    baselineId: (
+      await agents.subcontractor
+        .post(`/api/projects/${w.home.id}/surface-baselines`)
+        .field('area', `Fixture ${serial}`)
+        .attach('file', BASELINE_XML, 'og.xml')
+    ).body.baseline.id,
   };
 }
 

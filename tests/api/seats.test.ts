@@ -12,6 +12,7 @@ import {
 } from '../../server/db/schema';
 import { addMember, makeBidItem, makeUser, makeWorld } from '../setup/factories';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
+import { waitForMail } from '../setup/mail';
 import { createTestApp, signedInAgent, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 
 // Product brief (people and roles): each party seat is held by people of that party's company, invited by their
@@ -32,8 +33,8 @@ const as = (who: Who) => signedInAgent(t.app, w.people[who].email);
 const anonymous = () => request.agent(t.app).set('Origin', TEST_ORIGIN);
 
 /** The token of the accept link in the last mail to this address. */
-function tokenFor(email: string) {
-  const mail = t.mailbox.messages().find((m) => m.to.includes(email));
+async function tokenFor(email: string) {
+  const mail = await waitForMail(t.mailbox, (m) => m.to.includes(email));
   return new RegExp(`${TEST_ORIGIN}/invitations/([A-Za-z0-9_-]+)`).exec(mail!.text)![1]!;
 }
 
@@ -51,18 +52,16 @@ describe('a party company admin has no general contractor powers', () => {
       ).toBe(403);
       expect(
         (
-          await agent
-            .post(`/api/projects/${w.home.id}/bid-items`)
-            .send({
-              itemNumber: 'X-1',
-              description: 'Rock',
-              payUnit: 'CY',
-              basis: 'bank',
-              unitPriceCents: 1,
-              contractQuantity: 1,
-              isMajor: false,
-              method: 'manual',
-            })
+          await agent.post(`/api/projects/${w.home.id}/bid-items`).send({
+            itemNumber: 'X-1',
+            description: 'Rock',
+            payUnit: 'CY',
+            basis: 'bank',
+            unitPriceCents: 1,
+            contractQuantity: 1,
+            isMajor: false,
+            method: 'manual',
+          })
         ).status,
         who,
       ).toBe(403);
@@ -160,7 +159,7 @@ describe('one person holds one seat, of their own company', () => {
       ).status,
     ).toBe(201);
     const gcAdmin = await as('admin');
-    const res = await gcAdmin.post(`/api/invitations/${tokenFor(w.people.admin.email)}/accept`).send({});
+    const res = await gcAdmin.post(`/api/invitations/${await tokenFor(w.people.admin.email)}/accept`).send({});
     expect({ status: res.status, code: res.body.error.code }).toEqual({
       status: 409,
       code: 'INVITEE_OF_ANOTHER_COMPANY',
@@ -184,13 +183,13 @@ describe('one person holds one seat, of their own company', () => {
           .send({ email, role: 'subcontractor' })
       ).status,
     ).toBe(201);
-    const forSub = tokenFor(email);
+    const forSub = await tokenFor(email);
     t.mailbox.clear();
     expect(
       (await (await as('owner_admin')).post(`/api/projects/${w.home.id}/invitations`).send({ email, role: 'owner' }))
         .status,
     ).toBe(201);
-    const forOwner = tokenFor(email);
+    const forOwner = await tokenFor(email);
     const visitor = anonymous();
     expect(
       (
@@ -384,7 +383,8 @@ describe('GET /api/companies lists what the person may see, not every company', 
   it("shows the owner's admin no company of a job its company is not on", async () => {
     const res = await (await as('owner_admin')).get('/api/companies');
     const ids = res.body.companies.map((c: { id: string }) => c.id);
-    for (const other of [w.companies.otherGc.id, w.companies.otherSub.id, w.companies.otherOwner.id]) expect(ids).not.toContain(other);
+    for (const other of [w.companies.otherGc.id, w.companies.otherSub.id, w.companies.otherOwner.id])
+      expect(ids).not.toContain(other);
   });
 
   it("shows a general contractor's person the subcontractor and owner companies a new job can name, and no other general contractor", async () => {

@@ -43,45 +43,56 @@ describe('per-account limit on failed sign-ins (ASVS 4.0.3 2.2.1)', () => {
     expect(res.status).toBe(200);
   });
 
-  it('doubles the wait per failure up to a minute and caps failures at 100 an hour', () => {
-    const now = 0;
-    const guard = createSignInGuard(() => now);
-    const ip = '198.51.100.1';
-    for (let i = 0; i < FREE_FAILURES; i++) guard.recordFailure('a@x.test', ip);
-    expect(guard.retryAfter('A@X.test', ip)).toBe(1);
-    guard.recordFailure('a@x.test', ip);
-    expect(guard.retryAfter('a@x.test', ip)).toBe(2);
-    for (let i = 0; i < 20; i++) guard.recordFailure('a@x.test', ip);
-    expect(guard.retryAfter('a@x.test', ip)).toBe(60);
-    guard.recordSuccess('a@x.test', ip);
-    expect(guard.retryAfter('a@x.test', ip)).toBe(0);
+  it('counts the same failures on every app server sharing the database (issue 16): one server backs off what another saw', async () => {
+    const now = 1_000_000;
+    const serverA = createSignInGuard(t.database.db, () => now);
+    const serverB = createSignInGuard(t.database.db, () => now);
+    const ip = '198.51.100.77';
+    for (let i = 0; i < FREE_FAILURES; i++) await serverA.recordFailure('shared@x.test', ip);
+    expect(await serverB.retryAfter('shared@x.test', ip)).toBe(1);
+    await serverB.recordSuccess('shared@x.test', ip);
+    expect(await serverA.retryAfter('shared@x.test', ip)).toBe(0);
   });
 
-  it('refuses the account for the rest of the hour at 100 failures in a rolling hour, from every address without a recent sign-in', () => {
+  it('doubles the wait per failure up to a minute and caps failures at 100 an hour', async () => {
+    const now = 0;
+    const guard = createSignInGuard(t.database.db, () => now);
+    const ip = '198.51.100.1';
+    for (let i = 0; i < FREE_FAILURES; i++) await guard.recordFailure('a@x.test', ip);
+    expect(await guard.retryAfter('A@X.test', ip)).toBe(1);
+    await guard.recordFailure('a@x.test', ip);
+    expect(await guard.retryAfter('a@x.test', ip)).toBe(2);
+    for (let i = 0; i < 20; i++) await guard.recordFailure('a@x.test', ip);
+    expect(await guard.retryAfter('a@x.test', ip)).toBe(60);
+    await guard.recordSuccess('a@x.test', ip);
+    expect(await guard.retryAfter('a@x.test', ip)).toBe(0);
+  });
+
+  it('refuses the account for the rest of the hour at 100 failures in a rolling hour, from every address without a recent sign-in', async () => {
     let now = 0;
-    const guard = createSignInGuard(() => now);
+    const guard = createSignInGuard(t.database.db, () => now);
     const attacker = (i: number) => `203.0.113.${i % 200}`;
     for (let i = 0; i < MAX_FAILURES_PER_HOUR - 1; i++) {
-      guard.recordFailure('b@x.test', attacker(i));
+      await guard.recordFailure('b@x.test', attacker(i));
       now += 1000;
     }
-    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
-    guard.recordFailure('b@x.test', attacker(MAX_FAILURES_PER_HOUR));
-    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(3600 - (MAX_FAILURES_PER_HOUR - 1));
+    expect(await guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
+    await guard.recordFailure('b@x.test', attacker(MAX_FAILURES_PER_HOUR));
+    expect(await guard.retryAfter('b@x.test', '192.0.2.50')).toBe(3600 - (MAX_FAILURES_PER_HOUR - 1));
     now = 3600_001;
-    expect(guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
+    expect(await guard.retryAfter('b@x.test', '192.0.2.50')).toBe(0);
   });
 
-  it("keeps the owner's usual address open while the account is at its hourly ceiling", () => {
+  it("keeps the owner's usual address open while the account is at its hourly ceiling", async () => {
     let now = 0;
-    const guard = createSignInGuard(() => now);
-    guard.recordSuccess('c@x.test', '192.0.2.7'); // the owner signed in from here earlier
+    const guard = createSignInGuard(t.database.db, () => now);
+    await guard.recordSuccess('c@x.test', '192.0.2.7'); // the owner signed in from here earlier
     for (let i = 0; i < MAX_FAILURES_PER_HOUR; i++) {
-      guard.recordFailure('c@x.test', `203.0.113.${i % 200}`);
+      await guard.recordFailure('c@x.test', `203.0.113.${i % 200}`);
       now += 10;
     }
-    expect(guard.retryAfter('c@x.test', '198.51.100.9')).toBeGreaterThan(0);
-    expect(guard.retryAfter('c@x.test', '192.0.2.7')).toBe(0);
+    expect(await guard.retryAfter('c@x.test', '198.51.100.9')).toBeGreaterThan(0);
+    expect(await guard.retryAfter('c@x.test', '192.0.2.7')).toBe(0);
   });
 });
 

@@ -137,7 +137,7 @@ describe('field record forms', () => {
     await userEvent.click(f.getByRole('button', { name: 'Record day' }));
     const summary = await f.findByRole('list', { name: 'What to correct' });
     expect(summary.textContent).toContain('Labor, row 2, hours: Hours cannot be above 24');
-    expect(summary.textContent).toContain('Labor, row 2, rate: Rate: type dollars like 62.50');
+    expect(summary.textContent).toContain('Labor, row 2, rate: Type dollars like 62.50');
     expect(summary.textContent).toContain('Day worked:');
     expect(calls.filter((c) => c.method === 'POST')).toEqual([]);
     // Only approved change orders are offered.

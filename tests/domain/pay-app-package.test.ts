@@ -4,6 +4,7 @@ import { changeOrderSummary } from '../../src/shared/domain/change-order-summary
 import { payApplication } from '../../src/shared/domain/pay-app';
 import { payAppPackage, SUMMARY_KEYS } from '../../src/shared/domain/pay-app-package';
 import { mobilizationLine } from '../../src/shared/domain/provisions/mobilization';
+import { settingsQuantityToDate } from '../../src/shared/domain/provisions/settings-quantity';
 
 const noChangeOrders = changeOrderSummary([], [], null, null);
 
@@ -201,5 +202,28 @@ describe('mobilizationLine: steps of the original contract earned (Iowa DOT 2533
       steps,
     });
     expect(line).toMatchObject({ toDateQuantity: 0.5, thisPeriodQuantity: 0 });
+  });
+});
+
+describe('settingsQuantityToDate: items paid from their own settings (hand-worked)', () => {
+  const stages = [
+    { name: 'Pad', percentOfItem: 45 },
+    { name: 'Basin', percentOfItem: 35 },
+    { name: 'Borrow', percentOfItem: 20 },
+  ];
+  it('pays a lump sum by its stages done, the whole quantity once all are done', () => {
+    expect(settingsQuantityToDate('lump_sum', { stages, completedStages: [0, 1] }, 1, 3)).toBe(0.8);
+    expect(settingsQuantityToDate('lump_sum', { stages, completedStages: [0, 1, 2] }, 1, 3)).toBe(1);
+    expect(settingsQuantityToDate('lump_sum', { percentComplete: 37.25 }, 1, 3)).toBe(0.3725);
+  });
+  it('pays a plan quantity by percent complete to the measured decimals (FDOT 9-3.2.1: paid at plan quantity)', () => {
+    // 4,100 CY x 37.5 % = 1,537.5 CY; 1,234.5 SY x 33.33 % = 411.45885 -> 411.5 at 1 decimal.
+    expect(settingsQuantityToDate('plan_quantity', { percentComplete: 37.5 }, 4100, 2)).toBe(1537.5);
+    expect(settingsQuantityToDate('plan_quantity', { percentComplete: 33.33 }, 1234.5, 1)).toBe(411.5);
+  });
+  it('says nothing for measured items or settings without a measure', () => {
+    expect(settingsQuantityToDate('worksheet', { percentComplete: 50 }, 10, 2)).toBeNull();
+    expect(settingsQuantityToDate('lump_sum', {}, 1, 3)).toBeNull();
+    expect(settingsQuantityToDate('plan_quantity', {}, 10, 2)).toBeNull();
   });
 });

@@ -21,6 +21,7 @@ describe('better-auth tables', () => {
       session: schema.session,
       account: schema.account,
       verification: schema.verification,
+      rateLimit: schema.rateLimit,
     };
     for (const [key, table] of Object.entries(expected)) {
       const ours = tables[key as keyof typeof tables];

@@ -7,6 +7,7 @@ import type { SmtpSink } from '../../server/integrations/mailer/smtp-sink';
 import type { Standin } from '../../stripe-standin/src/index';
 import type { Storage } from '../../server/integrations/storage/storage';
 import type { ComputePool } from '../../server/lib/compute/compute-pool';
+import type { Outbox } from '../../server/modules/notifications/outbox';
 import { assembleTestApp } from './assemble-app';
 import { createTestDatabase } from './test-db';
 
@@ -21,6 +22,8 @@ export type TestApp = {
   storage: Storage;
   /** The local Stripe stand-in; webhooks reach the app in-process. Bank debits wait for its settle hook. */
   standin: Standin;
+  /** Resolves once the outbox has sent (or given up on) everything due: mail goes out after the answer. */
+  outboxIdle: () => Promise<void>;
   close: () => Promise<void>;
 };
 
@@ -44,11 +47,15 @@ export async function createTestApp(
   });
   const { app, auth, mailbox, storage, standin } = built;
   target.app = app;
+  // Mail goes out after the answer (server/modules/notifications/outbox.ts): wait for it before reading the tables
+  // a send updates, and before closing the database under it.
+  const outboxIdle = () => (app.locals.outbox as Outbox).flush();
   const close = async () => {
+    await outboxIdle();
     await built.close();
     await database.close();
   };
-  return { app, auth, database, mailbox, storage, standin, close };
+  return { app, auth, database, mailbox, storage, standin, outboxIdle, close };
 }
 
 /** A supertest agent signed in as this person: it keeps the session cookie and sends our Origin. */

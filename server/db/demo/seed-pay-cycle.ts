@@ -96,7 +96,7 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
   const ctx: AppContext = {
     db,
     storage,
-    outbox: { flush: async () => {} },
+    outbox: { flush: async () => {}, poll: () => () => {} },
     logger: createLogger('silent'),
     appUrl: '',
     feeRates: DEFAULT_FEE_RATES,

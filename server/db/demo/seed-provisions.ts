@@ -36,12 +36,12 @@ export async function seedProvisions(db: Db, projectId: string): Promise<boolean
   await setProfile(db, gc, await idOf('101'), {
     profile: 'lump_sum',
     stage: 'interim',
+    // Paid in steps of the original contract earned (invented steps, consistent with the demo's August
+    // application, where the other items had earned 10.5 % and mobilization was paid in full).
     settings: {
-      percentComplete: 50,
       mobilizationSteps: [
-        { contractEarnedPercent: 5, mobilizationPercent: 25 },
-        { contractEarnedPercent: 10, mobilizationPercent: 50 },
-        { contractEarnedPercent: 50, mobilizationPercent: 100 },
+        { contractEarnedPercent: 5, mobilizationPercent: 50 },
+        { contractEarnedPercent: 10, mobilizationPercent: 100 },
       ],
     },
   });

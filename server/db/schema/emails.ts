@@ -24,6 +24,8 @@ export const emailOutbox = pgTable(
     lastError: text('last_error'),
     sentAt: timestamp('sent_at', { withTimezone: true }),
     nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+    /** While a server sends it: others skip it until then (a crashed server's lease runs out and another sends it). */
+    leasedUntil: timestamp('leased_until', { withTimezone: true }),
     ...timestamps,
   },
   (t) => [index().on(t.status, t.nextAttemptAt)],

@@ -12,3 +12,5 @@ export * from './pay-app-relations';
 export * from './provisions-tickets';
 export * from './provisions-accounts';
 export * from './idempotency';
+export * from './sign-in-limits';
+export * from './surface-baselines';

@@ -28,6 +28,8 @@ export const payments = pgTable(
     amountCents: bigint('amount_cents', { mode: 'number' }).notNull(),
     /** The processing fee: quoted from the fee schedule when the method is chosen up front, else as the processor reports it. */
     feeCents: bigint('fee_cents', { mode: 'number' }),
+    /** The fee the processor reported for the settled charge (its balance transaction), kept apart from the quote. */
+    reportedFeeCents: bigint('reported_fee_cents', { mode: 'number' }),
     /** Who bore the fee; the charge is amount + fee when the payer bears it, else the amount. */
     feeBearer: feeBearer('fee_bearer').notNull().default('payee'),
     method: paymentMethod('method'),

@@ -88,7 +88,7 @@ export async function createInvitation(ctx: AppContext, actor: Actor, projectId:
     });
     return presented;
   });
-  await ctx.outbox.flush();
+  void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
   return view;
 }
 

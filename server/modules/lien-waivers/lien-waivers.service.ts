@@ -175,7 +175,7 @@ export async function issueWaiver(
       );
       return row;
     });
-    await ctx.outbox.flush();
+    void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
     return presentWaiver(row, app.number);
   } catch (err) {
     await ctx.storage.remove(stored.key);

@@ -19,6 +19,8 @@ function earnedCents(
     return lineAmountCents(quantity, item.unitPriceCents);
   }
   if (profile.profile !== 'lump_sum') return null;
+  // Mobilization in steps earns what the other items' earnings reach, known only on a pay application.
+  if (settings.mobilizationSteps && settings.mobilizationSteps.length > 0) return null;
   const value = lineAmountCents(item.contractQuantity, item.unitPriceCents);
   if (settings.stages && settings.stages.length > 0) {
     return lumpSumStagesEarnedCents(value, settings.stages, new Set(settings.completedStages ?? [])).earnedCents;

@@ -1,11 +1,18 @@
-import { and, asc, eq, inArray, lte } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, lt, lte, or } from 'drizzle-orm';
 import type { Db, Executor } from '../../db/client';
 import { emailOutbox } from '../../db/schema';
 import type { Mailer } from '../../integrations/mailer/mailer';
 import type { Logger } from '../../lib/logger';
 import { recordAudit } from '../audit/audit.repository';
 
-export type QueuedMail = { projectId: string | null; template: string; to: string[]; subject: string; text: string; html: string };
+export type QueuedMail = {
+  projectId: string | null;
+  template: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+};
 
 /** Queues mail inside the transaction of the change it announces; nothing is sent until the outbox flushes. */
 export async function enqueueEmail(tx: Executor, mail: QueuedMail): Promise<void> {
@@ -21,15 +28,57 @@ export async function enqueueEmail(tx: Executor, mail: QueuedMail): Promise<void
 }
 
 export const MAX_EMAIL_ATTEMPTS = 5;
+/** How long a claimed message stays with the server that claimed it before another may take it over. */
+export const OUTBOX_LEASE_SECONDS = 120;
+const BATCH = 20;
 
 export type Outbox = {
   /** Sends what is due now; call it after a transaction that queued mail commits. Never throws. */
   flush(): Promise<void>;
+  /** Looks for due mail every `ms` (mail another server queued, retries, a dead server's leases); returns stop. */
+  poll(ms: number): () => void;
 };
 
 /**
+ * Claims up to BATCH due messages for this server: `FOR UPDATE SKIP LOCKED`, so two servers flushing at once take
+ * different rows, and a lease, so a message being sent is not taken again until the lease runs out.
+ */
+async function claimDue(db: Db) {
+  return db.transaction(async (tx) => {
+    const now = new Date();
+    const due = await tx
+      .select({ id: emailOutbox.id })
+      .from(emailOutbox)
+      .where(
+        and(
+          eq(emailOutbox.status, 'pending'),
+          lte(emailOutbox.nextAttemptAt, now),
+          or(isNull(emailOutbox.leasedUntil), lt(emailOutbox.leasedUntil, now)),
+        ),
+      )
+      .orderBy(asc(emailOutbox.createdAt))
+      .limit(BATCH)
+      .for('update', { skipLocked: true });
+    if (due.length === 0) return [];
+    const claimed = await tx
+      .update(emailOutbox)
+      .set({ leasedUntil: new Date(now.getTime() + OUTBOX_LEASE_SECONDS * 1000) })
+      .where(
+        inArray(
+          emailOutbox.id,
+          due.map((d) => d.id),
+        ),
+      )
+      .returning();
+    return claimed.sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime());
+  });
+}
+
+/**
  * Sends queued mail after commit with retries (back-off 2^n seconds). A failed send never rolls back the state
- * change; after the last attempt the message is marked failed and an audit event records it.
+ * change; after the last attempt the message is marked failed and an audit event records it. Several servers may
+ * share one outbox: each message is claimed by one of them (claimDue). A server that dies after sending but before
+ * marking the message sent leaves it to be sent again once its lease runs out: at least once, never lost.
  */
 export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
   let running: Promise<void> | null = null;
@@ -37,17 +86,16 @@ export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
   const timers = new Set<NodeJS.Timeout>();
 
   async function sendDue() {
-    const due = await db
-      .select()
-      .from(emailOutbox)
-      .where(and(inArray(emailOutbox.status, ['pending']), lte(emailOutbox.nextAttemptAt, new Date())))
-      .orderBy(asc(emailOutbox.createdAt))
-      .limit(50);
+    const due = await claimDue(db);
+    if (due.length === BATCH) again = true;
     for (const mail of due) {
       const attempts = mail.attempts + 1;
       try {
         await mailer.send({ to: mail.toAddresses, subject: mail.subject, text: mail.text, html: mail.html });
-        await db.update(emailOutbox).set({ status: 'sent', attempts, sentAt: new Date(), lastError: null }).where(eq(emailOutbox.id, mail.id));
+        await db
+          .update(emailOutbox)
+          .set({ status: 'sent', attempts, sentAt: new Date(), lastError: null, leasedUntil: null })
+          .where(eq(emailOutbox.id, mail.id));
       } catch (err) {
         const message = err instanceof Error ? err.message : String(err);
         const failed = attempts >= MAX_EMAIL_ATTEMPTS;
@@ -55,7 +103,13 @@ export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
         await db.transaction(async (tx) => {
           await tx
             .update(emailOutbox)
-            .set({ status: failed ? 'failed' : 'pending', attempts, lastError: message, nextAttemptAt: new Date(Date.now() + delayMs) })
+            .set({
+              status: failed ? 'failed' : 'pending',
+              attempts,
+              lastError: message,
+              nextAttemptAt: new Date(Date.now() + delayMs),
+              leasedUntil: null,
+            })
             .where(eq(emailOutbox.id, mail.id));
           if (failed) {
             await recordAudit(tx, {
@@ -96,5 +150,11 @@ export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
     return running;
   }
 
-  return { flush };
+  function poll(ms: number): () => void {
+    const timer = setInterval(() => void flush(), ms);
+    timer.unref();
+    return () => clearInterval(timer);
+  }
+
+  return { flush, poll };
 }

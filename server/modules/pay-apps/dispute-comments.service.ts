@@ -18,7 +18,14 @@ export async function commentOnDispute(db: Db, actor: Actor, disputeId: string, 
   if (!canComment(roles)) throw forbidden('Dispute threads are between the subcontractor and the general contractor.');
   return db.transaction(async (tx) => {
     const [row] = await tx.insert(disputeComments).values({ disputeId, authorUserId: actor.userId, body }).returning();
-    await recordAudit(tx, { projectId: found.projectId, actorUserId: actor.userId, objectType: 'dispute', objectId: disputeId, action: 'dispute.commented', after: { commentId: row!.id, body } });
+    await recordAudit(tx, {
+      projectId: found.projectId,
+      actorUserId: actor.userId,
+      objectType: 'dispute',
+      objectId: disputeId,
+      action: 'dispute.commented',
+      after: { commentId: row!.id, body },
+    });
     return { id: row!.id, author: actor.name, body: row!.body, createdAt: row!.createdAt.toISOString() };
   });
 }

@@ -92,7 +92,7 @@ export async function editDispute(ctx: AppContext, actor: Actor, disputeId: stri
       }),
     );
   });
-  await ctx.outbox.flush();
+  void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
   return payAppDetail(ctx.db, app.id, roles);
 }
 
@@ -133,7 +133,7 @@ export async function withdrawDispute(ctx: AppContext, actor: Actor, disputeId: 
       }),
     );
   });
-  await ctx.outbox.flush();
+  void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
   return payAppDetail(ctx.db, app.id, roles);
 }
 

@@ -60,10 +60,10 @@ async function refuseSubmitter(ctx: AppContext, actor: Actor, app: repo.PayAppRo
   }
 }
 
-/** Runs the change in one transaction, then sends the mail it queued (never inside the transaction). */
+/** Runs the change in one transaction, then starts sending the mail it queued (never inside the transaction). */
 async function commit(ctx: AppContext, payAppId: string, roles: AccessRole[], work: (tx: Executor) => Promise<void>) {
   await ctx.db.transaction(work);
-  await ctx.outbox.flush();
+  void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
   return payAppDetail(ctx.db, payAppId, roles);
 }
 

@@ -3,7 +3,7 @@ import { sumCents } from '../../../src/shared/domain/money';
 import { payApplication, type PayAppLineInput, type PayAppResult } from '../../../src/shared/domain/pay-app';
 import { currentContract } from '../../../src/shared/domain/contract';
 import { mobilizationLine, type MobilizationStep } from '../../../src/shared/domain/provisions/mobilization';
-import { addDecimals } from '../../../src/shared/domain/rounding';
+import { addDecimals, roundTo } from '../../../src/shared/domain/rounding';
 import type { Executor } from '../../db/client';
 import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
 import { AppError } from '../../lib/app-error';
@@ -11,7 +11,15 @@ import { recordAudit } from '../audit/audit.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import type { ProjectRow } from '../projects/projects.repository';
 import * as repo from './pay-apps.repository';
-import { adjustmentsThrough, mobilizationStepsByItem, storedMaterialsByItem } from './pay-app-provisions.repository';
+import {
+  adjustmentsThrough,
+  mobilizationStepsByItem,
+  profilesByItem,
+  storedMaterialsByItem,
+} from './pay-app-provisions.repository';
+import { precisionFor } from '../../../src/shared/domain/provisions/precision';
+import { settingsQuantityToDate } from '../../../src/shared/domain/provisions/settings-quantity';
+import type { PayUnit } from '../../../src/shared/constants';
 
 export type CreatePayAppArgs = {
   project: ProjectRow;
@@ -59,9 +67,25 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   const items = await repo.projectBidItems(tx, project.id);
   const contract = await loadContract(tx, project.id);
   const steps = await mobilizationStepsByItem(tx, project.id);
-  // A mobilization item paid in steps takes its quantity from the steps; its tallies stay ready, unbilled.
+  // A lump sum paid by percent or stages and a plan quantity paid by percent complete take their quantity to date
+  // from the item's settings (mobilization steps come first, below).
+  const profiles = await profilesByItem(tx, project.id);
+  const bySettings = new Map<string, number>();
+  for (const item of items) {
+    const p = profiles.get(item.id);
+    if (!p || steps.has(item.id)) continue;
+    const decimals = precisionFor(item.payUnit as PayUnit, p.payDecimals).measuredDecimals;
+    const quantity = settingsQuantityToDate(
+      p.profile,
+      p.settings,
+      contract.byId.get(item.id)!.contractQuantity,
+      decimals,
+    );
+    if (quantity !== null) bySettings.set(item.id, quantity);
+  }
+  // Those items' tallies stay ready, unbilled: the settings (or the steps) decide what they are paid.
   const billed = (await repo.readyTallies(tx, project.id, periodStart, periodEnd)).filter(
-    (t) => !steps.has(t.bidItemId),
+    (t) => !steps.has(t.bidItemId) && !bySettings.has(t.bidItemId),
   );
   const stored = await storedMaterialsByItem(tx, project.id, periodEnd);
   const adjustmentsCents = sumCents((await adjustmentsThrough(tx, project.id, periodEnd)).map((a) => a.amountCents));
@@ -73,11 +97,13 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   const bases: PayAppLineInput[] = items.map((item) => {
     const current = contract.byId.get(item.id)!;
     const previous = prev.byItem.get(item.id);
+    const settled = bySettings.get(item.id);
     return {
       unitPriceCents: current.unitPriceCents,
       contractQuantity: current.contractQuantity,
       previousQuantity: previous?.toDateQuantity ?? 0,
-      thisPeriodQuantity: thisPeriod.get(item.id) ?? 0,
+      thisPeriodQuantity:
+        settled === undefined ? (thisPeriod.get(item.id) ?? 0) : roundTo(settled - (previous?.toDateQuantity ?? 0), 4),
       previousAmountCents: previous?.amountToDateCents,
       storedMaterialsCents: stored.get(item.id) ?? 0,
     };

@@ -53,6 +53,20 @@ export function adjustmentsThrough(tx: Executor, projectId: string, periodEnd: s
     .orderBy(asc(payAdjustments.appliesOn), asc(payAdjustments.createdAt));
 }
 
+/** Each profiled item's profile, precision and settings, by bid item. */
+export async function profilesByItem(tx: Executor, projectId: string) {
+  const rows = await tx
+    .select({
+      bidItemId: bidItemProfiles.bidItemId,
+      profile: bidItemProfiles.profile,
+      payDecimals: bidItemProfiles.payDecimals,
+      settings: bidItemProfiles.settings,
+    })
+    .from(bidItemProfiles)
+    .where(eq(bidItemProfiles.projectId, projectId));
+  return new Map(rows.map((r) => [r.bidItemId, { ...r, settings: r.settings as ProfileSettings }]));
+}
+
 /** The project's lump-sum items paid in mobilization steps, by bid item. */
 export async function mobilizationStepsByItem(
   tx: Executor,

@@ -21,16 +21,31 @@ const DONE: Record<PayAppAction, string> = {
 };
 
 /** Role first (403), then the transition table (409 PAY_APP_WRONG_STATUS), then the revision (409 PAY_APP_STALE). */
-export function checkAction(app: PayAppRow, action: PayAppAction, roles: AccessRole[], expectedRevision?: number): PayAppStatus {
-  if (!mayTake(action, roles)) throw forbidden(`Your role on this project may not ${action.replace('_', ' ')} a pay application.`);
+export function checkAction(
+  app: PayAppRow,
+  action: PayAppAction,
+  roles: AccessRole[],
+  expectedRevision?: number,
+): PayAppStatus {
+  if (!mayTake(action, roles))
+    throw forbidden(`Your role on this project may not ${action.replace('_', ' ')} a pay application.`);
   const to = nextStatus(app.status, action);
-  if (!to) throw new AppError(409, 'PAY_APP_WRONG_STATUS', `Pay application ${app.number} is ${label(app.status)}; it cannot be ${DONE[action]} now.`);
+  if (!to)
+    throw new AppError(
+      409,
+      'PAY_APP_WRONG_STATUS',
+      `Pay application ${app.number} is ${label(app.status)}; it cannot be ${DONE[action]} now.`,
+    );
   if (expectedRevision !== undefined && expectedRevision !== app.revision) throw stale(app, expectedRevision);
   return to;
 }
 
 const stale = (app: PayAppRow, seen: number) =>
-  new AppError(409, 'PAY_APP_STALE', `Pay application ${app.number} changed since you loaded it (you saw revision ${seen}, it is now revision ${app.revision}, ${label(app.status)}). Reload and try again.`);
+  new AppError(
+    409,
+    'PAY_APP_STALE',
+    `Pay application ${app.number} changed since you loaded it (you saw revision ${seen}, it is now revision ${app.revision}, ${label(app.status)}). Reload and try again.`,
+  );
 
 /**
  * Moves an application with a conditional update on the status and revision it was read at; 0 rows means
@@ -53,12 +68,26 @@ export async function moveStatus(
   if (!row) {
     const now = await findPayApp(tx, app.id);
     if (now && now.revision !== app.revision) throw stale(now, app.revision);
-    throw new AppError(409, 'PAY_APP_WRONG_STATUS', `Pay application ${app.number} was moved to ${label(now?.status ?? 'another status')} by someone else meanwhile. Reload to see it.`);
+    throw new AppError(
+      409,
+      'PAY_APP_WRONG_STATUS',
+      `Pay application ${app.number} was moved to ${label(now?.status ?? 'another status')} by someone else meanwhile. Reload to see it.`,
+    );
   }
   // Steps of one transaction get distinct times (1 ms apart) so the history reads in order.
   const at = Date.now();
   for (const [i, s] of steps.entries()) {
-    await tx.insert(payAppStatusHistory).values({ payAppId: app.id, fromStatus: s.from, toStatus: s.to, revision: row.revision, note, actorUserId, createdAt: new Date(at + i) });
+    await tx
+      .insert(payAppStatusHistory)
+      .values({
+        payAppId: app.id,
+        fromStatus: s.from,
+        toStatus: s.to,
+        revision: row.revision,
+        note,
+        actorUserId,
+        createdAt: new Date(at + i),
+      });
   }
   return row;
 }

@@ -40,13 +40,17 @@ export async function queueReceipt(
   });
 }
 
-/** The processing fee, who bore it, and what was charged. */
+/** The processing fee, who bore it, and what was charged; the processor's own figure too where it differs. */
 function feeLine(payment: PaymentRow): string {
   if (payment.feeCents === null) return 'Processing fee: not reported by the processor.';
   const fee = formatCentsPlain(payment.feeCents);
-  return payment.feeBearer === 'payer'
-    ? `Processing fee: ${fee}, paid by the payer under this contract; total charged ${formatCentsPlain(chargedCents(payment))}.`
-    : `Processing fee: ${fee}, absorbed by the payee; total charged ${formatCentsPlain(chargedCents(payment))}.`;
+  const line =
+    payment.feeBearer === 'payer'
+      ? `Processing fee: ${fee}, paid by the payer under this contract; total charged ${formatCentsPlain(chargedCents(payment))}.`
+      : `Processing fee: ${fee}, absorbed by the payee; total charged ${formatCentsPlain(chargedCents(payment))}.`;
+  return payment.reportedFeeCents !== null && payment.reportedFeeCents !== payment.feeCents
+    ? `${line} The processor reported a fee of ${formatCentsPlain(payment.reportedFeeCents)} on this charge (quoted ${fee}); the difference is between the payee and its processor.`
+    : line;
 }
 
 /** Failure notice to the owner (the payer) and the subcontractor: the balance is open again. */

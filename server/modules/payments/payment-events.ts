@@ -16,7 +16,12 @@ export type PaymentSignal = {
 const idOf = (v: string | { id: string } | null | undefined) => (typeof v === 'string' ? v : (v?.id ?? null));
 const asMethod = (m: string | undefined): PaymentMethod | null => (m === 'card' || m === 'us_bank_account' ? m : null);
 
-function fromSession(s: Stripe.Checkout.Session, to: PaymentStatus, method: PaymentMethod | null, note: string): PaymentSignal {
+function fromSession(
+  s: Stripe.Checkout.Session,
+  to: PaymentStatus,
+  method: PaymentMethod | null,
+  note: string,
+): PaymentSignal {
   return {
     paymentId: s.metadata?.paymentId ?? null,
     sessionId: s.id,

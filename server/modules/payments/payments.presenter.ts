@@ -13,6 +13,7 @@ export function presentPayment(row: PaymentRow, payAppNumber: number, history: H
     payAppNumber,
     amountCents: row.amountCents,
     feeCents: row.feeCents,
+    reportedFeeCents: row.reportedFeeCents,
     feeBearer: row.feeBearer,
     chargedCents: chargedCents(row),
     method: row.method,

@@ -131,16 +131,14 @@ export async function movePayApp(
     .set({ ...values, updatedAt: new Date() })
     .where(eq(payApps.id, app.id));
   if (values.status !== app.status) {
-    await db
-      .insert(payAppStatusHistory)
-      .values({
-        payAppId: app.id,
-        fromStatus: app.status,
-        toStatus: values.status,
-        revision: app.revision,
-        note,
-        actorUserId: null,
-      });
+    await db.insert(payAppStatusHistory).values({
+      payAppId: app.id,
+      fromStatus: app.status,
+      toStatus: values.status,
+      revision: app.revision,
+      note,
+      actorUserId: null,
+    });
   }
 }
 

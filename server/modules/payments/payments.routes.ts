@@ -29,12 +29,20 @@ export function paymentsRouter(ctx: AppContext): Router {
 export function stripeWebhookRouter(ctx: AppContext): Router {
   const router = Router();
   router.post('/api/webhooks/stripe', express.raw({ type: 'application/json', limit: '1mb' }), async (req, res) => {
-    if (!ctx.payments) throw new AppError(503, 'PAYMENTS_UNAVAILABLE', 'Online payment is not configured on this server.');
+    if (!ctx.payments)
+      throw new AppError(503, 'PAYMENTS_UNAVAILABLE', 'Online payment is not configured on this server.');
     let event;
     try {
-      event = ctx.payments.constructEvent(Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0), req.get('stripe-signature'));
+      event = ctx.payments.constructEvent(
+        Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0),
+        req.get('stripe-signature'),
+      );
     } catch {
-      throw new AppError(400, 'BAD_SIGNATURE', 'The Stripe-Signature header does not match this body and the webhook secret.');
+      throw new AppError(
+        400,
+        'BAD_SIGNATURE',
+        'The Stripe-Signature header does not match this body and the webhook secret.',
+      );
     }
     res.json({ received: true, outcome: await applyStripeEvent(ctx, event) });
   });

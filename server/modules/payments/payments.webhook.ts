@@ -36,6 +36,15 @@ async function movePayApp(tx: Executor, payment: repo.PaymentRow, to: PaymentSig
   return { before: app, after: { ...app, status, paidCents: paid } };
 }
 
+/**
+ * The quoted fee stays as quoted (or, where nothing was quoted, becomes the processor's); the processor's own figure
+ * for the settled charge is kept beside it, once.
+ */
+const fees = (payment: repo.PaymentRow, reported: number | null) => ({
+  feeCents: payment.feeCents ?? reported,
+  reportedFeeCents: payment.reportedFeeCents ?? reported,
+});
+
 async function findTarget(tx: Executor, s: PaymentSignal) {
   if (s.paymentId && isUuid(s.paymentId)) return repo.findPayment(tx, { id: s.paymentId });
   if (s.sessionId) return repo.findPayment(tx, { sessionId: s.sessionId });
@@ -86,13 +95,13 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
       method: payment.method ?? signal.method,
     };
     if (!canMovePayment(payment.status, signal.to)) {
-      await repo.updatePayment(tx, payment.id, { ...ids, feeCents: payment.feeCents ?? fee });
+      await repo.updatePayment(tx, payment.id, { ...ids, ...fees(payment, fee) });
       return { outcome: 'ignored' as const };
     }
     const updated = await repo.updatePayment(tx, payment.id, {
       ...ids,
       status: signal.to,
-      feeCents: payment.feeCents ?? fee,
+      ...fees(payment, fee),
       failureMessage: signal.failureMessage ?? payment.failureMessage,
       settledAt: signal.to === 'succeeded' ? new Date() : payment.settledAt,
     });
@@ -115,7 +124,7 @@ export async function applyStripeEvent(ctx: AppContext, event: Stripe.Event): Pr
     };
   });
   if (result.outcome === 'applied') {
-    await ctx.outbox.flush();
+    void ctx.outbox.flush(); // after commit, off the answer: a slow mail server never delays it
     // A declined attempt ends its checkout session, so the owner starts a fresh one from Tallyard.
     if (result.failedSession) await ctx.payments!.expireSession(result.failedSession).catch(() => undefined);
   }

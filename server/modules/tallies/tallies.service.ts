@@ -25,6 +25,7 @@ import { computeTally } from './tally-quantity';
 import type { Storage } from '../../integrations/storage/storage';
 import type { CheckedFile } from './evidence-files';
 import { assertEvidenceRoom, auditedFiles, recordEvidence, withStoredFiles } from './evidence-store';
+import { surfaceAgainstBaseline } from '../surface-baselines/measure-against';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 import { PAY_APP_STATUSES } from '../../../src/shared/constants';
 import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
@@ -109,7 +110,12 @@ async function computedColumns(
   tallyId: string | null = null,
 ) {
   const item = await itemOnProject(db, project, input.bidItemId);
-  const result = await computeTally(input, item, project, compute);
+  // Surface tallies measure against the project's locked original ground (surface-baselines/measure-against.ts).
+  const baseline = input.method === 'surface' ? await surfaceAgainstBaseline(db, project.id, input.inputs) : null;
+  const measured = baseline ? { ...input, inputs: baseline.engineInputs } : input;
+  const computed = await computeTally(measured, item, project, compute);
+  const result = baseline ? { ...computed, trail: [baseline.trail, ...computed.trail] } : computed;
+  input = baseline ? { ...measured, inputs: { ...baseline.engineInputs, ...baseline.kept } } : input;
   const sanityReason = await sanityReasonFor(db, item, result.quantity, tallyId, input.sanityReason);
   return {
     sanityReason,

@@ -1,7 +1,10 @@
+import { useMemo } from 'react';
 import { useParams } from 'react-router';
 import { useBidItems } from '@/features/bid-items/api/get-bid-items';
 import { useProject } from '@/features/projects/api/get-project';
+import { useSurfaceBaselines } from '@/features/surface-baselines/api/surface-baselines';
 import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-screen';
+import { WorksheetBaselinesContext } from '@/features/worksheets/lib/baseline-context';
 
 /** Worksheets: every measurement method as a live calculator; the subcontractor saves one as a tally. */
 export function Component() {
@@ -9,8 +12,22 @@ export function Component() {
   const project = useProject(projectId);
   const canSave = project.can.createTally;
   const bidItems = useBidItems(projectId);
+  const baselines = useSurfaceBaselines(projectId);
+  // The locked original ground surfaces: the surface worksheet measures from one of them.
+  const locked = useMemo(
+    () =>
+      (baselines.data?.baselines ?? [])
+        .filter((b) => b.status === 'locked')
+        .map((b) => ({
+          id: b.id,
+          label: `${b.area || 'Whole project'}: ${b.fileName}`,
+          sha256: b.sha256,
+          downloadUrl: b.downloadUrl,
+        })),
+    [baselines.data],
+  );
   return (
-    <>
+    <WorksheetBaselinesContext.Provider value={locked}>
       <title>{`${project.name} · Worksheets · Tallyard`}</title>
       <WorksheetsScreen
         projectId={projectId}
@@ -19,6 +36,6 @@ export function Component() {
         bidItems={bidItems.data?.bidItems ?? []}
         defaults={{ swellPercent: project.swellPercent, shrinkagePercent: project.shrinkagePercent }}
       />
-    </>
+    </WorksheetBaselinesContext.Provider>
   );
 }

@@ -45,6 +45,8 @@ export type PaymentView = {
   amountCents: number;
   /** The processing fee (quoted from the fee schedule, or as the processor reported it); null until known. */
   feeCents: number | null;
+  /** The fee the processor reported for the settled charge; null until then (or when it reported none). */
+  reportedFeeCents: number | null;
   feeBearer: FeeBearer;
   /** What the payer was charged: amount + fee when the payer bore it, else the amount. */
   chargedCents: number;

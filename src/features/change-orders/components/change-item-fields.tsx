@@ -21,7 +21,12 @@ function errorAt(errors: FieldErrors<ProposeFormValues>, ...paths: string[]): st
   return undefined;
 }
 
-type Props = { form: UseFormReturn<ProposeFormValues, unknown, ProposeFormOutput>; index: number; items: readonly ScheduleItem[]; onRemove?: () => void };
+type Props = {
+  form: UseFormReturn<ProposeFormValues, unknown, ProposeFormOutput>;
+  index: number;
+  items: readonly ScheduleItem[];
+  onRemove?: () => void;
+};
 
 /** One change of a change order: its kind, then the fields that kind needs. */
 export function ChangeItemFields({ form, index, items, onRemove }: Props) {
@@ -36,7 +41,13 @@ export function ChangeItemFields({ form, index, items, onRemove }: Props) {
     <fieldset className="grid grid-cols-6 gap-x-3 gap-y-2 rounded-md border border-stone-200 p-3">
       <legend className="px-1 text-xs font-medium text-stone-600">Change {index + 1}</legend>
       <Field label="What changes" className="col-span-3">
-        {(control) => <Select {...control} {...register('kind')} options={optionsOf(CHANGE_ORDER_ITEM_KINDS, (k) => KIND_LABELS[k])} />}
+        {(control) => (
+          <Select
+            {...control}
+            {...register('kind')}
+            options={optionsOf(CHANGE_ORDER_ITEM_KINDS, (k) => KIND_LABELS[k])}
+          />
+        )}
       </Field>
       <div className="col-span-3 flex items-end justify-end">
         {onRemove ? (
@@ -54,23 +65,48 @@ export function ChangeItemFields({ form, index, items, onRemove }: Props) {
             {(c) => <Input {...c} {...register('newItem.description')} />}
           </Field>
           <Field label="Pay unit" className="col-span-2">
-            {(c) => <Select {...c} {...register('newItem.payUnit')} options={PAY_UNITS.map((u) => ({ value: u, label: u }))} />}
+            {(c) => (
+              <Select
+                {...c}
+                {...register('newItem.payUnit')}
+                options={PAY_UNITS.map((u) => ({ value: u, label: u }))}
+              />
+            )}
           </Field>
           <Field label="Quantity" error={err('newItem.contractQuantity')} className="col-span-2">
             {(c) => <Input inputMode="decimal" className="num" {...c} {...register('newItem.contractQuantity')} />}
           </Field>
-          <Field label="Unit price ($)" error={err('newItem.unitPrice', 'newItem.unitPriceCents')} className="col-span-2">
-            {(c) => <Input inputMode="decimal" className="num" placeholder="0.00" {...c} {...register('newItem.unitPrice')} />}
+          <Field
+            label="Unit price ($)"
+            error={err('newItem.unitPrice', 'newItem.unitPriceCents')}
+            className="col-span-2"
+          >
+            {(c) => (
+              <Input inputMode="decimal" className="num" placeholder="0.00" {...c} {...register('newItem.unitPrice')} />
+            )}
           </Field>
           <Field label="Measured by" className="col-span-6">
-            {(c) => <Select {...c} {...register('newItem.method')} options={optionsOf(MEASUREMENT_METHODS, (m) => MEASUREMENT_METHOD_LABELS[m])} />}
+            {(c) => (
+              <Select
+                {...c}
+                {...register('newItem.method')}
+                options={optionsOf(MEASUREMENT_METHODS, (m) => MEASUREMENT_METHOD_LABELS[m])}
+              />
+            )}
           </Field>
         </>
       ) : (
         <>
           <Field label="Bid item" error={err('bidItemId')} className="col-span-4">
             {(c) => (
-              <Select {...c} {...register('bidItemId')} options={items.map((i) => ({ value: i.id, label: `${i.itemNumber} · ${i.description}` }))}>
+              // Controlled by the form's value: the item arrives preselected (?propose=<item>) before the list
+              // loads, and an uncontrolled select would show its placeholder while the form holds the item.
+              <Select
+                {...c}
+                {...register('bidItemId')}
+                value={bidItemId ?? ''}
+                options={items.map((i) => ({ value: i.id, label: `${i.itemNumber} · ${i.description}` }))}
+              >
                 <option value="">Choose a bid item…</option>
               </Select>
             )}
@@ -79,10 +115,22 @@ export function ChangeItemFields({ form, index, items, onRemove }: Props) {
             <Field
               label={`Change (${chosen?.payUnit ?? 'unit'}, minus to reduce)`}
               error={err('quantityDelta')}
-              hint={chosen ? `Contract quantity now ${formatQuantity(chosen.currentContractQuantity, chosen.payUnit)}` : undefined}
+              hint={
+                chosen
+                  ? `Contract quantity now ${formatQuantity(chosen.currentContractQuantity, chosen.payUnit)}`
+                  : undefined
+              }
               className="col-span-2"
             >
-              {(c) => <Input inputMode="decimal" className="num" placeholder="+250 or -40" {...c} {...register('quantityDelta')} />}
+              {(c) => (
+                <Input
+                  inputMode="decimal"
+                  className="num"
+                  placeholder="+250 or -40"
+                  {...c}
+                  {...register('quantityDelta')}
+                />
+              )}
             </Field>
           ) : (
             <Field
@@ -91,7 +139,9 @@ export function ChangeItemFields({ form, index, items, onRemove }: Props) {
               hint={chosen ? `Now ${formatMoney(chosen.unitPriceCents)}` : undefined}
               className="col-span-2"
             >
-              {(c) => <Input inputMode="decimal" className="num" placeholder="0.00" {...c} {...register('unitPrice')} />}
+              {(c) => (
+                <Input inputMode="decimal" className="num" placeholder="0.00" {...c} {...register('unitPrice')} />
+              )}
             </Field>
           )}
         </>

@@ -211,7 +211,7 @@ const adjustmentFormSchema = z
             const negative = t.startsWith('-');
             const r = dollarsText(centsField, 'Amount').safeParse(negative ? t.slice(1) : t);
             if (!r.success) {
-              c.addIssue({ code: 'custom', message: 'Amount: type dollars like -125.00 (a minus sign deducts)' });
+              c.addIssue({ code: 'custom', message: 'Type dollars like -125.00 (a minus sign deducts)' });
               return z.NEVER;
             }
             return negative ? -r.data : r.data;

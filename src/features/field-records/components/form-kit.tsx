@@ -29,7 +29,7 @@ export function dollarsText(field: z.ZodType<number, number>, what: string) {
     .transform((text, ctx) => {
       const cents = parseDollarsToCents(text);
       if (cents === null) {
-        ctx.addIssue({ code: 'custom', message: `${what}: type dollars like 62.50 (two decimals at most)` });
+        ctx.addIssue({ code: 'custom', message: 'Type dollars like 62.50 (two decimals at most)' });
         return z.NEVER;
       }
       return cents;
@@ -37,11 +37,11 @@ export function dollarsText(field: z.ZodType<number, number>, what: string) {
     .pipe(field);
 }
 
-const readNumber = (what: string) => (text: string, ctx: z.RefinementCtx) => {
+const readNumber = (text: string, ctx: z.RefinementCtx) => {
   const cleaned = text.replace(/,/g, '');
   const value = /^-?\d*\.?\d+$/.test(cleaned) ? Number(cleaned) : Number.NaN;
   if (Number.isNaN(value)) {
-    ctx.addIssue({ code: 'custom', message: `${what}: type a number, like 12.5` });
+    ctx.addIssue({ code: 'custom', message: 'Type a number, like 12.5' });
     return z.NEVER;
   }
   return value;
@@ -49,15 +49,15 @@ const readNumber = (what: string) => (text: string, ctx: z.RefinementCtx) => {
 
 /** A typed number ("1,250", "12.5"), then the server's own field. */
 export function numberText(field: z.ZodType<number, number>, what: string) {
-  return z.string().trim().min(1, `${what} is required`).transform(readNumber(what)).pipe(field);
+  return z.string().trim().min(1, `${what} is required`).transform(readNumber).pipe(field);
 }
 
 /** The same, or null when the box is left empty. */
-export function optionalNumberText(field: z.ZodType<number, number>, what: string) {
+export function optionalNumberText(field: z.ZodType<number, number>, _what: string) {
   return z
     .string()
     .trim()
-    .transform((text, ctx) => (text === '' ? null : readNumber(what)(text, ctx)))
+    .transform((text, ctx) => (text === '' ? null : readNumber(text, ctx)))
     .pipe(field.nullable());
 }
 

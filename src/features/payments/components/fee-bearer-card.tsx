@@ -41,13 +41,13 @@ function rateText(method: PaymentMethod, rates: FeeRates): string {
 
 function FeeSchedule({ rates }: { rates: FeeRates }) {
   return (
-    <table className="w-full max-w-2xl text-sm" aria-label="Processing fee schedule">
+    <table className="w-full text-sm" aria-label="Processing fee schedule">
       <thead>
         <tr className="border-b border-stone-200 text-left text-xs text-stone-600">
           <th className="py-1 pr-3 font-medium">Method</th>
           <th className="py-1 pr-3 font-medium">Fee per charge</th>
-          <th className="py-1 pr-3 text-right font-medium">Payer bears: charged / received</th>
-          <th className="py-1 text-right font-medium">Payee absorbs: charged / received</th>
+          <th className="py-1 pr-3 text-right font-medium whitespace-nowrap">Payer bears it: charged / received</th>
+          <th className="py-1 text-right font-medium whitespace-nowrap">Payee absorbs it: charged / received</th>
         </tr>
       </thead>
       <tbody>
@@ -56,14 +56,14 @@ function FeeSchedule({ rates }: { rates: FeeRates }) {
           const payee = feeQuote(EXAMPLE_CENTS, m, 'payee', rates);
           return (
             <tr key={m} className="border-b border-stone-100">
-              <th scope="row" className="py-1.5 pr-3 text-left font-medium">
+              <th scope="row" className="py-1.5 pr-3 text-left font-medium whitespace-nowrap">
                 {METHOD_NAMES[m]}
               </th>
               <td className="py-1.5 pr-3">{rateText(m, rates)}</td>
-              <td className="py-1.5 pr-3 text-right tabular-nums">
+              <td className="py-1.5 pr-3 text-right whitespace-nowrap tabular-nums">
                 {formatMoney(payer.chargeCents)} / {formatMoney(payer.netCents)}
               </td>
-              <td className="py-1.5 text-right tabular-nums">
+              <td className="py-1.5 text-right whitespace-nowrap tabular-nums">
                 {formatMoney(payee.chargeCents)} / {formatMoney(payee.netCents)}
               </td>
             </tr>

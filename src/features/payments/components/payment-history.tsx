@@ -35,6 +35,11 @@ export function PaymentHistory({ payments, label = 'Payment history' }: { paymen
               <span className="block text-xs">
                 {p.feeCents === null ? '' : p.feeBearer === 'payer' ? 'paid by payer' : 'absorbed by payee'}
               </span>
+              {p.reportedFeeCents !== null && p.reportedFeeCents !== p.feeCents ? (
+                <span className="block text-xs text-clay-700" data-testid="reported-fee">
+                  processor reported {formatMoney(p.reportedFeeCents)}
+                </span>
+              ) : null}
             </TableCell>
             <TableCell className="text-right tabular-nums">{formatMoney(p.chargedCents)}</TableCell>
             <TableCell>

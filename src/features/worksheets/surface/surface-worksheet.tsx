@@ -1,6 +1,8 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { PayLimits } from '@/shared/domain/earthwork/surface';
 import { POINT_ORDERS, type PointOrder } from '@/shared/landxml';
+import { useWorksheetBaselines } from '../lib/baseline-context';
+import { BaselinePicker } from './baseline-picker';
 import { FileIssues } from '../components/file-issues';
 import { FileSource } from '../components/file-source';
 import { ResultPanel } from '../components/result-panel';
@@ -69,18 +71,39 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const kept = (initial?.payLimits as PayLimits | undefined) ?? null;
   const options = useMemo(() => ({ orders, keptPayLimits: kept }), [orders, kept]);
   const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design, options);
+  const baselines = useWorksheetBaselines();
+  const [baselineId, setBaselineId] = useState<string | null>(() =>
+    typeof initial?.baselineId === 'string' ? initial.baselineId : null,
+  );
+  // With a locked original ground, the existing survey is that surface (the server takes it from the baseline).
+  const mustUseBaseline = baselines.length > 0;
   useEffect(() => {
-    const ok = !busy && work?.result && work.inputs;
-    onInputs(ok ? work.inputs : null, ok ? (work.result as unknown as Record<string, unknown>) : null);
-  }, [work, busy, onInputs]);
+    const ok = !busy && work?.result && work.inputs && (!mustUseBaseline || baselineId !== null);
+    const inputs = ok ? { ...work.inputs!, ...(baselineId ? { baselineId } : {}) } : null;
+    onInputs(inputs, ok ? (work.result as unknown as Record<string, unknown>) : null);
+  }, [work, busy, onInputs, baselineId, mustUseBaseline]);
   const u = unitLabels(unit);
   const result = work?.result ?? null;
   return (
     <WorksheetColumns
       inputs={
         <WorksheetForm label="Surface to surface">
+          {mustUseBaseline ? (
+            <BaselinePicker
+              baselines={baselines}
+              chosen={baselineId}
+              onLoaded={(id, text) => {
+                setBaselineId(id);
+                setTexts((t) => ({ ...t, existing: text }));
+              }}
+            />
+          ) : null}
           <FileSource
-            label={`Existing survey (${u.length})`}
+            label={
+              mustUseBaseline
+                ? `Existing survey: the original ground chosen above (${u.length})`
+                : `Existing survey (${u.length})`
+            }
             hint={HINT}
             value={texts.existing}
             onChange={(t) => setTexts((s) => ({ ...s, existing: t }))}

@@ -1,0 +1,1 @@
+ALTER TABLE "payments" ADD COLUMN "reported_fee_cents" bigint;

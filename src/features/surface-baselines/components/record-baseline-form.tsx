@@ -1,0 +1,86 @@
+import { useRef, useState } from 'react';
+import { toast } from 'sonner';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { Field } from '@/components/ui/field';
+import { Input } from '@/components/ui/input';
+import { Select } from '@/components/ui/select';
+import { errorMessage, isApiError } from '@/lib/api-client';
+import { useRecordBaseline } from '../api/surface-baselines';
+
+/** Records an original ground surface: a LandXML file, the area it covers, and the unit of a file without <Units>. */
+export function RecordBaselineForm({ projectId }: { projectId: string }) {
+  const record = useRecordBaseline(projectId);
+  const fileInput = useRef<HTMLInputElement>(null);
+  const [file, setFile] = useState<File | null>(null);
+  const [area, setArea] = useState('');
+  const [unit, setUnit] = useState<'ft' | 'm' | ''>('');
+  const error = record.error;
+  const details = isApiError(error) ? (error.details ?? []) : [];
+  return (
+    <Card>
+      <CardHeader>
+        <CardTitle>Record original ground</CardTitle>
+      </CardHeader>
+      <CardBody>
+        <form
+          className="flex flex-wrap items-end gap-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (!file) return;
+            record.mutate(
+              { file, area, unit },
+              {
+                onSuccess: () => {
+                  toast.success('Original ground recorded: it now needs both sides’ acceptance.');
+                  setFile(null);
+                  if (fileInput.current) fileInput.current.value = '';
+                },
+              },
+            );
+          }}
+        >
+          <Field label="LandXML surface file" hint="The first surface with points is taken; its SHA-256 is kept.">
+            {(c) => (
+              <Input
+                {...c}
+                ref={fileInput}
+                type="file"
+                accept=".xml,.landxml"
+                onChange={(e) => setFile(e.target.files?.[0] ?? null)}
+              />
+            )}
+          </Field>
+          <Field label="Area" hint="Leave empty for the whole project." className="w-48">
+            {(c) => <Input {...c} value={area} maxLength={80} onChange={(e) => setArea(e.target.value)} />}
+          </Field>
+          <Field label="Units if the file has none" className="w-48">
+            {(c) => (
+              <Select {...c} value={unit} onChange={(e) => setUnit(e.target.value as 'ft' | 'm' | '')}>
+                <option value="">Read from the file</option>
+                <option value="ft">Feet</option>
+                <option value="m">Metres</option>
+              </Select>
+            )}
+          </Field>
+          <Button type="submit" disabled={!file || record.isPending}>
+            {record.isPending ? 'Reading…' : 'Record'}
+          </Button>
+        </form>
+        {error ? (
+          <Alert tone="error" className="mt-3">
+            {errorMessage(error)}
+            {details.length > 1 ? (
+              <ul className="mt-1 list-disc pl-5">
+                {details.slice(0, 10).map((d, i) => (
+                  <li key={i}>{d.message}</li>
+                ))}
+              </ul>
+            ) : null}
+          </Alert>
+        ) : null}
+      </CardBody>
+    </Card>
+  );
+}

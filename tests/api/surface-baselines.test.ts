@@ -1,0 +1,222 @@
+import { createHash } from 'node:crypto';
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { auditEvents, surfaceBaselines } from '../../server/db/schema';
+import { makeBidItem, makeWorld } from '../setup/factories';
+import { auditActions } from '../setup/pay-cycle-factories';
+import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
+
+// The signed original ground surface (issue 13, item 3): recorded once, accepted by the subcontractor and the
+// general contractor, then locked; surface tallies measure against it; replacing it needs both again.
+let t: TestApp;
+let w: Awaited<ReturnType<typeof makeWorld>>;
+beforeAll(async () => {
+  t = await createTestApp();
+  w = await makeWorld(t.database.db, t.auth);
+});
+afterAll(() => t.close());
+
+type Who = keyof typeof w.people | 'outsider';
+const as = (who: Who) => signedInAgent(t.app, who === 'outsider' ? w.outsider.email : w.people[who].email);
+/** The factories name each person after their e-mail's local part. */
+const nameOf = (who: keyof typeof w.people) => w.people[who].email.split('@')[0]!;
+const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
+
+/**
+ * A square 100 ft on a side (plan in feet) whose elevations are written in metres by the LandXML default (Imperial
+ * without elevationUnit: LandXML 1.2 schema): 30.48 m = 100 ft (0.3048 m to the foot).
+ */
+const ground = (elevationM = 30.48, units = '<Units><Imperial linearUnit="foot"/></Units>') =>
+  Buffer.from(`<?xml version="1.0"?>
+<LandXML xmlns="http://www.landxml.org/schema/LandXML-1.2" version="1.2">${units}
+<Surfaces><Surface name="Original ground"><Definition surfType="TIN"><Pnts>
+<P id="1">0 0 ${elevationM}</P><P id="2">0 100 ${elevationM}</P><P id="3">100 100 ${elevationM}</P><P id="4">100 0 ${elevationM}</P>
+</Pnts><Faces><F>1 2 3</F><F>1 3 4</F></Faces></Definition></Surface></Surfaces></LandXML>`);
+
+async function record(who: Who, bytes: Buffer, fields: Record<string, string> = {}, projectId = w.home.id) {
+  let req = (await as(who)).post(`/api/projects/${projectId}/surface-baselines`);
+  for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+  return req.attach('file', bytes, 'original-ground.xml');
+}
+const accept = async (who: Who, id: string) => (await as(who)).post(`/api/surface-baselines/${id}/accept`).send({});
+
+describe('recording an original ground surface', () => {
+  it('stores the file with its SHA-256 and its points, proposed, in one audit event', async () => {
+    const bytes = ground();
+    const res = await record('subcontractor', bytes, { area: 'Record area' });
+    expect(res.status).toBe(201);
+    expect(res.body.baseline).toMatchObject({
+      area: 'Record area',
+      status: 'proposed',
+      sha256: sha256(bytes),
+      sizeBytes: bytes.length,
+      surfaceName: 'Original ground',
+      pointCount: 4,
+      linearUnit: 'foot',
+      elevationUnit: 'meter',
+      unitsFrom: 'file',
+      subcontractorAccepted: null,
+      generalContractorAccepted: null,
+      can: { accept: true },
+    });
+    expect(await auditActions(t.database.db, res.body.baseline.id)).toEqual(['surface_baseline.recorded']);
+    const file = await (
+      await as('owner')
+    )
+      .get(res.body.baseline.downloadUrl)
+      .buffer(true)
+      .parse((r, done) => {
+        const parts: Buffer[] = [];
+        r.on('data', (c: Buffer) => parts.push(c));
+        r.on('end', () => done(null, Buffer.concat(parts)));
+      });
+    expect(file.status).toBe(200);
+    expect(file.headers['x-content-type-options']).toBe('nosniff');
+    expect(sha256(file.body as Buffer)).toBe(sha256(bytes));
+  });
+
+  it('the general contractor records too; the owner and the admins may not (403, nothing written)', async () => {
+    expect((await record('general_contractor', ground(), { area: 'GC area' })).status).toBe(201);
+    for (const who of ['owner', 'admin', 'subcontractor_admin', 'owner_admin'] as const) {
+      const res = await record(who, ground(), { area: `Refused ${who}` });
+      expect(res.status).toBe(403);
+    }
+    const rows = await t.database.db.select().from(surfaceBaselines).where(eq(surfaceBaselines.projectId, w.home.id));
+    expect(rows.some((r) => r.area.startsWith('Refused'))).toBe(false);
+  });
+
+  it('asks the unit of a file without <Units>, and takes it as the recorder said', async () => {
+    const bare = ground(100, '');
+    const asked = await record('subcontractor', bare, { area: 'No units' });
+    expect(asked.status).toBe(400);
+    expect(asked.body.error.code).toBe('BASELINE_UNITS_REQUIRED');
+    const told = await record('subcontractor', bare, { area: 'No units', unit: 'ft' });
+    expect(told.status).toBe(201);
+    expect(told.body.baseline).toMatchObject({ linearUnit: 'foot', elevationUnit: 'foot', unitsFrom: 'recorder' });
+  });
+
+  it('refuses a file that is not LandXML, naming the line, and saves nothing', async () => {
+    const before = (await t.database.db.select().from(auditEvents)).length;
+    const res = await record('subcontractor', Buffer.from('<?xml version="1.0"?>\n<LandXML>\n<Surfaces>\n</LandXML>'));
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('BASELINE_FILE_INVALID');
+    expect(res.body.error.details[0].message).toMatch(/^Line 4, \(XML\): Not well-formed XML/);
+    expect((await record('subcontractor', Buffer.from('x,y,z\n1,2,3'))).body.error.code).toBe('BASELINE_FILE_INVALID');
+    expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
+  });
+
+  it('keeps one proposal per area at a time (409 BASELINE_PROPOSAL_OPEN)', async () => {
+    expect((await record('subcontractor', ground(), { area: 'Busy' })).status).toBe(201);
+    const again = await record('general_contractor', ground(), { area: 'Busy' });
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('BASELINE_PROPOSAL_OPEN');
+  });
+});
+
+describe('accepting and locking', () => {
+  it('locks once both sides accept; each side once; the owner and admins cannot accept', async () => {
+    const { body } = await record('subcontractor', ground(), { area: 'Lock area' });
+    const id = body.baseline.id as string;
+    for (const who of ['owner', 'admin', 'subcontractor_admin', 'owner_admin'] as const)
+      expect((await accept(who, id)).status).toBe(403);
+    const sub = await accept('subcontractor', id);
+    expect(sub.status).toBe(200);
+    expect(sub.body.baseline.status).toBe('proposed');
+    expect(sub.body.baseline.subcontractorAccepted.name).toBe(nameOf('subcontractor'));
+    expect(sub.body.baseline.can.accept).toBe(false);
+    const twice = await accept('subcontractor', id);
+    expect([twice.status, twice.body.error.code]).toEqual([409, 'BASELINE_ALREADY_ACCEPTED']);
+    const gc = await accept('general_contractor', id);
+    expect(gc.body.baseline).toMatchObject({
+      status: 'locked',
+      generalContractorAccepted: { name: nameOf('general_contractor') },
+    });
+    expect(gc.body.baseline.lockedAt).not.toBeNull();
+    expect(await auditActions(t.database.db, id)).toEqual([
+      'surface_baseline.recorded',
+      'surface_baseline.accepted',
+      'surface_baseline.locked',
+    ]);
+    const late = await accept('general_contractor', id);
+    expect([late.status, late.body.error.code]).toEqual([409, 'BASELINE_NOT_PROPOSED']);
+  });
+
+  it('replacing a locked baseline needs both acceptances again and is an audit event; the old one is kept as replaced', async () => {
+    const first = (await record('subcontractor', ground(), { area: 'Replace area' })).body.baseline.id as string;
+    await accept('subcontractor', first);
+    await accept('general_contractor', first);
+    const second = await record('general_contractor', ground(30.5), { area: 'Replace area' });
+    expect(second.body.baseline).toMatchObject({ status: 'proposed', replacesId: first });
+    await accept('general_contractor', second.body.baseline.id);
+    let list = (await (await as('owner')).get(`/api/projects/${w.home.id}/surface-baselines`)).body.baselines;
+    expect(list.find((b: { id: string }) => b.id === first).status).toBe('locked');
+    await accept('subcontractor', second.body.baseline.id);
+    list = (await (await as('owner')).get(`/api/projects/${w.home.id}/surface-baselines`)).body.baselines;
+    expect(list.find((b: { id: string }) => b.id === first)).toMatchObject({ status: 'replaced' });
+    expect(list.find((b: { id: string }) => b.id === second.body.baseline.id)).toMatchObject({ status: 'locked' });
+    expect(await auditActions(t.database.db, second.body.baseline.id)).toEqual([
+      'surface_baseline.replacement_recorded',
+      'surface_baseline.accepted',
+      'surface_baseline.replaced',
+    ]);
+  });
+});
+
+describe('outsiders and other projects', () => {
+  it('answers 404 to a person of another project for every baseline route', async () => {
+    const id = (await record('subcontractor', ground(), { area: 'Hidden' })).body.baseline.id as string;
+    const outsider = await as('outsider');
+    expect((await outsider.get(`/api/projects/${w.home.id}/surface-baselines`)).status).toBe(404);
+    expect((await record('outsider', ground(), { area: 'x' })).status).toBe(404);
+    expect((await outsider.post(`/api/surface-baselines/${id}/accept`).send({})).status).toBe(404);
+    expect((await outsider.get(`/api/surface-baselines/${id}/download`)).status).toBe(404);
+    expect((await outsider.get('/api/surface-baselines/not-a-uuid/download')).status).toBe(404);
+  });
+
+  it('a baseline of the home project is not one of the foreign project (a tally there cannot name it)', async () => {
+    const id = (await record('subcontractor', ground(), { area: 'Home only' })).body.baseline.id as string;
+    const list = await (await as('outsider')).get(`/api/projects/${w.foreign.id}/surface-baselines`);
+    expect(list.status).toBe(200);
+    expect(list.body.baselines.map((b: { id: string }) => b.id)).not.toContain(id);
+  });
+});
+
+describe('surface tallies measure against the locked baseline', () => {
+  it('takes the existing survey from the locked baseline, whatever the client sent, and says so in the trail', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { payUnit: 'CY', basis: 'bank', method: 'surface' });
+    const design = [
+      [0, 0, 99],
+      [100, 0, 99],
+      [100, 100, 99],
+      [0, 100, 99],
+    ];
+    const wrongExisting = design.map(([x, y]) => [x, y, 500]);
+    const sub = await as('subcontractor');
+    const tally = (inputs: Record<string, unknown>) =>
+      sub.post(`/api/projects/${w.home.id}/tallies`).send({
+        bidItemId: item.id,
+        measuredOn: '2026-10-20',
+        method: 'surface',
+        component: 'cut',
+        inputs: { unit: 'ft', existing: wrongExisting, design, ...inputs },
+      });
+    // Some baseline of this project is locked by now (the tests above): a surface tally must name one.
+    const missing = await tally({});
+    expect([missing.status, missing.body.error.code]).toEqual([400, 'BASELINE_REQUIRED']);
+    const open = (await record('subcontractor', ground(), { area: 'Tally area' })).body.baseline.id as string;
+    expect((await tally({ baselineId: open })).body.error.code).toBe('BASELINE_REQUIRED');
+    await accept('subcontractor', open);
+    await accept('general_contractor', open);
+    const res = await tally({ baselineId: open });
+    expect(res.status).toBe(201);
+    // Existing 30.48 m = 100 ft over a 100 x 100 ft square, design at 99 ft: 10,000 cu ft = 370.370... CY of cut
+    // (27 cu ft to the CY), hand computation.
+    expect(res.body.tally.result.engine.cut).toBeCloseTo(10_000 / 27, 6);
+    expect(res.body.tally.result.trail[0]).toMatch(
+      /locked original ground "original-ground.xml" \(Tally area\), SHA-256 [0-9a-f]{64}/,
+    );
+    const stored = (await sub.get(`/api/tallies/${res.body.tally.id}`)).body.tally.inputs;
+    expect(stored.baselineId).toBe(open);
+    expect(stored.existing[0][2]).toBeCloseTo(100, 9);
+  });
+});
