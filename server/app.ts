@@ -81,6 +81,11 @@ export type AppDeps = {
    * retries, leases of a server that died). Off when unset (tests); the server sets it (OUTBOX_POLL_SECONDS).
    */
   outboxPollMs?: number;
+  /**
+   * Which proxies' X-Forwarded-For Express believes (its 'trust proxy' setting): the client address keys the rate
+   * limits and the sign-in back-off. `loopback` unless given (TRUST_PROXY); behind a balancer, its network.
+   */
+  trustProxy?: string;
 };
 
 /** $10,000.00: paying more than this asks for a recent sign-in (REAUTH_PAYMENT_ABOVE_CENTS overrides it). */
@@ -120,7 +125,7 @@ export function createApp(deps: AppDeps): Express {
   app.locals.outbox = ctx.outbox;
   if (deps.outboxPollMs) app.locals.stopOutbox = ctx.outbox.poll(deps.outboxPollMs);
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', deps.trustProxy ?? 'loopback');
   app.use(securityHeaders());
   app.use('/api', noStore);
 

@@ -21,6 +21,8 @@ const envSchema = z.object({
   /** An S3-compatible endpoint (MinIO and the like); AWS itself when unset. Credentials: AWS_ACCESS_KEY_ID etc. */
   S3_ENDPOINT: z.url().optional(),
   S3_REGION: z.string().default('us-east-1'),
+  /** The proxies whose X-Forwarded-For is believed (Express 'trust proxy': names, addresses or CIDRs, comma-separated). */
+  TRUST_PROXY: z.string().min(1).default('loopback'),
   /** Path-style addresses (endpoint/bucket/key): on by default with S3_ENDPOINT, as most compatible stores need. */
   S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).optional(),
   STRIPE_SECRET_KEY: z.string().optional(),

@@ -12,7 +12,8 @@ import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 // without a seat, a former employee still holding an old seat, and the people of another project never are.
 let t: TestApp;
 let w: Awaited<ReturnType<typeof makeWorld>>;
-let extra: { gc2: { id: string; email: string }; formerGc: { id: string; email: string } };
+type Person = { id: string; email: string };
+let extra: { gc2: Person; formerGc: Person; formerSub: Person };
 let item: { id: string };
 beforeAll(async () => {
   t = await createTestApp();
@@ -23,7 +24,10 @@ beforeAll(async () => {
   // Holds a general contractor seat on the job but works for another company now: no power, and no mail.
   const formerGc = await makeUser(db, t.auth, w.companies.otherGc.id);
   await addMember(db, w.home.id, formerGc.id, 'general_contractor');
-  extra = { gc2, formerGc };
+  // Likewise a former employee of the subcontractor on its old seat: no waiver request, no decision mail.
+  const formerSub = await makeUser(db, t.auth, w.companies.otherSub.id);
+  await addMember(db, w.home.id, formerSub.id, 'subcontractor');
+  extra = { gc2, formerGc, formerSub };
   item = await makeBidItem(db, w.home.id, { itemNumber: 'E-7', unitPriceCents: 1250, contractQuantity: 800 });
 });
 afterAll(() => t.close());
@@ -41,7 +45,13 @@ async function onlyMail(subject: string): Promise<CaughtMail> {
   return mail;
 }
 const nobodyElse = (mail: CaughtMail) => {
-  for (const never of [w.outsider.email, extra.formerGc.email, w.people.admin.email, w.people.owner_admin.email])
+  for (const never of [
+    w.outsider.email,
+    extra.formerGc.email,
+    extra.formerSub.email,
+    w.people.admin.email,
+    w.people.owner_admin.email,
+  ])
     expect(mail.to).not.toContain(never);
 };
 

@@ -1,6 +1,7 @@
 import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
-import { memberEmails } from '../payments/payments.repository';
+import { seatAddresses } from '../change-orders/change-orders.repository';
+import type { ProjectParties } from '../../../src/shared/policies/projects';
 import { waiverOptions } from '../../../src/shared/policies/lien-waivers';
 import { listWaivers, paymentsOf } from './lien-waivers.repository';
 import { waiverRequestedMail } from './waiver-emails';
@@ -15,7 +16,7 @@ type App = Parameters<typeof waiverOptions>[0] & { id: string; number: number };
 export async function queueWaiverRequest(
   tx: Executor,
   ctx: { appUrl: string },
-  project: { id: string; name: string },
+  project: ProjectParties & { id: string; name: string },
   app: App,
   form: 'conditional' | 'unconditional',
 ) {
@@ -23,7 +24,8 @@ export async function queueWaiverRequest(
     (o) => o.allowed && o.kind.startsWith(form),
   );
   if (!due || due.amountCents <= 0) return;
-  const to = await memberEmails(tx, project.id, ['subcontractor']);
+  // The subcontractor's seat while its holder still works for the subcontractor (as access counts it).
+  const to = await seatAddresses(tx, project, ['subcontractor'], '');
   await enqueueEmail(
     tx,
     waiverRequestedMail({ appUrl: ctx.appUrl, project, payAppNumber: app.number }, to, due.kind, due.amountCents),

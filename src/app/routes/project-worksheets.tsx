@@ -2,7 +2,8 @@ import { useMemo } from 'react';
 import { useParams } from 'react-router';
 import { useBidItems } from '@/features/bid-items/api/get-bid-items';
 import { useProject } from '@/features/projects/api/get-project';
-import { useSurfaceBaselines } from '@/features/surface-baselines/api/surface-baselines';
+import { useQuery } from '@tanstack/react-query';
+import { surfaceBaselinesQueryOptions } from '@/features/surface-baselines/api/surface-baselines';
 import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-screen';
 import { WorksheetBaselinesContext } from '@/features/worksheets/lib/baseline-context';
 
@@ -12,7 +13,8 @@ export function Component() {
   const project = useProject(projectId);
   const canSave = project.can.createTally;
   const bidItems = useBidItems(projectId);
-  const baselines = useSurfaceBaselines(projectId);
+  // Read afresh on each visit: a surface locked by the other side a moment ago must be offered.
+  const baselines = useQuery({ ...surfaceBaselinesQueryOptions(projectId), refetchOnMount: 'always' });
   // The locked original ground surfaces: the surface worksheet measures from one of them.
   const locked = useMemo(
     () =>

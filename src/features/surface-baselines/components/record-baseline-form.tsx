@@ -25,7 +25,7 @@ export function RecordBaselineForm({ projectId }: { projectId: string }) {
       </CardHeader>
       <CardBody>
         <form
-          className="flex flex-wrap items-end gap-3"
+          className="flex flex-wrap items-start gap-3"
           onSubmit={(e) => {
             e.preventDefault();
             if (!file) return;
@@ -64,7 +64,7 @@ export function RecordBaselineForm({ projectId }: { projectId: string }) {
               </Select>
             )}
           </Field>
-          <Button type="submit" disabled={!file || record.isPending}>
+          <Button type="submit" className="mt-5" disabled={!file || record.isPending}>
             {record.isPending ? 'Reading…' : 'Record'}
           </Button>
         </form>

@@ -16,12 +16,15 @@ import { EvidencePanel } from './evidence-panel';
 import { EvidencePreviews } from './evidence-previews';
 import { RevisionHistory } from './revision-history';
 import { InputsSummary } from './inputs-summary';
+import { MethodCheck } from './method-check';
+import { SurfaceMap } from './surface-map';
 import { DirectQuantityForm } from './direct-quantity-form';
 import { worksheetOf } from './tally-labels';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
-export function TallyDetail({ tallyId }: { tallyId: string }) {
+/** `unitPriceCents`: the bid item's price (the route reads the bid schedule), for the method check of a surface tally. */
+export function TallyDetail({ tallyId, unitPriceCents }: { tallyId: string; unitPriceCents?: number }) {
   const query = useTally(tallyId);
   const ready = useMarkReady();
   const remove = useDeleteTally();
@@ -106,6 +109,10 @@ export function TallyDetail({ tallyId }: { tallyId: string }) {
             {tally.inputs ? <InputsSummary inputs={tally.inputs} /> : null}
           </CardBody>
         </Card>
+        {tally.method === 'surface' && tally.inputs ? <SurfaceMap inputs={tally.inputs} /> : null}
+        {tally.method === 'surface' && unitPriceCents !== undefined ? (
+          <MethodCheck tally={tally} unitPriceCents={unitPriceCents} />
+        ) : null}
         <Card>
           <CardHeader>
             <CardTitle>Calculation trail</CardTitle>

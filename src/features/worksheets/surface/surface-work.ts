@@ -7,6 +7,7 @@ import {
   type PayLimits,
   type SurfaceResult,
 } from '@/shared/domain/earthwork/surface';
+import { depthGrid, type DepthGrid } from '@/shared/domain/earthwork/surface-depth-grid';
 import type { PointOrder } from '@/shared/landxml';
 import type { FileIssue } from '../lib/csv';
 import { readSurvey } from './surface-file';
@@ -22,6 +23,8 @@ export type SurfaceWork = {
   needsOrder: Record<SurfaceSide, boolean>;
   /** Pay limits measured within: from a LandXML file's boundaries (design first), else those kept. */
   payLimits: PayLimits | null;
+  /** Depth on a plan grid for the cut and fill map (with a result only). */
+  depth: DepthGrid | null;
   /** Up to 1,500 plan points of each survey, for the picture. */
   preview: Record<SurfaceSide, { x: number; y: number }[]>;
   /** The calc API body the result came from (what a tally stores), or null without a result. */
@@ -71,7 +74,7 @@ export function workSurfaces(
   const needsOrder = { existing: existing.needsOrder, design: design.needsOrder };
   const preview = { existing: sample(existing.rows), design: sample(design.rows) };
   const payLimits = design.payLimits ?? existing.payLimits ?? options.keptPayLimits ?? null;
-  const base = { fileIssues, fileNotes, needsOrder, preview, payLimits };
+  const base = { fileIssues, fileNotes, needsOrder, preview, payLimits, depth: null };
   if (existing.issues.length || design.issues.length || existing.needsOrder || design.needsOrder)
     return { ...base, result: null, issues: [], inputs: null };
   const inputs = {
@@ -91,7 +94,8 @@ export function workSurfaces(
           payLimits ?? undefined,
         )
       : runCalc('surface', inputs);
-    return { ...base, result, issues: [], inputs };
+    const depth = depthGrid(pointsFromRows(existing.rows), pointsFromRows(design.rows));
+    return { ...base, result, issues: [], inputs, depth };
   } catch (error) {
     const issues = isDomainError(error) ? error.issues : [{ path: '', message: String(error) }];
     return { ...base, result: null, issues, inputs: null };

@@ -9,6 +9,7 @@ import { ResultPanel } from '../components/result-panel';
 import { WorksheetColumns, WorksheetForm } from '../components/worksheet-columns';
 import type { WorksheetProps } from '../lib/types';
 import { unitLabels } from '../lib/units';
+import { CutFillMap } from '@/components/cut-fill-map';
 import { PlanChart } from './plan-chart';
 import { rowsText, sampleSurfaces, type SurfaceSide, type SurfaceWork } from './surface-work';
 import { useSurfaceWork } from './use-surface-work';
@@ -152,7 +153,14 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
                 ]
               : undefined
           }
-          picture={result && work ? <PlanChart preview={work.preview} unit={u.length} /> : null}
+          picture={
+            result && work ? (
+              <div className="flex flex-col gap-4">
+                {work.depth ? <CutFillMap grid={work.depth} payLimits={work.payLimits} unit={u.length} /> : null}
+                <PlanChart preview={work.preview} unit={u.length} />
+              </div>
+            ) : null
+          }
           trail={result?.trail}
         />
       }
