@@ -141,6 +141,17 @@ describe('accepting and locking', () => {
     expect([late.status, late.body.error.code]).toEqual([409, 'BASELINE_NOT_PROPOSED']);
   });
 
+  it('two acceptances at the same moment lock it once (the row is locked while each is decided)', async () => {
+    const id = (await record('subcontractor', ground(), { area: 'Race area' })).body.baseline.id as string;
+    const [a, b] = await Promise.all([accept('subcontractor', id), accept('general_contractor', id)]);
+    expect([a.status, b.status]).toEqual([200, 200]);
+    const actions = await auditActions(t.database.db, id);
+    expect(actions.filter((x) => x === 'surface_baseline.locked')).toHaveLength(1);
+    expect(actions.filter((x) => x === 'surface_baseline.accepted')).toHaveLength(1);
+    const list = (await (await as('owner')).get(`/api/projects/${w.home.id}/surface-baselines`)).body.baselines;
+    expect(list.find((x: { id: string }) => x.id === id).status).toBe('locked');
+  });
+
   it('replacing a locked baseline needs both acceptances again and is an audit event; the old one is kept as replaced', async () => {
     const first = (await record('subcontractor', ground(), { area: 'Replace area' })).body.baseline.id as string;
     await accept('subcontractor', first);
