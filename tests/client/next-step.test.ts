@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { changeOrderNextStep } from '@/features/change-orders/components/next-step';
 import { nextStepSentence } from '@/features/pay-apps/components/next-step';
 import { PAY_APP_STATUSES, type PayAppStatus } from '@/shared/constants';
+import { changeOrderCan } from '@/shared/policies/change-orders';
 import { payAppCan } from '@/shared/policies/pay-apps';
 
 // Issue 14 item 2: each pay application says where it stands in a sentence, and whose step comes next.
@@ -30,5 +32,46 @@ describe('the next step of a pay application', () => {
       'Certified: $25,096.09 waits on your payment. Pay it below by card or ACH.',
     );
     expect(nextStepSentence('certified', SUB('certified'), 2_509_609)).toMatch(/waits on the owner’s payment/);
+  });
+});
+
+describe('the next step of a change order', () => {
+  // Issue 14 item 2, on the change order page: the decision when it is the reader's, or whom it waits on.
+  const base = {
+    ownerApprovalRequired: true,
+    gcApproval: null,
+    ownerApproval: null,
+    decidedAt: null,
+    amountDeltaCents: 1_160_000,
+  };
+  const proposed = { status: 'proposed' as const, gcApprovedAt: null, ownerApprovedAt: null };
+
+  it('asks the deciding side for its decision, naming the side and the effect on the contract sum', () => {
+    const can = changeOrderCan(['general_contractor'], proposed, true);
+    expect(changeOrderNextStep({ ...base, status: 'proposed', can })).toBe(
+      'Waits on your decision for the general contractor: approve or reject it below (it adds $11,600.00 to the contract sum).',
+    );
+  });
+
+  it('tells the others whom it waits on, and stops naming a side once it has approved', () => {
+    const can = changeOrderCan(['subcontractor'], proposed, true);
+    expect(changeOrderNextStep({ ...base, status: 'proposed', can })).toMatch(
+      /^Proposed: waits on the general contractor and the owner to decide/,
+    );
+    const gcApproval = { by: { userId: 'u1', name: 'Owen Halvorsen' }, at: '2026-11-03T15:00:00Z' };
+    expect(changeOrderNextStep({ ...base, gcApproval, status: 'proposed', can })).toMatch(
+      /^Proposed: waits on the owner to decide/,
+    );
+  });
+
+  it('says a decided change order is settled, with its date', () => {
+    const can = changeOrderCan(['owner'], { ...proposed, status: 'approved' }, true);
+    const decided = { ...base, decidedAt: '2026-11-04T15:00:00Z', can };
+    expect(changeOrderNextStep({ ...decided, status: 'approved' })).toMatch(
+      /^Approved Nov 4, 2026: part of the contract/,
+    );
+    expect(changeOrderNextStep({ ...decided, status: 'rejected', amountDeltaCents: -500 })).toBe(
+      'Rejected Nov 4, 2026: the contract stays as it was.',
+    );
   });
 });

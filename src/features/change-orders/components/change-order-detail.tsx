@@ -7,6 +7,7 @@ import { ChangeItemsTable } from './change-items-table';
 import { historyLabel, STATUS_BADGES } from './change-order-words';
 import { DecisionPanel } from './decision-panel';
 import { DocumentsPanel } from './documents-panel';
+import { changeOrderNextStep } from './next-step';
 import type { ChangeOrderStatus } from '@/shared/constants';
 
 /** Documents are attached while a change order is proposed; a decided one keeps those it was decided on. */
@@ -28,6 +29,9 @@ export function ChangeOrderDetail({ id }: { id: string }) {
         </h2>
         <Badge tone={badge.tone}>{badge.label}</Badge>
       </div>
+      <p className="-mt-2 text-sm font-medium text-spruce-900" data-testid="next-step">
+        {changeOrderNextStep(co)}
+      </p>
       {co.reason ? <p className="max-w-3xl text-stone-700">{co.reason}</p> : null}
       <ChangeItemsTable items={co.items} totalCents={co.amountDeltaCents} />
       <DocumentsPanel changeOrderId={co.id} canAttach={co.can.attachDocuments} open={DOCUMENTS_OPEN[co.status]} />
