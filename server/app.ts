@@ -141,6 +141,9 @@ export function createApp(deps: AppDeps): Express {
       skip: [/^\/auth\//],
       multipart: [
         /^\/tallies\/[^/]+\/evidence$/,
+        // A tally with its worksheet files in one request (POST a new one, PATCH a draft).
+        ['POST', /^\/projects\/[^/]+\/tallies$/],
+        ['PATCH', /^\/tallies\/[^/]+$/],
         /^\/change-orders\/[^/]+\/documents$/,
         /^\/projects\/[^/]+\/bid-items\/import$/,
         /^\/calc\/surface$/,

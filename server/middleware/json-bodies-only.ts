@@ -4,8 +4,8 @@ import { AppError } from '../lib/app-error';
 type Options = {
   /** Paths (below the mount point) that read their own bodies, e.g. better-auth's. */
   skip: RegExp[];
-  /** Upload routes: they take a multipart form instead. */
-  multipart: RegExp[];
+  /** Upload routes: they take a multipart form instead (a `[method, path]` pair: that method only). */
+  multipart: (RegExp | [string, RegExp])[];
 };
 
 const unsupported = (message: string) => new AppError(415, 'UNSUPPORTED_MEDIA_TYPE', message);
@@ -27,8 +27,14 @@ export function jsonBodiesOnly({ skip, multipart }: Options): RequestHandler {
       if (charset === undefined || charset === 'utf-8' || charset === 'utf8') return next();
       throw unsupported(`The body is in ${charset}; send JSON in UTF-8.`);
     }
-    if (kind === 'multipart/form-data' && multipart.some((re) => re.test(req.path))) return next();
+    const takesForm = (m: RegExp | [string, RegExp]) =>
+      Array.isArray(m) ? m[0] === req.method && m[1].test(req.path) : m.test(req.path);
+    if (kind === 'multipart/form-data' && multipart.some(takesForm)) return next();
     const type = req.get('content-type');
-    throw unsupported(type ? `This route takes a JSON body (application/json), not ${type.split(';')[0]}.` : 'The body has no Content-Type; send application/json.');
+    throw unsupported(
+      type
+        ? `This route takes a JSON body (application/json), not ${type.split(';')[0]}.`
+        : 'The body has no Content-Type; send application/json.',
+    );
   };
 }

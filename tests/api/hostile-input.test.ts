@@ -89,10 +89,18 @@ type Ids = Record<string, string>;
  * accepts may legitimately act; every other body must be refused). `none`: the route reads no body, so only bodies
  * the parser refuses are sent. `multipart`: an upload route (hostile files are in hostile-uploads.test.ts); a JSON
  * body is refused as a missing file. `signed-raw`: the Stripe webhook reads raw bytes and refuses any body whose
- * signature does not verify (400), before reading it.
+ * signature does not verify (400), before reading it. `alsoMultipart`: a JSON route that also takes its body as a
+ * multipart form (a tally with its worksheet files in one request); a broken multipart body is refused with 400.
  */
 type Spec =
-  | { reads: 'json'; role: Role; schema: ZodType; template: (ids: Ids) => unknown; limitBytes?: number }
+  | {
+      reads: 'json';
+      role: Role;
+      schema: ZodType;
+      template: (ids: Ids) => unknown;
+      limitBytes?: number;
+      alsoMultipart?: boolean;
+    }
   | { reads: 'none' | 'multipart'; role: Role }
   | { reads: 'signed-raw'; role: 'none' };
 
@@ -181,22 +189,28 @@ const ROUTES: Record<string, Spec> = {
   'DELETE /api/invitations/:id': none('owner_admin'),
   'DELETE /api/projects/:projectId/members/:userId': none('owner_admin'),
   'DELETE /api/companies/:companyId/members/:userId': none('owner_admin'),
-  'POST /api/projects/:projectId/tallies': json('subcontractor', createTallySchema, (ids) => ({
-    bidItemId: ids.bidItemId,
-    measuredOn: '2026-10-06',
-    title: 'Grid at the pond',
-    method: 'grid',
-    inputs: gridInputs,
-    component: 'cut',
-    measuredBasis: 'bank',
-  })),
-  'PATCH /api/tallies/:tallyId': json('subcontractor', updateTallySchema, () => ({
-    title: 'Tape check',
-    method: 'manual',
-    quantity: 42.5,
-    manualBasis: 'Measured with a tape at the toe',
-    measuredOn: '2026-10-07',
-  })),
+  'POST /api/projects/:projectId/tallies': {
+    ...json('subcontractor', createTallySchema, (ids) => ({
+      bidItemId: ids.bidItemId,
+      measuredOn: '2026-10-06',
+      title: 'Grid at the pond',
+      method: 'grid',
+      inputs: gridInputs,
+      component: 'cut',
+      measuredBasis: 'bank',
+    })),
+    alsoMultipart: true,
+  } as Spec,
+  'PATCH /api/tallies/:tallyId': {
+    ...json('subcontractor', updateTallySchema, () => ({
+      title: 'Tape check',
+      method: 'manual',
+      quantity: 42.5,
+      manualBasis: 'Measured with a tape at the toe',
+      measuredOn: '2026-10-07',
+    })),
+    alsoMultipart: true,
+  } as Spec,
   'POST /api/tallies/:tallyId/ready': none('subcontractor'),
   'DELETE /api/tallies/:tallyId': none('subcontractor'),
   'POST /api/tallies/:tallyId/evidence': { reads: 'multipart', role: 'subcontractor' },
@@ -615,7 +629,8 @@ describe.each(JSON_ROUTES())('%s with hostile JSON', (route) => {
       'text/csv',
       null,
     ]) {
-      await probe(route, { body, contentType }, [415]);
+      const multipartHere = jsonSpec(route).alsoMultipart && contentType?.startsWith('multipart/');
+      await probe(route, { body, contentType }, multipartHere ? [400] : [415]);
     }
     await probe(
       route,

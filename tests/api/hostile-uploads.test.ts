@@ -31,6 +31,11 @@ const UPLOAD_ROUTES = [
   'POST /api/tallies/:tallyId/evidence',
   'POST /api/change-orders/:id/documents',
   'POST /api/projects/:projectId/bid-items/import',
+  // A tally with its worksheet files in one request (tally-revisions.test.ts).
+  'POST /api/projects/:projectId/tallies',
+  'PATCH /api/tallies/:tallyId',
+  // A surveyed baseline surface (LandXML) of the project.
+  'POST /api/projects/:projectId/surface-baselines',
 ];
 const HEADER = 'item_number,description,pay_unit,basis,unit_price,contract_quantity,major,method';
 
@@ -100,7 +105,7 @@ async function expectRefused(send: () => Promise<request.Response>, status: numb
 }
 
 describe('the upload routes', () => {
-  it('are exactly the evidence and change order document uploads and the bid schedule import: every other route refuses a multipart form with 415', async () => {
+  it('are exactly the evidence and change order document uploads, the bid schedule import, a tally with its files and a baseline surface: every other route refuses a multipart form with 415', async () => {
     const routes = registeredRoutes(t.app).filter(
       (r) => /^(POST|PUT|PATCH) /.test(r) && r !== 'POST /api/webhooks/stripe',
     );

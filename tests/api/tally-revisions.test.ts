@@ -2,7 +2,8 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { quantityChange } from '../setup/change-order-factories';
 import { makeBidItem, makeWorld } from '../setup/factories';
-import { auditActions } from '../setup/pay-cycle-factories';
+import { auditActions, FILES } from '../setup/pay-cycle-factories';
+import { tallyEvidence } from '../../server/db/schema';
 import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 let t: TestApp;
@@ -131,5 +132,82 @@ describe('a file loaded into a worksheet becomes the tally evidence', () => {
     });
     const detail = await agent.get(`/api/tallies/${created.body.tally.id}`);
     expect(detail.body.tally.evidenceCount).toBe(1);
+  });
+});
+
+describe('a tally and its worksheet files save in one request', () => {
+  const csv = Buffer.from('station,cut_area,fill_area\n10+00,50,0\n11+00,70,0\n');
+  const tallyOf = (bidItemId: string) =>
+    JSON.stringify({ bidItemId, measuredOn: '2026-10-16', method: 'end-area', inputs: navy, title: 'One request' });
+
+  it('creates the tally with its files as evidence (SHA-256 by node:crypto) and one audit event', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 100_000 });
+    const res = await (
+      await sub()
+    )
+      .post(url())
+      .field('tally', tallyOf(item.id))
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' })
+      .attach('files', FILES.pdf, { filename: 'field-notes.pdf', contentType: 'application/pdf' });
+    expect(res.status).toBe(201);
+    expect(res.body.tally).toMatchObject({ quantity: 222.2222, evidenceCount: 2, title: 'One request' });
+    const hashes = res.body.evidence.map((e: { sha256: string }) => e.sha256).sort();
+    expect(hashes).toEqual([csv, FILES.pdf].map((b) => createHash('sha256').update(b).digest('hex')).sort());
+    expect(await auditActions(t.database.db, res.body.tally.id)).toEqual(['tally.created']);
+  });
+
+  it('saves nothing when one file is refused: no tally, no evidence row, no stored file', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 100_000 });
+    const agent = await sub();
+    const before = await t.database.db.select().from(tallyEvidence);
+    const res = await agent
+      .post(url())
+      .field('tally', tallyOf(item.id))
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' })
+      .attach('files', Buffer.from('not a picture'), { filename: 'photo.png', contentType: 'image/png' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.some((d: { path: string }) => d.path.startsWith('files'))).toBe(true);
+    expect((await agent.get(url()).query({ bidItemId: item.id })).body.items).toHaveLength(0);
+    expect(await t.database.db.select().from(tallyEvidence)).toHaveLength(before.length);
+  });
+
+  it('saves nothing when the tally is refused (sanity reason missing), though its files were good', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 1 });
+    const agent = await sub();
+    const before = await t.database.db.select().from(tallyEvidence);
+    const res = await agent
+      .post(url())
+      .field('tally', tallyOf(item.id))
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' });
+    expect(res.body.error.code).toBe('SANITY_REASON_REQUIRED');
+    expect((await agent.get(url()).query({ bidItemId: item.id })).body.items).toHaveLength(0);
+    expect(await t.database.db.select().from(tallyEvidence)).toHaveLength(before.length);
+  });
+
+  it('updates a draft with new files in one request: a revision, the files, one tally.updated event', async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { contractQuantity: 100_000 });
+    const agent = await sub();
+    const created = await agent.post(url()).field('tally', tallyOf(item.id));
+    expect(created.status).toBe(201);
+    const id = created.body.tally.id;
+    const res = await agent
+      .patch(`/api/tallies/${id}`)
+      .field('tally', JSON.stringify({ inputs: longer }))
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' });
+    expect(res.status).toBe(200);
+    expect(res.body.tally).toMatchObject({ quantity: 444.4444, evidenceCount: 1 });
+    expect((await agent.get(`/api/tallies/${id}`)).body.revisions).toHaveLength(1);
+    expect(await auditActions(t.database.db, id)).toEqual(['tally.created', 'tally.updated']);
+  });
+
+  it('answers 400 on the field `tally` when its JSON is missing or broken', async () => {
+    const res = await (
+      await sub()
+    )
+      .post(url())
+      .field('tally', '{not json')
+      .attach('files', csv, { filename: 'north-sections.csv', contentType: 'text/csv' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].path).toBe('tally');
   });
 });

@@ -1,20 +1,19 @@
-import { MAX_EVIDENCE_FILES_PER_TALLY } from '../../../src/shared/constants';
 import type { Db } from '../../db/client';
 import type { Storage } from '../../integrations/storage/storage';
 import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { sizeOf, storeCheckedFiles, type CheckedFile } from './evidence-files';
-import { assertProjectQuota, DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
+import type { CheckedFile } from './evidence-files';
+import { DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
 import { canAddEvidence, canWriteTallies } from '../../../src/shared/policies/tallies';
-import { presentEvidence } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { audit } from './tallies.service';
+import { assertEvidenceRoom, auditedFiles, recordEvidence, withStoredFiles } from './evidence-store';
 import { loadTallyAccess, payAppVisible } from './tally-access';
 
 /**
- * Stores the files, then records them in one transaction that also checks the project's storage quota; if anything
- * fails the stored files are removed again (no row without its file, no file without its row).
+ * Adds files to a tally later (evidence-store.ts: stored first, recorded in one transaction with the quota check
+ * and the audit event; a failure removes the stored files).
  */
 export async function addEvidence(
   db: Db,
@@ -34,43 +33,16 @@ export async function addEvidence(
     );
   }
   const existing = (await repo.evidenceCounts(db, [tallyId])).get(tallyId) ?? 0;
-  if (existing + files.length > MAX_EVIDENCE_FILES_PER_TALLY) {
-    const message = `A tally holds at most ${MAX_EVIDENCE_FILES_PER_TALLY} files; it has ${existing} and this upload adds ${files.length}.`;
-    throw new AppError(400, 'EVIDENCE_LIMIT', message, [{ path: 'files', message }]);
-  }
-  const stored = await storeCheckedFiles(storage, files, 'evidence');
-  try {
-    return await db.transaction(async (tx) => {
-      // The project row is locked, so two uploads at once cannot both fit under the quota by counting apart.
-      const used = await repo.lockedProjectStoredBytes(tx, row.tally.projectId);
-      assertProjectQuota(
-        used,
-        files.reduce((n, f) => n + sizeOf(f), 0),
-        quotaBytes,
-      );
-      const rows = await repo.insertEvidence(
-        tx,
-        stored.map(({ f, key, sha256 }) => ({
-          tallyId,
-          fileName: f.fileName,
-          contentType: f.contentType,
-          kind: f.kind,
-          sizeBytes: sizeOf(f),
-          sha256,
-          storageKey: key,
-          uploadedByUserId: actor.userId,
-        })),
-      );
-      const views = rows.map((r) => presentEvidence(r, actor.name));
+  assertEvidenceRoom(existing, files.length);
+  return withStoredFiles(storage, files, (stored) =>
+    db.transaction(async (tx) => {
+      const views = await recordEvidence(tx, actor, row.tally.projectId, tallyId, stored, quotaBytes);
       await audit(tx, actor, row.tally.projectId, tallyId, 'tally.evidence_added', undefined, {
-        files: views.map((v) => ({ id: v.id, fileName: v.fileName, sizeBytes: v.sizeBytes, sha256: v.sha256 })),
+        files: auditedFiles(views),
       });
       return views;
-    });
-  } catch (err) {
-    await Promise.all(stored.map((s) => storage.remove(s.key).catch(() => undefined)));
-    throw err;
-  }
+    }),
+  );
 }
 
 async function loadEvidence(db: Db, actor: Actor, evidenceId: string, write: boolean) {

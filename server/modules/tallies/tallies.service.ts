@@ -22,6 +22,9 @@ import { canWriteTallies, isEditableTally, tallyCan } from '../../../src/shared/
 import { presentEvidence, presentRevision, presentTally, presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
 import { computeTally } from './tally-quantity';
+import type { Storage } from '../../integrations/storage/storage';
+import type { CheckedFile } from './evidence-files';
+import { assertEvidenceRoom, auditedFiles, recordEvidence, withStoredFiles } from './evidence-store';
 import { surfaceAgainstBaseline } from '../surface-baselines/measure-against';
 import { loadTallyAccess, tallyNotDraft } from './tally-access';
 import { PAY_APP_STATUSES } from '../../../src/shared/constants';
@@ -135,20 +138,38 @@ async function computedColumns(
   };
 }
 
+/** Files saved with a tally in the same request (the worksheet's files), checked already (evidence-files.ts). */
+export type TallyFiles = { storage: Storage; files: CheckedFile[]; quotaBytes: number };
+
+/**
+ * Creates a tally, with the worksheet's files as its evidence when they came in the same request: the files are
+ * stored first, then the tally, its evidence rows and one audit event are one transaction; if anything fails
+ * (a refused file, the quota, the sanity reason) nothing is saved and the stored files are removed.
+ */
 export async function createTally(
   db: Db,
   actor: Actor,
   projectId: string,
   input: CreateTallyInput,
   compute?: ComputePool,
+  attach?: TallyFiles,
 ) {
   const { project } = await loadProjectAccess(db, actor, projectId, canWriteTallies);
   const columns = await computedColumns(db, project, input, compute);
-  const id = await db.transaction(async (tx) => {
-    const row = await repo.insertTally(tx, { ...columns, projectId, authorUserId: actor.userId });
-    await audit(tx, actor, projectId, row.id, 'tally.created', undefined, { ...columns, result: undefined });
-    return row.id;
-  });
+  const files = attach?.files ?? [];
+  assertEvidenceRoom(0, files.length);
+  const id = await withStoredFiles(attach?.storage as Storage, files, (stored) =>
+    db.transaction(async (tx) => {
+      const row = await repo.insertTally(tx, { ...columns, projectId, authorUserId: actor.userId });
+      const views = await recordEvidence(tx, actor, projectId, row.id, stored, attach?.quotaBytes ?? 0);
+      await audit(tx, actor, projectId, row.id, 'tally.created', undefined, {
+        ...columns,
+        result: undefined,
+        ...(views.length ? { files: auditedFiles(views) } : {}),
+      });
+      return row.id;
+    }),
+  );
   return (await getTally(db, actor, id)).tally;
 }
 
@@ -169,9 +190,12 @@ export async function updateTally(
   tallyId: string,
   patch: UpdateTallyInput,
   compute?: ComputePool,
+  attach?: TallyFiles,
 ) {
   const { row, project } = await loadTallyAccess(db, actor, tallyId, canWriteTallies);
   if (!isEditableTally(row.tally.status)) throw tallyNotDraft(row.tally.status);
+  const files = attach?.files ?? [];
+  if (files.length) assertEvidenceRoom((await repo.evidenceCounts(db, [tallyId])).get(tallyId) ?? 0, files.length);
   const t = row.tally;
   const merged = {
     bidItemId: t.bidItemId,
@@ -185,21 +209,29 @@ export async function updateTally(
   };
   // The merged draft is checked as a whole (a manual tally still needs its basis); zod errors answer 400.
   const columns = await computedColumns(db, project, createTallySchema.parse(merged), compute, tallyId);
-  await db.transaction(async (tx) => {
-    // The state being replaced is kept as a revision (same transaction: no edit without its history).
-    await repo.insertRevision(tx, t, actor.userId);
-    const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
-    if (!updated) throw tallyNotDraft('no longer a draft');
-    await audit(
-      tx,
-      actor,
-      t.projectId,
-      tallyId,
-      'tally.updated',
-      { quantity: t.quantity, measuredOn: t.measuredOn, method: t.method },
-      { quantity: updated.quantity, measuredOn: updated.measuredOn, method: updated.method },
-    );
-  });
+  await withStoredFiles(attach?.storage as Storage, files, (stored) =>
+    db.transaction(async (tx) => {
+      // The state being replaced is kept as a revision (same transaction: no edit without its history).
+      await repo.insertRevision(tx, t, actor.userId);
+      const updated = await repo.updateTallyIf(tx, tallyId, 'draft', columns);
+      if (!updated) throw tallyNotDraft('no longer a draft');
+      const views = await recordEvidence(tx, actor, t.projectId, tallyId, stored, attach?.quotaBytes ?? 0);
+      await audit(
+        tx,
+        actor,
+        t.projectId,
+        tallyId,
+        'tally.updated',
+        { quantity: t.quantity, measuredOn: t.measuredOn, method: t.method },
+        {
+          quantity: updated.quantity,
+          measuredOn: updated.measuredOn,
+          method: updated.method,
+          ...(views.length ? { files: auditedFiles(views) } : {}),
+        },
+      );
+    }),
+  );
   return (await getTally(db, actor, tallyId)).tally;
 }
 
