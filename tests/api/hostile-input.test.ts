@@ -215,6 +215,8 @@ const ROUTES: Record<string, Spec> = {
   'DELETE /api/tallies/:tallyId': none('subcontractor'),
   'POST /api/tallies/:tallyId/evidence': { reads: 'multipart', role: 'subcontractor' },
   'POST /api/change-orders/:id/documents': { reads: 'multipart', role: 'subcontractor' },
+  'POST /api/projects/:projectId/surface-baselines': { reads: 'multipart', role: 'subcontractor' },
+  'POST /api/surface-baselines/:baselineId/accept': none('general_contractor'),
   'DELETE /api/evidence/:evidenceId': none('subcontractor'),
   'POST /api/projects/:projectId/pay-apps': json('subcontractor', createPayAppSchema, () => ({
     periodStart: '2026-12-01',
