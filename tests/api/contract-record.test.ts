@@ -198,7 +198,8 @@ describe('original beside current: a change order moves the contract everywhere'
       contractQuantity: 1000,
       amountToDateCents: 290000,
     });
-    octoberBefore = res.body.payApp;
+    // As the owner reads it (what each reader may do, `can`, is part of the answer and differs by seat).
+    octoberBefore = (await (await as('owner')).get(`/api/pay-apps/${october.id}`)).body.payApp;
   });
 
   it('approves +600 CY and $8.00 on A-1: bid items, project and watch show current beside original', async () => {
