@@ -1,10 +1,14 @@
 import { formatDate, formatMoney } from '@/lib/format';
+import type { ApprovalSide } from '@/shared/policies/change-orders';
 import type { ChangeOrderView } from '@/shared/schemas/change-order';
 
 type Facts = Pick<
   ChangeOrderView,
   'status' | 'ownerApprovalRequired' | 'gcApproval' | 'ownerApproval' | 'decidedAt' | 'amountDeltaCents' | 'can'
 >;
+
+/** The deciding side, as the sentence names it. */
+const SIDE_NAMES: Record<ApprovalSide, string> = { gc: 'the general contractor', owner: 'the owner' };
 
 /**
  * Where a change order stands, in one sentence for the person reading it: the decision when it is theirs, or whom
@@ -23,7 +27,7 @@ export function changeOrderNextStep(co: Facts): string {
       return `Rejected${co.decidedAt ? ` ${formatDate(co.decidedAt)}` : ''}: the contract stays as it was.`;
     case 'proposed': {
       if (co.can.decide) {
-        const side = co.can.decideAs === 'owner' ? 'the owner' : 'the general contractor';
+        const side = SIDE_NAMES[co.can.decideAs ?? 'gc'];
         return `Waits on your decision for ${side}: approve or reject it below (it ${effect}).`;
       }
       const waiting = [
