@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { changeOrderNextStep } from '@/features/change-orders/components/next-step';
 import { nextStepSentence } from '@/features/pay-apps/components/next-step';
+import { tallyNextStep } from '@/features/tallies/components/next-step';
 import { PAY_APP_STATUSES, type PayAppStatus } from '@/shared/constants';
 import { changeOrderCan } from '@/shared/policies/change-orders';
 import { payAppCan } from '@/shared/policies/pay-apps';
+import { tallyCan } from '@/shared/policies/tallies';
 
 // Issue 14 item 2: each pay application says where it stands in a sentence, and whose step comes next.
 // The sentence follows what the reader may do (`can`, from the shared policy), here for each seat.
@@ -73,5 +75,26 @@ describe('the next step of a change order', () => {
     expect(changeOrderNextStep({ ...decided, status: 'rejected', amountDeltaCents: -500 })).toBe(
       'Rejected Nov 4, 2026: the contract stays as it was.',
     );
+  });
+});
+
+describe('the next step of a tally', () => {
+  // Issue 14 item 2, on the tally page: what the reader does next, and a missing evidence file said before review.
+  const draft = { status: 'draft' as const, evidenceCount: 0 };
+
+  it('asks its author to mark a draft ready, and says a file is missing', () => {
+    const can = tallyCan(['subcontractor'], { status: 'draft', payAppStatus: null });
+    expect(tallyNextStep({ ...draft, can })).toBe(
+      'Draft: check the quantity and its files, then mark it ready to bill. It has no evidence file yet: a line without one is flagged in review.',
+    );
+  });
+
+  it('tells the other side whom a draft waits on, and that a billed tally no longer changes', () => {
+    const gc = tallyCan(['general_contractor'], { status: 'draft', payAppStatus: null });
+    expect(tallyNextStep({ ...draft, evidenceCount: 2, can: gc })).toBe(
+      'Draft: waits on the subcontractor to mark it ready to bill.',
+    );
+    const billed = tallyCan(['subcontractor'], { status: 'billed', payAppStatus: 'certified' });
+    expect(tallyNextStep({ status: 'billed', evidenceCount: 1, can: billed })).toMatch(/^Billed on a pay application/);
   });
 });

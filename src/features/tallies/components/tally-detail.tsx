@@ -20,6 +20,7 @@ import { MethodCheck } from './method-check';
 import { SurfaceMap } from './surface-map';
 import { DirectQuantityForm } from './direct-quantity-form';
 import { worksheetOf } from './tally-labels';
+import { tallyNextStep } from './next-step';
 import { TallyStatusBadge } from './tally-status-badge';
 
 /** One tally: what was measured, the worksheet inputs, the server's result and trail, and its evidence. */
@@ -54,6 +55,9 @@ export function TallyDetail({ tallyId, unitPriceCents }: { tallyId: string; unit
           <p className="text-sm text-stone-600">
             Item {tally.bidItem.itemNumber} · {tally.bidItem.description} · measured{' '}
             {formatDate(`${tally.measuredOn}T12:00:00`)} by {tally.author.name}
+          </p>
+          <p className="mt-1 text-sm font-medium text-spruce-900" data-testid="next-step">
+            {tallyNextStep(tally)}
           </p>
         </div>
         <div className="flex items-center gap-2">
