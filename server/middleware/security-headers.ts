@@ -20,6 +20,8 @@ export function securityHeaders(production = process.env.NODE_ENV === 'productio
         fontSrc: ["'self'", 'data:'],
         connectSrc: ["'self'"],
         objectSrc: ["'none'"],
+        // Evidence PDFs are read in the page from a blob of their checked bytes; no other frame is allowed.
+        frameSrc: ['blob:'],
         baseUri: ["'self'"],
         formAction: ["'self'", STRIPE_CHECKOUT_ORIGIN, ...localCheckout],
         frameAncestors: ["'none'"],

@@ -35,6 +35,8 @@ describe('security headers', () => {
     expect(csp).toContain("default-src 'self'");
     expect(csp).toContain("script-src 'self'");
     expect(csp).toContain("frame-ancestors 'none'");
+    // Frames only of our own blobs (an evidence PDF read in the page), never another site.
+    expect(csp).toContain('frame-src blob:');
     expect(csp).toMatch(/form-action 'self' https:\/\/checkout\.stripe\.com/);
     expect(res.headers['x-content-type-options']).toBe('nosniff');
   });
