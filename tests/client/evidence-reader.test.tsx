@@ -22,9 +22,9 @@ const PDF: EvidenceView = {
   sizeBytes: 9,
   sha256: '0'.repeat(64),
   uploadedBy: 'R. Dunmore',
-  uploadedAt: '2026-11-03T15:00:00Z',
+  createdAt: '2026-11-03T15:00:00Z',
   downloadUrl: '/api/evidence/e1/download',
-} as EvidenceView;
+};
 
 describe('reading a PDF of the evidence', () => {
   it('opens it in the page from a blob of its bytes, with the download beside it', async () => {

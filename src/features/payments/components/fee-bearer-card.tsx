@@ -40,41 +40,44 @@ function rateText(method: PaymentMethod, rates: FeeRates): string {
 }
 
 function FeeSchedule({ rates }: { rates: FeeRates }) {
+  // Wider than a phone: it scrolls inside its own box (relative, so nothing in it can widen the page).
   return (
-    <table className="w-full text-sm" aria-label="Processing fee schedule">
-      <thead>
-        <tr className="border-b border-stone-200 text-left text-xs text-stone-600">
-          <th className="py-1 pr-3 font-medium">Method</th>
-          <th className="py-1 pr-3 font-medium">Fee per charge</th>
-          <th className="py-1 pr-3 text-right font-medium whitespace-nowrap">Payer bears it: charged / received</th>
-          <th className="py-1 text-right font-medium whitespace-nowrap">Payee absorbs it: charged / received</th>
-        </tr>
-      </thead>
-      <tbody>
-        {PAYMENT_METHODS.map((m) => {
-          const payer = feeQuote(EXAMPLE_CENTS, m, 'payer', rates);
-          const payee = feeQuote(EXAMPLE_CENTS, m, 'payee', rates);
-          return (
-            <tr key={m} className="border-b border-stone-100">
-              <th scope="row" className="py-1.5 pr-3 text-left font-medium whitespace-nowrap">
-                {METHOD_NAMES[m]}
-              </th>
-              <td className="py-1.5 pr-3">{rateText(m, rates)}</td>
-              <td className="py-1.5 pr-3 text-right whitespace-nowrap tabular-nums">
-                {formatMoney(payer.chargeCents)} / {formatMoney(payer.netCents)}
-              </td>
-              <td className="py-1.5 text-right whitespace-nowrap tabular-nums">
-                {formatMoney(payee.chargeCents)} / {formatMoney(payee.netCents)}
-              </td>
-            </tr>
-          );
-        })}
-      </tbody>
-      <caption className="caption-bottom pt-1.5 text-left text-xs text-stone-600">
-        Example: a payment of {formatMoney(EXAMPLE_CENTS)} applied to a pay application. The rates are this server’s
-        configuration of the processor’s pricing; a negotiated account may differ.
-      </caption>
-    </table>
+    <div className="relative overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Processing fee schedule">
+        <thead>
+          <tr className="border-b border-stone-200 text-left text-xs text-stone-600">
+            <th className="py-1 pr-3 font-medium">Method</th>
+            <th className="py-1 pr-3 font-medium">Fee per charge</th>
+            <th className="py-1 pr-3 text-right font-medium whitespace-nowrap">Payer bears it: charged / received</th>
+            <th className="py-1 text-right font-medium whitespace-nowrap">Payee absorbs it: charged / received</th>
+          </tr>
+        </thead>
+        <tbody>
+          {PAYMENT_METHODS.map((m) => {
+            const payer = feeQuote(EXAMPLE_CENTS, m, 'payer', rates);
+            const payee = feeQuote(EXAMPLE_CENTS, m, 'payee', rates);
+            return (
+              <tr key={m} className="border-b border-stone-100">
+                <th scope="row" className="py-1.5 pr-3 text-left font-medium whitespace-nowrap">
+                  {METHOD_NAMES[m]}
+                </th>
+                <td className="py-1.5 pr-3">{rateText(m, rates)}</td>
+                <td className="py-1.5 pr-3 text-right whitespace-nowrap tabular-nums">
+                  {formatMoney(payer.chargeCents)} / {formatMoney(payer.netCents)}
+                </td>
+                <td className="py-1.5 text-right whitespace-nowrap tabular-nums">
+                  {formatMoney(payee.chargeCents)} / {formatMoney(payee.netCents)}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+        <caption className="caption-bottom pt-1.5 text-left text-xs text-stone-600">
+          Example: a payment of {formatMoney(EXAMPLE_CENTS)} applied to a pay application. The rates are this server’s
+          configuration of the processor’s pricing; a negotiated account may differ.
+        </caption>
+      </table>
+    </div>
   );
 }
 
