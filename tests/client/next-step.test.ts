@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { changeOrderNextStep } from '@/features/change-orders/components/next-step';
+import { waiverNextStep } from '@/features/lien-waivers/components/next-step';
 import { nextStepSentence } from '@/features/pay-apps/components/next-step';
 import { tallyNextStep } from '@/features/tallies/components/next-step';
 import { PAY_APP_STATUSES, type PayAppStatus } from '@/shared/constants';
@@ -96,5 +97,43 @@ describe('the next step of a tally', () => {
     );
     const billed = tallyCan(['subcontractor'], { status: 'billed', payAppStatus: 'certified' });
     expect(tallyNextStep({ status: 'billed', evidenceCount: 1, can: billed })).toMatch(/^Billed on a pay application/);
+  });
+});
+
+describe('the next step of an application on the Waivers tab', () => {
+  // Issue 14 item 2: the waiver due now and for how much, or whom it waits on, or why nothing is due yet.
+  const conditional = {
+    kind: 'conditional_progress' as const,
+    allowed: true,
+    code: null,
+    reason: null,
+    amountCents: 2_509_609,
+    paymentId: null,
+  };
+  const unconditional = {
+    kind: 'unconditional_progress' as const,
+    allowed: false,
+    code: 'WAIVER_PAYMENT_NOT_SETTLED' as const,
+    reason: 'Offered once the payment has settled.',
+    amountCents: 2_509_609,
+    paymentId: null,
+  };
+
+  it('asks the subcontractor to sign what is due, and tells the others it waits on the subcontractor', () => {
+    const app = { options: [conditional, unconditional] };
+    expect(waiverNextStep(app, [], true)).toBe(
+      'Ready for your signature: the conditional waiver on progress payment ($25,096.09). Sign it below.',
+    );
+    expect(waiverNextStep(app, [], false)).toBe(
+      'Waits on the subcontractor to sign the conditional waiver on progress payment ($25,096.09).',
+    );
+  });
+
+  it("gives the server's reason when nothing is due, and says when all is signed", () => {
+    const app = { options: [{ ...conditional, allowed: false, reason: 'Already issued.' }, unconditional] };
+    expect(waiverNextStep(app, [], true)).toBe('Nothing to sign yet. Already issued.');
+    expect(waiverNextStep(app, [{ kind: 'conditional_progress' }], true)).toBe(
+      'Nothing more to sign for this application now.',
+    );
   });
 });

@@ -9,6 +9,7 @@ import type { LienWaiverView, ProjectLienWaiversView } from '@/shared/schemas/pa
 import { useProjectWaivers } from '../api/get-waivers';
 import { ExceptionList } from './exception-list';
 import { IssueWaiverForm } from './issue-waiver-form';
+import { waiverNextStep } from './next-step';
 
 type AppEntry = ProjectLienWaiversView['payApps'][number];
 
@@ -66,6 +67,13 @@ function AppWaivers({
         </CardTitle>
       </CardHeader>
       <CardBody className="flex flex-col gap-3">
+        <p className="text-sm font-medium text-spruce-900" data-testid="next-step">
+          {waiverNextStep(
+            app,
+            waivers.filter((w) => w.payAppId === app.id),
+            canIssue,
+          )}
+        </p>
         <IssuedList waivers={waivers.filter((w) => w.payAppId === app.id)} />
         <div className="flex flex-col gap-1">
           <p className="text-xs font-medium text-stone-700">Exceptions a waiver signed now carries (not released)</p>
