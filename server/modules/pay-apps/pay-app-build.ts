@@ -6,6 +6,7 @@ import { mobilizationLine, type MobilizationStep } from '../../../src/shared/dom
 import { addDecimals, roundTo } from '../../../src/shared/domain/rounding';
 import type { Executor } from '../../db/client';
 import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
+import { newPayAppBlocker } from '../../../src/shared/domain/pay-app-status';
 import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
@@ -46,14 +47,8 @@ async function previousOf(tx: Executor, projectId: string, number: number) {
  */
 export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppArgs) {
   const { project, userId, periodStart, periodEnd } = args;
-  const open = await repo.openPayApps(tx, project.id);
-  if (open.length > 0) {
-    throw new AppError(
-      409,
-      'PAY_APP_OPEN',
-      `Pay application ${open[0]!.number} is still ${open[0]!.status.replace('_', ' ')}; it must be certified before the next period is billed.`,
-    );
-  }
+  const blocker = newPayAppBlocker(await repo.openPayApps(tx, project.id));
+  if (blocker) throw new AppError(409, 'PAY_APP_OPEN', blocker);
   const last = await repo.lastNumberAndPeriod(tx, project.id);
   if (last.periodEnd && periodStart <= last.periodEnd) {
     throw new AppError(

@@ -28,7 +28,11 @@ export const PAY_APP_TRANSITIONS: Record<PayAppAction, Transition> = {
   revise: { from: ['returned'], to: 'draft', by: ['subcontractor'] },
   certify: { from: ['submitted', 'in_review'], to: 'certified', by: ['general_contractor'] },
   payment_started: { from: ['certified', 'partially_paid'], to: 'payment_processing', by: ['system'] },
-  payment_partial: { from: ['certified', 'payment_processing', 'partially_paid'], to: 'partially_paid', by: ['system'] },
+  payment_partial: {
+    from: ['certified', 'payment_processing', 'partially_paid'],
+    to: 'partially_paid',
+    by: ['system'],
+  },
   payment_settled: { from: ['certified', 'payment_processing', 'partially_paid'], to: 'paid', by: ['system'] },
   payment_reopened: { from: ['payment_processing'], to: 'certified', by: ['system'] },
 };
@@ -42,3 +46,13 @@ export function nextStatus(status: PayAppStatus, action: PayAppAction): PayAppSt
 /** Statuses after certification: the lines and totals are frozen. */
 export const FROZEN_STATUSES: readonly PayAppStatus[] = ['certified', 'payment_processing', 'partially_paid', 'paid'];
 export const isFrozen = (status: PayAppStatus) => FROZEN_STATUSES.includes(status);
+
+/**
+ * Why the next period cannot be billed yet, or null: an earlier application that is not certified blocks it. The
+ * server refuses with this sentence (409 PAY_APP_OPEN) and the screen shows it beside the disabled command first.
+ */
+export function newPayAppBlocker(apps: readonly { number: number; status: PayAppStatus }[]): string | null {
+  const open = [...apps].sort((a, b) => a.number - b.number).find((a) => !isFrozen(a.status));
+  if (!open) return null;
+  return `Pay application ${open.number} is still ${open.status.replaceAll('_', ' ')}; it must be certified before the next period is billed.`;
+}

@@ -8,6 +8,7 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Table, TableBody, TableCell, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import { formatMoney } from '@/lib/format';
 import { usePayApps } from '../api/get-pay-apps';
+import { newPayAppBlocker } from '@/shared/domain/pay-app-status';
 import { NewPayAppForm } from './new-pay-app-form';
 import { PayAppStatusBadge, periodText } from './pay-app-labels';
 
@@ -28,6 +29,8 @@ export function PayAppsScreen({
   if (query.isPending) return <LoadingState label="Loading pay applications…" />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
   const apps = query.data;
+  // Said before the click: an earlier application not yet certified blocks the next period (the server's rule).
+  const blocker = newPayAppBlocker(apps);
   const money = 'text-right tabular-nums whitespace-nowrap';
   return (
     <div className="flex flex-col gap-3">
@@ -38,9 +41,16 @@ export function PayAppsScreen({
             : 'Each period’s measured work, netted of retainage and earlier certified amounts.'}
         </p>
         {canCreate ? (
-          <Button onClick={() => setAdding(true)}>
-            <Plus aria-hidden /> New pay application
-          </Button>
+          <div className="flex flex-col items-end gap-1">
+            <Button onClick={() => setAdding(true)} disabled={blocker !== null} aria-describedby="new-pay-app-blocked">
+              <Plus aria-hidden /> New pay application
+            </Button>
+            {blocker ? (
+              <p id="new-pay-app-blocked" className="max-w-xs text-right text-xs text-stone-600">
+                {blocker}
+              </p>
+            ) : null}
+          </div>
         ) : null}
       </div>
       {apps.length === 0 ? (
