@@ -77,17 +77,15 @@ export async function moveStatus(
   // Steps of one transaction get distinct times (1 ms apart) so the history reads in order.
   const at = Date.now();
   for (const [i, s] of steps.entries()) {
-    await tx
-      .insert(payAppStatusHistory)
-      .values({
-        payAppId: app.id,
-        fromStatus: s.from,
-        toStatus: s.to,
-        revision: row.revision,
-        note,
-        actorUserId,
-        createdAt: new Date(at + i),
-      });
+    await tx.insert(payAppStatusHistory).values({
+      payAppId: app.id,
+      fromStatus: s.from,
+      toStatus: s.to,
+      revision: row.revision,
+      note,
+      actorUserId,
+      createdAt: new Date(at + i),
+    });
   }
   return row;
 }

@@ -11,7 +11,13 @@ import { sumCents } from '../../../src/shared/domain/money';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canReadProject } from '../../../src/shared/policies/projects';
 import { canSeePayApp } from '../../../src/shared/policies/pay-apps';
-import { balanceCents, canPay, chargeAmount, chargedCents, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';
+import {
+  balanceCents,
+  canPay,
+  chargeAmount,
+  chargedCents,
+  PAYABLE_STATUSES,
+} from '../../../src/shared/policies/payments';
 import { feeQuote } from '../../../src/shared/domain/payment-fees';
 import { PAYMENT_METHODS } from '../../../src/shared/constants';
 import { presentPayApp, presentPayment } from './payments.presenter';

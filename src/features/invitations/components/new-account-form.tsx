@@ -21,9 +21,19 @@ const schema = z
 type Values = z.infer<typeof schema>;
 
 /** Name and password for a person without an account; accepting creates it and signs in. */
-export function NewAccountForm({ email, onSubmit }: { email: string; onSubmit: (v: { name: string; password: string }) => Promise<unknown> }) {
+export function NewAccountForm({
+  email,
+  onSubmit,
+}: {
+  email: string;
+  onSubmit: (v: { name: string; password: string }) => Promise<unknown>;
+}) {
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<Values>({ resolver: zodResolver(schema), mode: 'onTouched', defaultValues: { name: '', password: '', confirm: '' } });
+  const form = useForm<Values>({
+    resolver: zodResolver(schema),
+    mode: 'onTouched',
+    defaultValues: { name: '', password: '', confirm: '' },
+  });
   useClearOnEdit(form, () => setFormError(null));
   const { errors, isSubmitting } = form.formState;
   const submit = form.handleSubmit(async ({ name, password }) => {
@@ -41,7 +51,11 @@ export function NewAccountForm({ email, onSubmit }: { email: string; onSubmit: (
       <Field label="Your name" error={errors.name?.message}>
         {(control) => <Input autoFocus autoComplete="name" {...control} {...form.register('name')} />}
       </Field>
-      <Field label="Choose a password" error={errors.password?.message} hint={`At least ${MIN_PASSWORD_LENGTH} characters`}>
+      <Field
+        label="Choose a password"
+        error={errors.password?.message}
+        hint={`At least ${MIN_PASSWORD_LENGTH} characters`}
+      >
         {(control) => <Input type="password" autoComplete="new-password" {...control} {...form.register('password')} />}
       </Field>
       <Field label="Type it again" error={errors.confirm?.message}>

@@ -12,13 +12,23 @@ const iso = (d: Date) => d.toISOString().slice(0, 10);
 
 /** Default period: the day after the last one ended through the end of that month (or this month). */
 function defaultPeriod(lastEnd?: string) {
-  const start = lastEnd ? new Date(`${lastEnd}T00:00:00Z`) : new Date(Date.UTC(new Date().getUTCFullYear(), new Date().getUTCMonth(), 0));
+  const start = lastEnd
+    ? new Date(`${lastEnd}T00:00:00Z`)
+    : new Date(Date.UTC(new Date().getUTCFullYear(), new Date().getUTCMonth(), 0));
   start.setUTCDate(start.getUTCDate() + 1);
   const end = new Date(Date.UTC(start.getUTCFullYear(), start.getUTCMonth() + 1, 0));
   return { periodStart: iso(start), periodEnd: iso(end) };
 }
 
-export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId: string; lastPeriodEnd?: string; onDone: (app: PayAppDetail) => void }) {
+export function NewPayAppForm({
+  projectId,
+  lastPeriodEnd,
+  onDone,
+}: {
+  projectId: string;
+  lastPeriodEnd?: string;
+  onDone: (app: PayAppDetail) => void;
+}) {
   const [values, setValues] = useState({ ...defaultPeriod(lastPeriodEnd), isFinal: false });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const create = useCreatePayApp(projectId);
@@ -31,7 +41,8 @@ export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId:
   function submit(event: React.FormEvent) {
     event.preventDefault();
     const parsed = createPayAppSchema.safeParse(values);
-    if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+    if (!parsed.success)
+      return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
     setErrors({});
     create.mutate(parsed.data, {
       onSuccess: onDone,
@@ -42,10 +53,19 @@ export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId:
     <form onSubmit={submit} className="flex flex-col gap-3" noValidate>
       <div className="grid gap-3 sm:grid-cols-2">
         <Field label="Period starts" error={errors.periodStart}>
-          {(c) => <Input {...c} type="date" value={values.periodStart} onChange={(e) => edit({ periodStart: e.target.value })} />}
+          {(c) => (
+            <Input
+              {...c}
+              type="date"
+              value={values.periodStart}
+              onChange={(e) => edit({ periodStart: e.target.value })}
+            />
+          )}
         </Field>
         <Field label="Period ends" error={errors.periodEnd}>
-          {(c) => <Input {...c} type="date" value={values.periodEnd} onChange={(e) => edit({ periodEnd: e.target.value })} />}
+          {(c) => (
+            <Input {...c} type="date" value={values.periodEnd} onChange={(e) => edit({ periodEnd: e.target.value })} />
+          )}
         </Field>
       </div>
       <label className="flex items-center gap-2 text-sm">
@@ -54,7 +74,9 @@ export function NewPayAppForm({ projectId, lastPeriodEnd, onDone }: { projectId:
       </label>
       {create.isError ? <Alert>{errorMessage(create.error)}</Alert> : null}
       <div className="flex justify-end">
-        <Button type="submit" disabled={create.isPending}>{create.isPending ? 'Compiling…' : 'Compile pay application'}</Button>
+        <Button type="submit" disabled={create.isPending}>
+          {create.isPending ? 'Compiling…' : 'Compile pay application'}
+        </Button>
       </div>
     </form>
   );
