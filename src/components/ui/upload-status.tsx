@@ -1,8 +1,11 @@
 import { Alert } from '@/components/ui/alert';
 import { errorMessage, isApiError } from '@/lib/api-client';
 
-/** An upload under way: a progress bar, then "Checking files…" while the server reads what it received. */
-export function UploadProgress({ progress }: { progress: number }) {
+/**
+ * An upload under way: a progress bar, then `checking` ("Checking files…" unless given) while the server reads what
+ * it received.
+ */
+export function UploadProgress({ progress, checking = 'Checking files…' }: { progress: number; checking?: string }) {
   const percent = Math.round(progress * 100);
   return (
     <div className="flex items-center gap-3">
@@ -17,7 +20,7 @@ export function UploadProgress({ progress }: { progress: number }) {
         <div className="h-full bg-spruce-600 transition-[width]" style={{ width: `${percent}%` }} />
       </div>
       <span className="w-28 text-right text-xs text-stone-600 tabular-nums">
-        {progress < 1 ? `${percent} % sent` : 'Checking files…'}
+        {progress < 1 ? `${percent} % sent` : checking}
       </span>
     </div>
   );

@@ -5,13 +5,13 @@ import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
+import { UploadProgress } from '@/components/ui/upload-status';
 import { ApiError, errorMessage } from '@/lib/api-client';
 import { MAX_CSV_UPLOAD_BYTES } from '@/shared/constants';
 import { BID_ITEM_CSV_COLUMNS } from '@/shared/schemas/bid-item';
 import { useImportBidItems } from '../api/import-bid-items';
 import { downloadBidScheduleTemplate } from './csv-template';
 import { ImportErrorsTable } from './import-errors-table';
-import { UploadProgress } from './upload-progress';
 
 type ImportPanelProps = { projectId: string; open: boolean; onClose: () => void };
 
@@ -76,7 +76,7 @@ export function ImportPanel({ projectId, open, onClose }: ImportPanelProps) {
             {upload.isPending ? 'Uploading…' : 'Upload and import'}
           </Button>
         </form>
-        {upload.isPending ? <UploadProgress fraction={upload.progress} /> : null}
+        {upload.isPending ? <UploadProgress progress={upload.progress} checking="Checking rows…" /> : null}
         {upload.isSuccess ? (
           <Alert tone="success">
             Imported {upload.data.imported} {upload.data.imported === 1 ? 'bid item' : 'bid items'}.
