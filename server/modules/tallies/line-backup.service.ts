@@ -13,7 +13,7 @@ import * as repo from './tallies.repository';
  * certification), so the backup is never readable where the line is not.
  */
 export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId: string) {
-  const { app } = await loadPayAppAccess(db, actor, payAppId);
+  const { app, roles } = await loadPayAppAccess(db, actor, payAppId);
   const line = isUuid(lineId) ? (await listLines(db, app.id)).find((l) => l.id === lineId) : undefined;
   if (!line) throw notFound('The line');
   const rows = await repo.listLineTallies(db, app.id, line.bidItemId);
@@ -23,6 +23,6 @@ export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId:
   );
   return {
     line: { id: line.id, bidItemId: line.bidItemId, payAppId: app.id, payAppNumber: app.number },
-    tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0)),
+    tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0, roles)),
   };
 }
