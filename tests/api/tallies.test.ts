@@ -231,13 +231,18 @@ describe('tallies: who may do what, and the draft life', () => {
     const none = { edit: false, delete: false, markReady: false, addEvidence: false, removeEvidence: false };
     expect(body.tally.can).toEqual(all);
     expect((await sub.get(`/api/projects/${w.home.id}`)).body.project.can).toMatchObject({ createTally: true });
+    const listed = async (agent: Awaited<ReturnType<typeof as>>) =>
+      ((await agent.get(url())).body.items as { id: string; can: unknown }[]).find((t) => t.id === id)?.can;
+    expect(await listed(sub)).toEqual(all);
     for (const who of ['general_contractor', 'owner', 'admin'] as const) {
       const agent = await as(who);
       expect((await agent.get(`/api/tallies/${id}`)).body.tally.can).toEqual(none);
+      expect(await listed(agent)).toEqual(none);
       expect((await agent.get(`/api/projects/${w.home.id}`)).body.project.can).toMatchObject({ createTally: false });
     }
     const ready = await sub.post(`/api/tallies/${id}/ready`);
     expect(ready.body.tally.can).toEqual(none);
+    expect(await listed(sub)).toEqual(none);
   });
 
   it('filters the list by status, bid item and period', async () => {

@@ -4,6 +4,8 @@ import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-li
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { PayBasisScreen } from '@/features/field-records';
+import type { AccessRole } from '@/shared/constants';
+import { projectCan } from '@/shared/policies/projects';
 
 afterEach(() => {
   cleanup();
@@ -85,11 +87,12 @@ function stubFetch(answer?: (call: Call) => { status: number; body: unknown } | 
   return calls;
 }
 
-function renderScreen(myRoles: string[]) {
+// The screen reads the `can` the server's project presenter sends for these roles.
+function renderScreen(myRoles: AccessRole[]) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
   return render(
     <QueryClientProvider client={client}>
-      <PayBasisScreen projectId="p1" myRoles={myRoles} />
+      <PayBasisScreen projectId="p1" can={projectCan(myRoles)} />
     </QueryClientProvider>,
   );
 }

@@ -4,6 +4,8 @@ import { cleanup, render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { PayBasisScreen } from '@/features/field-records';
+import type { AccessRole } from '@/shared/constants';
+import { projectCan } from '@/shared/policies/projects';
 
 afterEach(() => {
   cleanup();
@@ -95,11 +97,12 @@ function stubFetch(importAnswer?: { status: number; body: unknown }) {
   return fetchMock;
 }
 
-function renderScreen(myRoles: string[]) {
+// The screen reads the `can` the server's project presenter sends for these roles.
+function renderScreen(myRoles: AccessRole[]) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
   return render(
     <QueryClientProvider client={client}>
-      <PayBasisScreen projectId="p1" myRoles={myRoles} />
+      <PayBasisScreen projectId="p1" can={projectCan(myRoles)} />
     </QueryClientProvider>,
   );
 }

@@ -3,7 +3,9 @@ import { ACCESS_ROLES, PAY_APP_STATUSES, TALLY_STATUSES, type AccessRole } from 
 import { isFrozen } from '../../src/shared/domain/pay-app-status';
 import { changeOrderCan } from '../../src/shared/policies/change-orders';
 import { payAppCan } from '../../src/shared/policies/pay-apps';
-import { canManageContract, projectCan } from '../../src/shared/policies/projects';
+import { canKeepFieldRecords, signingSides } from '../../src/shared/policies/field-records';
+import { changeOrderWaits, payAppStep, paymentDue, paymentDueAt } from '../../src/shared/policies/inbox';
+import { canManageContract, managedSeat, personCan, projectCan } from '../../src/shared/policies/projects';
 import { canAddEvidence, tallyCan } from '../../src/shared/policies/tallies';
 
 // Database-free checks of the tally and project rules (issue 12, item 8). The rules themselves are the house's own
@@ -61,9 +63,76 @@ describe('project policy', () => {
         pay: roles.includes('owner'),
         issueWaiver: roles.includes('subcontractor'),
         proposeChangeOrder: roles.includes('subcontractor') || roles.includes('general_contractor'),
+        setMeasurementProfile: roles.includes('general_contractor') || roles.includes('general_contractor_admin'),
+        keepFieldRecords: roles.includes('subcontractor') || roles.includes('general_contractor'),
+        signDailySheet: roles.includes('subcontractor') || roles.includes('general_contractor'),
+        recordAdjustment: roles.includes('general_contractor') || roles.includes('general_contractor_admin'),
+        managePeople: roles.some((r) => r.endsWith('_admin')),
       });
       expect(projectCan(roles).manageContract).toBe(canManageContract(roles));
     }
+  });
+
+  it("an admin manages its own company's seat only; a seat holder manages none", () => {
+    expect(managedSeat(['subcontractor', 'subcontractor_admin'])).toBe('subcontractor');
+    expect(managedSeat(['general_contractor_admin'])).toBe('general_contractor');
+    expect(managedSeat(['owner_admin'])).toBe('owner');
+    expect(managedSeat(['owner', 'general_contractor'])).toBeNull();
+  });
+
+  it("only a general contractor's people set up a job", () => {
+    expect(personCan({ companyKind: 'general_contractor' })).toEqual({ createProject: true });
+    for (const kind of ['subcontractor', 'owner', null] as const) {
+      expect(personCan({ companyKind: kind })).toEqual({ createProject: false });
+    }
+  });
+});
+
+describe('field records policy', () => {
+  it('each contractor signs its own side of a daily sheet; the owner and the admins sign none', () => {
+    expect(signingSides(['subcontractor'])).toEqual(['contractor']);
+    expect(signingSides(['general_contractor'])).toEqual(['gc']);
+    expect(signingSides(['subcontractor', 'general_contractor'])).toEqual(['contractor', 'gc']);
+    for (const roles of [
+      ['owner'],
+      ['owner_admin'],
+      ['subcontractor_admin'],
+      ['general_contractor_admin'],
+    ] as AccessRole[][]) {
+      expect(signingSides(roles)).toEqual([]);
+      expect(canKeepFieldRecords(roles)).toBe(false);
+    }
+  });
+});
+
+describe('inbox policy', () => {
+  it("the subcontractor's next move on a draft is to submit; the reviewer's on a submitted one is to review", () => {
+    expect(payAppStep('draft', ['subcontractor'], 0)).toBe('pay_app_submit');
+    expect(payAppStep('draft', ['general_contractor'], 0)).toBeNull();
+    expect(payAppStep('submitted', ['general_contractor'], 0)).toBe('pay_app_review');
+    expect(payAppStep('in_review', ['general_contractor'], 0)).toBe('pay_app_certify');
+  });
+
+  it('a returned application with open disputes asks for answers before the revision', () => {
+    expect(payAppStep('returned', ['subcontractor'], 0)).toBe('pay_app_revise');
+    expect(payAppStep('returned', ['subcontractor'], 2)).toBe('pay_app_answer');
+  });
+
+  it('payment falls due the terms after certification; only the payer is asked, once per open attempt', () => {
+    const certified = new Date('2026-03-02T00:00:00Z');
+    expect(paymentDueAt(certified, 30).toISOString()).toBe('2026-04-01T00:00:00.000Z');
+    const app = { status: 'certified' as const, currentDueCents: 100_00, paidCents: 0 };
+    expect(paymentDue(app, ['owner'], [])).toBe(true);
+    expect(paymentDue(app, ['general_contractor'], [])).toBe(false);
+    expect(paymentDue(app, ['owner'], [{ status: 'processing', amountCents: 100_00 }])).toBe(false);
+    expect(paymentDue({ ...app, paidCents: 100_00 }, ['owner'], [])).toBe(false);
+  });
+
+  it('a change order waits on each deciding side that has not approved', () => {
+    const open = { gcApprovedAt: null, ownerApprovedAt: null };
+    expect(changeOrderWaits(open, ['general_contractor'], true)).toBe(true);
+    expect(changeOrderWaits({ ...open, gcApprovedAt: new Date() }, ['general_contractor'], true)).toBe(false);
+    expect(changeOrderWaits(open, ['subcontractor'], true)).toBe(false);
   });
 });
 

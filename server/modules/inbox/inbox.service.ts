@@ -6,7 +6,14 @@ import { balanceCents } from '../../../src/shared/policies/payments';
 import { accessRoles } from '../../../src/shared/policies/projects';
 import { listVisibleProjects, rolesByProject, type ProjectRow } from '../projects/projects.repository';
 import { presentCounts, presentEntry, type EntryDraft } from './inbox.presenter';
-import { changeOrderWaits, followsInvitations, payAppStep, paymentDue, paymentDueAt, waiverStep } from './inbox.policy';
+import {
+  changeOrderWaits,
+  followsInvitations,
+  payAppStep,
+  paymentDue,
+  paymentDueAt,
+  waiverStep,
+} from '../../../src/shared/policies/inbox';
 import * as repo from './inbox.repository';
 
 type Scope = { project: ProjectRow; roles: AccessRole[] };

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { personCan } from '../../../src/shared/policies/projects';
 import type { MeView } from '../../../src/shared/schemas/project';
 import type { Db } from '../../db/client';
 import { getActor, type Actor } from '../../lib/actor';
@@ -12,6 +13,7 @@ export function meView(a: Actor): MeView {
         ? { id: a.companyId, name: a.companyName, kind: a.companyKind }
         : null,
     isAdmin: a.isAdmin,
+    can: personCan(a),
   };
 }
 

@@ -1,4 +1,4 @@
-import { projectCan } from '../../../src/shared/policies/projects';
+import { managedSeat, projectCan } from '../../../src/shared/policies/projects';
 import type { AccessRole } from '../../../src/shared/constants';
 import type {
   CompanyView,
@@ -30,6 +30,7 @@ export function presentProjectSummary(
     units: row.units,
     myRoles,
     can: projectCan(myRoles),
+    managedSeat: managedSeat(myRoles),
     ...totals,
   };
 }

@@ -15,7 +15,7 @@ import { lineTickets } from '../pay-apps/line-tickets';
  * is its tickets: those the application paid, then those it held out with the reason.
  */
 export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId: string) {
-  const { app } = await loadPayAppAccess(db, actor, payAppId);
+  const { app, roles } = await loadPayAppAccess(db, actor, payAppId);
   const line = isUuid(lineId) ? (await listLines(db, app.id)).find((l) => l.id === lineId) : undefined;
   if (!line) throw notFound('The line');
   const rows = await repo.listLineTallies(db, app.id, line.bidItemId);
@@ -25,7 +25,7 @@ export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId:
   );
   return {
     line: { id: line.id, bidItemId: line.bidItemId, payAppId: app.id, payAppNumber: app.number },
-    tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0)),
+    tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0, roles)),
     tickets: await lineTickets(db, app, line.bidItemId),
   };
 }

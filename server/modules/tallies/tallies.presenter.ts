@@ -1,4 +1,5 @@
-import type { TallyCan } from '../../../src/shared/policies/tallies';
+import type { AccessRole } from '../../../src/shared/constants';
+import { tallyCan, type TallyCan } from '../../../src/shared/policies/tallies';
 import type {
   EvidenceKind,
   EvidenceView,
@@ -33,7 +34,12 @@ export function presentTally(row: TallyJoined, evidenceCount: number, can: Tally
   };
 }
 
-export function presentTallySummary(row: TallySummaryRow, evidenceCount: number): TallySummaryView {
+/** A tally in a list, with what the reader may do with it (`can`, from the tally policy and its application). */
+export function presentTallySummary(
+  row: TallySummaryRow,
+  evidenceCount: number,
+  roles: AccessRole[],
+): TallySummaryView {
   const { tally } = row;
   return {
     id: tally.id,
@@ -49,6 +55,7 @@ export function presentTallySummary(row: TallySummaryRow, evidenceCount: number)
     evidenceCount,
     createdAt: tally.createdAt.toISOString(),
     updatedAt: tally.updatedAt.toISOString(),
+    can: tallyCan(roles, { status: tally.status, payAppStatus: row.payAppStatus }),
   };
 }
 

@@ -61,10 +61,17 @@ const summaryColumns = {
 
 function summaries(db: Executor, pageKey: SQL.Aliased<string> | SQL<string>) {
   return db
-    .select({ tally: summaryColumns, bidItem: joinedColumns.bidItem, authorName: user.name, pageKey })
+    .select({
+      tally: summaryColumns,
+      bidItem: joinedColumns.bidItem,
+      authorName: user.name,
+      payAppStatus: payApps.status,
+      pageKey,
+    })
     .from(tallies)
     .innerJoin(bidItems, eq(bidItems.id, tallies.bidItemId))
-    .innerJoin(user, eq(user.id, tallies.authorUserId));
+    .innerJoin(user, eq(user.id, tallies.authorUserId))
+    .leftJoin(payApps, eq(payApps.id, tallies.payAppId));
 }
 
 /** One page of a project's tallies, newest first by (created_at, id); `pageKey` is created_at for the cursor. */

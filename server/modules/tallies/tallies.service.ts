@@ -52,7 +52,7 @@ export async function listTallies(
     rows,
     query.limit,
     (r) => ({ at: r.pageKey, id: r.tally.id }),
-    (r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0),
+    (r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0, roles),
   );
 }
 

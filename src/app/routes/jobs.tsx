@@ -1,7 +1,7 @@
 import { useNavigate } from 'react-router';
 import { PageHeader } from '@/components/ui/page-header';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
-import { canCreateJobs, useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/features/auth/api/get-me';
 import { useCompanies } from '@/features/companies/api/get-companies';
 import { projectsQueryOptions, useProjects } from '@/features/projects/api/get-projects';
 import { NewJobDialog } from '@/features/projects/components/new-job-dialog';
@@ -16,7 +16,7 @@ export function loader() {
 export function Component() {
   const me = useMe();
   const projects = useProjects();
-  const canCreate = canCreateJobs(me);
+  const canCreate = me.can.createProject;
   const companies = useCompanies({ enabled: canCreate });
   const navigate = useNavigate();
 

@@ -14,7 +14,7 @@ export function Component() {
   return (
     <>
       <title>{`${project.name} · Pay basis · Tallyard`}</title>
-      <PayBasisScreen projectId={projectId} myRoles={project.myRoles} />
+      <PayBasisScreen projectId={projectId} can={project.can} />
     </>
   );
 }

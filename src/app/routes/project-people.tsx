@@ -2,13 +2,13 @@ import { useParams } from 'react-router';
 import { EmptyState } from '@/components/ui/states';
 import { useMe } from '@/features/auth/api/get-me';
 import { InvitationsPanel } from '@/features/invitations/components/invitations-panel';
-import { managedSeat, useProject } from '@/features/projects/api/get-project';
+import { useProject } from '@/features/projects/api/get-project';
 import { PeopleTable } from '@/features/projects/components/people-table';
 
 export function Component() {
   const { projectId = '' } = useParams();
   const project = useProject(projectId);
-  const seat = managedSeat(project);
+  const seat = project.managedSeat;
   const me = useMe();
   return (
     <div className="flex flex-col gap-3">

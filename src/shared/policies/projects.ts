@@ -7,6 +7,7 @@ import {
   type ProjectRole,
 } from '../constants';
 import { canProposeChangeOrder } from './change-orders';
+import { canKeepFieldRecords, canRecordAdjustment, canSetMeasurementProfile, canSignDailySheet } from './field-records';
 import { canIssueWaiver } from './lien-waivers';
 import { canCreatePayApp, canSeePayApp } from './pay-apps';
 import { canPay } from './payments';
@@ -71,6 +72,13 @@ export function managedSeat(roles: AccessRole[]): ProjectRole | null {
 /** Projects are set up by a general contractor's people (or its admin). */
 export const canCreateProject = (actor: Pick<Person, 'companyKind'>) => actor.companyKind === 'general_contractor';
 
+/** What the signed-in person may start outside any project; GET /api/session attaches it. */
+export type PersonCan = { createProject: boolean };
+
+export const personCan = (actor: Pick<Person, 'companyKind'>): PersonCan => ({
+  createProject: canCreateProject(actor),
+});
+
 /** What the person may start on the project; the project's presenter attaches it, screens read it. */
 export type ProjectCan = {
   /** Contract settings and the bid schedule (the general contractor's side). */
@@ -83,6 +91,16 @@ export type ProjectCan = {
   issueWaiver: boolean;
   /** Propose a change order (and forecast quantities, which end in one). */
   proposeChangeOrder: boolean;
+  /** Choose how each item is measured and paid, and its stages (the contract's side). */
+  setMeasurementProfile: boolean;
+  /** Keep field records: trucks, tickets, sources, stored materials. */
+  keepFieldRecords: boolean;
+  /** Sign a force account daily sheet for one's own side. */
+  signDailySheet: boolean;
+  /** Record deductions and adjustments (the payer's side of the contract). */
+  recordAdjustment: boolean;
+  /** Invite and remove people of one's own company on this project. */
+  managePeople: boolean;
 };
 
 export function projectCan(roles: AccessRole[]): ProjectCan {
@@ -94,5 +112,10 @@ export function projectCan(roles: AccessRole[]): ProjectCan {
     pay: canPay(roles),
     issueWaiver: canIssueWaiver(roles),
     proposeChangeOrder: canProposeChangeOrder(roles),
+    setMeasurementProfile: canSetMeasurementProfile(roles),
+    keepFieldRecords: canKeepFieldRecords(roles),
+    signDailySheet: canSignDailySheet(roles),
+    recordAdjustment: canRecordAdjustment(roles),
+    managePeople: canManagePeople(roles),
   };
 }

@@ -1,4 +1,4 @@
-import type { ProjectCan } from '../policies/projects';
+import type { PersonCan, ProjectCan } from '../policies/projects';
 import { z } from 'zod';
 import { ACCESS_ROLES, COMPANY_KINDS, FEE_BEARERS, PROJECT_ROLES, UNIT_SYSTEMS, VARIATION_PRESETS } from '../constants';
 
@@ -111,6 +111,8 @@ export type ProjectSummaryView = {
   myRoles: (typeof ACCESS_ROLES)[number][];
   /** What the person may start on the project (src/shared/policies/projects.ts); screens read this, not myRoles. */
   can: ProjectCan;
+  /** The seat whose people the signed-in admin invites and removes here (its own company's), or null. */
+  managedSeat: (typeof PROJECT_ROLES)[number] | null;
   /** The bid schedule as set up, before any change order. */
   originalContractSumCents: number;
   /** Net of the approved change orders (current - original). */
@@ -136,6 +138,8 @@ export type MeView = {
   user: { id: string; name: string; email: string };
   company: CompanyView | null;
   isAdmin: boolean;
+  /** What the person may start outside any project (src/shared/policies/projects.ts). */
+  can: PersonCan;
 };
 
 /** GET /api/session: whether the browser is signed in, and who (never a 401). */

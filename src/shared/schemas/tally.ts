@@ -149,6 +149,8 @@ export type TallySummaryView = {
   evidenceCount: number;
   createdAt: string;
   updatedAt: string;
+  /** What the reader may do with it now (src/shared/policies/tallies.ts). */
+  can: TallyCan;
 };
 
 export type TallyView = {

@@ -26,8 +26,3 @@ export const meQueryOptions = () =>
 export function useMe() {
   return useSuspenseQuery(meQueryOptions()).data;
 }
-
-/** People of a general contractor company (its admin included) set up jobs. */
-export function canCreateJobs(me: MeView): boolean {
-  return me.company?.kind === 'general_contractor';
-}

@@ -3,20 +3,18 @@ import { HaulCard } from './haul-card';
 import { ProfilesCard } from './profiles-card';
 import { ScaleCard } from './scale-card';
 
-type Roles = readonly string[];
+import type { ProjectCan } from '@/shared/policies/projects';
 
-/** How each item is measured and paid, with the field records behind the quantities. */
-export function PayBasisScreen({ projectId, myRoles }: { projectId: string; myRoles: Roles }) {
-  const contractSide = myRoles.includes('general_contractor') || myRoles.includes('general_contractor_admin');
-  const fieldSide = myRoles.includes('subcontractor') || myRoles.includes('general_contractor');
+/** How each item is measured and paid, with the field records behind the quantities (`can` from the project). */
+export function PayBasisScreen({ projectId, can }: { projectId: string; can: ProjectCan }) {
   return (
     <div className="flex flex-col gap-5">
-      <ProfilesCard projectId={projectId} canSet={contractSide} />
-      <HaulCard projectId={projectId} canRecord={fieldSide} />
-      <ScaleCard projectId={projectId} canRecord={fieldSide} />
-      <DailySheetsCard projectId={projectId} canSign={fieldSide} />
-      <StoredMaterialsCard projectId={projectId} canRecord={fieldSide} />
-      <AdjustmentsCard projectId={projectId} canRecord={contractSide} />
+      <ProfilesCard projectId={projectId} canSet={can.setMeasurementProfile} />
+      <HaulCard projectId={projectId} canRecord={can.keepFieldRecords} />
+      <ScaleCard projectId={projectId} canRecord={can.keepFieldRecords} />
+      <DailySheetsCard projectId={projectId} canSign={can.signDailySheet} />
+      <StoredMaterialsCard projectId={projectId} canRecord={can.keepFieldRecords} />
+      <AdjustmentsCard projectId={projectId} canRecord={can.recordAdjustment} />
     </div>
   );
 }

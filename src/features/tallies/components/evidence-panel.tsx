@@ -87,6 +87,7 @@ export function EvidencePanel({
                   <a
                     href={e.downloadUrl}
                     download
+                    aria-label={`Download ${e.fileName}`}
                     className="inline-flex items-center gap-1 rounded px-2 py-1 text-xs font-medium text-spruce-800 hover:bg-spruce-50 focus-visible:outline-2 focus-visible:outline-spruce-600"
                   >
                     <Download aria-hidden className="size-3.5" />

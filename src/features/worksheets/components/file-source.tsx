@@ -41,6 +41,7 @@ export function FileSource({
           <input
             ref={input}
             type="file"
+            aria-label={`Upload a file for ${label}`}
             accept={accept}
             className="sr-only"
             onChange={async (event) => {

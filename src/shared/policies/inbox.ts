@@ -1,17 +1,10 @@
-import type {
-  AccessRole,
-  InboxKind,
-  LienWaiverKind,
-  PayAppStatus,
-  PaymentStatus,
-  ProjectRole,
-} from '../../../src/shared/constants';
-import { nextStatus, type PayAppAction } from '../../../src/shared/domain/pay-app-status';
-import { decisionSides } from '../../../src/shared/policies/change-orders';
-import { canIssueWaiver, waiverOptions } from '../../../src/shared/policies/lien-waivers';
-import { mayTake } from '../../../src/shared/policies/pay-apps';
-import { balanceCents, canPay, PAYABLE_STATUSES } from '../../../src/shared/policies/payments';
-import { canManagePeople, managedSeat } from '../../../src/shared/policies/projects';
+import type { AccessRole, InboxKind, LienWaiverKind, PayAppStatus, PaymentStatus, ProjectRole } from '../constants';
+import { nextStatus, type PayAppAction } from '../domain/pay-app-status';
+import { decisionSides } from './change-orders';
+import { canIssueWaiver, waiverOptions } from './lien-waivers';
+import { mayTake } from './pay-apps';
+import { balanceCents, canPay, PAYABLE_STATUSES } from './payments';
+import { canManagePeople, managedSeat } from './projects';
 
 /**
  * The person's own move on a pay application, read from the transition table: the first of these actions that
