@@ -1,6 +1,6 @@
 import type { Executor } from '../../db/client';
 import { AppError } from '../../lib/app-error';
-import { baselineRows } from './baseline-file';
+import { baselineBreaklines, baselineFaces, baselineRows } from './baseline-file';
 import * as repo from './surface-baselines.repository';
 
 const required = (message: string) =>
@@ -17,7 +17,14 @@ export async function surfaceAgainstBaseline(
   projectId: string,
   inputs: Record<string, unknown> | null | undefined,
 ): Promise<{ engineInputs: Record<string, unknown>; kept: Record<string, unknown>; trail: string } | null> {
-  const { baselineId, baselineSha256: _sent, ...rest } = (inputs ?? {}) as Record<string, unknown>;
+  // The existing survey's faces and breaklines are the baseline's too: what the client sent for them is dropped.
+  const {
+    baselineId,
+    baselineSha256: _sent,
+    existingFaces: _faces,
+    existingBreaklines: _breaklines,
+    ...rest
+  } = (inputs ?? {}) as Record<string, unknown>;
   if (baselineId === undefined || baselineId === null) {
     if (await repo.hasLocked(db, projectId))
       throw required('This project has a locked original ground surface: choose it as the existing survey.');
@@ -29,7 +36,12 @@ export async function surfaceAgainstBaseline(
   const names = await repo.userNames(db, [b.subAcceptedByUserId, b.gcAcceptedByUserId]);
   const day = (d: Date | null) => d?.toISOString().slice(0, 10) ?? '';
   return {
-    engineInputs: { ...rest, existing: baselineRows(b, unit) },
+    engineInputs: {
+      ...rest,
+      existing: baselineRows(b, unit),
+      existingFaces: baselineFaces(b),
+      existingBreaklines: baselineBreaklines(b, unit),
+    },
     kept: { baselineId: b.id, baselineSha256: b.sha256 },
     trail: `Existing surface: the locked original ground "${b.fileName}"${b.area ? ` (${b.area})` : ''}, SHA-256 ${b.sha256}, ${b.pointCount.toLocaleString('en-US')} points; accepted by ${names.get(b.subAcceptedByUserId ?? '') ?? ''} (subcontractor) on ${day(b.subAcceptedAt)} and ${names.get(b.gcAcceptedByUserId ?? '') ?? ''} (general contractor) on ${day(b.gcAcceptedAt)}`,
   };
