@@ -1,4 +1,5 @@
 import { Badge } from '@/components/ui/badge';
+import { formatDateRange } from '@/lib/format';
 import type { LineReviewStatus, PayAppStatus } from '@/shared/constants';
 
 /** Screen words for the API's status codes. */
@@ -38,4 +39,4 @@ export function LineReviewBadge({ status }: { status: LineReviewStatus }) {
   return <Badge tone={LINE[status].tone}>{LINE[status].label}</Badge>;
 }
 
-export const periodText = (start: string, end: string) => `${start} to ${end}`;
+export const periodText = formatDateRange;
