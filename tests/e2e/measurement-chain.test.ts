@@ -399,6 +399,7 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
       '2 files',
     ]);
     await snap(gc, 'gc-line-backup');
+    await backup.screenshot({ path: `${SHOTS}/${String(++shot).padStart(2, '0')}-gc-line-backup-close.png` });
     await backup.getByRole('link', { name: 'Lot 7 basin, as dug' }).click();
     await gc.waitForURL(/\/tallies\/[\w-]+$/);
     await gc.getByTestId('cut-fill-map').waitFor();
@@ -410,11 +411,18 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
     expect(file.suggestedFilename()).toBe('lot-7-basin-dug.xml');
     const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
     expect(sha(readFileSync((await file.path())!))).toBe(sha(BASIN_DUG));
+    expect(await gc.getByRole('link', { name: 'Open the pay application' }).getAttribute('href')).toBe(
+      `/projects/${projectId}/pay-apps/${payAppId}`,
+    );
     await gc.getByRole('link', { name: 'Open in its worksheet' }).click();
     await gc.waitForURL(/\/worksheets\?tally=/);
     await gc.getByText(/Read-only: the tally/).waitFor();
     await gc.getByTestId('cut-fill-map').waitFor();
     expect(await gc.getByRole('button', { name: /Save/ }).count()).toBe(0);
+    // Read-only: the tally's files are listed to download, and nothing offers to load another one.
+    await gc.getByRole('link', { name: 'Download lot-7-basin-ground.xml' }).waitFor();
+    expect(await gc.getByText('Upload file').count()).toBe(0);
+    expect(await gc.getByText(/Calculator only/).count()).toBe(0);
     await snap(gc, 'gc-worksheet-read-only');
   }, 240_000);
 });

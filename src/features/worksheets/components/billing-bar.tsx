@@ -58,7 +58,7 @@ export function BillingBar({ method, bidItems, choice, onChoice, preview, disabl
       <label className="flex flex-col text-xs text-stone-700">
         Bills item
         <Select
-          className="mt-0.5 w-72"
+          className="mt-0.5 w-80"
           value={choice.bidItemId}
           disabled={disabled}
           onChange={(e) => onChoice({ ...choice, bidItemId: e.target.value })}
@@ -88,7 +88,7 @@ export function BillingBar({ method, bidItems, choice, onChoice, preview, disabl
         <label className="flex flex-col text-xs text-stone-700">
           Part billed
           <Select
-            className="mt-0.5 w-36"
+            className="mt-0.5 w-48"
             value={choice.component}
             disabled={disabled}
             onChange={(e) => onChoice({ ...choice, component: e.target.value as TallyComponent | '' })}
