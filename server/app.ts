@@ -81,6 +81,8 @@ export type AppDeps = {
    * retries, leases of a server that died). Off when unset (tests); the server sets it (OUTBOX_POLL_SECONDS).
    */
   outboxPollMs?: number;
+  /** How long this server keeps mail it claimed (OUTBOX_LEASE_SECONDS; outbox.ts's default unless given). */
+  outboxLeaseSeconds?: number;
   /**
    * Which proxies' X-Forwarded-For Express believes (its 'trust proxy' setting): the client address keys the rate
    * limits and the sign-in back-off. `loopback` unless given (TRUST_PROXY); behind a balancer, its network.
@@ -105,7 +107,7 @@ export function createApp(deps: AppDeps): Express {
   const ctx: AppContext = {
     db,
     storage: deps.storage,
-    outbox: createOutbox(db, deps.mailer, logger),
+    outbox: createOutbox(db, deps.mailer, logger, { leaseSeconds: deps.outboxLeaseSeconds }),
     logger,
     appUrl: deps.appUrl,
     mailbox: deps.mailbox,

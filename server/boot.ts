@@ -92,6 +92,7 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
       tempDir: path.join(layout.root, 'upload-temp'),
     },
     outboxPollMs: env.OUTBOX_POLL_SECONDS * 1000,
+    outboxLeaseSeconds: env.OUTBOX_LEASE_SECONDS,
     trustProxy: env.TRUST_PROXY,
   });
   const server = createServer(app);

@@ -28,9 +28,16 @@ const envSchema = z.object({
   STRIPE_SECRET_KEY: z.string().optional(),
   STRIPE_WEBHOOK_SECRET: z.string().optional(),
   STRIPE_PUBLISHABLE_KEY: z.string().optional(),
+  /**
+   * Development and tests only (refused in production): the Stripe SDK talks to this server instead of api.stripe.com,
+   * such as one local stand-in (`npx tsx stripe-standin/src/cli.ts`) shared by several app servers.
+   */
+  STRIPE_API_URL: z.url().optional(),
   REAUTH_MINUTES: z.coerce.number().int().min(1).max(1440).default(10),
   /** How often each server looks for due mail (retries, mail another server queued, a dead server's leases). */
   OUTBOX_POLL_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
+  /** How long a server keeps mail it claimed before another server may send it (a server that died mid-send). */
+  OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(1).max(3600).default(120),
   REAUTH_PAYMENT_ABOVE_CENTS: z.coerce.number().int().min(0).default(1_000_000),
   /**
    * The processor's fee rates as JSON (`{"card":{"percentBps":290,"fixedCents":30},"us_bank_account":{"percentBps":80,

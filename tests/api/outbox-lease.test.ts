@@ -88,6 +88,34 @@ describe('the shared outbox', () => {
     expect(b.sent.map((m) => m.subject).sort()).toEqual(['stuck 0', 'stuck 1', 'stuck 2']);
   });
 
+  it('keeps the outcome of the server that took a message over when the first one finishes after its lease', async () => {
+    await queue(1, 'late');
+    // Server A claims the message and its send outlasts the lease (a mail server that stops answering), then fails.
+    let release!: () => void;
+    const released = new Promise<void>((r) => (release = r));
+    const slow: Mailer = { send: () => released.then(() => Promise.reject(new Error('timed out'))) };
+    const serverA = createOutbox(database.db, slow, logger, { leaseSeconds: 60 });
+    const aDone = serverA.flush();
+    const late = () =>
+      database.db
+        .select()
+        .from(emailOutbox)
+        .where(eq(emailOutbox.subject, 'late 0'))
+        .then((rows) => rows[0]!);
+    await expect.poll(async () => (await late()).leasedUntil).not.toBeNull();
+    await database.db
+      .update(emailOutbox)
+      .set({ leasedUntil: new Date(Date.now() - 1000) })
+      .where(eq(emailOutbox.subject, 'late 0'));
+    const b = countingMailer();
+    await createOutbox(database.db, b, logger).flush();
+    expect(b.sent.map((m) => m.subject)).toEqual(['late 0']);
+    release();
+    await aDone;
+    // A's late failure neither marks the sent message pending again (it would go out a third time) nor counts it.
+    expect(await late()).toMatchObject({ status: 'sent', attempts: 1, lastError: null, leasedUntil: null });
+  });
+
   it('polls: mail queued without a nudge (by another server) goes out on the next look', async () => {
     const c = countingMailer();
     const serverC = createOutbox(database.db, c, logger);

@@ -229,5 +229,22 @@ describe('surface tallies measure against the locked baseline', () => {
     const stored = (await sub.get(`/api/tallies/${res.body.tally.id}`)).body.tally.inputs;
     expect(stored.baselineId).toBe(open);
     expect(stored.existing[0][2]).toBeCloseTo(100, 9);
+    // Faces or breaklines sent for the existing survey cannot reshape the locked surface: a single face over a
+    // quarter of the square, or a breakline ridge 1,000 ft high, would change the cut; the answer is the same.
+    const bent = await tally({
+      baselineId: open,
+      existingFaces: [[0, 1, 2]],
+      existingBreaklines: [
+        [
+          [0, 50, 1000],
+          [100, 50, 1000],
+        ],
+      ],
+    });
+    expect(bent.status).toBe(201);
+    expect(bent.body.tally.result.engine.cut).toBeCloseTo(10_000 / 27, 6);
+    const bentStored = (await sub.get(`/api/tallies/${bent.body.tally.id}`)).body.tally.inputs;
+    expect(bentStored.existingFaces).toBeUndefined();
+    expect(bentStored.existingBreaklines).toBeUndefined();
   });
 });

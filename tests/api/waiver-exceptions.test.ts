@@ -149,6 +149,30 @@ describe('waiver exceptions', () => {
     await t.database.db.delete(changeOrders);
   });
 
+  it('keep nothing open on a line certified at a quantity the subcontractor proposed itself', async () => {
+    const app = await newApp();
+    const [line] = await t.database.db
+      .select()
+      .from(payAppLines)
+      .where(eq(payAppLines.payAppId, app.id))
+      .orderBy(payAppLines.sortOrder);
+    // Claimed 1,300 CY, countered at 1,100 CY; the subcontractor proposed 1,200 CY, which was certified.
+    await t.database.db.insert(disputes).values({
+      payAppId: app.id,
+      lineId: line!.id,
+      revision: 0,
+      reason: 'Over-excavation not authorised',
+      counterQuantity: 1100,
+      claimedQuantity: 1300,
+      status: 'resolved',
+      resolution: 'quantity_proposed',
+      openedByUserId: world.people.general_contractor.id,
+    });
+    const res = await issue(app.id, { kind: 'conditional_progress' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.waiver.exceptions.map((e: { kind: string }) => e.kind)).toEqual(['retainage_held']);
+  });
+
   it('refuse a bad added exception with the field named, and save nothing', async () => {
     const app = await newApp();
     const res = await issue(app.id, {

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { payApplication } from '../../src/shared/domain/pay-app';
-import { changeOrderValues, waiverExceptions } from '../../src/shared/domain/waiver-exceptions';
+import { changeOrderValues, disputedClaims, waiverExceptions } from '../../src/shared/domain/waiver-exceptions';
 
 const none = { disputedLines: [], unpaidChangeOrders: [], signerAdded: [] };
 
@@ -71,6 +71,49 @@ describe('waiverExceptions', () => {
         expect(Number.isInteger(total)).toBe(true);
       }),
     );
+  });
+});
+
+describe('disputedClaims: the claim a waiver keeps open is the subcontractor’s last own figure (common practice)', () => {
+  const line = {
+    itemNumber: '205',
+    description: 'Unclassified excavation',
+    payUnit: 'CY' as const,
+    unitPriceCents: 940,
+    certifiedQuantity: 4200,
+  };
+  const dispute = (
+    lineId: string,
+    claimedQuantity: number | null,
+    resolution: 'counter_accepted' | 'quantity_proposed' | 'answered' | null,
+  ) => ({
+    ...line,
+    lineId,
+    claimedQuantity,
+    resolution,
+  });
+
+  it('the counter taken to be paid now keeps the claim open', () => {
+    expect(disputedClaims([dispute('a', 4500, 'counter_accepted')])).toEqual([{ ...line, claimedQuantity: 4500 }]);
+  });
+
+  it('a quantity the subcontractor proposed itself, then certified, leaves nothing in dispute', () => {
+    const claims = disputedClaims([dispute('a', 4500, 'quantity_proposed')]);
+    expect(claims).toEqual([]);
+    expect(waiverExceptions({ ...none, retainageHeldCents: 0, disputedLines: claims })).toEqual([]);
+  });
+
+  it('the latest dispute on a line speaks: a proposal (4,500 to 4,300) then a counter taken keeps 4,300 open', () => {
+    const claims = disputedClaims([dispute('a', 4500, 'quantity_proposed'), dispute('a', 4300, 'counter_accepted')]);
+    expect(claims).toEqual([{ ...line, claimedQuantity: 4300 }]);
+    // 100 CY x $9.40 = $940.00, by hand.
+    expect(waiverExceptions({ ...none, retainageHeldCents: 0, disputedLines: claims })[0]!.amountCents).toBe(94_000);
+  });
+
+  it('a dispute kept before claims were recorded reserves nothing; lines stand apart', () => {
+    expect(disputedClaims([dispute('a', null, 'counter_accepted'), dispute('b', 4400, 'answered')])).toEqual([
+      { ...line, claimedQuantity: 4400 },
+    ]);
   });
 });
 

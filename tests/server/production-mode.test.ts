@@ -6,6 +6,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/demo/demo-data';
 import { assertDeployable, loadEnv } from '../../server/env';
 import { startSmtpSink } from '../../server/integrations/mailer/smtp-sink';
+import { configurePayments } from '../../server/integrations/payments/configure';
+import { createLogger } from '../../server/lib/logger';
 import { freePort, SOURCE_SERVER, signInCookie, startServerProcess } from '../setup/server-process';
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'tallyard-prod-'));
@@ -51,6 +53,19 @@ describe('NODE_ENV=production', () => {
     ).toThrow(/embedded database/);
     expect(() => assertDeployable(loadEnv({ NODE_ENV: 'production', TALLYARD_DEMO: 'on' }))).not.toThrow();
     expect(() => assertDeployable(loadEnv({ NODE_ENV: 'development' }))).not.toThrow();
+  });
+
+  it('sends payments nowhere but Stripe in production: STRIPE_API_URL (a shared local stand-in) is refused', async () => {
+    const keys = {
+      STRIPE_SECRET_KEY: 'sk_test_x',
+      STRIPE_WEBHOOK_SECRET: 'whsec_x',
+      STRIPE_API_URL: 'http://127.0.0.1:12111',
+    };
+    await expect(
+      configurePayments(loadEnv({ NODE_ENV: 'production', ...keys }), createLogger('silent')),
+    ).rejects.toThrow(/STRIPE_API_URL/);
+    const dev = await configurePayments(loadEnv({ NODE_ENV: 'development', ...keys }), createLogger('silent'));
+    await dev.close();
   });
 
   it('set up for real: no Mailbox, and the session cookie is Secure because APP_URL is https', async () => {

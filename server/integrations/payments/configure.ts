@@ -15,9 +15,22 @@ export async function configurePayments(
   if (env.STRIPE_SECRET_KEY) {
     if (!env.STRIPE_WEBHOOK_SECRET)
       throw new Error('Tallyard cannot start: STRIPE_SECRET_KEY is set but STRIPE_WEBHOOK_SECRET is not.');
+    if (env.STRIPE_API_URL && env.NODE_ENV === 'production')
+      throw new Error('Tallyard cannot start in production with STRIPE_API_URL: payments must go to Stripe itself.');
+    const api = env.STRIPE_API_URL ? new URL(env.STRIPE_API_URL) : null;
     const { stripePayments } = await import('./stripe-payments');
     return {
-      payments: stripePayments({ secretKey: env.STRIPE_SECRET_KEY, webhookSecret: env.STRIPE_WEBHOOK_SECRET }),
+      payments: stripePayments({
+        secretKey: env.STRIPE_SECRET_KEY,
+        webhookSecret: env.STRIPE_WEBHOOK_SECRET,
+        ...(api
+          ? {
+              host: api.hostname,
+              port: Number(api.port || (api.protocol === 'https:' ? 443 : 80)),
+              protocol: api.protocol === 'https:' ? 'https' : 'http',
+            }
+          : {}),
+      }),
       close: async () => {},
     };
   }

@@ -14,6 +14,7 @@ import { loadContract, type LoadedContract } from './contract-quantities.reposit
 import { decisionSides, isFullyApproved, type ApprovalSide } from '../../../src/shared/policies/change-orders';
 import * as repo from './change-orders.repository';
 import { loadChangeOrder, presentContext, viewOf, type ChangeOrderContext } from './change-orders.service';
+import { seatAddresses } from '../members/members.repository';
 
 const stale = () =>
   conflict(
@@ -50,7 +51,7 @@ async function decisionAddresses(
   const proposerSeat = await repo.seatOf(tx, project.id, row.proposedByUserId);
   if (proposerSeat) seats.add(proposerSeat);
   if (side === 'owner') seats.add('general_contractor');
-  return repo.seatAddresses(tx, project, [...seats], actorUserId);
+  return seatAddresses(tx, project, [...seats], actorUserId);
 }
 
 /**

@@ -1,9 +1,8 @@
-import { and, asc, desc, eq, inArray, isNull, max, ne, or } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, max } from 'drizzle-orm';
 import type { ProjectRole } from '../../../src/shared/constants';
 import type { CreateChangeOrderInput } from '../../../src/shared/schemas/change-order';
 import type { Executor } from '../../db/client';
-import { changeOrderItems, changeOrders, companyMembers, projectMembers, user } from '../../db/schema';
-import { seatCompanyId, type ProjectParties } from '../../../src/shared/policies/projects';
+import { changeOrderItems, changeOrders, projectMembers, user } from '../../db/schema';
 
 export type ChangeOrderRow = typeof changeOrders.$inferSelect;
 export type ChangeOrderItemRow = typeof changeOrderItems.$inferSelect;
@@ -85,36 +84,6 @@ export async function updateIfProposed(
 
 export async function setItemBidItem(tx: Executor, itemId: string, bidItemId: string) {
   await tx.update(changeOrderItems).set({ bidItemId }).where(eq(changeOrderItems.id, itemId));
-}
-
-/**
- * E-mail addresses of the people holding one of `roles` on the project while they belong to the seat's company
- * (as access counts them: someone who left the company gets no more mail through an old seat), except `exceptUserId`.
- */
-export async function seatAddresses(
-  db: Executor,
-  project: ProjectParties & { id: string },
-  roles: ProjectRole[],
-  exceptUserId: string,
-): Promise<string[]> {
-  if (roles.length === 0) return [];
-  const rows = await db
-    .selectDistinct({ email: user.email })
-    .from(projectMembers)
-    .innerJoin(user, eq(user.id, projectMembers.userId))
-    .innerJoin(companyMembers, eq(companyMembers.userId, projectMembers.userId))
-    .where(
-      and(
-        eq(projectMembers.projectId, project.id),
-        ne(projectMembers.userId, exceptUserId),
-        or(
-          ...roles.map((role) =>
-            and(eq(projectMembers.role, role), eq(companyMembers.companyId, seatCompanyId(project, role))),
-          ),
-        ),
-      ),
-    );
-  return rows.map((r) => r.email).sort();
 }
 
 /** The seat the person holds on the project (one seat per person per job), or null. */

@@ -20,6 +20,7 @@ import { presentChangeOrder, type PresentContext } from './change-orders.present
 import { canProposeChangeOrder, decisionSides } from '../../../src/shared/policies/change-orders';
 import * as repo from './change-orders.repository';
 import { contractQuantities, loadContract, quantitiesOf } from './contract-quantities.repository';
+import { seatAddresses } from '../members/members.repository';
 
 export async function presentContext(
   db: Executor,
@@ -147,7 +148,7 @@ export async function proposeChangeOrder(
       tx,
       changeOrderProposedMail(
         { appUrl, project, actorName: actor.name },
-        await repo.seatAddresses(tx, project, decidingSeats(project), actor.userId),
+        await seatAddresses(tx, project, decidingSeats(project), actor.userId),
         view,
       ),
     );

@@ -47,6 +47,7 @@ export const disputedLinesOf = (db: Executor, payAppId: string) =>
       unitPriceCents: payAppLines.unitPriceCents,
       certifiedQuantity: payAppLines.thisPeriodQuantity,
       claimedQuantity: disputes.claimedQuantity,
+      resolution: disputes.resolution,
     })
     .from(disputes)
     .innerJoin(payAppLines, eq(payAppLines.id, disputes.lineId))

@@ -15,7 +15,7 @@ import * as repo from './lien-waivers.repository';
 import { exceptionsFor } from './waiver-exceptions.service';
 import { waiverSignedMail } from './waiver-emails';
 import { enqueueEmail } from '../notifications/outbox';
-import { memberEmails } from '../payments/payments.repository';
+import { seatAddresses } from '../members/members.repository';
 
 const rethrowAs = (what: string) => (err: unknown) => {
   throw err instanceof AppError && err.status === 404 ? notFound(what) : err;
@@ -169,7 +169,7 @@ export async function issueWaiver(
         tx,
         waiverSignedMail(
           { appUrl: ctx.appUrl, project, payAppNumber: app.number },
-          await memberEmails(tx, app.projectId, ['general_contractor', 'owner']),
+          await seatAddresses(tx, project, ['general_contractor', 'owner']),
           row,
         ),
       );

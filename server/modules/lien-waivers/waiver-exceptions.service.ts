@@ -1,9 +1,5 @@
 import type { WaiverExceptionInput, WaiverExceptionView } from '../../../src/shared/schemas/payment';
-import {
-  changeOrderValues,
-  waiverExceptions,
-  type DisputedLineInput,
-} from '../../../src/shared/domain/waiver-exceptions';
+import { changeOrderValues, disputedClaims, waiverExceptions } from '../../../src/shared/domain/waiver-exceptions';
 import type { Executor } from '../../db/client';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import type { PayAppRow } from '../payments/payments.repository';
@@ -11,7 +7,7 @@ import * as repo from './lien-waivers.repository';
 
 /**
  * The exceptions of a waiver on `app` (src/shared/domain/waiver-exceptions.ts): the application's retainage to
- * date, each disputed line's uncertified claim (the claim when the line was first disputed), approved change
+ * date, each disputed line's uncertified claim (the subcontractor's last own figure, disputedClaims), approved change
  * orders decided after the application's period (so none of their work is in it), and the signer's own.
  */
 export async function exceptionsFor(
@@ -24,11 +20,6 @@ export async function exceptionsFor(
     repo.approvedChangeOrders(db, app.projectId),
     loadContract(db, app.projectId),
   ]);
-  const firstClaim = new Map<string, DisputedLineInput>();
-  for (const d of disputed) {
-    if (d.claimedQuantity === null || firstClaim.has(d.lineId)) continue;
-    firstClaim.set(d.lineId, { ...d, claimedQuantity: d.claimedQuantity });
-  }
   const values = changeOrderValues(contract.inputs.items, contract.inputs.changes);
   const periodEnd = `${app.periodEnd}T23:59:59.999Z`;
   const unpaid = approved
@@ -37,7 +28,7 @@ export async function exceptionsFor(
     .map((co) => ({ number: co.number, title: co.title, amountCents: values.get(co.number) ?? 0 }));
   return waiverExceptions({
     retainageHeldCents: app.retainageCents,
-    disputedLines: [...firstClaim.values()],
+    disputedLines: disputedClaims(disputed),
     unpaidChangeOrders: unpaid,
     signerAdded,
   });

@@ -1,6 +1,6 @@
 import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
-import { seatAddresses } from '../change-orders/change-orders.repository';
+import { seatAddresses } from '../members/members.repository';
 import type { ProjectParties } from '../../../src/shared/policies/projects';
 import { waiverOptions } from '../../../src/shared/policies/lien-waivers';
 import { listWaivers, paymentsOf } from './lien-waivers.repository';
@@ -25,7 +25,7 @@ export async function queueWaiverRequest(
   );
   if (!due || due.amountCents <= 0) return;
   // The subcontractor's seat while its holder still works for the subcontractor (as access counts it).
-  const to = await seatAddresses(tx, project, ['subcontractor'], '');
+  const to = await seatAddresses(tx, project, ['subcontractor']);
   await enqueueEmail(
     tx,
     waiverRequestedMail({ appUrl: ctx.appUrl, project, payAppNumber: app.number }, to, due.kind, due.amountCents),

@@ -1,4 +1,6 @@
-import { and, asc, count, eq, inArray, isNull, or, type SQL } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNull, ne, or, type SQL } from 'drizzle-orm';
+import type { ProjectRole } from '../../../src/shared/constants';
+import { seatCompanyId, type ProjectParties } from '../../../src/shared/policies/projects';
 import type { Executor } from '../../db/client';
 import { companies, companyMembers, invitations, projectMembers, projects, session, user } from '../../db/schema';
 
@@ -116,4 +118,35 @@ export async function deleteCompanyMember(db: Executor, userId: string) {
 /** Signs the person out everywhere: every session row goes, so the next request with any of them is 401. */
 export async function endSessions(db: Executor, userId: string): Promise<number> {
   return (await db.delete(session).where(eq(session.userId, userId)).returning({ id: session.id })).length;
+}
+
+/**
+ * E-mail addresses of the people holding one of `roles` on the project while they belong to the seat's company
+ * (as access counts them: someone who left the company gets no more mail through an old seat), except `exceptUserId`.
+ * Every project mail (pay applications, disputes, payments, waivers, change orders) finds its readers here.
+ */
+export async function seatAddresses(
+  db: Executor,
+  project: ProjectParties & { id: string },
+  roles: ProjectRole[],
+  exceptUserId = '',
+): Promise<string[]> {
+  if (roles.length === 0) return [];
+  const rows = await db
+    .selectDistinct({ email: user.email })
+    .from(projectMembers)
+    .innerJoin(user, eq(user.id, projectMembers.userId))
+    .innerJoin(companyMembers, eq(companyMembers.userId, projectMembers.userId))
+    .where(
+      and(
+        eq(projectMembers.projectId, project.id),
+        ne(projectMembers.userId, exceptUserId),
+        or(
+          ...roles.map((role) =>
+            and(eq(projectMembers.role, role), eq(companyMembers.companyId, seatCompanyId(project, role))),
+          ),
+        ),
+      ),
+    );
+  return rows.map((r) => r.email).sort();
 }

@@ -28,7 +28,10 @@ export async function enqueueEmail(tx: Executor, mail: QueuedMail): Promise<void
 }
 
 export const MAX_EMAIL_ATTEMPTS = 5;
-/** How long a claimed message stays with the server that claimed it before another may take it over. */
+/**
+ * How long a claimed message stays with the server that claimed it before another may take it over (OUTBOX_LEASE_SECONDS
+ * overrides it). Longer than a send can take: the mailer gives up on a silent SMTP server well within it.
+ */
 export const OUTBOX_LEASE_SECONDS = 120;
 const BATCH = 20;
 
@@ -43,7 +46,7 @@ export type Outbox = {
  * Claims up to BATCH due messages for this server: `FOR UPDATE SKIP LOCKED`, so two servers flushing at once take
  * different rows, and a lease, so a message being sent is not taken again until the lease runs out.
  */
-async function claimDue(db: Db) {
+async function claimDue(db: Db, leaseSeconds: number) {
   return db.transaction(async (tx) => {
     const now = new Date();
     const due = await tx
@@ -62,7 +65,7 @@ async function claimDue(db: Db) {
     if (due.length === 0) return [];
     const claimed = await tx
       .update(emailOutbox)
-      .set({ leasedUntil: new Date(now.getTime() + OUTBOX_LEASE_SECONDS * 1000) })
+      .set({ leasedUntil: new Date(now.getTime() + leaseSeconds * 1000) })
       .where(
         inArray(
           emailOutbox.id,
@@ -80,28 +83,36 @@ async function claimDue(db: Db) {
  * share one outbox: each message is claimed by one of them (claimDue). A server that dies after sending but before
  * marking the message sent leaves it to be sent again once its lease runs out: at least once, never lost.
  */
-export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
+export function createOutbox(
+  db: Db,
+  mailer: Mailer,
+  logger: Logger,
+  { leaseSeconds = OUTBOX_LEASE_SECONDS }: { leaseSeconds?: number } = {},
+): Outbox {
   let running: Promise<void> | null = null;
   let again = false;
   const timers = new Set<NodeJS.Timeout>();
 
   async function sendDue() {
-    const due = await claimDue(db);
+    const due = await claimDue(db, leaseSeconds);
     if (due.length === BATCH) again = true;
     for (const mail of due) {
       const attempts = mail.attempts + 1;
+      // The lease is this server's claim: once it ran out another server may have taken the message over, and what
+      // this one learns afterwards (sent, failed) no longer overwrites that server's outcome.
+      const stillMine = and(eq(emailOutbox.id, mail.id), eq(emailOutbox.leasedUntil, mail.leasedUntil!));
       try {
         await mailer.send({ to: mail.toAddresses, subject: mail.subject, text: mail.text, html: mail.html });
         await db
           .update(emailOutbox)
           .set({ status: 'sent', attempts, sentAt: new Date(), lastError: null, leasedUntil: null })
-          .where(eq(emailOutbox.id, mail.id));
+          .where(stillMine);
       } catch (err) {
         const message = err instanceof Error ? err.message : String(err);
         const failed = attempts >= MAX_EMAIL_ATTEMPTS;
         const delayMs = 2 ** attempts * 1000;
-        await db.transaction(async (tx) => {
-          await tx
+        const recorded = await db.transaction(async (tx) => {
+          const rows = await tx
             .update(emailOutbox)
             .set({
               status: failed ? 'failed' : 'pending',
@@ -110,7 +121,9 @@ export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
               nextAttemptAt: new Date(Date.now() + delayMs),
               leasedUntil: null,
             })
-            .where(eq(emailOutbox.id, mail.id));
+            .where(stillMine)
+            .returning({ id: emailOutbox.id });
+          if (rows.length === 0) return false;
           if (failed) {
             await recordAudit(tx, {
               projectId: mail.projectId,
@@ -121,9 +134,10 @@ export function createOutbox(db: Db, mailer: Mailer, logger: Logger): Outbox {
               after: { template: mail.template, to: mail.toAddresses, attempts, error: message },
             });
           }
+          return true;
         });
-        logger.warn({ template: mail.template, attempts, failed }, 'e-mail send failed');
-        if (!failed) {
+        logger.warn({ template: mail.template, attempts, failed, recorded }, 'e-mail send failed');
+        if (recorded && !failed) {
           const timer = setTimeout(() => {
             timers.delete(timer);
             void flush();

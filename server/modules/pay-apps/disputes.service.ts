@@ -12,6 +12,7 @@ import { disputeStepMail } from './pay-app-emails';
 import { mayTake } from '../../../src/shared/policies/pay-apps';
 import { payAppDetail } from './pay-apps.service';
 import * as repo from './pay-apps.repository';
+import { seatAddresses } from '../members/members.repository';
 
 /** 400 COUNTER_ABOVE_CLAIM: the reviewer accepts at most what was claimed; more is a comment and a revised claim. */
 export function counterAboveClaim(path: string, itemNumber: string, counter: number, claimed: number) {
@@ -85,7 +86,7 @@ export async function editDispute(ctx: AppContext, actor: Actor, disputeId: stri
     });
     await enqueueEmail(
       tx,
-      disputeStepMail(mailFacts(ctx, project, app, actor), await repo.addressesOf(tx, project.id, 'subcontractor'), {
+      disputeStepMail(mailFacts(ctx, project, app, actor), await seatAddresses(tx, project, ['subcontractor']), {
         itemNumber: line.itemNumber,
         what: 'changed',
         body,
@@ -126,7 +127,7 @@ export async function withdrawDispute(ctx: AppContext, actor: Actor, disputeId: 
     });
     await enqueueEmail(
       tx,
-      disputeStepMail(mailFacts(ctx, project, app, actor), await repo.addressesOf(tx, project.id, 'subcontractor'), {
+      disputeStepMail(mailFacts(ctx, project, app, actor), await seatAddresses(tx, project, ['subcontractor']), {
         itemNumber: line.itemNumber,
         what: 'withdrawn',
         body,

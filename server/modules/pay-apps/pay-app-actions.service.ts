@@ -19,6 +19,7 @@ import { formatQuantity } from '../../../src/shared/format';
 import { checkAction, moveStatus } from './pay-app-transition';
 import { payAppDetail } from './pay-apps.service';
 import * as repo from './pay-apps.repository';
+import { seatAddresses } from '../members/members.repository';
 
 const facts = (ctx: AppContext, project: ProjectRow, app: repo.PayAppRow, actor: Actor): MailFacts => ({
   appUrl: ctx.appUrl,
@@ -82,7 +83,7 @@ export async function submitPayApp(ctx: AppContext, actor: Actor, payAppId: stri
     await audit(tx, actor, app, 'pay_app.submitted', state(app), state(row));
     await enqueueEmail(
       tx,
-      submittedMail(facts(ctx, project, row, actor), await repo.addressesOf(tx, project.id, 'general_contractor')),
+      submittedMail(facts(ctx, project, row, actor), await seatAddresses(tx, project, ['general_contractor'])),
     );
   });
 }
@@ -145,7 +146,7 @@ export async function certifyPayApp(
       tx,
       certifiedMail(
         facts(ctx, project, row, actor),
-        await repo.addressesOf(tx, project.id, 'subcontractor'),
+        await seatAddresses(tx, project, ['subcontractor']),
         project.paymentTermsDays,
       ),
     );
@@ -153,7 +154,7 @@ export async function certifyPayApp(
       tx,
       certifiedMail(
         facts(ctx, project, row, actor),
-        await repo.addressesOf(tx, project.id, 'owner'),
+        await seatAddresses(tx, project, ['owner']),
         project.paymentTermsDays,
       ),
     );
@@ -229,7 +230,7 @@ export async function reviewPayApp(ctx: AppContext, actor: Actor, payAppId: stri
       }));
       await enqueueEmail(
         tx,
-        returnedMail(facts(ctx, project, row, actor), await repo.addressesOf(tx, project.id, 'subcontractor'), listed),
+        returnedMail(facts(ctx, project, row, actor), await seatAddresses(tx, project, ['subcontractor']), listed),
       );
     }
     await audit(tx, actor, app, 'pay_app.reviewed', state(app), { ...state(row), lines: input.lines });
@@ -301,11 +302,7 @@ export async function revisePayApp(ctx: AppContext, actor: Actor, payAppId: stri
     if (told.length > 0)
       await enqueueEmail(
         tx,
-        answeredMail(
-          facts(ctx, project, row, actor),
-          await repo.addressesOf(tx, project.id, 'general_contractor'),
-          told,
-        ),
+        answeredMail(facts(ctx, project, row, actor), await seatAddresses(tx, project, ['general_contractor']), told),
       );
     await audit(
       tx,

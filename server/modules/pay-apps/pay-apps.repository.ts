@@ -14,7 +14,6 @@ import {
   projectMembers,
   projects,
   tallies,
-  user,
 } from '../../db/schema';
 
 export type PayAppRow = typeof payApps.$inferSelect;
@@ -124,16 +123,6 @@ export async function submitterIds(db: Executor, payAppId: string): Promise<stri
     .from(payAppStatusHistory)
     .where(and(eq(payAppStatusHistory.payAppId, payAppId), eq(payAppStatusHistory.toStatus, 'submitted')));
   return rows.flatMap((r) => (r.id ? [r.id] : []));
-}
-
-/** E-mail addresses of the people holding `role` on the project. */
-export async function addressesOf(db: Executor, projectId: string, role: ProjectRole): Promise<string[]> {
-  const rows = await db
-    .select({ email: user.email })
-    .from(projectMembers)
-    .innerJoin(user, eq(user.id, projectMembers.userId))
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, role)));
-  return [...new Set(rows.map((r) => r.email))].sort();
 }
 
 const nameOnly = { columns: { name: true } } as const;

@@ -2,8 +2,9 @@ import { formatMoney as formatCentsPlain } from '../../../src/shared/format';
 import type { Executor } from '../../db/client';
 import { enqueueEmail } from '../notifications/outbox';
 import type { PayAppRow, PaymentRow } from './payments.repository';
-import { memberEmails } from './payments.repository';
+import { seatAddresses } from '../members/members.repository';
 import { chargedCents } from '../../../src/shared/policies/payments';
+import type { ProjectParties } from '../../../src/shared/policies/projects';
 
 const METHOD = { card: 'card', us_bank_account: 'ACH bank debit' } as const;
 const FOOTER =
@@ -16,11 +17,11 @@ const html = (lines: string[]) =>
 export async function queueReceipt(
   tx: Executor,
   ctx: { appUrl: string },
-  project: { id: string; name: string },
+  project: ProjectParties & { id: string; name: string },
   app: PayAppRow,
   payment: PaymentRow,
 ) {
-  const to = await memberEmails(tx, project.id, ['owner', 'general_contractor', 'subcontractor']);
+  const to = await seatAddresses(tx, project, ['owner', 'general_contractor', 'subcontractor']);
   const lines = [
     `Payment received for pay application ${app.number} on ${project.name}.`,
     `Amount: ${formatCentsPlain(payment.amountCents)} by ${payment.method ? METHOD[payment.method] : 'online payment'}.`,
@@ -57,11 +58,11 @@ function feeLine(payment: PaymentRow): string {
 export async function queueFailureNotice(
   tx: Executor,
   ctx: { appUrl: string },
-  project: { id: string; name: string },
+  project: ProjectParties & { id: string; name: string },
   app: PayAppRow,
   payment: PaymentRow,
 ) {
-  const to = await memberEmails(tx, project.id, ['owner', 'subcontractor']);
+  const to = await seatAddresses(tx, project, ['owner', 'subcontractor']);
   const lines = [
     `A payment of ${formatCentsPlain(payment.amountCents)} for pay application ${app.number} on ${project.name} did not go through.`,
     `Reason: ${payment.failureMessage ?? 'not given by the processor'}.`,

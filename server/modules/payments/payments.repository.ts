@@ -1,16 +1,8 @@
 import { and, asc, desc, eq, gte, inArray, sql } from 'drizzle-orm';
-import type { PaymentStatus, ProjectRole } from '../../../src/shared/constants';
+import type { PaymentStatus } from '../../../src/shared/constants';
 import { sumCents } from '../../../src/shared/domain/money';
 import type { Executor } from '../../db/client';
-import {
-  payApps,
-  payAppStatusHistory,
-  paymentStatusHistory,
-  payments,
-  projectMembers,
-  stripeEvents,
-  user,
-} from '../../db/schema';
+import { payApps, payAppStatusHistory, paymentStatusHistory, payments, stripeEvents } from '../../db/schema';
 
 export type PayAppRow = typeof payApps.$inferSelect;
 export type PaymentRow = typeof payments.$inferSelect;
@@ -140,15 +132,6 @@ export async function movePayApp(
       actorUserId: null,
     });
   }
-}
-
-export async function memberEmails(db: Executor, projectId: string, roles: ProjectRole[]): Promise<string[]> {
-  const rows = await db
-    .selectDistinct({ email: user.email })
-    .from(projectMembers)
-    .innerJoin(user, eq(user.id, projectMembers.userId))
-    .where(and(eq(projectMembers.projectId, projectId), inArray(projectMembers.role, roles)));
-  return rows.map((r) => r.email).sort();
 }
 
 export const openPayments = (db: Executor, payAppId: string) =>

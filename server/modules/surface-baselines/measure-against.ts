@@ -17,7 +17,14 @@ export async function surfaceAgainstBaseline(
   projectId: string,
   inputs: Record<string, unknown> | null | undefined,
 ): Promise<{ engineInputs: Record<string, unknown>; kept: Record<string, unknown>; trail: string } | null> {
-  const { baselineId, baselineSha256: _sent, ...rest } = (inputs ?? {}) as Record<string, unknown>;
+  // The existing survey's faces and breaklines are the baseline's too: what the client sent for them is dropped.
+  const {
+    baselineId,
+    baselineSha256: _sent,
+    existingFaces: _faces,
+    existingBreaklines: _breaklines,
+    ...rest
+  } = (inputs ?? {}) as Record<string, unknown>;
   if (baselineId === undefined || baselineId === null) {
     if (await repo.hasLocked(db, projectId))
       throw required('This project has a locked original ground surface: choose it as the existing survey.');

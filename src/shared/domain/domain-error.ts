@@ -29,6 +29,8 @@ export const DOMAIN_ERROR_CODES = [
   'METHOD_NOT_BILLABLE',
   'SLOPED_PIT_ON_SLOPING_GROUND',
   'DUPLICATE_POINT',
+  'INVALID_FACE',
+  'BREAKLINE_CONFLICT',
 ] as const;
 export type DomainErrorCode = (typeof DOMAIN_ERROR_CODES)[number];
 

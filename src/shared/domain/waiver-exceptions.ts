@@ -1,4 +1,4 @@
-import type { PayUnit, WaiverExceptionKind } from '../constants';
+import type { DisputeResolution, PayUnit, WaiverExceptionKind } from '../constants';
 import { formatMoney, formatQuantity } from '../format';
 import { currentContract, type ContractChangeInput, type ContractItemInput } from './contract';
 import { addExact } from './decimal';
@@ -17,6 +17,30 @@ export type DisputedLineInput = {
   /** The this-period quantity as certified. */
   certifiedQuantity: number;
 };
+
+/** A dispute raised on a line, as kept: the claim when it was opened and how the subcontractor answered it. */
+export type LineDisputeInput = Omit<DisputedLineInput, 'claimedQuantity'> & {
+  lineId: string;
+  claimedQuantity: number | null;
+  resolution: DisputeResolution | null;
+};
+
+/**
+ * The claim a waiver reserves for each disputed line: the subcontractor's last own figure (common practice: a
+ * waiver keeps open what the claimant still claims, and nothing it gave up itself). Disputes come oldest first;
+ * the latest one on a line speaks. Where the subcontractor answered it by proposing a quantity of its own, that
+ * figure is its claim now, and once certified nothing of the line is in dispute. Where it took the counter
+ * quantity to be paid now, the claim it had when the dispute opened is kept open. A dispute opened before claims
+ * were kept (no claimed quantity) reserves nothing.
+ */
+export function disputedClaims(disputes: readonly LineDisputeInput[]): DisputedLineInput[] {
+  const latest = new Map<string, LineDisputeInput>();
+  for (const d of disputes) latest.set(d.lineId, d);
+  return [...latest.values()].flatMap(({ lineId: _lineId, resolution, claimedQuantity, ...line }) => {
+    if (claimedQuantity === null || resolution === 'quantity_proposed') return [];
+    return [{ ...line, claimedQuantity }];
+  });
+}
 
 export type WaiverExceptionsInput = {
   /** The application's retainage to date (held, not yet released), cents. */

@@ -23,6 +23,16 @@ export function surfacePointsIn(
   return { x: scaled(surface.x, k.plan), y: scaled(surface.y, k.plan), z: scaled(surface.z, k.elevation) };
 }
 
+/** Breaklines in the worksheet's unit: plan by the linear unit, heights by the elevation unit. */
+export function breaklinesIn(
+  lines: readonly (readonly [number, number, number][])[],
+  units: LandXmlUnits,
+  to: 'ft' | 'm',
+): [number, number, number][][] {
+  const k = unitFactors(units, to);
+  return lines.map((l) => l.map(([x, y, z]) => [x * k.plan, y * k.plan, z * k.elevation] as [number, number, number]));
+}
+
 /** Boundaries in the worksheet's unit. */
 export function boundariesIn(
   boundaries: readonly LandXmlBoundary[],

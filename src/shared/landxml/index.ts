@@ -1,4 +1,4 @@
-export { boundariesIn, sectionsIn, surfacePointsIn, unitFactors } from './convert';
+export { boundariesIn, breaklinesIn, sectionsIn, surfacePointsIn, unitFactors } from './convert';
 export { POINT_ORDERS, orderFromHeader, readPointCsv, type PointFile, type PointOrder } from './point-csv';
 export {
   LandXmlReader,

@@ -28,6 +28,8 @@ export interface LandXmlSurface {
   faces: Uint32Array;
   invisibleFaces: number;
   boundaries: LandXmlBoundary[];
+  /** SourceData/Breaklines: polylines of [x = easting, y = northing, z] (PntList3D), the file's units. */
+  breaklines: [number, number, number][][];
 }
 
 export interface LandXmlAlignment {
@@ -86,6 +88,7 @@ interface SurfaceBuild {
   faces: IndexColumn;
   invisibleFaces: number;
   boundaries: LandXmlBoundary[];
+  breaklines: [number, number, number][][];
   /** Point ids 1, 2, 3... in order need no map; the map is built at the first id that breaks the run. */
   ids: Map<string, number> | null;
 }
@@ -93,7 +96,7 @@ interface SurfaceBuild {
 /**
  * A streaming reader of LandXML 1.2 (saxes, a SAX parser: no document tree, so a million points cost their
  * numbers only). Feed text in pieces with write() and finish with close(). Reads Units, Surfaces (points, faces,
- * boundaries), Alignments (staStart, length, StaEquation) and CrossSects; everything else is skipped.
+ * boundaries, breaklines), Alignments (staStart, length, StaEquation) and CrossSects; everything else is skipped.
  */
 export class LandXmlReader {
   private readonly parser = new SaxesParser<{ xmlns: false; position: true }>({ xmlns: false, position: true });
@@ -114,6 +117,7 @@ export class LandXmlReader {
   private section: LandXmlCrossSection | null = null;
   private sectionLine: LandXmlSectionLine | null = null;
   private boundary: LandXmlBoundary | null = null;
+  private breakline: string | null = null;
   private text: string | null = null;
   private textLine = 0;
   private pointId = '';
@@ -231,9 +235,17 @@ export class LandXmlReader {
         if (this.surface && parent === 'Boundaries')
           this.boundary = { name: a.name ?? '', kind: a.bndType ?? 'outer', ring: [] };
         return;
+      case 'Breakline':
+        if (this.surface && parent === 'Breaklines')
+          this.breakline = a.name ?? `Breakline ${this.surface.breaklines.length + 1}`;
+        return;
       case 'PntList2D':
       case 'PntList3D':
-        if ((this.boundary && parent === 'Boundary') || (this.sectionLine && parent === 'CrossSectSurf'))
+        if (
+          (this.boundary && parent === 'Boundary') ||
+          (this.sectionLine && parent === 'CrossSectSurf') ||
+          (this.breakline !== null && parent === 'Breakline')
+        )
           this.collect();
         return;
       case 'Alignment':
@@ -269,6 +281,9 @@ export class LandXmlReader {
       case 'Boundary':
         if (this.surface && this.boundary) this.surface.boundaries.push(this.boundary);
         this.boundary = null;
+        break;
+      case 'Breakline':
+        this.breakline = null;
         break;
       case 'Surface':
         if (this.surface) this.finishSurface(this.surface);
@@ -318,6 +333,7 @@ export class LandXmlReader {
       faces: new IndexColumn(),
       invisibleFaces: 0,
       boundaries: [],
+      breaklines: [],
       ids: null,
     };
   }
@@ -404,6 +420,20 @@ export class LandXmlReader {
 
   private addList(width: 2 | 3, text: string): void {
     const v = numbersOf(text);
+    if (this.breakline !== null && this.surface && this.parent() === 'Breakline') {
+      if (width !== 3 || v.length % 3 !== 0 || v.length < 6 || !v.every(Number.isFinite)) {
+        this.issue(
+          this.textLine,
+          `${this.surface.name}, <Breakline name="${this.breakline}">`,
+          'A breakline is a PntList3D of at least two "northing easting elevation" points',
+        );
+        return;
+      }
+      const line: [number, number, number][] = [];
+      for (let i = 0; i < v.length; i += 3) line.push([v[i + 1]!, v[i]!, v[i + 2]!]);
+      this.surface.breaklines.push(line);
+      return;
+    }
     if (this.boundary && this.parent() === 'Boundary') {
       if (v.length % width !== 0 || !v.every(Number.isFinite)) {
         this.issue(
@@ -438,6 +468,7 @@ export class LandXmlReader {
       faces: s.faces.done(),
       invisibleFaces: s.invisibleFaces,
       boundaries: s.boundaries,
+      breaklines: s.breaklines,
     });
   }
 

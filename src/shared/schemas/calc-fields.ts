@@ -24,7 +24,11 @@ export function polyline(max: number) {
     .superRefine((points, ctx) => {
       for (let i = 1; i < points.length; i++) {
         if (!(points[i]![0] > points[i - 1]![0])) {
-          ctx.addIssue({ code: 'custom', message: `Offsets must increase: point ${i} is not right of point ${i - 1}`, path: [i, 0] });
+          ctx.addIssue({
+            code: 'custom',
+            message: `Offsets must increase: point ${i} is not right of point ${i - 1}`,
+            path: [i, 0],
+          });
           return;
         }
       }
@@ -56,6 +60,24 @@ export function pointRows(width: 2 | 3, min: number, max: number) {
       }
     })
     .transform((rows) => rows as Point3[]);
+}
+
+/** Faces as point-row triples [i, j, k] (0-based indices of the survey's rows), each checked in one pass. */
+export function faceRows(max: number) {
+  return z
+    .array(z.unknown())
+    .max(max, `At most ${max} faces`)
+    .superRefine((rows, ctx) => {
+      let issues = 0;
+      for (let i = 0; i < rows.length && issues < 20; i++) {
+        const r = rows[i];
+        if (!Array.isArray(r) || r.length !== 3 || !r.every((v) => Number.isInteger(v) && (v as number) >= 0)) {
+          ctx.addIssue({ code: 'custom', message: 'Expected [i, j, k]: three point rows (0-based)', path: [i] });
+          issues++;
+        }
+      }
+    })
+    .transform((rows) => rows as [number, number, number][]);
 }
 
 export interface StationRow {
@@ -90,7 +112,11 @@ export function stationList(max: number) {
           const v = row[key];
           const ok = typeof v === 'number' && Number.isFinite(v) && Math.abs(v) <= M && (key === 'station' || v >= 0);
           if (!ok) {
-            ctx.addIssue({ code: 'custom', message: key === 'station' ? 'Expected a finite station' : 'Expected an area of 0 or more', path: [i, key] });
+            ctx.addIssue({
+              code: 'custom',
+              message: key === 'station' ? 'Expected a finite station' : 'Expected an area of 0 or more',
+              path: [i, key],
+            });
             issues++;
           }
         }
@@ -102,7 +128,11 @@ export function stationList(max: number) {
         const s = row.station;
         if (typeof s === 'number') {
           if (!(s > previous) && issues === 0) {
-            ctx.addIssue({ code: 'custom', message: `Station ${i} must be beyond station ${i - 1}`, path: [i, 'station'] });
+            ctx.addIssue({
+              code: 'custom',
+              message: `Station ${i} must be beyond station ${i - 1}`,
+              path: [i, 'station'],
+            });
             issues++;
           }
           previous = s;
@@ -137,7 +167,11 @@ export function nodeRows(maxNodes: number) {
       for (let r = 0; r < rows.length && issues < 20; r++) {
         const row = rows[r];
         if (!Array.isArray(row) || row.length !== cols) {
-          ctx.addIssue({ code: 'custom', message: `Row ${r} has ${Array.isArray(row) ? row.length : 'no'} nodes; row 0 has ${cols}`, path: [r] });
+          ctx.addIssue({
+            code: 'custom',
+            message: `Row ${r} has ${Array.isArray(row) ? row.length : 'no'} nodes; row 0 has ${cols}`,
+            path: [r],
+          });
           issues++;
           continue;
         }

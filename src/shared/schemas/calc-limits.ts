@@ -15,6 +15,11 @@ export const CALC_LIMITS = {
   loadLines: 10_000,
   /** Points per surface survey. */
   surfacePoints: 1_000_000,
+  /** Faces given per surface (a TIN has at most twice as many triangles as points). */
+  surfaceFaces: 2_000_000,
+  /** Breaklines per survey, and vertices in all of one survey's breaklines. */
+  breaklines: 10_000,
+  breaklineVertices: 100_000,
   payAppLines: 5_000,
   /** Corners of one pay-limit polygon (outer boundary or void) of a surface comparison, and voids in all. */
   payLimitCorners: 10_000,

@@ -18,6 +18,7 @@ import {
   nodeRows,
   nonNegative,
   percent,
+  faceRows,
   pointRows,
   polyline,
   positive,
@@ -139,10 +140,23 @@ const payRing = z
   .min(3, 'At least 3 corners')
   .max(CALC_LIMITS.payLimitCorners, `At most ${CALC_LIMITS.payLimitCorners} corners`);
 
+const breaklineList = z
+  .array(pointRows(3, 2, CALC_LIMITS.breaklineVertices))
+  .max(CALC_LIMITS.breaklines, `At most ${CALC_LIMITS.breaklines} breaklines`)
+  .refine((lines) => lines.reduce((n, l) => n + l.length, 0) <= CALC_LIMITS.breaklineVertices, {
+    message: `At most ${CALC_LIMITS.breaklineVertices} breakline vertices in all`,
+  });
+
 export const surfaceSchema = z.strictObject({
   unit,
   existing: pointRows(3, 3, CALC_LIMITS.surfacePoints),
   design: pointRows(3, 3, CALC_LIMITS.surfacePoints),
+  /** A surface's faces as given (LandXML Faces): the TIN is these triangles of its rows, not a triangulation. */
+  existingFaces: faceRows(CALC_LIMITS.surfaceFaces).optional(),
+  designFaces: faceRows(CALC_LIMITS.surfaceFaces).optional(),
+  /** Breaklines of a point survey: [x, y, z] polylines kept as edges of its triangulation. */
+  existingBreaklines: breaklineList.optional(),
+  designBreaklines: breaklineList.optional(),
   /** Plan polygons [x, y]: only the area inside `outer` and outside every void is measured. */
   payLimits: z
     .strictObject({ outer: payRing.optional(), voids: z.array(payRing).max(CALC_LIMITS.payLimitVoids).optional() })

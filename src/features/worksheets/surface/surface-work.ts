@@ -2,7 +2,9 @@ import type { LengthUnit } from '@/shared/constants';
 import { runCalc } from '@/shared/domain/calc';
 import { isDomainError, type DomainIssue } from '@/shared/domain/domain-error';
 import {
+  facesFromRows,
   pointsFromRows,
+  type SurfacePoints,
   surfaceVolumeFromPoints,
   type PayLimits,
   type SurfaceResult,
@@ -21,6 +23,8 @@ export type SurfaceWork = {
   fileNotes: Record<SurfaceSide, string | null>;
   /** Point files whose column order must be asked. */
   needsOrder: Record<SurfaceSide, boolean>;
+  /** What each text was read as: a point file can take a breakline list. */
+  kinds: Record<SurfaceSide, 'landxml' | 'points' | 'xyz'>;
   /** Pay limits measured within: from a LandXML file's boundaries (design first), else those kept. */
   payLimits: PayLimits | null;
   /** Depth on a plan grid for the cut and fill map (with a result only). */
@@ -33,6 +37,10 @@ export type SurfaceWork = {
     existing: [number, number, number][];
     design: [number, number, number][];
     payLimits?: PayLimits;
+    existingFaces?: [number, number, number][];
+    designFaces?: [number, number, number][];
+    existingBreaklines?: [number, number, number][][];
+    designBreaklines?: [number, number, number][][];
   } | null;
 };
 
@@ -40,6 +48,12 @@ export type SurfaceOptions = {
   orders?: Partial<Record<SurfaceSide, PointOrder>>;
   /** Pay limits of a saved tally, kept while neither file brings its own. */
   keptPayLimits?: PayLimits | null;
+  /** A point file's breaklines: one a line, the point names joined. */
+  breaklineTexts?: Partial<Record<SurfaceSide, string>>;
+  /** Faces and breaklines of a saved tally, kept for a side whose text is still the saved rows. */
+  kept?: Partial<
+    Record<SurfaceSide, { faces?: [number, number, number][]; breaklines?: [number, number, number][][] }>
+  >;
 };
 
 /** Above this many points in all, the work runs in a Web Worker so typing stays smooth. */
@@ -67,14 +81,24 @@ export function workSurfaces(
   designText: string,
   options: SurfaceOptions = {},
 ): SurfaceWork {
-  const existing = readSurvey(existingText, unit, options.orders?.existing);
-  const design = readSurvey(designText, unit, options.orders?.design);
+  const existing = readSurvey(existingText, unit, options.orders?.existing, options.breaklineTexts?.existing);
+  const design = readSurvey(designText, unit, options.orders?.design, options.breaklineTexts?.design);
+  const kinds = { existing: existing.kind, design: design.kind };
+  for (const [side, read] of [
+    ['existing', existing],
+    ['design', design],
+  ] as const) {
+    const kept = options.kept?.[side];
+    if (read.kind !== 'xyz' || !kept) continue;
+    if (kept.faces?.length) read.faces = kept.faces;
+    if (kept.breaklines?.length) read.breaklines = kept.breaklines;
+  }
   const fileIssues = { existing: existing.issues, design: design.issues };
   const fileNotes = { existing: existing.note, design: design.note };
   const needsOrder = { existing: existing.needsOrder, design: design.needsOrder };
   const preview = { existing: sample(existing.rows), design: sample(design.rows) };
   const payLimits = design.payLimits ?? existing.payLimits ?? options.keptPayLimits ?? null;
-  const base = { fileIssues, fileNotes, needsOrder, preview, payLimits, depth: null };
+  const base = { fileIssues, fileNotes, needsOrder, kinds, preview, payLimits, depth: null };
   if (existing.issues.length || design.issues.length || existing.needsOrder || design.needsOrder)
     return { ...base, result: null, issues: [], inputs: null };
   const inputs = {
@@ -82,19 +106,23 @@ export function workSurfaces(
     existing: existing.rows,
     design: design.rows,
     ...(payLimits ? { payLimits } : {}),
+    ...(existing.faces ? { existingFaces: existing.faces } : {}),
+    ...(design.faces ? { designFaces: design.faces } : {}),
+    ...(existing.breaklines ? { existingBreaklines: existing.breaklines } : {}),
+    ...(design.breaklines ? { designBreaklines: design.breaklines } : {}),
   };
+  const points = (r: typeof existing): SurfacePoints => ({
+    ...pointsFromRows(r.rows),
+    ...(r.faces ? { faces: facesFromRows(r.faces) } : {}),
+    ...(r.breaklines ? { breaklines: r.breaklines } : {}),
+  });
   try {
     const big = existing.rows.length + design.rows.length > WORKER_THRESHOLD;
     // Small surveys go through the calc schema for its field messages; big ones were checked row by row above.
     const result = big
-      ? surfaceVolumeFromPoints(
-          unit,
-          pointsFromRows(existing.rows),
-          pointsFromRows(design.rows),
-          payLimits ?? undefined,
-        )
+      ? surfaceVolumeFromPoints(unit, points(existing), points(design), payLimits ?? undefined)
       : runCalc('surface', inputs);
-    const depth = depthGrid(pointsFromRows(existing.rows), pointsFromRows(design.rows));
+    const depth = depthGrid(points(existing), points(design));
     return { ...base, result, issues: [], inputs, depth };
   } catch (error) {
     const issues = isDomainError(error) ? error.issues : [{ path: '', message: String(error) }];

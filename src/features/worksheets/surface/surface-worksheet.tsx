@@ -15,7 +15,7 @@ import { rowsText, sampleSurfaces, type SurfaceSide, type SurfaceWork } from './
 import { useSurfaceWork } from './use-surface-work';
 
 const HINT =
-  'CSV rows of x (east), y (north), z; a point file (point, northing, easting, elevation, description: PNEZD or PENZD); or a LandXML 1.2 file (its first <Surface>, units read from <Units>).';
+  'CSV rows of x (east), y (north), z; a point file (point, northing, easting, elevation, description: PNEZD or PENZD), with its breaklines listed below it; or a LandXML 1.2 file (its first <Surface>: its faces as given, else its points triangulated with its breaklines; units read from <Units>).';
 
 /** What the file was read as, and the column order of a point file when its data do not tell it. */
 function FileReading({
@@ -23,16 +23,32 @@ function FileReading({
   work,
   order,
   onOrder,
+  breaklines,
+  onBreaklines,
 }: {
   side: SurfaceSide;
   work: SurfaceWork | null;
   order: PointOrder | undefined;
   onOrder: (order: PointOrder) => void;
+  breaklines: string;
+  onBreaklines: (text: string) => void;
 }) {
   const note = work?.fileNotes[side] ?? null;
   const ask = work?.needsOrder[side] ?? false;
+  const points = work?.kinds[side] === 'points' || breaklines !== '';
   return (
     <>
+      {points ? (
+        <label className="flex flex-col gap-1 text-xs text-stone-700">
+          Breaklines of this point file (optional): one a line, the point names it joins in order, e.g. 12 13 14
+          <textarea
+            className="h-16 rounded-md border border-stone-300 bg-white px-2 py-1 font-mono text-xs"
+            value={breaklines}
+            onChange={(e) => onBreaklines(e.target.value)}
+            spellCheck={false}
+          />
+        </label>
+      ) : null}
       {ask || order ? (
         <label className="flex items-center gap-2 text-xs text-stone-700">
           Column order of this point file
@@ -65,12 +81,29 @@ function FileReading({
 }
 
 export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
-  const [texts, setTexts] = useState(() =>
-    initial ? { existing: rowsText(initial.existing), design: rowsText(initial.design) } : sampleSurfaces(unit),
+  const [saved] = useState(() =>
+    initial ? { existing: rowsText(initial.existing), design: rowsText(initial.design) } : null,
   );
+  const [texts, setTexts] = useState(() => saved ?? sampleSurfaces(unit));
   const [orders, setOrders] = useState<Partial<Record<SurfaceSide, PointOrder>>>({});
+  const [breaklineTexts, setBreaklineTexts] = useState<Record<SurfaceSide, string>>({ existing: '', design: '' });
   const kept = (initial?.payLimits as PayLimits | undefined) ?? null;
-  const options = useMemo(() => ({ orders, keptPayLimits: kept }), [orders, kept]);
+  const options = useMemo(() => {
+    // A saved tally's faces and breaklines stay with its rows while those rows are not replaced.
+    const keep = (side: SurfaceSide) =>
+      saved && texts[side] === saved[side]
+        ? {
+            faces: initial?.[`${side}Faces`] as [number, number, number][] | undefined,
+            breaklines: initial?.[`${side}Breaklines`] as [number, number, number][][] | undefined,
+          }
+        : undefined;
+    return {
+      orders,
+      keptPayLimits: kept,
+      breaklineTexts,
+      kept: { existing: keep('existing'), design: keep('design') },
+    };
+  }, [orders, kept, breaklineTexts, saved, texts, initial]);
   const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design, options);
   const baselines = useWorksheetBaselines();
   const [baselineId, setBaselineId] = useState<string | null>(() =>
@@ -115,6 +148,8 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             work={work}
             order={orders.existing}
             onOrder={(o) => setOrders((s) => ({ ...s, existing: o }))}
+            breaklines={breaklineTexts.existing}
+            onBreaklines={(t) => setBreaklineTexts((s) => ({ ...s, existing: t }))}
           />
           <FileIssues issues={work?.fileIssues.existing ?? []} fileLabel="Existing survey" />
           <FileSource
@@ -129,6 +164,8 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             work={work}
             order={orders.design}
             onOrder={(o) => setOrders((s) => ({ ...s, design: o }))}
+            breaklines={breaklineTexts.design}
+            onBreaklines={(t) => setBreaklineTexts((s) => ({ ...s, design: t }))}
           />
           <FileIssues issues={work?.fileIssues.design ?? []} fileLabel="Design survey" />
           {busy ? (

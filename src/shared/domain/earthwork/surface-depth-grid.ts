@@ -1,10 +1,8 @@
-import Delaunator from 'delaunator';
-import { TinLocator } from './surface-locate';
-import type { SurfacePoints } from './surface';
+import { buildTin, type SurfacePoints } from './surface-tin';
 
 /**
  * Depth of cut (+) and fill (-) between two surveys on a regular plan grid, for a picture (the cut and fill map):
- * each cell's centre is located in both triangulations (Delaunay, delaunator) and each surface interpolated
+ * each cell's centre is located in both TINs (as the volume builds them: faces, breaklines or Delaunay) and each surface interpolated
  * linearly on its triangle; NaN where either survey does not cover the centre. Units are the surveys' own (ft or
  * m). Volumes never come from this grid (the overlay in surface-overlay.ts is exact); it only draws them.
  */
@@ -22,15 +20,13 @@ export interface DepthGrid {
   maxFill: number;
 }
 
-function tin(p: SurfacePoints, ox: number, oy: number) {
-  const n = p.x.length;
-  const coords = new Float64Array(2 * n);
-  for (let i = 0; i < n; i++) {
-    coords[2 * i] = p.x[i]! - ox;
-    coords[2 * i + 1] = p.y[i]! - oy;
+/** The survey's TIN as the volume builds it (its faces, breaklines, or Delaunay), or null when it has none. */
+function tin(p: SurfacePoints, ox: number, oy: number, name: 'existing' | 'design') {
+  try {
+    return buildTin(p, ox, oy, name);
+  } catch {
+    return null;
   }
-  const mesh = new Delaunator(coords);
-  return mesh.triangles.length === 0 ? null : new TinLocator(mesh, coords);
 }
 
 /** The grid over the box both surveys share, `across` cells along its longer side (at most 400). */
@@ -55,8 +51,8 @@ export function depthGrid(existing: SurfacePoints, design: SurfacePoints, across
     x1 = Math.min(a[2], b[2]),
     y1 = Math.min(a[3], b[3]);
   if (!(x1 > x0 && y1 > y0)) return null;
-  const e = tin(existing, x0, y0);
-  const d = tin(design, x0, y0);
+  const e = tin(existing, x0, y0, 'existing');
+  const d = tin(design, x0, y0, 'design');
   if (!e || !d) return null;
   const n = Math.max(2, Math.min(400, Math.floor(across)));
   const cell = Math.max(x1 - x0, y1 - y0) / n;
@@ -69,11 +65,11 @@ export function depthGrid(existing: SurfacePoints, design: SurfacePoints, across
     for (let c = 0; c < columns; c++) {
       const x = (c + 0.5) * cell,
         y = (r + 0.5) * cell;
-      const te = e.locate(x, y, true);
+      const te = e.locator.locate(x, y, true);
       if (te < 0) continue;
-      const td = d.locate(x, y, true);
+      const td = d.locator.locate(x, y, true);
       if (td < 0) continue;
-      const v = e.interpolate(te, x, y, existing.z) - d.interpolate(td, x, y, design.z);
+      const v = e.locator.interpolate(te, x, y, e.z) - d.locator.interpolate(td, x, y, d.z);
       depth[r * columns + c] = v;
       if (v > maxCut) maxCut = v;
       if (-v > maxFill) maxFill = -v;

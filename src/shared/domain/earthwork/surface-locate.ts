@@ -1,4 +1,12 @@
-import type Delaunator from 'delaunator';
+import type { TriangleBuckets } from './surface-buckets';
+
+/** A triangulation as delaunator lays it out: corner ids by three, the opposite half-edge of each (-1 on the edge). */
+export interface MeshLike {
+  triangles: Uint32Array;
+  halfedges: Int32Array;
+  /** Convex hull point ids (delaunator); empty for a mesh from given faces. */
+  hull: Uint32Array;
+}
 
 /**
  * Point location in a Delaunay triangulation by a visibility walk (it always ends on a Delaunay mesh), started
@@ -19,7 +27,11 @@ export class TinLocator {
   private cell = 1;
   private last = 0;
 
-  constructor(mesh: Delaunator<Float64Array>, coords: Float64Array) {
+  /** Faces as given: located through the bucket grid, since a walk may leave a non-convex mesh too early. */
+  private readonly buckets: TriangleBuckets | null;
+
+  constructor(mesh: MeshLike, coords: Float64Array, buckets: TriangleBuckets | null = null) {
+    this.buckets = buckets;
     this.triangles = mesh.triangles;
     this.halfedges = mesh.halfedges;
     this.coords = coords;
@@ -78,6 +90,7 @@ export class TinLocator {
    * queries over the whole mesh); otherwise from the previous answer (a few queries that follow each other).
    */
   locate(x: number, y: number, seeded = true): number {
+    if (this.buckets) return this.buckets.locate(x, y);
     let t = this.last;
     if (seeded) {
       if (this.seeds.length === 0) this.seed();

@@ -1,15 +1,8 @@
-import type Delaunator from 'delaunator';
 import type { PayRegion } from './surface-pay';
 import { addRing, Ring, type Linear } from './surface-moments';
-import type { TinLocator } from './surface-locate';
+import type { Tin } from './surface-tin';
 
-/** One surface's mesh with its shifted coordinates and heights. */
-export interface Tin {
-  mesh: Delaunator<Float64Array>;
-  coords: Float64Array;
-  z: Float64Array;
-  locator: TinLocator;
-}
+export type { Tin } from './surface-tin';
 
 export interface OverlayTotals {
   /** Cubic and square coordinate units, inside the pay limits when given. */
@@ -91,7 +84,9 @@ function ringArea(r: Ring): number {
  * Each overlap is t clipped by the b triangle (Sutherland-Hodgman against three edges): a convex piece over
  * which both surfaces are planes, so the depth a - b is linear and its cut and fill split exactly along the
  * line where they cross (surface-moments.ts). A triangle of `a` whose centroid is outside `b` is first clipped
- * to `b`'s convex hull (the boundary of a Delaunay mesh), and walked from a point inside that part.
+ * to `b`'s convex hull (the boundary of a Delaunay mesh), and walked from a point inside that part. When `b` is
+ * a file's faces as given (its boundary need not be convex), the walks start from every triangle of `b` listed in
+ * the bucket cells under t's box (surface-buckets.ts) that no earlier walk for t reached.
  */
 export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const ta = a.mesh.triangles;
@@ -111,7 +106,9 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const acc = new Float64Array(3);
   const tmp = new Float64Array(2);
   const f: Linear = { d0: 0, dx: 0, dy: 0, x0: 0, y0: 0 };
-  const hull = hullRing(b);
+  const hull = b.convex ? hullRing(b) : null;
+  const buckets = b.convex ? null : b.buckets;
+  const seeds: number[] = [];
   const status = pay ? pay.classify(a) : null;
   let overlapArea = 0;
   let pieces = 0;
@@ -142,107 +139,117 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
       tx1 = Math.max(ax, ax + ex, ax + fx);
     const ty0 = Math.min(ay, ay + ey, ay + fy),
       ty1 = Math.max(ay, ay + ey, ay + fy);
-    let seed = b.locator.locate(ax + (ex + fx) / 3, ay + (ey + fy) / 3, true);
-    if (seed < 0) seed = seedFromHull(tri, hull, b, r1, r2);
-    if (seed < 0) continue;
+    let seed = -1;
+    if (buckets) buckets.candidates(tx0, ty0, tx1, ty1, seeds);
+    else {
+      seed = b.locator.locate(ax + (ex + fx) / 3, ay + (ey + fy) / 3, true);
+      if (seed < 0) seed = seedFromHull(tri, hull!, b, r1, r2);
+      if (seed < 0) continue;
+    }
     const mark = tIndex + 1;
-    stamp[seed] = mark;
-    stack[0] = seed;
-    let top = 1;
-    while (top > 0) {
-      const s = stack[--top]!;
-      const e0 = 3 * s;
-      const j0 = tb[e0]!,
-        j1 = tb[e0 + 1]!,
-        j2 = tb[e0 + 2]!;
-      const x0 = cb[2 * j0]!,
-        y0 = cb[2 * j0 + 1]!,
-        x1 = cb[2 * j1]!,
-        y1 = cb[2 * j1 + 1]!,
-        x2 = cb[2 * j2]!,
-        y2 = cb[2 * j2 + 1]!;
-      // Boxes apart: no overlap (the cheapest test).
-      if (
-        (x0 > tx1 && x1 > tx1 && x2 > tx1) ||
-        (x0 < tx0 && x1 < tx0 && x2 < tx0) ||
-        (y0 > ty1 && y1 > ty1 && y2 > ty1) ||
-        (y0 < ty0 && y1 < ty0 && y2 < ty0)
-      )
-        continue;
-      // Sides of t's corners against each edge of s: all outside one edge means no overlap; none outside an
-      // edge means the neighbour across it cannot overlap t (it lies beyond that edge), so it is not walked to.
-      const bx0 = ax,
-        by0 = ay,
-        bx1 = ax + ex,
-        by1 = ay + ey,
-        bx2 = ax + fx,
-        by2 = ay + fy;
-      let g0 = x1 - x0,
-        h0 = y1 - y0;
-      const a0 = (g0 * (by0 - y0) - h0 * (bx0 - x0)) * ob,
-        a1 = (g0 * (by1 - y0) - h0 * (bx1 - x0)) * ob,
-        a2 = (g0 * (by2 - y0) - h0 * (bx2 - x0)) * ob;
-      if (a0 <= 0 && a1 <= 0 && a2 <= 0) continue;
-      g0 = x2 - x1;
-      h0 = y2 - y1;
-      const c0 = (g0 * (by0 - y1) - h0 * (bx0 - x1)) * ob,
-        c1 = (g0 * (by1 - y1) - h0 * (bx1 - x1)) * ob,
-        c2 = (g0 * (by2 - y1) - h0 * (bx2 - x1)) * ob;
-      if (c0 <= 0 && c1 <= 0 && c2 <= 0) continue;
-      g0 = x0 - x2;
-      h0 = y0 - y2;
-      const d0 = (g0 * (by0 - y2) - h0 * (bx0 - x2)) * ob,
-        d1 = (g0 * (by1 - y2) - h0 * (bx1 - x2)) * ob,
-        d2 = (g0 * (by2 - y2) - h0 * (bx2 - x2)) * ob;
-      if (d0 <= 0 && d1 <= 0 && d2 <= 0) continue;
-      const out0 = a0 < 0 || a1 < 0 || a2 < 0;
-      const out1 = c0 < 0 || c1 < 0 || c2 < 0;
-      const out2 = d0 < 0 || d1 < 0 || d2 < 0;
-      let piece = tri;
-      if (out0 || out1 || out2) {
-        clipEdge(tri, x0, y0, x1, y1, ob, r2);
-        if (r2.n === 0) continue;
-        clipEdge(r2, x1, y1, x2, y2, ob, r1);
-        if (r1.n === 0) continue;
-        clipEdge(r1, x2, y2, x0, y0, ob, r2);
-        piece = r2;
-      }
-      if (piece.n < 3) continue;
-      const area = ringArea(piece);
-      if (!(area !== 0)) continue;
-      pieces++;
-      overlapArea += Math.abs(area);
-      // Depth = (a's plane) - (b's plane), both written about t's first corner.
-      const gx = x1 - x0,
-        gy = y1 - y0,
-        hx = x2 - x0,
-        hy = y2 - y0;
-      const detB = gx * hy - gy * hx;
-      const zB = zb[j0]!,
-        dz1 = zb[j1]! - zB,
-        dz2 = zb[j2]! - zB;
-      const pB = (dz1 * hy - dz2 * gy) / detB;
-      const qB = (dz2 * gx - dz1 * hx) / detB;
-      f.x0 = ax;
-      f.y0 = ay;
-      f.d0 = zA - (zB + pB * (ax - x0) + qB * (ay - y0));
-      f.dx = pA - pB;
-      f.dy = qA - qB;
-      if (!status || status[tIndex] === 1) addRing(piece, f, acc, scratch, tmp);
-      else if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
-      for (let e = e0; e < e0 + 3; e++) {
-        if (!(e === e0 ? out0 : e === e0 + 1 ? out1 : out2)) continue;
-        const opp = hb[e]!;
-        if (opp < 0) continue;
-        const nb = (opp / 3) | 0;
-        if (stamp[nb] === mark) continue;
-        stamp[nb] = mark;
-        if (top === stack.length) {
-          const bigger = new Int32Array(stack.length * 2);
-          bigger.set(stack);
-          stack = bigger;
+    // A convex mesh: one walk from the seed reaches every overlapping triangle. Faces as given (maybe with
+    // notches or holes, where the overlap with t can come apart): a walk from each candidate not yet reached.
+    for (let q = 0, count = buckets ? seeds.length : 1; q < count; q++) {
+      const first = buckets ? seeds[q]! : seed;
+      if (stamp[first] === mark) continue;
+      stamp[first] = mark;
+      stack[0] = first;
+      let top = 1;
+      while (top > 0) {
+        const s = stack[--top]!;
+        const e0 = 3 * s;
+        const j0 = tb[e0]!,
+          j1 = tb[e0 + 1]!,
+          j2 = tb[e0 + 2]!;
+        const x0 = cb[2 * j0]!,
+          y0 = cb[2 * j0 + 1]!,
+          x1 = cb[2 * j1]!,
+          y1 = cb[2 * j1 + 1]!,
+          x2 = cb[2 * j2]!,
+          y2 = cb[2 * j2 + 1]!;
+        // Boxes apart: no overlap (the cheapest test).
+        if (
+          (x0 > tx1 && x1 > tx1 && x2 > tx1) ||
+          (x0 < tx0 && x1 < tx0 && x2 < tx0) ||
+          (y0 > ty1 && y1 > ty1 && y2 > ty1) ||
+          (y0 < ty0 && y1 < ty0 && y2 < ty0)
+        )
+          continue;
+        // Sides of t's corners against each edge of s: all outside one edge means no overlap; none outside an
+        // edge means the neighbour across it cannot overlap t (it lies beyond that edge), so it is not walked to.
+        const bx0 = ax,
+          by0 = ay,
+          bx1 = ax + ex,
+          by1 = ay + ey,
+          bx2 = ax + fx,
+          by2 = ay + fy;
+        let g0 = x1 - x0,
+          h0 = y1 - y0;
+        const a0 = (g0 * (by0 - y0) - h0 * (bx0 - x0)) * ob,
+          a1 = (g0 * (by1 - y0) - h0 * (bx1 - x0)) * ob,
+          a2 = (g0 * (by2 - y0) - h0 * (bx2 - x0)) * ob;
+        if (a0 <= 0 && a1 <= 0 && a2 <= 0) continue;
+        g0 = x2 - x1;
+        h0 = y2 - y1;
+        const c0 = (g0 * (by0 - y1) - h0 * (bx0 - x1)) * ob,
+          c1 = (g0 * (by1 - y1) - h0 * (bx1 - x1)) * ob,
+          c2 = (g0 * (by2 - y1) - h0 * (bx2 - x1)) * ob;
+        if (c0 <= 0 && c1 <= 0 && c2 <= 0) continue;
+        g0 = x0 - x2;
+        h0 = y0 - y2;
+        const d0 = (g0 * (by0 - y2) - h0 * (bx0 - x2)) * ob,
+          d1 = (g0 * (by1 - y2) - h0 * (bx1 - x2)) * ob,
+          d2 = (g0 * (by2 - y2) - h0 * (bx2 - x2)) * ob;
+        if (d0 <= 0 && d1 <= 0 && d2 <= 0) continue;
+        const out0 = a0 < 0 || a1 < 0 || a2 < 0;
+        const out1 = c0 < 0 || c1 < 0 || c2 < 0;
+        const out2 = d0 < 0 || d1 < 0 || d2 < 0;
+        let piece = tri;
+        if (out0 || out1 || out2) {
+          clipEdge(tri, x0, y0, x1, y1, ob, r2);
+          if (r2.n === 0) continue;
+          clipEdge(r2, x1, y1, x2, y2, ob, r1);
+          if (r1.n === 0) continue;
+          clipEdge(r1, x2, y2, x0, y0, ob, r2);
+          piece = r2;
         }
-        stack[top++] = nb;
+        if (piece.n < 3) continue;
+        const area = ringArea(piece);
+        if (!(area !== 0)) continue;
+        pieces++;
+        overlapArea += Math.abs(area);
+        // Depth = (a's plane) - (b's plane), both written about t's first corner.
+        const gx = x1 - x0,
+          gy = y1 - y0,
+          hx = x2 - x0,
+          hy = y2 - y0;
+        const detB = gx * hy - gy * hx;
+        const zB = zb[j0]!,
+          dz1 = zb[j1]! - zB,
+          dz2 = zb[j2]! - zB;
+        const pB = (dz1 * hy - dz2 * gy) / detB;
+        const qB = (dz2 * gx - dz1 * hx) / detB;
+        f.x0 = ax;
+        f.y0 = ay;
+        f.d0 = zA - (zB + pB * (ax - x0) + qB * (ay - y0));
+        f.dx = pA - pB;
+        f.dy = qA - qB;
+        if (!status || status[tIndex] === 1) addRing(piece, f, acc, scratch, tmp);
+        else if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
+        for (let e = e0; e < e0 + 3; e++) {
+          if (!(e === e0 ? out0 : e === e0 + 1 ? out1 : out2)) continue;
+          const opp = hb[e]!;
+          if (opp < 0) continue;
+          const nb = (opp / 3) | 0;
+          if (stamp[nb] === mark) continue;
+          stamp[nb] = mark;
+          if (top === stack.length) {
+            const bigger = new Int32Array(stack.length * 2);
+            bigger.set(stack);
+            stack = bigger;
+          }
+          stack[top++] = nb;
+        }
       }
     }
   }

@@ -1,18 +1,18 @@
-import Delaunator from 'delaunator';
-import { DomainError, type DomainIssue } from '../domain-error';
-import { TinLocator } from './surface-locate';
-import { overlay, tinArea, type OverlayTotals, type Tin } from './surface-overlay';
+import { DomainError } from '../domain-error';
+import { overlay, tinArea, type OverlayTotals } from './surface-overlay';
 import { PayRegion, type PayLimits } from './surface-pay';
 import { fmt, fmtArea, fmtVolume, type Trail } from './trail';
+import { buildTin, type Breakline, type SurfacePoints, type Tin } from './surface-tin';
 import { areaUnitOf, cubicToVolume, volumeUnitOf, type AreaUnit, type LengthUnit, type VolumeUnit } from './units';
 
 export type { PayLimits } from './surface-pay';
+export type { Breakline, SurfacePoints } from './surface-tin';
 
-/** A point survey as columns (x, y plan; z elevation), ft or m. */
-export interface SurfacePoints {
-  x: ArrayLike<number>;
-  y: ArrayLike<number>;
-  z: ArrayLike<number>;
+/** Face triples flattened into one column (Uint32Array: 12 bytes a face). */
+export function facesFromRows(rows: readonly (readonly [number, number, number])[]): Uint32Array {
+  const out = new Uint32Array(3 * rows.length);
+  rows.forEach((r, i) => out.set(r, 3 * i));
+  return out;
 }
 
 export interface SurfaceInput {
@@ -23,6 +23,12 @@ export interface SurfaceInput {
   design: readonly (readonly [number, number, number])[];
   /** Optional pay limits: only the plan area inside `outer` and outside every void is measured. */
   payLimits?: PayLimits;
+  /** Faces as given (0-based row triples): the surface is these triangles, its points are not triangulated. */
+  existingFaces?: readonly (readonly [number, number, number])[];
+  designFaces?: readonly (readonly [number, number, number])[];
+  /** Breaklines of a survey without faces: polylines [x, y, z] kept as edges of its triangulation. */
+  existingBreaklines?: readonly Breakline[];
+  designBreaklines?: readonly Breakline[];
 }
 
 /** How the two triangulations were overlaid. */
@@ -90,61 +96,6 @@ function checkFinite(p: SurfacePoints, name: 'existing' | 'design'): void {
   }
 }
 
-function tinOf(p: SurfacePoints, ox: number, oy: number, name: 'existing' | 'design'): Tin {
-  const n = p.x.length;
-  const coords = new Float64Array(2 * n);
-  const z = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    coords[2 * i] = p.x[i]! - ox;
-    coords[2 * i + 1] = p.y[i]! - oy;
-    z[i] = p.z[i]!;
-  }
-  const mesh = new Delaunator(coords);
-  if (mesh.triangles.length === 0) {
-    throw new DomainError('DEGENERATE_SURFACE', `The ${name} survey needs at least 3 points not all on one line`, [
-      name,
-    ]);
-  }
-  return { mesh, coords, z, locator: new TinLocator(mesh, coords) };
-}
-
-/**
- * Points the triangulation left out are repeats of a plan position (delaunator keeps the first). Same height:
- * counted. Different height: refused as DUPLICATE_POINT naming both rows, never resolved in silence.
- */
-function repeats(t: Tin, name: 'existing' | 'design'): number {
-  const n = t.z.length;
-  const used = new Uint8Array(n);
-  const tri = t.mesh.triangles;
-  for (let i = 0; i < tri.length; i++) used[tri[i]!] = 1;
-  let same = 0;
-  const issues: DomainIssue[] = [];
-  for (let i = 0; i < n; i++) {
-    if (used[i]) continue;
-    const x = t.coords[2 * i]!,
-      y = t.coords[2 * i + 1]!;
-    const k = t.locator.locate(x, y, true);
-    let twin = -1;
-    for (let c = 0; k >= 0 && c < 3; c++) {
-      const j = tri[3 * k + c]!;
-      if (t.coords[2 * j] === x && t.coords[2 * j + 1] === y) twin = j;
-    }
-    if (twin < 0 || t.z[twin] === t.z[i]) {
-      same++;
-      continue;
-    }
-    if (issues.length < 20) {
-      issues.push({
-        path: `${name}.${i}`,
-        message: `Row ${i + 1} repeats the plan position of row ${twin + 1} with another height (${fmt(t.z[i]!, 3)} against ${fmt(t.z[twin]!, 3)})`,
-      });
-    }
-  }
-  if (issues.length > 0)
-    throw new DomainError('DUPLICATE_POINT', `${issues[0]!.message}: remove one of them`, issues[0]!.path, issues);
-  return same;
-}
-
 function bounds(a: SurfacePoints, b: SurfacePoints): [number, number, number, number] {
   let x0 = Infinity,
     y0 = Infinity,
@@ -164,7 +115,8 @@ function bounds(a: SurfacePoints, b: SurfacePoints): [number, number, number, nu
 }
 
 /**
- * Surface-to-surface volume from two point surveys, each triangulated (Delaunay, delaunator), by the
+ * Surface-to-surface volume from two surveys, each a TIN: its faces as given, else its points triangulated
+ * (Delaunay, delaunator; constrained by its breaklines, constrainautor; surface-tin.ts), by the
  * triangular-prism method over the overlay of both triangulations (surface-overlay.ts; surveying texts,
  * reference.md section 9): cut where the existing surface is above the design, fill where below, over the plan
  * area both cover, within optional pay limits. Exact for the two piecewise-linear surfaces (up to floating-point
@@ -181,9 +133,9 @@ export function surfaceVolumeFromPoints(
   // Shift to a local origin: survey coordinates (state plane, 1e6 ft) would otherwise cost digits.
   const box = bounds(existing, design);
   const [ox, oy] = box;
-  const e = tinOf(existing, ox, oy, 'existing');
-  const d = tinOf(design, ox, oy, 'design');
-  const repeated = repeats(e, 'existing') + repeats(d, 'design');
+  const e = buildTin(existing, ox, oy, 'existing');
+  const d = buildTin(design, ox, oy, 'design');
+  const repeated = e.repeated + d.repeated;
   const pay =
     payLimits && (payLimits.outer || (payLimits.voids && payLimits.voids.length > 0))
       ? new PayRegion(payLimits, ox, oy, [0, 0, box[2] - ox, box[3] - oy])
@@ -196,12 +148,29 @@ export function surfaceVolumeFromPoints(
 
 /** Same, from [x, y, z] rows as the calculation API takes them. */
 export function surfaceVolume(input: SurfaceInput): SurfaceResult {
+  const side = (
+    rows: SurfaceInput['existing'],
+    faces: SurfaceInput['existingFaces'],
+    breaklines: SurfaceInput['existingBreaklines'],
+  ): SurfacePoints => ({
+    ...pointsFromRows(rows),
+    ...(faces && faces.length > 0 ? { faces: facesFromRows(faces) } : {}),
+    ...(breaklines && breaklines.length > 0 ? { breaklines } : {}),
+  });
   return surfaceVolumeFromPoints(
     input.unit,
-    pointsFromRows(input.existing),
-    pointsFromRows(input.design),
+    side(input.existing, input.existingFaces, input.existingBreaklines),
+    side(input.design, input.designFaces, input.designBreaklines),
     input.payLimits,
   );
+}
+
+function howBuilt(t: Tin): string {
+  if (t.source === 'faces')
+    return `the file's faces as given${t.flatFaces > 0 ? `, ${fmt(t.flatFaces, 0)} of zero plan area left out` : ''}`;
+  if (t.source === 'constrained')
+    return `constrained Delaunay, ${fmt(t.breaklineEdges, 0)} breakline edges kept (delaunator, constrainautor)`;
+  return 'Delaunay, delaunator';
 }
 
 function present(
@@ -228,7 +197,7 @@ function present(
   const designOutsideArea = Math.max(0, areaD - t.overlapArea);
   const payAreaUncovered = pay ? Math.max(0, pay.area - t.area) : 0;
   const trail: Trail = [
-    `Existing ${fmt(nE, 0)} points, ${fmt(triE, 0)} triangles; design ${fmt(nD, 0)} points, ${fmt(triD, 0)} triangles (Delaunay, delaunator)${repeated > 0 ? `; ${fmt(repeated, 0)} repeated points with the same height kept once` : ''}`,
+    `Existing ${fmt(nE, 0)} points, ${fmt(triE, 0)} triangles (${howBuilt(e)}); design ${fmt(nD, 0)} points, ${fmt(triD, 0)} triangles (${howBuilt(d)})${repeated > 0 ? `; ${fmt(repeated, 0)} repeated points with the same height kept once` : ''}`,
     `Both triangulations overlaid: each existing triangle clipped by the design triangles under it, found by walking the design mesh; ${fmt(t.pieces, 0)} pieces, over each of which both surfaces are planes`,
     'Triangular-prism method (surveying texts): prism volume = plan area x mean depth, split exactly along the line where the surfaces cross; exact for the two piecewise-linear surfaces',
     `Area both surveys cover ${fmtArea(t.overlapArea, unit)}; existing outside the design ${fmtArea(existingOutsideArea, unit)}, design outside the existing ${fmtArea(designOutsideArea, unit)}`,
