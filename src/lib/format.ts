@@ -23,9 +23,23 @@ export function unitLabel(unit: PayUnit): string {
 }
 
 const dateFormat = new Intl.DateTimeFormat('en-US', { year: 'numeric', month: 'short', day: 'numeric' });
+const calendarDateFormat = new Intl.DateTimeFormat('en-US', {
+  year: 'numeric',
+  month: 'short',
+  day: 'numeric',
+  timeZone: 'UTC',
+});
 
-/** "Mar 4, 2026" from an ISO timestamp; the raw text when it does not parse. */
+/**
+ * "Mar 4, 2026" from an ISO timestamp (in the reader's time zone) or a calendar date "2026-03-04" (that day
+ * wherever the reader is: `new Date('2026-03-04')` is UTC midnight, the 3rd west of Greenwich); the raw text when
+ * it does not parse.
+ */
 export function formatDate(iso: string): string {
   const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+  if (Number.isNaN(date.getTime())) return iso;
+  return /^\d{4}-\d{2}-\d{2}$/.test(iso) ? calendarDateFormat.format(date) : dateFormat.format(date);
 }
+
+/** A pay period or any span of calendar dates: "Oct 1, 2026 – Oct 31, 2026". */
+export const formatDateRange = (start: string, end: string) => `${formatDate(start)} – ${formatDate(end)}`;

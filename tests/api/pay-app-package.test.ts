@@ -175,7 +175,7 @@ describe('the pay application package (October: work, materials stored, a deduct
     const co = await makeChangeOrder(db, w.home.id, w.people.general_contractor.id);
     await db
       .update(changeOrders)
-      .set({ title: 'Unsuitable subgrade at the inlet', decidedAt: new Date('2026-10-01T12:00:00Z') })
+      .set({ number: 3, title: 'Unsuitable subgrade at the inlet', decidedAt: new Date('2026-10-01T12:00:00Z') })
       .where(eq(changeOrders.id, co.id));
     const sheet = await sub.post(`/api/projects/${w.home.id}/daily-sheets`).send({
       changeOrderId: co.id,
@@ -216,42 +216,63 @@ describe('the pay application package (October: work, materials stored, a deduct
     });
     // A-1: 400 CY x $7.25 = $2,900.00, retainage $290.00.
     expect(row(pkg, 'A-1')).toMatchObject({ completedAndStoredCents: 290_000, retainageCents: 29_000 });
-    expect(pkg.totals).toMatchObject({
-      scheduledValueCents: 4_830_000,
-      storedMaterialsCents: 584_000,
-      completedAndStoredCents: 1_380_253,
-      retainageCents: 138_025,
+    // C-3 from its October tickets (a state DOT construction manual 109.11): 14.50 (bed) + 13.25 = 27.75 CY paid
+    // 27.8 CY x $4.00 = $111.20, retainage $11.12; the November load waits for November.
+    expect(row(pkg, 'C-3')).toMatchObject({ thisPeriodCents: 11_120, retainageCents: 1_112 });
+    // D-4 from its scale ticket (Resident Engineer's Manual 109.12): 18.50 t net, no moisture measured; 18.50 /
+    // 1.473 = 12.559... -> 12.56 CY, banded to 12.5 CY x $12.00 = $150.00, retainage $15.00.
+    expect(row(pkg, 'D-4')).toMatchObject({ thisPeriodCents: 15_000, retainageCents: 1_500 });
+    // The signed day on its own line under the change order: $1,901.50, valued as done, retainage $190.15.
+    expect(pkg.schedule.at(-1)).toMatchObject({
+      kind: 'force_account',
+      scheduledValueCents: 190_150,
+      thisPeriodCents: 190_150,
+      completedAndStoredCents: 190_150,
+      percentBps: 10_000,
+      balanceToFinishCents: 0,
+      retainageCents: 19_015,
     });
-    // Earned less retainage $13,802.53 - $1,380.25 = $12,422.28; less $250.00 damages: $12,172.28 due.
+    expect(pkg.totals).toMatchObject({
+      scheduledValueCents: 5_020_150,
+      storedMaterialsCents: 584_000,
+      completedAndStoredCents: 1_596_523,
+      retainageCents: 159_652,
+    });
+    // Done and stored $13,802.53 + $111.20 + $150.00 + $1,901.50 = $15,965.23; retainage $1,380.25 + $11.12 +
+    // $15.00 + $190.15 = $1,596.52; earned less retainage $14,368.71; less $250.00 damages: $14,118.71 due.
     expect(amounts(pkg)).toEqual({
       originalContract: 4_830_000,
-      netChangeOrders: 0,
-      contractToDate: 4_830_000,
-      completedAndStored: 1_380_253,
-      retainage: 138_025,
-      earnedLessRetainage: 1_242_228,
+      netChangeOrders: 190_150,
+      contractToDate: 5_020_150,
+      completedAndStored: 1_596_523,
+      retainage: 159_652,
+      earnedLessRetainage: 1_436_871,
       adjustments: -25_000,
       previousCertified: 0,
-      currentDue: 1_217_228,
-      balanceToFinish: 3_587_772,
+      currentDue: 1_411_871,
+      balanceToFinish: 3_583_279,
     });
-    expect(october.currentDueCents).toBe(1_217_228);
-    expect(pkg.changeOrders).toMatchObject({ approvedCount: 1, netChangeCents: 0, sinceLastCents: 0 });
+    expect(october.currentDueCents).toBe(1_411_871);
+    expect(pkg.changeOrders).toMatchObject({ approvedCount: 1, netChangeCents: 190_150, sinceLastCents: 190_150 });
+    expect(pkg.changeOrders.lines[0]).toMatchObject({ amountCents: 190_150, forceAccountCents: 190_150 });
   });
 
   it('prints the same figures in the PDF (read back) and the CSV, with the field records as appendices', async () => {
     const text = await pdfText(october.id);
     expect(text).toContain('Original contract sum $48,300.00');
-    expect(text).toContain('Work done and materials stored to date $13,802.53');
-    expect(text).toContain('Less retainage held (10 %) $1,380.25');
-    expect(text).toContain('Earned less retainage $12,422.28');
+    expect(text).toContain('Work done and materials stored to date $15,965.23');
+    expect(text).toContain('Less retainage held (10 %) $1,596.52');
+    expect(text).toContain('Earned less retainage $14,368.71');
     expect(text).toContain('Deductions and adjustments to date -$250.00');
-    expect(text).toContain('Due on this application $12,172.28');
-    expect(text).toContain('Left to finish, retainage included $35,877.72');
+    expect(text).toContain('Due on this application $14,118.71');
+    expect(text).toContain('Left to finish, retainage included $35,832.79');
+    expect(text).toMatch(
+      /CO 3 FA Force account: Unsuitable subgrade at the inlet \(1 signed day this period\) \$1,901\.50 \$0\.00 \$1,901\.50 \$0\.00 \$1,901\.50 100 % \$0\.00 \$190\.15/,
+    );
     expect(text).toMatch(
       /B-2 Storm trench \$21,050\.00 \$0\.00 \$5,062\.53 \$5,840\.00 \$10,902\.53 51\.79 % \$10,147\.47 \$1,090\.25/,
     );
-    expect(text).toMatch(/Total \$48,300\.00 \$0\.00 \$7,962\.53 \$5,840\.00 \$13,802\.53 .* \$1,380\.25/);
+    expect(text).toMatch(/Total \$50,201\.50 \$0\.00 \$10,125\.23 \$5,840\.00 \$15,965\.23 .* \$1,596\.52/);
     expect(text).toContain('Milestone 1 late by two days');
     // Appendix A: two October loads, 14.50 (bed) + 13.25 (written) = 27.75 CY; the November load is not listed.
     expect(text).toContain('Appendix A - Truck tickets');
@@ -272,10 +293,17 @@ describe('the pay application package (October: work, materials stored, a deduct
       retainage: '1090.25',
     });
     const summary = (key: string) => rows.find((r) => r.item_number === key)!.amount_to_date;
-    expect(summary('SUMMARY_CURRENT_DUE')).toBe('12172.28');
+    expect(summary('SUMMARY_CURRENT_DUE')).toBe('14118.71');
     expect(summary('SUMMARY_ADJUSTMENTS')).toBe('-250.00');
-    expect(summary('SUMMARY_BALANCE_TO_FINISH')).toBe('35877.72');
-    expect(summary('CHANGE_ORDERS_NET')).toBe('0.00');
+    expect(summary('SUMMARY_BALANCE_TO_FINISH')).toBe('35832.79');
+    expect(summary('CHANGE_ORDERS_NET')).toBe('1901.50');
+    expect(rows.find((r) => r.item_number?.endsWith(' FA'))).toMatchObject({
+      this_period_amount: '1901.50',
+      amount_to_date: '1901.50',
+      retainage: '190.15',
+      scheduled_value: '1901.50',
+      balance_to_finish: '0.00',
+    });
   });
 });
 
@@ -346,28 +374,35 @@ describe('an approved change order reaches the next application everywhere (issu
       completedAndStoredCents: 1_025_053,
       retainageCents: 102_505,
     });
-    // Contract $48,300.00 + $5,550.00 (1,600 x $8.00 - 1,000 x $7.25) = $53,850.00. Done and stored
-    // $3,700.00 + $10,250.53 = $13,950.53; retainage $370.00 + $1,025.05 = $1,395.05; earned less retainage
-    // $12,555.48; less damages $250.00 and October's $12,172.28: $133.20 due.
+    // C-3: the November load, 14.50 CY (bed) paid 14.5; to date 27.8 + 14.5 = 42.3 CY x $4.00 = $169.20, retainage
+    // $16.92. The October tickets are not paid again.
+    expect(row(pkg, 'C-3')).toMatchObject({ previousCents: 11_120, thisPeriodCents: 5_800, retainageCents: 1_692 });
+    expect(row(pkg, 'D-4')).toMatchObject({ previousCents: 15_000, thisPeriodCents: 0 });
+    // The force account line carries its certified $1,901.50 and no new day.
+    expect(pkg.schedule.at(-1)).toMatchObject({ previousCents: 190_150, thisPeriodCents: 0, retainageCents: 19_015 });
+    // Contract $48,300.00 + $5,550.00 (1,600 x $8.00 - 1,000 x $7.25) + $1,901.50 force account = $55,751.50.
+    // Done and stored $3,700.00 + $10,250.53 + $169.20 + $150.00 + $1,901.50 = $16,171.23; retainage $370.00 +
+    // $1,025.05 + $16.92 + $15.00 + $190.15 = $1,617.12; earned less retainage $14,554.11; less damages $250.00
+    // and October's $14,118.71: $185.40 due.
     expect(amounts(pkg)).toEqual({
       originalContract: 4_830_000,
-      netChangeOrders: 555_000,
-      contractToDate: 5_385_000,
-      completedAndStored: 1_395_053,
-      retainage: 139_505,
-      earnedLessRetainage: 1_255_548,
+      netChangeOrders: 745_150,
+      contractToDate: 5_575_150,
+      completedAndStored: 1_617_123,
+      retainage: 161_712,
+      earnedLessRetainage: 1_455_411,
       adjustments: -25_000,
-      previousCertified: 1_217_228,
-      currentDue: 13_320,
-      balanceToFinish: 4_129_452,
+      previousCertified: 1_411_871,
+      currentDue: 18_540,
+      balanceToFinish: 4_119_739,
     });
-    expect(november.currentDueCents).toBe(13_320);
-    expect(pkg.totals.scheduledValueCents).toBe(5_385_000);
+    expect(november.currentDueCents).toBe(18_540);
+    expect(pkg.totals.scheduledValueCents).toBe(5_575_150);
     expect(pkg.changeOrders).toMatchObject({
       approvedCount: 2,
-      beforeCents: 0,
+      beforeCents: 190_150,
       sinceLastCents: 555_000,
-      netChangeCents: 555_000,
+      netChangeCents: 745_150,
     });
     expect(pkg.changeOrders.lines.at(-1)).toMatchObject({
       number: coNumber,
@@ -378,12 +413,12 @@ describe('an approved change order reaches the next application everywhere (issu
 
   it('prints the change in the PDF and the CSV of November', async () => {
     const text = await pdfText(november.id);
-    expect(text).toContain('Change orders approved, net $5,550.00');
-    expect(text).toContain('Contract sum to date $53,850.00');
+    expect(text).toContain('Change orders approved, net $7,451.50');
+    expect(text).toContain('Contract sum to date $55,751.50');
     expect(text).toContain('Approved since the last application $5,550.00');
     expect(text).toMatch(new RegExp(`CO ${coNumber} North pad extension \\d{4}-\\d{2}-\\d{2} \\$5,550\\.00`));
     expect(text).toMatch(/A-1 .* \$12,800\.00 \$2,900\.00 \$800\.00 \$0\.00 \$3,700\.00 28\.9 % \$9,100\.00 \$370\.00/);
-    expect(text).toContain('Due on this application $133.20');
+    expect(text).toContain('Due on this application $185.40');
     const rows = await csvRows(november.id);
     expect(rows.find((r) => r.item_number === 'A-1')).toMatchObject({
       unit_price: '8.00',
@@ -392,11 +427,11 @@ describe('an approved change order reaches the next application everywhere (issu
       completed_and_stored: '3700.00',
     });
     const amount = (key: string) => rows.find((r) => r.item_number === key)!.amount_to_date;
-    expect(amount('SUMMARY_NET_CHANGE_ORDERS')).toBe('5550.00');
-    expect(amount('SUMMARY_CONTRACT_TO_DATE')).toBe('53850.00');
+    expect(amount('SUMMARY_NET_CHANGE_ORDERS')).toBe('7451.50');
+    expect(amount('SUMMARY_CONTRACT_TO_DATE')).toBe('55751.50');
     expect(amount(`CHANGE_ORDER_${coNumber}`)).toBe('5550.00');
     expect(amount('CHANGE_ORDERS_SINCE_LAST')).toBe('5550.00');
-    expect(amount('SUMMARY_CURRENT_DUE')).toBe('133.20');
+    expect(amount('SUMMARY_CURRENT_DUE')).toBe('185.40');
   });
 
   it('leaves October as certified: its package still counts only what was approved before it', async () => {

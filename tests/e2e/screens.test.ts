@@ -6,7 +6,7 @@ import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
 
 // Every main screen of the demo job, for each role, at a phone width (390 px) and a laptop width (1366 px): the page
 // is never wider than the window (wide tables scroll inside their own box or turn into cards), and no page logs a
-// console error or throws. E2E_SCREENSHOTS=<dir> keeps a screenshot of each screen at each width.
+// console error or throws; on the laptop every project tab is in sight. E2E_SCREENSHOTS=<dir> keeps a screenshot of each screen at each width.
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let browser: Browser;
 const SHOTS = process.env.E2E_SCREENSHOTS;
@@ -35,6 +35,19 @@ async function openScreen(page: Page, path: string): Promise<void> {
 
 async function overflow(page: Page): Promise<number> {
   return page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+}
+
+/** On a laptop every project tab is in sight: none hidden behind the tab bar's own sideways scroll. */
+async function hiddenTabs(page: Page): Promise<string[]> {
+  return page.getByRole('navigation', { name: 'Project' }).evaluate((nav) => {
+    const box = nav.getBoundingClientRect();
+    return [...nav.querySelectorAll('a')]
+      .filter((a) => {
+        const r = a.getBoundingClientRect();
+        return r.left < box.left - 1 || r.right > box.right + 1;
+      })
+      .map((a) => a.textContent ?? '');
+  });
 }
 
 /** The screens a person of the demo job can open: the tabs, and one of each detail screen they can see. */
@@ -87,6 +100,10 @@ async function walk(
       await openScreen(page, path);
       const extra = await overflow(page);
       if (extra > 1) problems.push(`${email} ${where}: the page is ${extra} px wider than the window`);
+      if (width >= 1024 && path.startsWith('/projects/')) {
+        const hidden = await hiddenTabs(page);
+        if (hidden.length > 0) problems.push(`${email} ${where}: tabs out of sight: ${hidden.join(', ')}`);
+      }
       if (SHOTS) {
         const name = `${email.split('@')[0]}-${width}-${path.replace(/^\/projects\/[^/]+/, 'job').replace(/[^a-z0-9]+/gi, '-')}`;
         await page.screenshot({ path: `${SHOTS}/${name}.png`, fullPage: true });

@@ -4,6 +4,7 @@ import {
   date,
   index,
   integer,
+  jsonb,
   numeric,
   pgEnum,
   pgTable,
@@ -55,6 +56,8 @@ export const payApps = pgTable(
     /** Deductions and adjustments dated up to the period's end (negative: deducted), summed at compilation. */
     adjustmentsCents: cents('adjustments_cents').notNull().default(0),
     paidCents: cents('paid_cents').notNull().default(0),
+    /** Tickets of ticket-measured items held out at compilation, each with its reason (TicketHold[]). */
+    ticketHolds: jsonb('ticket_holds').notNull().default([]),
     submittedAt: timestamp('submitted_at', { withTimezone: true }),
     certifiedAt: timestamp('certified_at', { withTimezone: true }),
     certifiedByUserId: text('certified_by_user_id').references(() => user.id),

@@ -2,6 +2,7 @@ import {
   bigint,
   date,
   index,
+  integer,
   jsonb,
   numeric,
   pgEnum,
@@ -16,6 +17,7 @@ import { user } from './auth';
 import { bidItems } from './bid-items';
 import { changeOrders } from './change-orders';
 import { timestamps } from './columns';
+import { payApps } from './pay-apps';
 import { projects } from './projects';
 
 export const adjustmentKind = pgEnum('adjustment_kind', ADJUSTMENT_KINDS);
@@ -40,6 +42,8 @@ export const forceAccountSheets = pgTable(
     contractorSignedAt: timestamp('contractor_signed_at', { withTimezone: true }),
     gcSignedByUserId: text('gc_signed_by_user_id').references(() => user.id),
     gcSignedAt: timestamp('gc_signed_at', { withTimezone: true }),
+    /** The pay application that paid the day (set once at compilation; never paid twice). */
+    payAppId: uuid('pay_app_id').references(() => payApps.id),
     createdByUserId: text('created_by_user_id')
       .notNull()
       .references(() => user.id),
@@ -111,4 +115,32 @@ export const payAdjustments = pgTable(
     ...timestamps,
   },
   (t) => [index().on(t.projectId, t.appliesOn)],
+);
+
+/**
+ * Force account on a pay application: one line per change order that authorised signed days, apart from the bid
+ * items' lines (never mixed into a measured quantity). Amounts are the signed days' totals.
+ */
+export const payAppForceAccountLines = pgTable(
+  'pay_app_force_account_lines',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    payAppId: uuid('pay_app_id')
+      .notNull()
+      .references(() => payApps.id, { onDelete: 'cascade' }),
+    changeOrderId: uuid('change_order_id')
+      .notNull()
+      .references(() => changeOrders.id),
+    sortOrder: integer('sort_order').notNull(),
+    changeOrderNumber: integer('change_order_number').notNull(),
+    title: text('title').notNull(),
+    /** Signed days paid on this application. */
+    days: integer('days').notNull(),
+    previousAmountCents: bigint('previous_amount_cents', { mode: 'number' }).notNull(),
+    thisPeriodAmountCents: bigint('this_period_amount_cents', { mode: 'number' }).notNull(),
+    amountToDateCents: bigint('amount_to_date_cents', { mode: 'number' }).notNull(),
+    retainageCents: bigint('retainage_cents', { mode: 'number' }).notNull(),
+    ...timestamps,
+  },
+  (t) => [unique('pay_app_force_account_lines_app_order').on(t.payAppId, t.changeOrderId), index().on(t.payAppId)],
 );

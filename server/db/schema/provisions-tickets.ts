@@ -3,6 +3,7 @@ import { MEASUREMENT_PROFILES, MEASUREMENT_STAGES } from '../../../src/shared/co
 import { user } from './auth';
 import { bidItems } from './bid-items';
 import { timestamps } from './columns';
+import { payApps } from './pay-apps';
 import { projects } from './projects';
 
 export const measurementProfile = pgEnum('measurement_profile', MEASUREMENT_PROFILES);
@@ -70,6 +71,8 @@ export const truckTickets = pgTable(
     deliveryCheckerInitials: text('delivery_checker_initials').notNull(),
     /** CY written by the checker; null means the truck's bed volume. */
     loadVolumeCy: numeric('load_volume_cy', { precision: 10, scale: 2, mode: 'number' }),
+    /** The pay application whose quantity took this load (set once at compilation; never paid twice). */
+    payAppId: uuid('pay_app_id').references(() => payApps.id),
     createdByUserId: text('created_by_user_id')
       .notNull()
       .references(() => user.id),
@@ -126,6 +129,8 @@ export const scaleTickets = pgTable(
     moisturePercent: numeric('moisture_percent', { precision: 6, scale: 2, mode: 'number' }),
     scaleCheckerInitials: text('scale_checker_initials').notNull(),
     deliveryCheckerInitials: text('delivery_checker_initials').notNull(),
+    /** The pay application whose quantity took this load (set once at compilation; never paid twice). */
+    payAppId: uuid('pay_app_id').references(() => payApps.id),
     createdByUserId: text('created_by_user_id')
       .notNull()
       .references(() => user.id),

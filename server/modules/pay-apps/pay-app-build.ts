@@ -5,7 +5,7 @@ import { currentContract } from '../../../src/shared/domain/contract';
 import { mobilizationLine, type MobilizationStep } from '../../../src/shared/domain/provisions/mobilization';
 import { addDecimals, roundTo } from '../../../src/shared/domain/rounding';
 import type { Executor } from '../../db/client';
-import { payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
+import { payAppForceAccountLines, payAppLines, payApps, payAppStatusHistory, tallies } from '../../db/schema';
 import { newPayAppBlocker } from '../../../src/shared/domain/pay-app-status';
 import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.repository';
@@ -21,6 +21,9 @@ import {
 import { precisionFor } from '../../../src/shared/domain/provisions/precision';
 import { settingsQuantityToDate } from '../../../src/shared/domain/provisions/settings-quantity';
 import type { PayUnit } from '../../../src/shared/constants';
+import { forceAccountAsPayLine } from '../../../src/shared/domain/provisions/force-account-pay';
+import { forceAccountForPeriod, markPaid, ticketQuantities } from './pay-app-records';
+import { forceAccountLines } from './pay-app-records.repository';
 
 export type CreatePayAppArgs = {
   project: ProjectRow;
@@ -35,6 +38,7 @@ async function previousOf(tx: Executor, projectId: string, number: number) {
   const last = await repo.latestFrozen(tx, projectId);
   const lines = last ? await repo.listLines(tx, last.id) : [];
   return {
+    id: last?.id,
     byItem: new Map(lines.map((l) => [l.bidItemId, l])),
     certified: await repo.previousCertifiedCents(tx, projectId, number),
   };
@@ -78,15 +82,19 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
     );
     if (quantity !== null) bySettings.set(item.id, quantity);
   }
-  // Those items' tallies stay ready, unbilled: the settings (or the steps) decide what they are paid.
+  // Truck-measure and weight items are paid from their tickets (held ones left out, with their reason).
+  const tickets = await ticketQuantities(tx, project.id, periodEnd, items, profiles);
+  // Those items' tallies stay ready, unbilled: the settings, the steps or the tickets decide what they are paid.
   const billed = (await repo.readyTallies(tx, project.id, periodStart, periodEnd)).filter(
-    (t) => !steps.has(t.bidItemId) && !bySettings.has(t.bidItemId),
+    (t) => !steps.has(t.bidItemId) && !bySettings.has(t.bidItemId) && !tickets.byItem.has(t.bidItemId),
   );
   const stored = await storedMaterialsByItem(tx, project.id, periodEnd);
   const adjustmentsCents = sumCents((await adjustmentsThrough(tx, project.id, periodEnd)).map((a) => a.amountCents));
   const thisPeriod = new Map<string, number>();
   for (const t of billed) thisPeriod.set(t.bidItemId, addDecimals(thisPeriod.get(t.bidItemId) ?? 0, t.quantity));
+  for (const [itemId, quantity] of tickets.byItem) thisPeriod.set(itemId, quantity);
   const prev = await previousOf(tx, project.id, number);
+  const forceAccount = await forceAccountForPeriod(tx, project.id, periodEnd, prev.id);
   // Each line takes the contract as it stands now (current quantity and price, shared contract function); the
   // previous amount is the one certified, so a price change applies only to quantities paid after it.
   const bases: PayAppLineInput[] = items.map((item) => {
@@ -103,8 +111,18 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
       storedMaterialsCents: stored.get(item.id) ?? 0,
     };
   });
-  const mobilization = { steps: items.map((item) => steps.get(item.id)), originalContractCents: originalSum(contract) };
-  const computed = compute(bases, project, prev.certified, adjustmentsCents, mobilization);
+  const mobilization = {
+    steps: items.map((item) => steps.get(item.id)),
+    originalContractCents: originalSum(contract),
+  };
+  // Force account lines come after the bid items, each priced from its signed days (never an item's quantity).
+  const computed = compute(
+    [...bases, ...forceAccount.map(forceAccountAsPayLine)],
+    project,
+    prev.certified,
+    adjustmentsCents,
+    mobilization,
+  );
   const [app] = await tx
     .insert(payApps)
     .values({
@@ -113,6 +131,7 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
       periodStart,
       periodEnd,
       isFinal: args.isFinal ?? false,
+      ticketHolds: tickets.holds,
       createdByUserId: userId,
       ...totalsOf(computed),
     })
@@ -134,6 +153,21 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
       })),
     );
   }
+  if (forceAccount.length > 0) {
+    await tx.insert(payAppForceAccountLines).values(
+      forceAccount.map((l, j) => ({
+        payAppId: app!.id,
+        changeOrderId: l.changeOrderId,
+        sortOrder: j,
+        changeOrderNumber: l.number,
+        title: l.title,
+        days: l.days,
+        ...forceAccountColumns(computed.lines[items.length + j]!),
+      })),
+    );
+  }
+  const sheetIds = forceAccount.flatMap((l) => l.sheetIds);
+  await markPaid(tx, app!.id, tickets, sheetIds);
   if (billed.length > 0) {
     const ids = billed.map((t) => t.id);
     const marked = await tx
@@ -163,7 +197,17 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
     objectType: 'pay_app',
     objectId: app!.id,
     action: 'pay_app.created',
-    after: { number, periodStart, periodEnd, tallyIds: billed.map((t) => t.id), ...totalsOf(computed) },
+    after: {
+      number,
+      periodStart,
+      periodEnd,
+      tallyIds: billed.map((t) => t.id),
+      truckTicketIds: tickets.truckIds,
+      scaleTicketIds: tickets.scaleIds,
+      ticketsHeld: tickets.holds.length,
+      dailySheetIds: sheetIds,
+      ...totalsOf(computed),
+    },
   });
   return app!;
 }
@@ -199,7 +243,12 @@ function compute(
   if (mobilization.steps.some(Boolean)) {
     // Mobilization in steps of the original contract earned, counting every other line's work to date (first
     // pass), then priced with the rest (second pass). The line's quantity is written back into `lines`.
-    const others = sumCents(result.lines.filter((_, i) => !mobilization.steps[i]).map((l) => l.amountToDateCents));
+    // Only bid items count (`steps` has one entry per item): force account lines after them are not contract work.
+    const others = sumCents(
+      result.lines
+        .filter((_, i) => i < mobilization.steps.length && !mobilization.steps[i])
+        .map((l) => l.amountToDateCents),
+    );
     lines.forEach((line, i) => {
       const steps = mobilization.steps[i];
       if (!steps) return;
@@ -224,6 +273,13 @@ type Mobilization = { steps: (MobilizationStep[] | undefined)[]; originalContrac
 function originalSum(contract: Awaited<ReturnType<typeof loadContract>>): number {
   return currentContract(contract.inputs.items, []).contractSumCents;
 }
+
+const forceAccountColumns = (l: PayAppResult['lines'][number]) => ({
+  previousAmountCents: l.previousAmountCents,
+  thisPeriodAmountCents: l.thisPeriodAmountCents,
+  amountToDateCents: l.amountToDateCents,
+  retainageCents: l.retainageCents,
+});
 
 const lineColumns = (l: PayAppResult['lines'][number]) => ({
   toDateQuantity: l.toDateQuantity,
@@ -270,7 +326,17 @@ export async function recomputeLines(
     steps: lines.map((l) => steps.get(l.bidItemId)),
     originalContractCents: originalSum(contract),
   };
-  const computed = compute(bases, project, prev.certified, app.adjustmentsCents, mobilization);
+  const forceAccount = await forceAccountLines(tx, app.id);
+  const faBases = forceAccount.map((l) =>
+    forceAccountAsPayLine({ previousCents: l.previousAmountCents, thisPeriodCents: l.thisPeriodAmountCents }),
+  );
+  const computed = compute([...bases, ...faBases], project, prev.certified, app.adjustmentsCents, mobilization);
+  for (const [j, l] of forceAccount.entries()) {
+    await tx
+      .update(payAppForceAccountLines)
+      .set(forceAccountColumns(computed.lines[lines.length + j]!))
+      .where(eq(payAppForceAccountLines.id, l.id));
+  }
   for (const [i, l] of lines.entries()) {
     await tx
       .update(payAppLines)

@@ -65,6 +65,30 @@ export function payAppCsv(app: PayAppDetail): string {
       decimal(s.balanceToFinishCents),
     ]);
   });
+  // Force account lines follow the items in the schedule, one per change order, in the same order.
+  app.forceAccount.forEach((f, j) => {
+    const s = pkg.schedule[app.lines.length + j]!;
+    rows.push([
+      neutralise(s.itemNumber),
+      neutralise(s.description),
+      '',
+      '',
+      '',
+      '',
+      '',
+      '',
+      decimal(f.previousAmountCents),
+      decimal(f.thisPeriodAmountCents),
+      decimal(f.amountToDateCents),
+      decimal(f.retainageCents),
+      'signed',
+      decimal(s.scheduledValueCents),
+      decimal(s.storedMaterialsCents),
+      decimal(s.completedAndStoredCents),
+      percent(s.percentBps),
+      decimal(s.balanceToFinishCents),
+    ]);
+  });
   const t = pkg.totals;
   const blank = (label: string, description: string, amount: string) => [
     label,
@@ -111,7 +135,9 @@ export function payAppCsv(app: PayAppDetail): string {
     rows.push(
       blank(
         `CHANGE_ORDER_${co.number}`,
-        neutralise(`${co.title} (approved ${co.approvedAt.slice(0, 10)})`),
+        neutralise(
+          `${co.title} (approved ${co.approvedAt.slice(0, 10)}${co.forceAccountCents ? `; force account ${decimal(co.forceAccountCents)}` : ''})`,
+        ),
         decimal(co.amountCents),
       ),
     );

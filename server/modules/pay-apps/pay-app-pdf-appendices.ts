@@ -14,7 +14,7 @@ function none(doc: PdfDoc, text: string) {
   doc.y += 14;
 }
 
-/** Appendices A-C: the period's truck tickets, scale tickets and force account days, each with its totals. */
+/** Appendices A-C: the truck tickets, scale tickets and force account days the application paid or held out. */
 export function appendices(doc: PdfDoc, backup: PayAppBackup): void {
   doc.addPage();
   truckTickets(doc, backup.truckTickets);
@@ -26,9 +26,10 @@ function truckTickets(doc: PdfDoc, rows: PayAppBackup['truckTickets']) {
   sectionTitle(
     doc,
     'Appendix A - Truck tickets',
-    "Loads counted by truck measure within the period: the checker's volume, or the truck's measured bed when none was written.",
+    "Loads paid on this application (the checker's volume, or the truck's measured bed when none was written) and loads held out with the reason; the total counts paid loads only.",
   );
-  if (rows.length === 0) return none(doc, 'No truck ticket dated within this period.');
+  if (rows.length === 0) return none(doc, 'No truck ticket paid or held on this application.');
+  const paid = rows.filter((r) => r.held === null);
   type R = (typeof rows)[number];
   const cols: PdfColumn<R>[] = [
     { title: 'Delivered', w: 58, cell: (r) => r.deliveredOn },
@@ -40,10 +41,10 @@ function truckTickets(doc: PdfDoc, rows: PayAppBackup['truckTickets']) {
     { title: 'Delivered to', w: 90, cell: (r) => r.deliveredTo },
     { title: 'Checkers', w: 52, cell: (r) => `${r.loadCheckerInitials} / ${r.deliveryCheckerInitials}` },
     { title: 'CY', w: 50, align: 'right', cell: (r) => cy(r.volumeCy) },
-    { title: 'Flags', w: 126, cell: (r) => r.flags.map((f) => f.replace(/_/g, ' ')).join(', ') },
+    { title: 'Paid or held', w: 126, cell: (r) => (r.held === null ? 'Paid' : `Held: ${r.held}`) },
   ];
   drawTable(doc, cols, rows, [
-    count(rows.length, 'load'),
+    count(paid.length, 'load'),
     '',
     '',
     '',
@@ -51,7 +52,7 @@ function truckTickets(doc: PdfDoc, rows: PayAppBackup['truckTickets']) {
     '',
     '',
     '',
-    cy(sum(rows.map((r) => r.volumeCy))),
+    cy(sum(paid.map((r) => r.volumeCy))),
     '',
   ]);
 }
@@ -60,16 +61,17 @@ function scaleTickets(doc: PdfDoc, rows: PayAppBackup['scaleTickets']) {
   sectionTitle(
     doc,
     'Appendix B - Scale tickets',
-    "Weighed loads within the period; pay tons after any moisture correction, volume with the source's factor.",
+    "Weighed loads paid on this application (and any held out, with the reason); pay tons after any moisture correction, volume with the source's factor.",
   );
-  if (rows.length === 0) return none(doc, 'No scale ticket dated within this period.');
+  if (rows.length === 0) return none(doc, 'No scale ticket paid or held on this application.');
+  const paid = rows.filter((r) => r.held === null);
   type R = (typeof rows)[number];
   const cols: PdfColumn<R>[] = [
     { title: 'Ticket', w: 56, cell: (r) => r.ticketNumber },
     { title: 'Weighed', w: 58, cell: (r) => r.weighedOn },
     { title: 'Item', w: 40, cell: (r) => r.itemNumber },
-    { title: 'Material', w: 96, cell: (r) => r.material },
-    { title: 'Source', w: 90, cell: (r) => r.sourceName },
+    { title: 'Material', w: 70, cell: (r) => r.material },
+    { title: 'Source', w: 70, cell: (r) => r.sourceName },
     { title: 'Gross t', w: 54, align: 'right', cell: (r) => tons(r.grossTons) },
     { title: 'Tare t', w: 54, align: 'right', cell: (r) => tons(r.tareTons) },
     { title: 'Net t', w: 54, align: 'right', cell: (r) => tons(r.netTons) },
@@ -82,19 +84,21 @@ function scaleTickets(doc: PdfDoc, rows: PayAppBackup['scaleTickets']) {
     { title: 'Pay t', w: 54, align: 'right', cell: (r) => tons(r.payTons) },
     { title: 'CY', w: 54, align: 'right', cell: (r) => cy(r.computedCy) },
     { title: 'Checkers', w: 60, cell: (r) => `${r.scaleCheckerInitials} / ${r.deliveryCheckerInitials}` },
+    { title: 'Paid', w: 46, cell: (r) => (r.held === null ? 'Paid' : `Held: ${r.held}`) },
   ];
   drawTable(doc, cols, rows, [
-    count(rows.length, 'ticket'),
+    count(paid.length, 'ticket'),
     '',
     '',
     '',
     '',
-    tons(sum(rows.map((r) => r.grossTons))),
-    tons(sum(rows.map((r) => r.tareTons))),
-    tons(sum(rows.map((r) => r.netTons))),
+    tons(sum(paid.map((r) => r.grossTons))),
+    tons(sum(paid.map((r) => r.tareTons))),
+    tons(sum(paid.map((r) => r.netTons))),
     '',
-    tons(sum(rows.map((r) => r.payTons))),
-    cy(sum(rows.map((r) => r.computedCy))),
+    tons(sum(paid.map((r) => r.payTons))),
+    cy(sum(paid.map((r) => r.computedCy))),
+    '',
     '',
   ]);
 }
@@ -103,9 +107,9 @@ function dailySheets(doc: PdfDoc, rows: PayAppBackup['dailySheets']) {
   sectionTitle(
     doc,
     'Appendix C - Force account days',
-    'Daily sheets within the period, each group with the markup the contract sets; a day counts once both sides signed.',
+    'Days paid on this application (signed by both sides), each group with the markup the contract sets; they make the force account lines of the schedule of values.',
   );
-  if (rows.length === 0) return none(doc, 'No force account day within this period.');
+  if (rows.length === 0) return none(doc, 'No force account day paid on this application.');
   type R = (typeof rows)[number];
   const signed = (r: R) =>
     r.complete

@@ -178,7 +178,8 @@ function firstPage(doc: PdfDoc, app: PayAppDetail, f: PdfFacts) {
   for (const l of shown) {
     const y = doc.y;
     doc.font('body').fontSize(8).fillColor(INK);
-    doc.text(`CO ${l.number}  ${l.title}`, cx, y, { width: cw - 170 });
+    const fa = l.forceAccountCents ? ` (force account ${dollars(l.forceAccountCents)})` : '';
+    doc.text(`CO ${l.number}  ${l.title}${fa}`, cx, y, { width: cw - 170 });
     const bottom = doc.y;
     doc.fillColor(STONE).text(l.approvedAt.slice(0, 10), cx + cw - 170, y, { width: 60 });
     doc.fillColor(INK).text(dollars(l.amountCents), cx + cw - 110, y, { width: 110, align: 'right' });
@@ -259,7 +260,7 @@ function schedule(doc: PdfDoc, app: PayAppDetail) {
   sectionTitle(
     doc,
     'Schedule of values',
-    'Amounts to date on each bid item, with materials stored and not yet built in.',
+    'Amounts to date on each bid item, with materials stored and not yet built in; force account after the items, one line per change order, valued at its signed days.',
   );
   drawTable(doc, cols, app.package.schedule, [
     'Total',
@@ -298,6 +299,25 @@ function quantities(doc: PdfDoc, app: PayAppDetail) {
     "In each item's pay unit; amount to date = quantity to date at the unit price, rounded once to the cent.",
   );
   drawTable(doc, cols, app.lines);
+  heldTickets(doc, app);
+}
+
+/** Tickets of truck-measure and weight items left out of the quantities, each with why (also in the appendices). */
+function heldTickets(doc: PdfDoc, app: PayAppDetail) {
+  if (app.ticketHolds.length === 0) return;
+  type Hold = PayAppDetail['ticketHolds'][number];
+  sectionTitle(
+    doc,
+    'Tickets held out',
+    'Not in the quantities above until the reason is cleared; they are taken on the next application after that.',
+  );
+  const cols: PdfColumn<Hold>[] = [
+    { title: 'Item', w: 60, cell: (h) => h.itemNumber },
+    { title: 'Ticket', w: 90, cell: (h) => (h.kind === 'truck' ? `Truck ${h.label}` : `Scale ${h.label}`) },
+    { title: 'Dated', w: 70, cell: (h) => h.date },
+    { title: 'Reason', w: 500, cell: (h) => h.reasons.join('; ') },
+  ];
+  drawTable(doc, cols, app.ticketHolds);
 }
 
 function adjustments(doc: PdfDoc, app: PayAppDetail) {

@@ -1,3 +1,6 @@
+import { HOLD_REASON_LABELS, type TicketHold } from '../../../src/shared/domain/provisions/ticket-pay';
+import type { PayAppForceAccountView, TicketHoldView } from '../../../src/shared/schemas/pay-app';
+import type { ForceAccountLineRow } from './pay-app-records.repository';
 import type { DisputeView, PayAppDetail, PayAppLineView, PayAppSummary } from '../../../src/shared/schemas/pay-app';
 import type { PayAppDetailRow, PayAppRow } from './pay-apps.repository';
 
@@ -84,4 +87,31 @@ export function presentDispute(d: PayAppDetailRow['disputes'][number]): DisputeV
 
 export function presentTally(t: PayAppDetailRow['tallies'][number]): PayAppDetail['tallies'][number] {
   return { id: t.id, bidItemId: t.bidItemId, measuredOn: t.measuredOn, title: t.title, quantity: t.quantity };
+}
+
+export function presentForceAccountLine(l: ForceAccountLineRow): PayAppForceAccountView {
+  return {
+    id: l.id,
+    changeOrderId: l.changeOrderId,
+    changeOrderNumber: l.changeOrderNumber,
+    title: l.title,
+    days: l.days,
+    previousAmountCents: l.previousAmountCents,
+    thisPeriodAmountCents: l.thisPeriodAmountCents,
+    amountToDateCents: l.amountToDateCents,
+    retainageCents: l.retainageCents,
+  };
+}
+
+/** Held tickets with their item's number and each reason in words (HOLD_REASON_LABELS). */
+export function presentHolds(holds: TicketHold[], itemNumber: Map<string, string>): TicketHoldView[] {
+  return holds.map((h) => ({
+    kind: h.kind,
+    ticketId: h.ticketId,
+    label: h.label,
+    date: h.date,
+    bidItemId: h.bidItemId,
+    itemNumber: itemNumber.get(h.bidItemId) ?? '',
+    reasons: h.reasons.map((r) => HOLD_REASON_LABELS[r]),
+  }));
 }

@@ -11,7 +11,17 @@ import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
 import { loadPayAppAccess } from './pay-app-access';
 import { canCreatePayApp, canSeePayApp, payAppCan } from '../../../src/shared/policies/pay-apps';
-import { presentDispute, presentHistory, presentLine, presentSummary, presentTally } from './pay-apps.presenter';
+import {
+  presentDispute,
+  presentForceAccountLine,
+  presentHistory,
+  presentHolds,
+  presentLine,
+  presentSummary,
+  presentTally,
+} from './pay-apps.presenter';
+import { forceAccountLines } from './pay-app-records.repository';
+import type { TicketHold } from '../../../src/shared/domain/provisions/ticket-pay';
 import * as repo from './pay-apps.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
 import { adjustmentsThrough, approvedChangeOrders, compiledAt } from './pay-app-provisions.repository';
@@ -27,7 +37,12 @@ export async function listPayApps(db: Db, actor: Actor, projectId: string) {
 export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]): Promise<PayAppDetail> {
   const app = (await repo.findPayAppDetail(db, payAppId))!;
   const lines = app.lines.map(presentLine);
-  const contractSumCents = sumCents(lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)));
+  const forceAccount = (await forceAccountLines(db, payAppId)).map(presentForceAccountLine);
+  // Force account is valued as done: its scheduled value is its amount to date (pay-app-package.ts).
+  const contractSumCents = sumCents([
+    ...lines.map((l) => lineAmountCents(l.contractQuantity, l.unitPriceCents)),
+    ...forceAccount.map((f) => f.amountToDateCents),
+  ]);
   const percentCompleteBps = contractSumCents > 0 ? Math.floor((app.earnedToDateCents * 10_000) / contractSumCents) : 0;
   const [bandOverBps, withEvidence] = await Promise.all([
     repo.projectBandOverBps(db, app.projectId),
@@ -42,7 +57,8 @@ export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]
       return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
     }),
   );
-  const pkg = await packageOf(db, app, lines);
+  const pkg = await packageOf(db, app, lines, forceAccount);
+  const itemNumber = new Map(lines.map((l) => [l.bidItemId, l.itemNumber]));
   return {
     ...presentSummary(app, app.certifiedBy?.name ?? null),
     lines,
@@ -53,6 +69,8 @@ export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]
     flags: payAppFlags(lines, bandOverBps, evidence),
     percentCompleteBps,
     can: payAppCan(roles, app.status),
+    forceAccount,
+    ticketHolds: presentHolds(app.ticketHolds as TicketHold[], itemNumber),
     ...pkg,
   };
 }
@@ -65,6 +83,7 @@ async function packageOf(
   db: Db,
   app: NonNullable<Awaited<ReturnType<typeof repo.findPayAppDetail>>>,
   lines: ReturnType<typeof presentLine>[],
+  forceAccount: PayAppDetail['forceAccount'],
 ) {
   const [contract, previousCutOff, adjustments] = await Promise.all([
     loadContract(db, app.projectId),
@@ -76,6 +95,7 @@ async function packageOf(
   return {
     package: payAppPackage({
       lines,
+      forceAccount,
       originalContractCents: currentContract(contract.inputs.items, []).contractSumCents,
       changeOrders: changeOrderSummary(
         contract.inputs.items,

@@ -6,11 +6,13 @@ import { listLines } from '../pay-apps/pay-apps.repository';
 import { isUuid } from '../projects/project-access';
 import { presentTallySummary } from './tallies.presenter';
 import * as repo from './tallies.repository';
+import { lineTickets } from '../pay-apps/line-tickets';
 
 /**
  * The backup of one pay application line: the tallies billed to its bid item on that application, with their
  * evidence counts. The application's visibility rules apply first (404 off the project, 404 for the owner before
- * certification), so the backup is never readable where the line is not.
+ * certification), so the backup is never readable where the line is not. A truck-measure or weight line's backup
+ * is its tickets: those the application paid, then those it held out with the reason.
  */
 export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId: string) {
   const { app, roles } = await loadPayAppAccess(db, actor, payAppId);
@@ -24,5 +26,6 @@ export async function lineBackup(db: Db, actor: Actor, payAppId: string, lineId:
   return {
     line: { id: line.id, bidItemId: line.bidItemId, payAppId: app.id, payAppNumber: app.number },
     tallies: rows.map((r) => presentTallySummary(r, counts.get(r.tally.id) ?? 0, roles)),
+    tickets: await lineTickets(db, app, line.bidItemId),
   };
 }

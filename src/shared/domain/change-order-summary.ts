@@ -16,6 +16,8 @@ export interface ChangeOrderSummaryLine {
   approvedAt: string;
   /** What the change order moved the contract sum by, applied after the ones approved before it. */
   amountCents: Cents;
+  /** Of which force account paid to date on its signed days (withForceAccount in pay-app-package.ts). */
+  forceAccountCents?: Cents;
 }
 
 export interface ChangeOrderSummary {

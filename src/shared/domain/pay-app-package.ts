@@ -15,8 +15,21 @@ export interface PackageLineInput {
   retainageCents: Cents;
 }
 
+/** A change order's force account on the application, as stored (pay_app_force_account_lines). */
+export interface PackageForceAccountInput {
+  changeOrderNumber: number;
+  title: string;
+  days: number;
+  previousAmountCents: Cents;
+  thisPeriodAmountCents: Cents;
+  amountToDateCents: Cents;
+  retainageCents: Cents;
+}
+
 export interface PackageInput {
   lines: readonly PackageLineInput[];
+  /** Force account lines, printed after the bid items under the change order that authorised them. */
+  forceAccount?: readonly PackageForceAccountInput[];
   /** The contract sum before any change order (sum of the original quantities x original prices). */
   originalContractCents: Cents;
   changeOrders: ChangeOrderSummary;
@@ -63,8 +76,15 @@ export interface SummaryLine {
   amountCents: Cents;
 }
 
+export type ScheduleLine = ScheduleRow & {
+  /** A bid item, or a change order's force account (time and materials, valued as done). */
+  kind: 'item' | 'force_account';
+  itemNumber: string;
+  description: string;
+};
+
 export interface PayAppPackage {
-  schedule: (ScheduleRow & { itemNumber: string; description: string })[];
+  schedule: ScheduleLine[];
   totals: ScheduleRow;
   /** In the order the arithmetic reads: the contract, then what is earned, then what is due. */
   summary: SummaryLine[];
@@ -134,7 +154,8 @@ function row(
  * retainage + adjustments - previously certified, so it equals the compiled application's own figure.
  */
 export function payAppPackage(input: PackageInput): PayAppPackage {
-  const schedule = input.lines.map((l) => ({
+  const items: ScheduleLine[] = input.lines.map((l) => ({
+    kind: 'item' as const,
     itemNumber: l.itemNumber,
     description: l.description,
     ...row(
@@ -145,6 +166,16 @@ export function payAppPackage(input: PackageInput): PayAppPackage {
       l.retainageCents,
     ),
   }));
+  const forceAccount = input.forceAccount ?? [];
+  const schedule: ScheduleLine[] = [
+    ...items,
+    ...forceAccount.map((f) => ({
+      kind: 'force_account' as const,
+      itemNumber: forceAccountNumber(f.changeOrderNumber),
+      description: `Force account: ${f.title} (${f.days === 1 ? '1 signed day' : `${f.days} signed days`} this period)`,
+      ...row(f.amountToDateCents, f.previousAmountCents, f.thisPeriodAmountCents, 0, f.retainageCents),
+    })),
+  ];
   const total = (k: keyof Omit<ScheduleRow, 'percentBps'>) => sumCents(schedule.map((r) => r[k]));
   const totals = row(
     total('scheduledValueCents'),
@@ -153,7 +184,7 @@ export function payAppPackage(input: PackageInput): PayAppPackage {
     total('storedMaterialsCents'),
     total('retainageCents'),
   );
-  const co = input.changeOrders;
+  const co = withForceAccount(input.changeOrders, forceAccount);
   const contractToDate = sumCents([input.originalContractCents, co.netChangeCents]);
   const earnedLessRetainage = subtractCents(totals.completedAndStoredCents, totals.retainageCents);
   const amounts: Record<SummaryKey, Cents> = {
@@ -177,5 +208,36 @@ export function payAppPackage(input: PackageInput): PayAppPackage {
       amountCents: amounts[key],
     })),
     changeOrders: { ...co, beforeCents: subtractCents(co.netChangeCents, co.sinceLastCents) },
+  };
+}
+
+/** The schedule's number of a change order's force account line. */
+export const forceAccountNumber = (changeOrderNumber: number) => `CO ${changeOrderNumber} FA`;
+
+/**
+ * The change order summary with force account paid to date added to the change order that authorised it: its
+ * scheduled value is what its signed days came to, so the contract to date grows with it and the schedule's total
+ * scheduled value stays equal to the contract sum to date. "Since the last" takes the days paid this period.
+ */
+export function withForceAccount(
+  summary: ChangeOrderSummary,
+  forceAccount: readonly PackageForceAccountInput[],
+): ChangeOrderSummary {
+  if (forceAccount.length === 0) return summary;
+  const lines = summary.lines.map((l) => ({ ...l }));
+  for (const f of forceAccount) {
+    let line = lines.find((l) => l.number === f.changeOrderNumber);
+    if (!line) {
+      line = { number: f.changeOrderNumber, title: f.title, approvedAt: '', amountCents: 0 };
+      lines.push(line);
+    }
+    line.amountCents = sumCents([line.amountCents, f.amountToDateCents]);
+    line.forceAccountCents = sumCents([line.forceAccountCents ?? 0, f.amountToDateCents]);
+  }
+  return {
+    approvedCount: lines.length,
+    netChangeCents: sumCents([summary.netChangeCents, ...forceAccount.map((f) => f.amountToDateCents)]),
+    sinceLastCents: sumCents([summary.sinceLastCents, ...forceAccount.map((f) => f.thisPeriodAmountCents)]),
+    lines,
   };
 }

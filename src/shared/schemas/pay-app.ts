@@ -189,6 +189,46 @@ export type PayAppDetail = PayAppSummary & {
   can: PayAppCan;
   /** Schedule of values, summary lines and change order summary (src/shared/domain/pay-app-package.ts). */
   package: PayAppPackage;
+  /** Force account paid on the application, one line per change order (its signed days). */
+  forceAccount: PayAppForceAccountView[];
+  /** Tickets of truck-measure and weight items left out of this application, each with its reasons. */
+  ticketHolds: TicketHoldView[];
   /** The deductions and adjustments the application counts (dated up to its period's end). */
   adjustments: { id: string; kind: AdjustmentKind; appliesOn: string; description: string; amountCents: number }[];
+};
+
+export type PayAppForceAccountView = {
+  id: string;
+  changeOrderId: string;
+  changeOrderNumber: number;
+  title: string;
+  /** Signed days paid on this application. */
+  days: number;
+  previousAmountCents: number;
+  thisPeriodAmountCents: number;
+  amountToDateCents: number;
+  retainageCents: number;
+};
+
+export type TicketHoldView = {
+  kind: 'truck' | 'scale';
+  ticketId: string;
+  /** The truck number (load tickets) or the ticket number (scale tickets). */
+  label: string;
+  date: string;
+  bidItemId: string;
+  itemNumber: string;
+  /** Why it was held, in words. */
+  reasons: string[];
+};
+
+/** A ticket behind a pay line: paid (with the measure taken) or held out (with why). */
+export type LineTicketView = {
+  kind: 'truck' | 'scale';
+  id: string;
+  label: string;
+  date: string;
+  /** What it measured, in words ("16.35 CY", "20.77 t (14.10 CY)"); empty for a held ticket. */
+  measure: string;
+  held: string | null;
 };

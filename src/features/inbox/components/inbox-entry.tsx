@@ -1,14 +1,14 @@
 import { Link } from 'react-router';
 import { Badge } from '@/components/ui/badge';
 import { cn } from '@/lib/cn';
-import { formatDate, formatMoney } from '@/lib/format';
+import { formatDate, formatDateRange, formatMoney } from '@/lib/format';
 import type { InboxEntryView } from '@/shared/schemas/inbox';
 import { INBOX_ACTION_LABELS } from './inbox-labels';
 
 /** One thing to do: what, on which job, since when, the money at stake, and the link to the place to act. */
 export function InboxEntry({ entry }: { entry: InboxEntryView }) {
   const facts = [
-    entry.period ? `Period ${formatDate(entry.period.start)} – ${formatDate(entry.period.end)}` : null,
+    entry.period ? `Period ${formatDateRange(entry.period.start, entry.period.end)}` : null,
     entry.detail || null,
   ].filter(Boolean);
   return (

@@ -1,11 +1,14 @@
 import { useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { LineTicketView } from '@/shared/schemas/pay-app';
 import type { TallySummaryView } from '@/shared/schemas/tally';
 import { payAppKeys } from './keys';
 
 export type LineBackup = {
   line: { id: string; bidItemId: string; payAppId: string; payAppNumber: number };
   tallies: TallySummaryView[];
+  /** A truck-measure or weight line's tickets (paid, then held); empty for other lines. */
+  tickets: LineTicketView[];
 };
 
 /** The tallies behind one line (GET /api/pay-apps/:payAppId/lines/:lineId/tallies), fetched when it is opened. */

@@ -3,6 +3,7 @@ import { Link } from 'react-router';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { formatDate, formatQuantity } from '@/lib/format';
 import { MEASUREMENT_METHOD_LABELS } from '@/shared/constants';
+import type { LineTicketView } from '@/shared/schemas/pay-app';
 import { useLineBackup } from '../api/get-line-backup';
 
 type LineBackupProps = { projectId: string; payAppId: string; lineId: string; itemNumber: string };
@@ -12,7 +13,8 @@ export function LineBackupList({ projectId, payAppId, lineId, itemNumber }: Line
   const query = useLineBackup(payAppId, lineId, true);
   if (query.isPending) return <LoadingState label={`Loading the backup of item ${itemNumber}…`} />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
-  const { tallies } = query.data;
+  const { tallies, tickets } = query.data;
+  if (tickets.length > 0) return <LineTickets tickets={tickets} itemNumber={itemNumber} />;
   if (tallies.length === 0) {
     return (
       <p className="text-sm text-stone-600">
@@ -51,6 +53,32 @@ export function LineBackupList({ projectId, payAppId, lineId, itemNumber }: Line
               <Paperclip aria-hidden className="mr-1 inline size-3.5" />
               {t.evidenceCount === 0 ? 'none' : `${t.evidenceCount} file${t.evidenceCount === 1 ? '' : 's'}`}
             </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+/** A ticket-measured line's backup: the tickets the application paid, then those it held out and why. */
+function LineTickets({ tickets, itemNumber }: { tickets: LineTicketView[]; itemNumber: string }) {
+  return (
+    <table className="w-full text-sm" aria-label={`Tickets behind item ${itemNumber}`}>
+      <thead>
+        <tr className="border-b border-stone-200 text-left text-xs text-stone-600">
+          <th className="py-1 pr-3 font-medium">Dated</th>
+          <th className="py-1 pr-3 font-medium">Ticket</th>
+          <th className="py-1 pr-3 text-right font-medium">Taken</th>
+          <th className="py-1 pr-3 font-medium">On this application</th>
+        </tr>
+      </thead>
+      <tbody>
+        {tickets.map((t) => (
+          <tr key={t.id} className="border-b border-stone-100">
+            <td className="py-1 pr-3 whitespace-nowrap">{formatDate(`${t.date}T12:00:00`)}</td>
+            <td className="py-1 pr-3">{t.label}</td>
+            <td className="py-1 pr-3 text-right tabular-nums">{t.measure || '–'}</td>
+            <td className={`py-1 pr-3 ${t.held ? 'text-brick-700' : ''}`}>{t.held ? `Held: ${t.held}` : 'Paid'}</td>
           </tr>
         ))}
       </tbody>

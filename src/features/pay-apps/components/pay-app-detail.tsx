@@ -16,6 +16,7 @@ import { PayAppStatusBadge, periodText } from './pay-app-labels';
 import { PayAppLinesTable } from './pay-app-lines-table';
 import { ChangeOrderSummaryCard, PayAppTotals } from './pay-app-totals';
 import { ScheduleOfValues } from './schedule-of-values';
+import { TicketHolds } from './ticket-holds';
 import { RevisePanel } from './revise-panel';
 import { approveRemaining, reviewBody, type ReviewDraft } from './review-draft';
 import { StatusHistory } from './status-history';
@@ -160,6 +161,7 @@ export function PayAppDetailScreen({ payAppId, payment }: { payAppId: string; pa
         </div>
       </Dialog>
       <ScheduleOfValues app={app} />
+      <TicketHolds app={app} />
       {app.can.answer ? <RevisePanel key={app.revision} app={app} /> : null}
       {isFrozen(app.status) ? payment : null}
       <div className="grid gap-4 lg:grid-cols-[1.4fr_1fr]">

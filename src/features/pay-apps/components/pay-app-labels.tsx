@@ -1,5 +1,5 @@
 import { Badge } from '@/components/ui/badge';
-import { formatDate } from '@/lib/format';
+import { formatDateRange } from '@/lib/format';
 import type { LineReviewStatus, PayAppStatus } from '@/shared/constants';
 
 /** Screen words for the API's status codes. */
@@ -39,6 +39,4 @@ export function LineReviewBadge({ status }: { status: LineReviewStatus }) {
   return <Badge tone={LINE[status].tone}>{LINE[status].label}</Badge>;
 }
 
-/** "Nov 1, 2026 to Nov 30, 2026": the dates as every other screen shows them (noon, so no time zone moves a day). */
-export const periodText = (start: string, end: string) =>
-  `${formatDate(`${start}T12:00:00`)} to ${formatDate(`${end}T12:00:00`)}`;
+export const periodText = formatDateRange;

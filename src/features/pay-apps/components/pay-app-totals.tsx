@@ -73,7 +73,10 @@ export function ChangeOrderSummaryCard({ app }: { app: PayAppDetail }) {
               <li key={l.number} className="flex justify-between gap-3">
                 <span>
                   <span className="font-medium">CO {l.number}</span> {l.title}{' '}
-                  <span className="text-stone-500">· {l.approvedAt.slice(0, 10)}</span>
+                  {l.approvedAt ? <span className="text-stone-500">· {l.approvedAt.slice(0, 10)}</span> : null}
+                  {l.forceAccountCents ? (
+                    <span className="text-stone-500"> · force account {formatMoney(l.forceAccountCents)}</span>
+                  ) : null}
                 </span>
                 <span className="whitespace-nowrap tabular-nums">{formatMoney(l.amountCents)}</span>
               </li>
