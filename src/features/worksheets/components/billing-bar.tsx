@@ -22,6 +22,13 @@ const itemLabel = (b: BidItemView) => `${b.itemNumber} · ${b.description} (${b.
 /** The one line that says what saving would bill. */
 export function BillLine({ preview, item }: { preview: BillPreview | null; item: BidItemView | undefined }) {
   if (!item) return <p className="text-sm text-stone-600">Choose the bid item this measurement bills.</p>;
+  // The item's measurement profile pays it another way (tickets, steps, settings): the tally would bill nothing.
+  if (item.talliesNotBilled)
+    return (
+      <p className="text-sm text-clay-800" role="status" data-testid="bill-line">
+        Item {item.itemNumber} is {item.talliesNotBilled}.
+      </p>
+    );
   if (!preview) return <p className="text-sm text-stone-600">No quantity yet: the inputs need attention.</p>;
   if (preview.problem)
     return (
