@@ -1,11 +1,12 @@
 /**
  * `npm run restore -- FILE --yes`: brings a backup back. Embedded mode: into DATA_DIR, refused while a server
  * holds the folder. With DATABASE_URL: pg_restore into that database, refused while other sessions are connected,
- * then the uploads into DATA_DIR. The archive is checked first (manifest, mode, checksums); without --yes it only
+ * then the uploads into DATA_DIR (with S3_BUCKET: into the bucket, before the database). The archive is checked first (manifest, mode, checksums); without --yes it only
  * says what it would replace. What was in DATA_DIR is moved into DATA_DIR/before-restore-<time>/.
  */
 import path from 'node:path';
 import { loadEnv } from '../server/env';
+import { s3OptionsFromEnv } from '../server/integrations/storage/s3-storage';
 import { restoreDataDir, restorePostgres, type BackupManifest } from '../server/lib/backup';
 
 const env = loadEnv();
@@ -17,10 +18,18 @@ if (!file) {
   process.exit(1);
 }
 
+const objects = s3OptionsFromEnv(env);
+const uploads = objects
+  ? `the files in bucket ${objects.bucket} (objects of the same name are overwritten; others stay)`
+  : `the uploads in ${path.resolve(env.DATA_DIR)}`;
+
 function target(): string {
-  if (!env.DATABASE_URL) return `the embedded database and uploads in ${path.resolve(env.DATA_DIR)}`;
+  if (!env.DATABASE_URL)
+    return objects
+      ? `the embedded database in ${path.resolve(env.DATA_DIR)} and ${uploads}`
+      : `the embedded database and uploads in ${path.resolve(env.DATA_DIR)}`;
   const url = new URL(env.DATABASE_URL);
-  return `database ${url.pathname.slice(1)} on ${url.hostname}:${url.port || 5432} and the uploads in ${path.resolve(env.DATA_DIR)}`;
+  return `database ${url.pathname.slice(1)} on ${url.hostname}:${url.port || 5432} and ${uploads}`;
 }
 
 const confirm = (m: BackupManifest) => {
@@ -33,8 +42,8 @@ const confirm = (m: BackupManifest) => {
 };
 
 const run = env.DATABASE_URL
-  ? restorePostgres(env.DATABASE_URL, env.DATA_DIR, file, { confirm })
-  : restoreDataDir(env.DATA_DIR, file, { confirm });
+  ? restorePostgres(env.DATABASE_URL, env.DATA_DIR, file, { confirm, objects })
+  : restoreDataDir(env.DATA_DIR, file, { confirm, objects });
 run
   .then((aside) => {
     console.log(`Restored ${file} into ${target()}.`);

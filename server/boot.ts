@@ -11,7 +11,7 @@ import { seedDemo } from './db/seed-demo';
 import { smtpMailer } from './integrations/mailer/mailer';
 import { startSmtpSink } from './integrations/mailer/smtp-sink';
 import { configurePayments } from './integrations/payments/configure';
-import { s3Storage } from './integrations/storage/s3-storage';
+import { s3OptionsFromEnv, s3Storage } from './integrations/storage/s3-storage';
 import { localStorage } from './integrations/storage/storage';
 import { isDemo, type Env } from './env';
 import { authSecret, type DataDirLayout } from './lib/data-dir';
@@ -44,14 +44,8 @@ export async function boot({ env, logger, layout, database, unlock }: BootArgs):
     logger,
   });
   const shouldSeed = env.SEED_DEMO === 'always' || (env.SEED_DEMO === 'auto' && !usePostgres);
-  const storage = env.S3_BUCKET
-    ? await s3Storage({
-        bucket: env.S3_BUCKET,
-        endpoint: env.S3_ENDPOINT,
-        region: env.S3_REGION,
-        forcePathStyle: (env.S3_FORCE_PATH_STYLE ?? (env.S3_ENDPOINT ? 'true' : 'false')) === 'true',
-      })
-    : localStorage(layout.uploads);
+  const objects = s3OptionsFromEnv(env);
+  const storage = objects ? await s3Storage(objects) : localStorage(layout.uploads);
   if (env.S3_BUCKET)
     logger.info({ bucket: env.S3_BUCKET, endpoint: env.S3_ENDPOINT }, 'uploads go to S3-compatible storage');
   if (shouldSeed && (await seedDemo(database.db, auth, storage))) logger.info('seeded the demo project');

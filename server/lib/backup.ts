@@ -16,6 +16,8 @@ import {
   type BackupMode,
   type BackupPart,
 } from './backup-archive';
+import type { S3Options } from '../integrations/storage/s3-storage';
+import { checkBucket, downloadBucket, uploadFolder } from './backup-objects';
 import { connect, findPgTool, otherSessions, pgDump, pgRestore, serverVersion } from './backup-postgres';
 import { dataDirLayout, lockDataDir, type DataDirLayout } from './data-dir';
 
@@ -24,7 +26,12 @@ export { BackupError, type BackupManifest } from './backup-archive';
 export type BackupResult = { file: string; manifest: BackupManifest };
 /** Asked after the archive passed every check and before anything is changed; false stops the restore. */
 export type ConfirmRestore = (manifest: BackupManifest) => boolean | Promise<boolean>;
-export type RestoreOptions = { confirm?: ConfirmRestore };
+/**
+ * Where the uploads live when not in DATA_DIR/uploads: the S3-compatible bucket (S3_BUCKET). A backup copies its
+ * objects into the uploads part; a restore puts that part's files back into it.
+ */
+export type UploadsTarget = { objects?: S3Options | null };
+export type RestoreOptions = UploadsTarget & { confirm?: ConfirmRestore };
 
 type Query = <T>(sql: string) => Promise<T[]>;
 
@@ -49,10 +56,25 @@ async function referencedUploads(query: Query): Promise<string[]> {
   return keys.sort();
 }
 
-/** Packs the uploads folder and answers the referenced keys that are not in the pack (deleted meanwhile, or lost). */
-function packUploads(layout: DataDirLayout, stage: string, mode: BackupMode, referenced: string[]): string[] {
+/**
+ * Packs the uploads (DATA_DIR/uploads, or a copy of the bucket's objects taken into the staging folder) and answers
+ * the referenced keys that are not in the pack (deleted meanwhile, or lost).
+ */
+async function packUploads(
+  layout: DataDirLayout,
+  stage: string,
+  mode: BackupMode,
+  referenced: string[],
+  objects: S3Options | null | undefined,
+): Promise<string[]> {
   const file = path.join(stage, PART_FILES[mode].uploads);
-  packFolder(layout.uploads, file);
+  let source = layout.uploads;
+  if (objects) {
+    source = path.join(stage, 'objects');
+    mkdirSync(source);
+    await downloadBucket(objects, source);
+  }
+  packFolder(source, file);
   const listing = spawnSync('tar', ['-tf', file], { encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
   const packed = new Set(listing.stdout.split('\n').map((n) => n.replace(/^\.\//, '')));
   return referenced.filter((k) => !packed.has(k));
@@ -93,7 +115,11 @@ function stageIn(outDir: string): string {
  * writing), the uploads and the auth secret in one .tar.gz with a manifest. The file holds password hashes and
  * the secret: keep it as private as the data folder.
  */
-export async function backupDataDir(dataDir: string, outDir: string): Promise<BackupResult> {
+export async function backupDataDir(
+  dataDir: string,
+  outDir: string,
+  { objects }: UploadsTarget = {},
+): Promise<BackupResult> {
   const layout = dataDirLayout(dataDir);
   if (!existsSync(layout.db)) throw new BackupError(`There is no database in ${layout.db} to back up.`);
   const unlock = await lockDataDir(layout);
@@ -106,7 +132,7 @@ export async function backupDataDir(dataDir: string, outDir: string): Promise<Ba
     const dump = await pg.dumpDataDir('gzip');
     await pg.close();
     writeFileSync(path.join(stage, PART_FILES.embedded.database), Buffer.from(await dump.arrayBuffer()));
-    const missingUploads = packUploads(layout, stage, 'embedded', referenced);
+    const missingUploads = await packUploads(layout, stage, 'embedded', referenced, objects);
     return await finish(layout, stage, outDir, { mode: 'embedded', migrations, missingUploads });
   } finally {
     rmSync(stage, { recursive: true, force: true });
@@ -120,7 +146,12 @@ export async function backupDataDir(dataDir: string, outDir: string): Promise<Ba
  * the migration level and the referenced files, so all three describe the same moment; the uploads are copied
  * after it (files added since are harmless extras, and one deleted since is listed in `missingUploads`).
  */
-export async function backupPostgres(databaseUrl: string, dataDir: string, outDir: string): Promise<BackupResult> {
+export async function backupPostgres(
+  databaseUrl: string,
+  dataDir: string,
+  outDir: string,
+  { objects }: UploadsTarget = {},
+): Promise<BackupResult> {
   const layout = dataDirLayout(dataDir);
   const client = await connect(databaseUrl);
   const stage = stageIn(outDir);
@@ -134,7 +165,7 @@ export async function backupPostgres(databaseUrl: string, dataDir: string, outDi
     const referenced = await referencedUploads(query);
     pgDump(tool, databaseUrl, path.join(stage, PART_FILES.postgres.database), snapshot);
     await client.query('commit');
-    const missingUploads = packUploads(layout, stage, 'postgres', referenced);
+    const missingUploads = await packUploads(layout, stage, 'postgres', referenced, objects);
     return await finish(layout, stage, outDir, {
       mode: 'postgres',
       migrations,
@@ -178,6 +209,17 @@ function swapIn(
   return aside;
 }
 
+/**
+ * The uploads part unpacked: into the bucket when there is one (answers null: nothing to move into DATA_DIR), otherwise
+ * a folder ready to be renamed into place.
+ */
+async function restoreUploads(stage: string, mode: BackupMode, objects: S3Options | null | undefined) {
+  const folder = unpackUploads(stage, mode);
+  if (!objects) return folder;
+  await uploadFolder(objects, folder);
+  return null;
+}
+
 async function confirmed(manifest: BackupManifest, options: RestoreOptions) {
   if (options.confirm && !(await options.confirm(manifest)))
     throw new BackupError('Restore not confirmed: nothing was changed.');
@@ -198,13 +240,14 @@ export async function restoreDataDir(
   const stage = mkdtempSync(path.join(layout.root, '.restore-'));
   try {
     const manifest = await openArchive(file, stage, 'embedded');
+    if (options.objects) await checkBucket(options.objects);
     await confirmed(manifest, options);
     const db = path.join(stage, 'db-restored');
     const dump = readFileSync(path.join(stage, PART_FILES.embedded.database));
     const pg = await PGlite.create(db, { loadDataDir: new Blob([dump]) });
     await pg.query('select 1');
     await pg.close();
-    const uploads = unpackUploads(stage, 'embedded');
+    const uploads = await restoreUploads(stage, 'embedded', options.objects);
     const secret = manifest.parts.some((p) => p.name === 'auth-secret')
       ? path.join(stage, PART_FILES.embedded['auth-secret'])
       : null;
@@ -262,8 +305,10 @@ export async function restorePostgres(
         `The database is at migration ${current.latest}, newer than the backup's ${manifest.migrations.latest ?? '(none)'}; restoring over it would leave the newer tables behind. Restore into an empty database (createdb), then point DATABASE_URL at it.`,
       );
     }
+    if (options.objects) await checkBucket(options.objects);
     await confirmed(manifest, options);
-    const uploads = unpackUploads(stage, 'postgres');
+    // Files first: the restored database then never names an object that is not there yet.
+    const uploads = await restoreUploads(stage, 'postgres', options.objects);
     await disconnect();
     pgRestore(tool, databaseUrl, path.join(stage, PART_FILES.postgres.database));
     const secret = manifest.parts.some((p) => p.name === 'auth-secret')

@@ -244,7 +244,93 @@ describe('surface tallies measure against the locked baseline', () => {
     expect(bent.status).toBe(201);
     expect(bent.body.tally.result.engine.cut).toBeCloseTo(10_000 / 27, 6);
     const bentStored = (await sub.get(`/api/tallies/${bent.body.tally.id}`)).body.tally.inputs;
-    expect(bentStored.existingFaces).toBeUndefined();
+    // What is stored is what was measured: the baseline's own two faces, not the one sent.
+    expect(bentStored.existingFaces).toEqual([
+      [0, 1, 2],
+      [0, 2, 3],
+    ]);
     expect(bentStored.existingBreaklines).toBeUndefined();
+  });
+});
+
+describe('point files and faces as original ground', () => {
+  async function recordFile(bytes: string, fileName: string, fields: Record<string, string>) {
+    let req = (await as('subcontractor')).post(`/api/projects/${w.home.id}/surface-baselines`);
+    for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+    return req.attach('file', Buffer.from(bytes), fileName);
+  }
+  const square = '1,0,0,100,EG\n2,0,100,100,EG\n3,100,100,100,EG\n4,100,0,100,EG';
+
+  it('records a point file in the order its header names, in the unit the recorder gives (a point file has none)', async () => {
+    const text = `Point,Easting,Northing,Elevation,Description\n${square}`;
+    const noUnit = await recordFile(text, 'points.csv', { area: 'Points A' });
+    expect([noUnit.status, noUnit.body.error.code]).toEqual([400, 'BASELINE_UNITS_REQUIRED']);
+    const res = await recordFile(text, 'points.csv', { area: 'Points A', unit: 'ft' });
+    expect(res.status).toBe(201);
+    expect(res.body.baseline).toMatchObject({ pointCount: 4, pointOrder: 'PENZD', linearUnit: 'foot' });
+    const file = await (await as('subcontractor')).get(res.body.baseline.downloadUrl);
+    expect(file.headers['content-type']).toMatch(/^text\/csv/);
+  });
+
+  it('asks the column order of a point file without a header, and refuses NaN, infinite values and two heights at one plan point, naming the line', async () => {
+    const asked = await recordFile(square, 'points.csv', { area: 'Points B', unit: 'ft' });
+    expect([asked.status, asked.body.error.code, asked.body.error.details[0].path]).toEqual([
+      400,
+      'BASELINE_ORDER_REQUIRED',
+      'order',
+    ]);
+    const told = await recordFile(square, 'points.csv', { area: 'Points B', unit: 'ft', order: 'PNEZD' });
+    expect([told.status, told.body.baseline.pointOrder]).toEqual([201, 'PNEZD']);
+    const before = (await t.database.db.select().from(auditEvents)).length;
+    const nan = await recordFile(`${square}\n5,50,NaN,100,EG`, 'points.csv', {
+      area: 'Points C',
+      unit: 'ft',
+      order: 'PNEZD',
+    });
+    expect(nan.status).toBe(400);
+    expect(nan.body.error.details[0].message).toBe(
+      'Line 5, easting: "NaN" is not a finite number (NaN and infinite values are refused)',
+    );
+    const inf = await recordFile(`${square}\n5,50,1e400,100,EG`, 'points.csv', {
+      area: 'Points C',
+      unit: 'ft',
+      order: 'PNEZD',
+    });
+    expect(inf.body.error.details[0].message).toContain('Line 5, easting: "1e400" is not a finite number');
+    const twice = await recordFile(`${square}\n5,100,100,101,EG`, 'points.csv', {
+      area: 'Points C',
+      unit: 'ft',
+      order: 'PNEZD',
+    });
+    expect(twice.body.error.details[0].message).toBe(
+      'Line 5, elevation: Point 5 has the plan position of point 3 (line 3) with another elevation (101 against 100)',
+    );
+    expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
+  });
+
+  it("a locked LandXML baseline with faces is measured on its faces as given (one face: half the square's cut)", async () => {
+    const item = await makeBidItem(t.database.db, w.home.id, { payUnit: 'CY', basis: 'bank', method: 'surface' });
+    // One face over the square's corners 1, 2, 3: a right triangle of 5,000 sq ft at 100 ft, design at 99 ft:
+    // 5,000 cu ft (hand computation); Delaunay of the four points would cover the whole square (10,000 cu ft).
+    const oneFace = ground(30.48).toString().replace('<F>1 2 3</F><F>1 3 4</F>', '<F>1 2 3</F>');
+    const id = (await recordFile(oneFace, 'one-face.xml', { area: 'Faces' })).body.baseline.id as string;
+    await accept('subcontractor', id);
+    await accept('general_contractor', id);
+    const design = [
+      [0, 0, 99],
+      [100, 0, 99],
+      [100, 100, 99],
+      [0, 100, 99],
+    ];
+    const res = await (await as('subcontractor')).post(`/api/projects/${w.home.id}/tallies`).send({
+      bidItemId: item.id,
+      measuredOn: '2026-10-21',
+      method: 'surface',
+      component: 'cut',
+      inputs: { unit: 'ft', existing: design, design, baselineId: id },
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.tally.result.engine.cut).toBeCloseTo(5_000 / 27, 6);
+    expect(res.body.tally.result.engine.footprintArea).toBeCloseTo(5_000, 6);
   });
 });

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync } from 'node:fs';
+import { execFileSync, spawn } from 'node:child_process';
+import { mkdtempSync, readdirSync } from 'node:fs';
 import { createServer, type Socket } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -57,6 +58,7 @@ describe.skipIf(!serverUrl)('two app servers sharing PostgreSQL and S3-compatibl
   let standin: Standin;
   let sql: pg.Client;
   const deliveries: Delivery[] = [];
+  let s3Env: Record<string, string>;
   /** Sessions made before the sign-in limiter test backs the owner off (better-auth also limits sign-ins per address). */
   let ownerCookie: string;
   let subCookie: string;
@@ -99,15 +101,18 @@ describe.skipIf(!serverUrl)('two app servers sharing PostgreSQL and S3-compatibl
     });
     sql = new pg.Client({ connectionString: clone.url });
     await sql.connect();
+    s3Env = {
+      S3_BUCKET: 'tallyard-two',
+      S3_ENDPOINT: endpoint,
+      AWS_ACCESS_KEY_ID: credentials.accessKeyId,
+      AWS_SECRET_ACCESS_KEY: credentials.secretAccessKey,
+    };
     const shared = {
       NODE_ENV: 'development',
       DATABASE_URL: clone.url,
       BETTER_AUTH_SECRET: 'two-servers-share-this-secret-0123456789',
       SMTP_URL: mail.url,
-      S3_BUCKET: 'tallyard-two',
-      S3_ENDPOINT: endpoint,
-      AWS_ACCESS_KEY_ID: credentials.accessKeyId,
-      AWS_SECRET_ACCESS_KEY: credentials.secretAccessKey,
+      ...s3Env,
       OUTBOX_POLL_SECONDS: '1',
       STRIPE_SECRET_KEY: 'sk_test_two_servers',
       STRIPE_WEBHOOK_SECRET: webhookSecret,
@@ -220,6 +225,38 @@ describe.skipIf(!serverUrl)('two app servers sharing PostgreSQL and S3-compatibl
     // Five failures from this address, split between the servers: the sixth waits, whichever server it reaches.
     expect((await attempt(a, DEMO_PASSWORD)).status).toBe(429);
     expect((await attempt(b, DEMO_PASSWORD)).status).toBe(429);
+  });
+
+  it('backs up while both servers run: the dump plus every object the database names, from the bucket', async () => {
+    const outDir = mkdtempSync(path.join(tmpdir(), 'two-backup-'));
+    const backup = await new Promise<{ status: number | null; stderr: string }>((resolve) => {
+      // Awaited, not spawnSync: s3rver answers from this process's event loop.
+      const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/backup.ts', '--out', outDir], {
+        env: { ...process.env, ...s3Env, DATABASE_URL: clone.url, DATA_DIR: mkdtempSync(path.join(tmpdir(), 'bk-')) },
+      });
+      let stderr = '';
+      child.stderr.on('data', (d) => (stderr += String(d)));
+      child.on('close', (status) => resolve({ status, stderr }));
+    });
+    expect(backup.status, backup.stderr).toBe(0);
+    const archive = path.join(
+      outDir,
+      readdirSync(outDir).find((n) => n.endsWith('.tar.gz'))!,
+    );
+    const manifest = JSON.parse(execFileSync('tar', ['-xzOf', archive, 'manifest.json'], { encoding: 'utf8' })) as {
+      missingUploads: string[];
+    };
+    expect(manifest.missingUploads).toEqual([]);
+    const look = mkdtempSync(path.join(tmpdir(), 'two-look-'));
+    execFileSync('tar', ['-xzf', archive, '-C', look, 'uploads.tar']);
+    const packed = new Set(
+      execFileSync('tar', ['-tf', path.join(look, 'uploads.tar')], { encoding: 'utf8' })
+        .split('\n')
+        .map((n) => n.replace(/^\.\//, '')),
+    );
+    const named = await sql.query<{ k: string }>('select storage_key as k from tally_evidence');
+    expect(named.rows.length).toBeGreaterThan(0);
+    expect(named.rows.filter((r) => !packed.has(r.k))).toEqual([]);
   });
 
   it('applies a Stripe event delivered to both servers at once exactly once', async () => {

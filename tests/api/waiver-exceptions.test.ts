@@ -56,6 +56,29 @@ async function pdfText(url: string) {
   return text.replace(/\s+/g, ' ');
 }
 
+/** A resolved dispute on the application's first line (the factory certifies 1,200 CY there), claimed at 1,300 CY. */
+async function resolvedDispute(
+  payAppId: string,
+  d: { counterQuantity: number; resolution: 'counter_accepted' | 'quantity_proposed' },
+) {
+  const [line] = await t.database.db
+    .select()
+    .from(payAppLines)
+    .where(eq(payAppLines.payAppId, payAppId))
+    .orderBy(payAppLines.sortOrder);
+  await t.database.db.insert(disputes).values({
+    payAppId,
+    lineId: line!.id,
+    revision: 0,
+    reason: 'Over-excavation not authorised',
+    claimedQuantity: 1300,
+    status: 'resolved',
+    openedByUserId: world.people.general_contractor.id,
+    ...d,
+  });
+  return line!;
+}
+
 async function paid(app: { id: string }) {
   const { sessionId } = await startPayment(owner, app.id);
   await confirm(t.standin, sessionId, { card: CARD_OK });
@@ -79,23 +102,8 @@ describe('waiver exceptions', () => {
 
   it('price a disputed line’s uncertified claim and an approved change order not yet billed, and take the signer’s own', async () => {
     const app = await newApp();
-    const [line] = await t.database.db
-      .select()
-      .from(payAppLines)
-      .where(eq(payAppLines.payAppId, app.id))
-      .orderBy(payAppLines.sortOrder);
     // Claimed 1,300 CY, certified 1,200 CY: 100 CY x $7.25 = $725.00 in dispute.
-    await t.database.db.insert(disputes).values({
-      payAppId: app.id,
-      lineId: line!.id,
-      revision: 0,
-      reason: 'Over-excavation not authorised',
-      counterQuantity: 1200,
-      claimedQuantity: 1300,
-      status: 'resolved',
-      resolution: 'counter_accepted',
-      openedByUserId: world.people.general_contractor.id,
-    });
+    const line = await resolvedDispute(app.id, { counterQuantity: 1200, resolution: 'counter_accepted' });
     // A change order approved after the period (+40 CY on the line's item at $7.25 = $290.00), and one approved
     // inside the period (its work could be in the application, so it is no exception).
     for (const [decidedAt, delta, title] of [
@@ -151,23 +159,8 @@ describe('waiver exceptions', () => {
 
   it('keep nothing open on a line certified at a quantity the subcontractor proposed itself', async () => {
     const app = await newApp();
-    const [line] = await t.database.db
-      .select()
-      .from(payAppLines)
-      .where(eq(payAppLines.payAppId, app.id))
-      .orderBy(payAppLines.sortOrder);
     // Claimed 1,300 CY, countered at 1,100 CY; the subcontractor proposed 1,200 CY, which was certified.
-    await t.database.db.insert(disputes).values({
-      payAppId: app.id,
-      lineId: line!.id,
-      revision: 0,
-      reason: 'Over-excavation not authorised',
-      counterQuantity: 1100,
-      claimedQuantity: 1300,
-      status: 'resolved',
-      resolution: 'quantity_proposed',
-      openedByUserId: world.people.general_contractor.id,
-    });
+    await resolvedDispute(app.id, { counterQuantity: 1100, resolution: 'quantity_proposed' });
     const res = await issue(app.id, { kind: 'conditional_progress' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body.waiver.exceptions.map((e: { kind: string }) => e.kind)).toEqual(['retainage_held']);

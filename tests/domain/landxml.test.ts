@@ -325,4 +325,27 @@ describe('point files in PNEZD or PENZD order (common practice: the order varies
       'The header says PENZD, but PNEZD was chosen',
     );
   });
+
+  it('refuses NaN and infinite values naming the line, and reports one plan position with two elevations', () => {
+    const f = readPointCsv(
+      '1,5000,2000,100\n2,NaN,2001,100\n3,5001,-Infinity,100\n4,5002,2002,1e999\n5,5000,2000,101',
+      'PNEZD',
+    );
+    expect(f.issues).toEqual([
+      { line: 2, column: 'northing', message: '"NaN" is not a finite number (NaN and infinite values are refused)' },
+      {
+        line: 3,
+        column: 'easting',
+        message: '"-Infinity" is not a finite number (NaN and infinite values are refused)',
+      },
+      { line: 4, column: 'elevation', message: '"1e999" is not a finite number (NaN and infinite values are refused)' },
+      {
+        line: 5,
+        column: 'elevation',
+        message: 'Point 5 has the plan position of point 1 (line 1) with another elevation (101 against 100)',
+      },
+    ]);
+    // The same plan position with the same elevation is one point surveyed twice: kept (the engine keeps it once).
+    expect(readPointCsv('1,5000,2000,100\n2,5000,2000,100', 'PNEZD').issues).toEqual([]);
+  });
 });

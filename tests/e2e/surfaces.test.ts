@@ -75,7 +75,7 @@ describe('original ground, as-built surface, tally and map', () => {
   it('records and locks the original ground, measures the as-built against it, and shows the map', async () => {
     const sub = await signedIn('sub@tallyard.test');
     await openTab(sub, 'Original ground');
-    await sub.getByLabel('LandXML surface file').setInputFiles({
+    await sub.getByLabel('Surface file', { exact: true }).setInputFiles({
       name: 'basin-original-ground.xml',
       mimeType: 'application/xml',
       buffer: ORIGINAL,

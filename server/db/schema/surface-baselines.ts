@@ -1,5 +1,16 @@
 import { sql } from 'drizzle-orm';
-import { customType, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import {
+  customType,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { BASELINE_STATUSES } from '../../../src/shared/constants';
 import { user } from './auth';
 import { timestamps } from './columns';
@@ -42,6 +53,12 @@ export const surfaceBaselines = pgTable(
     elevationUnit: text('elevation_unit').notNull(),
     unitsFrom: text('units_from').notNull(),
     points: bytea('points').notNull(),
+    /** The surface's faces as given (LandXML Faces): 0-based point indices, little-endian uint32 triples; null without. */
+    faces: bytea('faces'),
+    /** Breaklines of a surface without faces: [x, y, z] polylines in the file's units; null without. */
+    breaklines: jsonb('breaklines').$type<[number, number, number][][]>(),
+    /** A point file's column order (PNEZD or PENZD: from its header or as the recorder said); null for LandXML. */
+    pointOrder: text('point_order'),
     replacesId: uuid('replaces_id'),
     recordedByUserId: text('recorded_by_user_id')
       .notNull()

@@ -2,6 +2,7 @@ import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { stat } from 'node:fs/promises';
 import type { S3Client } from '@aws-sdk/client-s3';
+import type { Env } from '../../env';
 import type { Storage } from './storage';
 
 export type S3Options = {
@@ -21,13 +22,21 @@ const folderOf = (hint: string) =>
     .replace(/[^a-z0-9-]/g, '-')
     .slice(0, 40) || 'file';
 
-/**
- * Uploads in an S3-compatible bucket through the AWS SDK, for several app servers sharing one store (issue 16).
- * Keys are random, as in the local folder; the SDK loads only when a bucket is configured.
- */
-export async function s3Storage(options: S3Options): Promise<Storage> {
-  const { S3Client, PutObjectCommand, GetObjectCommand, DeleteObjectCommand } = await import('@aws-sdk/client-s3');
-  const client: S3Client = new S3Client({
+/** The bucket and store from the environment (S3_BUCKET and its companions), or null when uploads stay local. */
+export function s3OptionsFromEnv(env: Env): S3Options | null {
+  if (!env.S3_BUCKET) return null;
+  return {
+    bucket: env.S3_BUCKET,
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION,
+    forcePathStyle: (env.S3_FORCE_PATH_STYLE ?? (env.S3_ENDPOINT ? 'true' : 'false')) === 'true',
+  };
+}
+
+/** An SDK client for the store (loaded on first use). */
+export async function s3Client(options: S3Options): Promise<S3Client> {
+  const { S3Client } = await import('@aws-sdk/client-s3');
+  return new S3Client({
     region: options.region,
     forcePathStyle: options.forcePathStyle,
     // Checksums only where S3 requires them: the SDK's default sends a streamed body as aws-chunked with a trailing
@@ -37,6 +46,15 @@ export async function s3Storage(options: S3Options): Promise<Storage> {
     ...(options.endpoint ? { endpoint: options.endpoint } : {}),
     ...(options.credentials ? { credentials: options.credentials } : {}),
   });
+}
+
+/**
+ * Uploads in an S3-compatible bucket through the AWS SDK, for several app servers sharing one store (issue 16).
+ * Keys are random, as in the local folder; the SDK loads only when a bucket is configured.
+ */
+export async function s3Storage(options: S3Options): Promise<Storage> {
+  const { PutObjectCommand, GetObjectCommand, DeleteObjectCommand } = await import('@aws-sdk/client-s3');
+  const client = await s3Client(options);
   const Bucket = options.bucket;
   return {
     async put(bytes, hint) {

@@ -1,6 +1,14 @@
 import { createReadStream } from 'node:fs';
+import { readFile } from 'node:fs/promises';
 import { MAX_BASELINE_BYTES } from '../../../src/shared/constants';
-import { factorTo, readLandXmlStream, type LandXmlLengthUnit } from '../../../src/shared/landxml';
+import {
+  factorTo,
+  readLandXmlStream,
+  readPointCsv,
+  type LandXmlIssue,
+  type LandXmlLengthUnit,
+  type PointOrder,
+} from '../../../src/shared/landxml';
 import { AppError } from '../../lib/app-error';
 import { streamedUpload, type UploadedFile } from '../../lib/upload';
 import { safeFileName } from '../tallies/evidence-files';
@@ -24,19 +32,93 @@ export type BaselineSurface = {
   unitsFrom: 'file' | 'recorder';
   /** x, y, z little-endian float64 triples in the file's units. */
   points: Buffer;
+  /** LandXML faces as given (0-based uint32 triples), or null. */
+  faces: Buffer | null;
+  /** LandXML breaklines of a surface without faces, [x, y, z] in the file's units, or null. */
+  breaklines: [number, number, number][][] | null;
+  contentType: 'application/xml' | 'text/csv';
+  /** A point file's column order; null for LandXML. */
+  pointOrder: PointOrder | null;
 };
 
 const invalid = (message: string, details = [{ path: 'file', message }]) =>
   new AppError(400, 'BASELINE_FILE_INVALID', message, details);
 
+const refuseIssues = (fileName: string, what: string, issues: LandXmlIssue[]) =>
+  invalid(
+    `${fileName} could not be read as ${what}: ${issues[0]!.line > 0 ? `line ${issues[0]!.line}, ` : ''}${issues[0]!.column}: ${issues[0]!.message}`,
+    issues.map((i) => ({
+      path: 'file',
+      message: `${i.line > 0 ? `Line ${i.line}, ` : ''}${i.column}: ${i.message}`,
+    })),
+  );
+
+const packed = (x: ArrayLike<number>, y: ArrayLike<number>, z: ArrayLike<number>) => {
+  const n = x.length;
+  const xyz = new Float64Array(3 * n);
+  for (let i = 0; i < n; i++) {
+    xyz[3 * i] = x[i]!;
+    xyz[3 * i + 1] = y[i]!;
+    xyz[3 * i + 2] = z[i]!;
+  }
+  return Buffer.from(xyz.buffer);
+};
+
+const unitsRequired = (fileName: string, why: string) => {
+  const message = `${fileName} ${why}: say whether its coordinates and elevations are in feet or metres`;
+  return new AppError(400, 'BASELINE_UNITS_REQUIRED', message, [{ path: 'unit', message }]);
+};
+
+/**
+ * A point file (CSV: point, northing, easting, elevation, description in PNEZD or PENZD order): the order from a
+ * header naming the columns, else as the recorder chose it (400 BASELINE_ORDER_REQUIRED asks); a point file has no
+ * units, so the recorder gives them. Bad values (NaN, infinite), repeated points and the same plan position with
+ * another elevation are refused naming the line (src/shared/landxml/point-csv.ts).
+ */
+async function readPointFileBaseline(
+  up: UploadedFile,
+  fileName: string,
+  unit: 'ft' | 'm' | undefined,
+  order: PointOrder | undefined,
+): Promise<BaselineSurface> {
+  const text = await readFile(up.path, 'utf8');
+  const f = readPointCsv(text, order);
+  if (f.needsOrder) {
+    const message = `${fileName} has no header naming its columns: say whether it is PNEZD (northing first) or PENZD (easting first)`;
+    throw new AppError(400, 'BASELINE_ORDER_REQUIRED', message, [{ path: 'order', message }]);
+  }
+  if (f.issues.length > 0) throw refuseIssues(fileName, 'a point file', f.issues);
+  if (f.x.length < 3) throw invalid(`${fileName} holds fewer than 3 points`);
+  if (!unit) throw unitsRequired(fileName, 'is a point file, which carries no units');
+  const u: LandXmlLengthUnit = unit === 'ft' ? 'foot' : 'meter';
+  return {
+    fileName,
+    sizeBytes: up.size,
+    sha256: up.sha256,
+    path: up.path,
+    surfaceName: `Points (${f.order})`,
+    pointCount: f.x.length,
+    linearUnit: u,
+    elevationUnit: u,
+    unitsFrom: 'recorder',
+    points: packed(f.x, f.y, f.z),
+    faces: null,
+    breaklines: null,
+    contentType: 'text/csv',
+    pointOrder: f.order,
+  };
+}
+
 /**
  * Reads the uploaded LandXML with the streaming reader (src/shared/landxml): the first surface with points, its
- * units from <Units> or, for a file without them, the unit the recorder gave. Anything the reader reports refuses the
- * file with each problem's line.
+ * faces (used as given) or breaklines, its units from <Units> or, for a file without them, the unit the recorder
+ * gave. A .csv or .txt file is a point file (readPointFileBaseline). Anything the reader reports refuses the file
+ * with each problem's line.
  */
 export async function readBaselineFile(
   file: Express.Multer.File | undefined,
   unit?: 'ft' | 'm',
+  order?: PointOrder,
 ): Promise<BaselineSurface> {
   const up = file as UploadedFile | undefined;
   if (!up)
@@ -44,36 +126,19 @@ export async function readBaselineFile(
       { path: 'file', message: 'Required' },
     ]);
   const fileName = safeFileName(up.originalname);
+  if (/\.(csv|txt)$/i.test(fileName)) return readPointFileBaseline(up, fileName, unit, order);
   if (!/\.(xml|landxml)$/i.test(fileName))
-    throw invalid(`${fileName}: an original ground surface is a LandXML file (.xml)`);
+    throw invalid(`${fileName}: an original ground surface is a LandXML file (.xml) or a point file (.csv)`);
   const doc = await readLandXmlStream(createReadStream(up.path, { encoding: 'utf8', highWaterMark: 1 << 20 }));
-  if (doc.issues.length > 0) {
-    throw invalid(
-      `${fileName} could not be read as LandXML: ${doc.issues[0]!.message}`,
-      doc.issues.map((i) => ({
-        path: 'file',
-        message: `${i.line > 0 ? `Line ${i.line}, ` : ''}${i.column}: ${i.message}`,
-      })),
-    );
-  }
+  if (doc.issues.length > 0) throw refuseIssues(fileName, 'LandXML', doc.issues);
   const surface = doc.surfaces.find((s) => s.x.length >= 3);
   if (!surface) throw invalid(`${fileName} holds no <Surface> with at least 3 points`);
   let { linearUnit, elevationUnit } = doc.units;
   let unitsFrom: 'file' | 'recorder' = 'file';
   if (doc.units.system === null) {
-    if (!unit) {
-      const message = `${fileName} has no <Units>: say whether its coordinates and elevations are in feet or metres`;
-      throw new AppError(400, 'BASELINE_UNITS_REQUIRED', message, [{ path: 'unit', message }]);
-    }
+    if (!unit) throw unitsRequired(fileName, 'has no <Units>');
     linearUnit = elevationUnit = unit === 'ft' ? 'foot' : 'meter';
     unitsFrom = 'recorder';
-  }
-  const n = surface.x.length;
-  const xyz = new Float64Array(3 * n);
-  for (let i = 0; i < n; i++) {
-    xyz[3 * i] = surface.x[i]!;
-    xyz[3 * i + 1] = surface.y[i]!;
-    xyz[3 * i + 2] = surface.z[i]!;
   }
   return {
     fileName,
@@ -81,12 +146,41 @@ export async function readBaselineFile(
     sha256: up.sha256,
     path: up.path,
     surfaceName: surface.name,
-    pointCount: n,
+    pointCount: surface.x.length,
     linearUnit,
     elevationUnit,
     unitsFrom,
-    points: Buffer.from(xyz.buffer),
+    points: packed(surface.x, surface.y, surface.z),
+    faces:
+      surface.faces.length > 0
+        ? Buffer.from(surface.faces.buffer, surface.faces.byteOffset, surface.faces.byteLength)
+        : null,
+    breaklines: surface.faces.length === 0 && surface.breaklines.length > 0 ? surface.breaklines : null,
+    contentType: 'application/xml',
+    pointOrder: null,
   };
+}
+
+/** A stored baseline's faces as row triples, or undefined without faces. */
+export function baselineFaces(b: { faces: Buffer | null }): [number, number, number][] | undefined {
+  if (!b.faces || b.faces.byteLength === 0) return undefined;
+  const copy = new Uint8Array(b.faces.byteLength);
+  copy.set(b.faces);
+  const ids = new Uint32Array(copy.buffer);
+  const rows: [number, number, number][] = new Array(ids.length / 3);
+  for (let i = 0; i < rows.length; i++) rows[i] = [ids[3 * i]!, ids[3 * i + 1]!, ids[3 * i + 2]!];
+  return rows;
+}
+
+/** A stored baseline's breaklines in the worksheet's unit, or undefined without them. */
+export function baselineBreaklines(
+  b: { breaklines: [number, number, number][][] | null; linearUnit: string; elevationUnit: string },
+  unit: 'ft' | 'm',
+): [number, number, number][][] | undefined {
+  if (!b.breaklines || b.breaklines.length === 0) return undefined;
+  const kp = factorTo(b.linearUnit as LandXmlLengthUnit, unit);
+  const kz = factorTo(b.elevationUnit as LandXmlLengthUnit, unit);
+  return b.breaklines.map((l) => l.map(([x, y, z]) => [x * kp, y * kp, z * kz] as [number, number, number]));
 }
 
 /** A stored baseline's points as [x, y, z] rows in the worksheet's unit (the reader's exact factors). */

@@ -1,6 +1,6 @@
 import type { Executor } from '../../db/client';
 import { AppError } from '../../lib/app-error';
-import { baselineRows } from './baseline-file';
+import { baselineBreaklines, baselineFaces, baselineRows } from './baseline-file';
 import * as repo from './surface-baselines.repository';
 
 const required = (message: string) =>
@@ -36,7 +36,12 @@ export async function surfaceAgainstBaseline(
   const names = await repo.userNames(db, [b.subAcceptedByUserId, b.gcAcceptedByUserId]);
   const day = (d: Date | null) => d?.toISOString().slice(0, 10) ?? '';
   return {
-    engineInputs: { ...rest, existing: baselineRows(b, unit) },
+    engineInputs: {
+      ...rest,
+      existing: baselineRows(b, unit),
+      existingFaces: baselineFaces(b),
+      existingBreaklines: baselineBreaklines(b, unit),
+    },
     kept: { baselineId: b.id, baselineSha256: b.sha256 },
     trail: `Existing surface: the locked original ground "${b.fileName}"${b.area ? ` (${b.area})` : ''}, SHA-256 ${b.sha256}, ${b.pointCount.toLocaleString('en-US')} points; accepted by ${names.get(b.subAcceptedByUserId ?? '') ?? ''} (subcontractor) on ${day(b.subAcceptedAt)} and ${names.get(b.gcAcceptedByUserId ?? '') ?? ''} (general contractor) on ${day(b.gcAcceptedAt)}`,
   };

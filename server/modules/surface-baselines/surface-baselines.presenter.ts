@@ -24,6 +24,7 @@ export function presentBaseline(
     linearUnit: row.linearUnit,
     elevationUnit: row.elevationUnit,
     unitsFrom: row.unitsFrom === 'recorder' ? 'recorder' : 'file',
+    pointOrder: row.pointOrder === 'PNEZD' || row.pointOrder === 'PENZD' ? row.pointOrder : null,
     replacesId: row.replacesId,
     recordedBy: names.get(row.recordedByUserId) ?? '',
     recordedAt: row.createdAt.toISOString(),

@@ -3,14 +3,19 @@ import type { Executor } from '../../db/client';
 import { surfaceBaselines, user } from '../../db/schema';
 
 export type BaselineRow = typeof surfaceBaselines.$inferSelect;
-export type BaselineSummaryRow = Omit<BaselineRow, 'points'>;
+export type BaselineSummaryRow = Omit<BaselineRow, 'points' | 'faces' | 'breaklines'>;
 
 function withoutPoints() {
   const columns: Partial<ReturnType<typeof getTableColumns<typeof surfaceBaselines>>> = {
     ...getTableColumns(surfaceBaselines),
   };
   delete columns.points;
-  return columns as Omit<ReturnType<typeof getTableColumns<typeof surfaceBaselines>>, 'points'>;
+  delete columns.faces;
+  delete columns.breaklines;
+  return columns as Omit<
+    ReturnType<typeof getTableColumns<typeof surfaceBaselines>>,
+    'points' | 'faces' | 'breaklines'
+  >;
 }
 /** Every column but the points (a million points are 24 MB): lists and state changes never read them. */
 const summaryColumns = withoutPoints();

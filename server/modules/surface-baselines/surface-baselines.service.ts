@@ -39,7 +39,7 @@ export async function recordBaseline(
 ): Promise<SurfaceBaselineView> {
   const { roles } = await loadProjectAccess(db, actor, projectId, canRecordBaseline);
   // Read only for someone who may record: nobody else makes the server parse a file.
-  const file = await readBaselineFile(upload, input.unit);
+  const file = await readBaselineFile(upload, input.unit, input.order);
   const { key } = await storage.putFile(file.path, 'baseline');
   try {
     const id = await db.transaction(async (tx) => {
@@ -57,7 +57,7 @@ export async function recordBaseline(
         projectId,
         area: input.area,
         fileName: file.fileName,
-        contentType: 'application/xml',
+        contentType: file.contentType,
         sizeBytes: file.sizeBytes,
         sha256: file.sha256,
         storageKey: key,
@@ -67,6 +67,9 @@ export async function recordBaseline(
         elevationUnit: file.elevationUnit,
         unitsFrom: file.unitsFrom,
         points: file.points,
+        faces: file.faces,
+        breaklines: file.breaklines,
+        pointOrder: file.pointOrder,
         replacesId: locked?.id ?? null,
         recordedByUserId: actor.userId,
       });

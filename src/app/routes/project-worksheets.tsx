@@ -25,6 +25,7 @@ export function Component() {
           label: `${b.area || 'Whole project'}: ${b.fileName}`,
           sha256: b.sha256,
           downloadUrl: b.downloadUrl,
+          pointOrder: b.pointOrder,
         })),
     [baselines.data],
   );

@@ -23,6 +23,7 @@ export interface PointFile {
 const NORTH = /^(n|north|northing|y)$/i;
 const EAST = /^(e|east|easting|x)$/i;
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const NOT_FINITE = /^[+-]?(nan|inf|infinity)$/i;
 
 /** The order a header row tells (its second and third cells name northing and easting), or null. */
 export function orderFromHeader(cells: readonly string[]): PointOrder | null {
@@ -65,6 +66,8 @@ export function readPointCsv(text: string, order?: PointOrder, maxIssues = 50): 
     ? ['point', 'easting', 'northing', 'elevation']
     : ['point', 'northing', 'easting', 'elevation'];
   const seen = new Map<string, number>();
+  const plan = new Map<string, number>();
+  const lines: number[] = [];
   for (const { line, cells } of body) {
     if (out.issues.length >= maxIssues) break;
     if (cells.length < 4) {
@@ -78,10 +81,16 @@ export function readPointCsv(text: string, order?: PointOrder, maxIssues = 50): 
     const v = [1, 2, 3].map((k) => (NUMBER.test(cells[k]!) ? Number(cells[k]) : NaN));
     const bad = v.findIndex((n) => !Number.isFinite(n));
     if (bad >= 0) {
+      const cell = cells[bad + 1]!;
       out.issues.push({
         line,
         column: names[bad + 1]!,
-        message: cells[bad + 1] === '' ? 'Empty' : `"${cells[bad + 1]}" is not a number`,
+        message:
+          cell === ''
+            ? 'Empty'
+            : NOT_FINITE.test(cell) || NUMBER.test(cell)
+              ? `"${cell}" is not a finite number (NaN and infinite values are refused)`
+              : `"${cell}" is not a number`,
       });
       continue;
     }
@@ -91,11 +100,27 @@ export function readPointCsv(text: string, order?: PointOrder, maxIssues = 50): 
       out.issues.push({ line, column: 'point', message: `Point ${id} is listed again (first on line ${first})` });
       continue;
     }
+    const x = eastFirst ? v[0]! : v[1]!,
+      y = eastFirst ? v[1]! : v[0]!,
+      z = v[2]!;
+    // The same plan position with another elevation: reported here, never resolved in silence.
+    const key = `${x} ${y}`;
+    const twin = plan.get(key);
+    if (twin !== undefined && out.z[twin] !== z) {
+      out.issues.push({
+        line,
+        column: 'elevation',
+        message: `Point ${id} has the plan position of point ${out.ids[twin]} (line ${lines[twin]}) with another elevation (${z} against ${out.z[twin]})`,
+      });
+      continue;
+    }
+    if (twin === undefined) plan.set(key, out.ids.length);
     seen.set(id, line);
+    lines.push(line);
     out.ids.push(id);
-    out.y.push(eastFirst ? v[1]! : v[0]!);
-    out.x.push(eastFirst ? v[0]! : v[1]!);
-    out.z.push(v[2]!);
+    out.y.push(y);
+    out.x.push(x);
+    out.z.push(z);
     out.descriptions.push(cells.slice(4).join(' '));
   }
   return out;

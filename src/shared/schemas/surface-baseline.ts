@@ -1,11 +1,14 @@
 import { z } from 'zod';
 import { BASELINE_STATUSES, type BaselineStatus } from '../constants';
+import { POINT_ORDERS, type PointOrder } from '../landxml/point-csv';
 import type { BaselineCan } from '../policies/surface-baselines';
 
 /** Form fields sent with the baseline file: the area it covers ('' the whole project), and the unit of a file without <Units>. */
 export const recordBaselineSchema = z.strictObject({
   area: z.string().trim().max(80, 'At most 80 characters').optional().default(''),
   unit: z.enum(['ft', 'm']).optional(),
+  /** Column order of a point file without a header naming its columns. */
+  order: z.enum(POINT_ORDERS).optional(),
 });
 export type RecordBaselineInput = z.infer<typeof recordBaselineSchema>;
 
@@ -25,6 +28,8 @@ export type SurfaceBaselineView = {
   linearUnit: string;
   elevationUnit: string;
   unitsFrom: 'file' | 'recorder';
+  /** A point file's column order (PNEZD or PENZD); null for a LandXML file. */
+  pointOrder: PointOrder | null;
   replacesId: string | null;
   recordedBy: string;
   recordedAt: string;

@@ -15,16 +15,20 @@ export const surfaceBaselinesQueryOptions = (projectId: string) =>
 
 export const useSurfaceBaselines = (projectId: string) => useQuery(surfaceBaselinesQueryOptions(projectId));
 
-export type RecordBaseline = { file: File; area: string; unit: 'ft' | 'm' | '' };
+export type RecordBaseline = { file: File; area: string; unit: 'ft' | 'm' | ''; order: 'PNEZD' | 'PENZD' | '' };
 
-/** Sends the LandXML file in the multipart field `file` with the area (and the unit of a file without <Units>). */
+/**
+ * Sends the LandXML or point file in the multipart field `file` with the area, the unit (a point file, or LandXML
+ * without <Units>) and a point file's column order when its header does not name the columns.
+ */
 export function useRecordBaseline(projectId: string) {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: async ({ file, area, unit }: RecordBaseline) => {
+    mutationFn: async ({ file, area, unit, order }: RecordBaseline) => {
       const form = new FormData();
       form.append('area', area);
       if (unit) form.append('unit', unit);
+      if (order) form.append('order', order);
       form.append('file', file, file.name);
       const res = await fetch(`/api/projects/${encodeURIComponent(projectId)}/surface-baselines`, {
         method: 'POST',

@@ -9,13 +9,17 @@ import { Select } from '@/components/ui/select';
 import { errorMessage, isApiError } from '@/lib/api-client';
 import { useRecordBaseline } from '../api/surface-baselines';
 
-/** Records an original ground surface: a LandXML file, the area it covers, and the unit of a file without <Units>. */
+/**
+ * Records an original ground surface: a LandXML file or a point file (PNEZD or PENZD), the area it covers, the
+ * unit of a file without units, and a point file's column order when its header does not say it (the server asks).
+ */
 export function RecordBaselineForm({ projectId }: { projectId: string }) {
   const record = useRecordBaseline(projectId);
   const fileInput = useRef<HTMLInputElement>(null);
   const [file, setFile] = useState<File | null>(null);
   const [area, setArea] = useState('');
   const [unit, setUnit] = useState<'ft' | 'm' | ''>('');
+  const [order, setOrder] = useState<'PNEZD' | 'PENZD' | ''>('');
   const error = record.error;
   const details = isApiError(error) ? (error.details ?? []) : [];
   return (
@@ -30,7 +34,7 @@ export function RecordBaselineForm({ projectId }: { projectId: string }) {
             e.preventDefault();
             if (!file) return;
             record.mutate(
-              { file, area, unit },
+              { file, area, unit, order },
               {
                 onSuccess: () => {
                   toast.success('Original ground recorded: it now needs both sides’ acceptance.');
@@ -41,13 +45,16 @@ export function RecordBaselineForm({ projectId }: { projectId: string }) {
             );
           }}
         >
-          <Field label="LandXML surface file" hint="The first surface with points is taken; its SHA-256 is kept.">
+          <Field
+            label="Surface file"
+            hint="LandXML (its first surface with points, with its faces) or a point file (.csv: point, northing, easting, elevation, description). Its SHA-256 is kept."
+          >
             {(c) => (
               <Input
                 {...c}
                 ref={fileInput}
                 type="file"
-                accept=".xml,.landxml"
+                accept=".xml,.landxml,.csv,.txt"
                 onChange={(e) => setFile(e.target.files?.[0] ?? null)}
               />
             )}
@@ -55,12 +62,21 @@ export function RecordBaselineForm({ projectId }: { projectId: string }) {
           <Field label="Area" hint="Leave empty for the whole project." className="w-48">
             {(c) => <Input {...c} value={area} maxLength={80} onChange={(e) => setArea(e.target.value)} />}
           </Field>
-          <Field label="Units if the file has none" className="w-48">
+          <Field label="Units if the file has none" hint="A point file never has units." className="w-48">
             {(c) => (
               <Select {...c} value={unit} onChange={(e) => setUnit(e.target.value as 'ft' | 'm' | '')}>
                 <option value="">Read from the file</option>
                 <option value="ft">Feet</option>
                 <option value="m">Metres</option>
+              </Select>
+            )}
+          </Field>
+          <Field label="Point file column order" hint="Only when its header does not name them." className="w-56">
+            {(c) => (
+              <Select {...c} value={order} onChange={(e) => setOrder(e.target.value as 'PNEZD' | 'PENZD' | '')}>
+                <option value="">From its header</option>
+                <option value="PNEZD">PNEZD: northing before easting</option>
+                <option value="PENZD">PENZD: easting before northing</option>
               </Select>
             )}
           </Field>

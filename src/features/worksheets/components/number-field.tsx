@@ -25,7 +25,15 @@ export function NumberField({ label, unit, error, hint, className, registration 
 }
 
 /** A bare number cell for an editable table row; its label is for screen readers. */
-export function NumberCell({ label, error, registration }: { label: string; error?: string | undefined; registration: UseFormRegisterReturn }) {
+export function NumberCell({
+  label,
+  error,
+  registration,
+}: {
+  label: string;
+  error?: string | undefined;
+  registration: UseFormRegisterReturn;
+}) {
   return (
     <div>
       <Input
@@ -33,10 +41,10 @@ export function NumberCell({ label, error, registration }: { label: string; erro
         aria-invalid={Boolean(error)}
         title={error}
         inputMode="decimal"
-        className="num h-8 text-right"
+        className="h-8 num text-right"
         {...registration}
       />
-      {error ? <p className="text-brick-700 mt-0.5 text-xs">{error}</p> : null}
+      {error ? <p className="mt-0.5 text-xs text-brick-700">{error}</p> : null}
     </div>
   );
 }

@@ -47,14 +47,28 @@ export function StationsTable({ unit, rows, values, issues, register, onRemove, 
               return (
                 <tr key={row.id} className="align-top">
                   <td className="pt-1 pr-2">
-                    <NumberCell label={`Row ${i + 1} station`} error={issueAt(issues, `stations.${i}.station`)} registration={register(i, 'station')} />
-                    {typeof station === 'number' && Number.isFinite(station) ? <p className="num text-xs text-stone-500">{formatStation(station, unit)}</p> : null}
+                    <NumberCell
+                      label={`Row ${i + 1} station`}
+                      error={issueAt(issues, `stations.${i}.station`)}
+                      registration={register(i, 'station')}
+                    />
+                    {typeof station === 'number' && Number.isFinite(station) ? (
+                      <p className="num text-xs text-stone-500">{formatStation(station, unit)}</p>
+                    ) : null}
                   </td>
                   <td className="pt-1 pr-2">
-                    <NumberCell label={`Row ${i + 1} cut area`} error={issueAt(issues, `stations.${i}.cutArea`)} registration={register(i, 'cutArea')} />
+                    <NumberCell
+                      label={`Row ${i + 1} cut area`}
+                      error={issueAt(issues, `stations.${i}.cutArea`)}
+                      registration={register(i, 'cutArea')}
+                    />
                   </td>
                   <td className="pt-1 pr-2">
-                    <NumberCell label={`Row ${i + 1} fill area`} error={issueAt(issues, `stations.${i}.fillArea`)} registration={register(i, 'fillArea')} />
+                    <NumberCell
+                      label={`Row ${i + 1} fill area`}
+                      error={issueAt(issues, `stations.${i}.fillArea`)}
+                      registration={register(i, 'fillArea')}
+                    />
                   </td>
                   <td className="pt-1">
                     <RemoveRowButton label={`Remove row ${i + 1}`} onClick={() => onRemove(i)} />

@@ -18,10 +18,21 @@ export function gridDepths(entry: GridEntry, texts: Texts): { depths: (number | 
   const issues = [...tag(existing.issues, 'existing'), ...tag(design.issues, 'design')];
   if (issues.length) return { depths: [], issues };
   if (existing.depths.length !== design.depths.length) {
-    return { depths: [], issues: [{ line: 0, column: '(file)', message: `The existing grid has ${existing.depths.length} rows, the design ${design.depths.length}` }] };
+    return {
+      depths: [],
+      issues: [
+        {
+          line: 0,
+          column: '(file)',
+          message: `The existing grid has ${existing.depths.length} rows, the design ${design.depths.length}`,
+        },
+      ],
+    };
   }
   try {
-    const depths = depthsFromElevations(existing.depths, design.depths).map((row) => row.map((d) => (d === null ? null : Math.round(d * 1e6) / 1e6)));
+    const depths = depthsFromElevations(existing.depths, design.depths).map((row) =>
+      row.map((d) => (d === null ? null : Math.round(d * 1e6) / 1e6)),
+    );
     return { depths, issues: [] };
   } catch (error) {
     const message = isDomainError(error) ? error.message : String(error);

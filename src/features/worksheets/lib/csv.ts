@@ -28,7 +28,9 @@ export function readNumber(cell: string): number | null {
 
 /** True when a first row is a header: none of its cells is a number (so a typo in a data row is reported). */
 export function isHeader(row: CsvRow | undefined): boolean {
-  return row !== undefined && row.cells.every((c) => readNumber(c) === null) && row.cells.some((c) => c !== '' && c !== '-');
+  return (
+    row !== undefined && row.cells.every((c) => readNumber(c) === null) && row.cells.some((c) => c !== '' && c !== '-')
+  );
 }
 
 /**
@@ -43,12 +45,21 @@ export function parseNumberTable(text: string, columns: readonly string[], maxIs
   for (const row of body) {
     if (issues.length >= maxIssues) break;
     if (row.cells.length !== columns.length) {
-      issues.push({ line: row.line, column: '(row)', message: `Expected ${columns.length} values (${columns.join(', ')}), found ${row.cells.length}` });
+      issues.push({
+        line: row.line,
+        column: '(row)',
+        message: `Expected ${columns.length} values (${columns.join(', ')}), found ${row.cells.length}`,
+      });
       continue;
     }
     const nums = row.cells.map((cell, k) => {
       const n = readNumber(cell);
-      if (n === null) issues.push({ line: row.line, column: columns[k]!, message: cell === '' ? 'Empty' : `"${cell}" is not a number` });
+      if (n === null)
+        issues.push({
+          line: row.line,
+          column: columns[k]!,
+          message: cell === '' ? 'Empty' : `"${cell}" is not a number`,
+        });
       return n;
     });
     if (nums.every((n) => n !== null)) values.push(nums as number[]);
@@ -68,7 +79,8 @@ export function parseGridRows(text: string, maxIssues = 50) {
       row.cells.map((cell, k) => {
         if (cell === '' || cell === '-') return null;
         const n = readNumber(cell);
-        if (n === null && issues.length < maxIssues) issues.push({ line: row.line, column: `node ${k + 1}`, message: `"${cell}" is not a depth` });
+        if (n === null && issues.length < maxIssues)
+          issues.push({ line: row.line, column: `node ${k + 1}`, message: `"${cell}" is not a depth` });
         return n;
       }),
     );
@@ -76,7 +88,11 @@ export function parseGridRows(text: string, maxIssues = 50) {
   const cols = depths[0]?.length ?? 0;
   body.forEach((row, i) => {
     if (depths[i]!.length !== cols && issues.length < maxIssues) {
-      issues.push({ line: row.line, column: '(row)', message: `${depths[i]!.length} nodes; the first row has ${cols}` });
+      issues.push({
+        line: row.line,
+        column: '(row)',
+        message: `${depths[i]!.length} nodes; the first row has ${cols}`,
+      });
     }
   });
   return { depths, issues };

@@ -13,7 +13,7 @@ export function BaselinePicker({
 }: {
   baselines: readonly WorksheetBaseline[];
   chosen: string | null;
-  onLoaded: (id: string, text: string) => void;
+  onLoaded: (id: string, text: string, pointOrder: WorksheetBaseline['pointOrder']) => void;
 }) {
   const [loading, setLoading] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -34,7 +34,7 @@ export function BaselinePicker({
             try {
               const res = await fetch(b.downloadUrl, { credentials: 'include' });
               if (!res.ok) throw new Error(`The surface file could not be loaded (${res.status})`);
-              onLoaded(b.id, await res.text());
+              onLoaded(b.id, await res.text(), b.pointOrder);
             } catch (err) {
               setError(errorMessage(err));
             } finally {

@@ -126,8 +126,9 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             <BaselinePicker
               baselines={baselines}
               chosen={baselineId}
-              onLoaded={(id, text) => {
+              onLoaded={(id, text, pointOrder) => {
                 setBaselineId(id);
+                if (pointOrder) setOrders((s) => ({ ...s, existing: pointOrder }));
                 setTexts((t) => ({ ...t, existing: text }));
               }}
             />

@@ -7,7 +7,19 @@ const W = 480;
 const PAD = 40;
 
 /** The trench section of one run: bottom, side slopes (or benches, or a box), widths and depth, to scale. */
-export function TrenchDrawing({ run, slope, benched, unit, index }: { run: TrenchRunResult; slope: number; benched: boolean; unit: LengthUnit; index: number }) {
+export function TrenchDrawing({
+  run,
+  slope,
+  benched,
+  unit,
+  index,
+}: {
+  run: TrenchRunResult;
+  slope: number;
+  benched: boolean;
+  unit: LengthUnit;
+  index: number;
+}) {
   const { depth, bottomWidth, topWidth } = run;
   const setback = limit('spoilSetback', unit);
   const span = topWidth + 2 * setback;
@@ -33,19 +45,39 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
   const protective = limit('protectiveSystemDepth', unit);
   return (
     <figure>
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Trench section of run ${index + 1}`} className="w-full rounded-md border border-stone-200 bg-stone-50">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        role="img"
+        aria-label={`Trench section of run ${index + 1}`}
+        className="w-full rounded-md border border-stone-200 bg-stone-50"
+      >
         <rect x={0} y={top} width={W} height={H - top} fill="#e7e5e4" />
         <polygon points={[...left, ...right].join(' ')} fill="#fbf4ec" stroke="#9e5427" strokeWidth={1.5} />
         <line x1={0} x2={W} y1={top} y2={top} stroke="#57534e" strokeWidth={1.5} />
         {[-1, 1].map((s) => (
-          <rect key={s} x={s > 0 ? x(topWidth / 2) : x(-topWidth / 2 - setback)} y={top - 6} width={setback * scale} height={6} fill="#dca26d" opacity={0.6} />
+          <rect
+            key={s}
+            x={s > 0 ? x(topWidth / 2) : x(-topWidth / 2 - setback)}
+            y={top - 6}
+            width={setback * scale}
+            height={6}
+            fill="#dca26d"
+            opacity={0.6}
+          />
         ))}
         <text x={x(topWidth / 2 + setback / 2)} y={top - 10} fontSize={10} textAnchor="middle" fill="#7f4222">
           {setback} {unit} clear
         </text>
         {depth >= protective ? (
           <g>
-            <line x1={PAD / 2} x2={W - PAD / 2} y1={y(protective)} y2={y(protective)} stroke="#b9473a" strokeDasharray="4 3" />
+            <line
+              x1={PAD / 2}
+              x2={W - PAD / 2}
+              y1={y(protective)}
+              y2={y(protective)}
+              stroke="#b9473a"
+              strokeDasharray="4 3"
+            />
             <text x={W - 6} y={y(protective) + 12} fontSize={10} textAnchor="end" fill="#7f302a">
               {protective} {unit}: protective system required
             </text>
@@ -57,7 +89,14 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
         <text x={cx} y={top + 14} fontSize={11} textAnchor="middle" fill="#292524">
           {benched ? 'slope line at top' : 'top'} {fmt2(topWidth)} {unit}
         </text>
-        <line x1={x(-topWidth / 2) - 12} x2={x(-topWidth / 2) - 12} y1={y(0)} y2={y(depth)} stroke="#44403c" markerEnd="url(#tick)" />
+        <line
+          x1={x(-topWidth / 2) - 12}
+          x2={x(-topWidth / 2) - 12}
+          y1={y(0)}
+          y2={y(depth)}
+          stroke="#44403c"
+          markerEnd="url(#tick)"
+        />
         <text x={x(-topWidth / 2) - 16} y={y(depth / 2)} fontSize={11} textAnchor="end" fill="#292524">
           {fmt2(depth)} {unit}
         </text>
@@ -72,8 +111,8 @@ export function TrenchDrawing({ run, slope, benched, unit, index }: { run: Trenc
         )}
       </svg>
       <figcaption className="mt-1 text-xs text-stone-600">
-        Run {index + 1} to scale: area {fmt2(run.area)} {unit === 'ft' ? 'sq ft' : 'm2'}, {fmt2(run.length)} {unit} long. Shaded: the
-        spoil setback at each edge.
+        Run {index + 1} to scale: area {fmt2(run.area)} {unit === 'ft' ? 'sq ft' : 'm2'}, {fmt2(run.length)} {unit}{' '}
+        long. Shaded: the spoil setback at each edge.
       </figcaption>
     </figure>
   );
