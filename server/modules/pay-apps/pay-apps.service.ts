@@ -1,7 +1,6 @@
 import type { AccessRole } from '../../../src/shared/constants';
 import { lineAmountCents, sumCents } from '../../../src/shared/domain/money';
 import { changeOrderSummary } from '../../../src/shared/domain/change-order-summary';
-import { currentContract } from '../../../src/shared/domain/contract';
 import { payAppFlags } from '../../../src/shared/domain/pay-app-flags';
 import { payAppPackage } from '../../../src/shared/domain/pay-app-package';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
@@ -96,7 +95,7 @@ async function packageOf(
     package: payAppPackage({
       lines,
       forceAccount,
-      originalContractCents: currentContract(contract.inputs.items, []).contractSumCents,
+      originalContractCents: contract.originalContractSumCents,
       changeOrders: changeOrderSummary(
         contract.inputs.items,
         approved,

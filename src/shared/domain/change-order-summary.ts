@@ -47,17 +47,20 @@ export function changeOrderSummary(
   const included = approvedInOrder.filter((co) => asOf === null || time(co.approvedAt) <= time(asOf));
   const lines: ChangeOrderSummaryLine[] = [];
   const applied: ContractChangeInput[] = [];
-  let before = currentContract(items, applied).contractSumCents;
   for (const co of included) {
+    // The contract sum is the sum of its items' amounts, so its step is the step of the items this change order
+    // touches; pricing only those keeps a read of a large contract from pricing every item once per change order.
+    const touchedIds = new Set(co.changes.map((c) => c.bidItemId));
+    const touched = items.filter((i) => touchedIds.has(i.id));
+    const before = currentContract(touched, applied).contractSumCents;
     applied.push(...co.changes);
-    const after = currentContract(items, applied).contractSumCents;
+    const after = currentContract(touched, applied).contractSumCents;
     lines.push({
       number: co.number,
       title: co.title,
       approvedAt: co.approvedAt,
       amountCents: subtractCents(after, before),
     });
-    before = after;
   }
   const since = lines.filter((l) => previousAsOf === null || time(l.approvedAt) > time(previousAsOf));
   return {

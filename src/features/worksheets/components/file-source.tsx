@@ -12,6 +12,11 @@ type FileSourceProps = {
   accept?: string;
   rows?: number;
   placeholder?: string;
+  /**
+   * Takes a chosen file before it is read as text: answers true when it keeps the file itself (a large LandXML
+   * surface streamed in a worker), so the page never holds its whole text.
+   */
+  onFile?: (file: File) => boolean;
 };
 
 /** Paste text, or upload a file (read in the browser; nothing leaves it until a tally is saved). */
@@ -23,6 +28,7 @@ export function FileSource({
   accept = '.csv,.txt',
   rows = 6,
   placeholder,
+  onFile,
 }: FileSourceProps) {
   const id = useId();
   const input = useRef<HTMLInputElement>(null);
@@ -53,6 +59,7 @@ export function FileSource({
                 setRefused(why);
                 if (why) return;
                 files?.attach(label, file);
+                if (onFile?.(file)) return;
                 onChange(await file.text(), file.name);
               }}
             />

@@ -7,6 +7,7 @@ import {
   readLandXml,
   readPointCsv,
   surfacePointsIn,
+  type LandXmlDocument,
   type LandXmlLengthUnit,
   type PointOrder,
 } from '@/shared/landxml';
@@ -74,7 +75,11 @@ const UNIT_WORDS: Record<LandXmlLengthUnit, string> = {
 };
 
 function readSurfaceXml(text: string, unit: LengthUnit): SurveyRead {
-  const doc = readLandXml(text);
+  return surveyFromDoc(readLandXml(text), unit);
+}
+
+/** A LandXML document already read (e.g. streamed from a File in the worker) as one survey. */
+export function surveyFromDoc(doc: LandXmlDocument, unit: LengthUnit): SurveyRead {
   const none = {
     rows: [] as [number, number, number][],
     note: null,

@@ -12,7 +12,7 @@ import {
 import { depthGrid, type DepthGrid } from '@/shared/domain/earthwork/surface-depth-grid';
 import type { PointOrder } from '@/shared/landxml';
 import type { FileIssue } from '../lib/csv';
-import { readSurvey } from './surface-file';
+import { readSurvey, type SurveyRead } from './surface-file';
 
 export type SurfaceSide = 'existing' | 'design';
 export type SurfaceWork = {
@@ -81,8 +81,21 @@ export function workSurfaces(
   designText: string,
   options: SurfaceOptions = {},
 ): SurfaceWork {
-  const existing = readSurvey(existingText, unit, options.orders?.existing, options.breaklineTexts?.existing);
-  const design = readSurvey(designText, unit, options.orders?.design, options.breaklineTexts?.design);
+  return workSurveys(
+    unit,
+    readSurvey(existingText, unit, options.orders?.existing, options.breaklineTexts?.existing),
+    readSurvey(designText, unit, options.orders?.design, options.breaklineTexts?.design),
+    options,
+  );
+}
+
+/** Works cut and fill from two surveys already read (the worker streams a large LandXML file into one). */
+export function workSurveys(
+  unit: LengthUnit,
+  existing: SurveyRead,
+  design: SurveyRead,
+  options: SurfaceOptions = {},
+): SurfaceWork {
   const kinds = { existing: existing.kind, design: design.kind };
   for (const [side, read] of [
     ['existing', existing],

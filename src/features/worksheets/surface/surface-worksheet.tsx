@@ -12,6 +12,7 @@ import { unitLabels } from '../lib/units';
 import { CutFillMap } from '@/components/cut-fill-map';
 import { PlanChart } from './plan-chart';
 import { rowsText, sampleSurfaces, type SurfaceSide, type SurfaceWork } from './surface-work';
+import { streamsInWorker } from './file-text';
 import { useSurfaceWork } from './use-surface-work';
 
 const HINT =
@@ -80,6 +81,17 @@ function FileReading({
   );
 }
 
+/** A large LandXML file the worker reads in pieces: named here, since its text is not in the box. */
+function StreamedFile({ file }: { file: File | undefined }) {
+  if (!file) return null;
+  return (
+    <p role="status" className="text-xs text-stone-700">
+      {file.name} ({(file.size / 1024 / 1024).toLocaleString('en-US', { maximumFractionDigits: 1 })} MB) is read in
+      pieces in the background and not shown in the box; type or paste to replace it.
+    </p>
+  );
+}
+
 export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
   const [saved] = useState(() =>
     initial ? { existing: rowsText(initial.existing), design: rowsText(initial.design) } : null,
@@ -104,7 +116,19 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
       kept: { existing: keep('existing'), design: keep('design') },
     };
   }, [orders, kept, breaklineTexts, saved, texts, initial]);
-  const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design, options);
+  // Large LandXML uploads stay Files: the worker streams them, the page never holds their text.
+  const [files, setFiles] = useState<Partial<Record<SurfaceSide, File>>>({});
+  const { work, busy } = useSurfaceWork(unit, texts.existing, texts.design, options, files);
+  const keepFile = (side: SurfaceSide) => (file: File) => {
+    if (!streamsInWorker(file)) return false;
+    setFiles((f) => ({ ...f, [side]: file }));
+    setTexts((t) => ({ ...t, [side]: '' }));
+    return true;
+  };
+  const setText = (side: SurfaceSide) => (text: string) => {
+    setFiles((f) => ({ ...f, [side]: undefined }));
+    setTexts((t) => ({ ...t, [side]: text }));
+  };
   const baselines = useWorksheetBaselines();
   const [baselineId, setBaselineId] = useState<string | null>(() =>
     typeof initial?.baselineId === 'string' ? initial.baselineId : null,
@@ -128,6 +152,7 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
               chosen={baselineId}
               onLoaded={(id, text, pointOrder) => {
                 setBaselineId(id);
+                setFiles((f) => ({ ...f, existing: undefined }));
                 if (pointOrder) setOrders((s) => ({ ...s, existing: pointOrder }));
                 setTexts((t) => ({ ...t, existing: text }));
               }}
@@ -141,9 +166,11 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             }
             hint={HINT}
             value={texts.existing}
-            onChange={(t) => setTexts((s) => ({ ...s, existing: t }))}
+            onChange={setText('existing')}
+            onFile={keepFile('existing')}
             accept=".csv,.txt,.xml,.landxml"
           />
+          <StreamedFile file={files.existing} />
           <FileReading
             side="existing"
             work={work}
@@ -157,9 +184,11 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
             label={`Design survey (${u.length})`}
             hint={HINT}
             value={texts.design}
-            onChange={(t) => setTexts((s) => ({ ...s, design: t }))}
+            onChange={setText('design')}
+            onFile={keepFile('design')}
             accept=".csv,.txt,.xml,.landxml"
           />
+          <StreamedFile file={files.design} />
           <FileReading
             side="design"
             work={work}

@@ -1,11 +1,26 @@
 /// <reference lib="webworker" />
 import type { LengthUnit } from '@/shared/constants';
-import { workSurfaces, type SurfaceOptions } from './surface-work';
+import { readLandXmlStream } from '@/shared/landxml';
+import { fileText } from './file-text';
+import { readSurvey, surveyFromDoc, type SurveyRead } from './surface-file';
+import { workSurveys, type SurfaceOptions, type SurfaceSide } from './surface-work';
 
-type Job = { id: number; unit: LengthUnit; existing: string; design: string; options: SurfaceOptions };
+/** A survey as text, or a LandXML File the worker streams (the page never holds its whole text). */
+export type SurveySource = string | File;
+type Job = { id: number; unit: LengthUnit; existing: SurveySource; design: SurveySource; options: SurfaceOptions };
 
-/** Large surveys: read (the streaming LandXML reader, point files) and triangulate off the main thread. */
-self.onmessage = (event: MessageEvent<Job>) => {
+async function read(source: SurveySource, unit: LengthUnit, side: SurfaceSide, options: SurfaceOptions) {
+  if (typeof source === 'string')
+    return readSurvey(source, unit, options.orders?.[side], options.breaklineTexts?.[side]);
+  return surveyFromDoc(await readLandXmlStream(fileText(source)), unit) satisfies SurveyRead;
+}
+
+/**
+ * Large surveys: read (the streaming LandXML reader fed a File's stream piece by piece, point files) and
+ * triangulate off the main thread.
+ */
+self.onmessage = async (event: MessageEvent<Job>) => {
   const { id, unit, existing, design, options } = event.data;
-  self.postMessage({ id, work: workSurfaces(unit, existing, design, options) });
+  const [e, d] = await Promise.all([read(existing, unit, 'existing', options), read(design, unit, 'design', options)]);
+  self.postMessage({ id, work: workSurveys(unit, e, d, options) });
 };
