@@ -30,7 +30,7 @@ describe('a LandXML File streamed in pieces', () => {
     // A File of parts cut every 65,537 bytes (as a browser reads one in chunks), so some cuts fall inside a
     // character of two bytes: the decoder must carry them over.
     const bytes = new TextEncoder().encode(text.replace('<Pnts>', '<Pnts>' + '<!-- é -->'.repeat(20_000)));
-    const parts: Uint8Array[] = [];
+    const parts: BlobPart[] = [];
     for (let i = 0; i < bytes.length; i += 65_537) parts.push(bytes.slice(i, i + 65_537));
     const blob = new Blob(parts, { type: 'application/xml' });
     let pieces = 0;
