@@ -231,6 +231,11 @@ const SENTENCES: Record<string, (w: Words) => string> = {
     `changed {object}${typeof a.counterQuantity === 'number' ? `: counter quantity ${qty(a.counterQuantity)}` : ''}`,
   'dispute.withdrawn': () => 'withdrew {object}',
   'measurement_profile.set': () => 'set how {object} is measured and paid',
+  'lump_sum_stages.set': ({ a }) => {
+    const stages = Array.isArray(a.stages) ? (a.stages as { completedOn?: string | null }[]) : [];
+    const done = stages.filter((s) => s.completedOn).length;
+    return `set the stage schedule of {object}: ${plural(stages.length, 'stage')}, ${done} done`;
+  },
   'truck.registered': () => 'registered {object} for truck tickets',
   'truck_ticket.added': () => 'added {object}',
   'truck_tickets.imported': ({ a }) => {

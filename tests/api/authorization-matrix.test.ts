@@ -95,6 +95,7 @@ const ROUTES: Record<string, Scope> = {
   // Measurement and payment provisions (issue 15).
   'GET /api/projects/:projectId/measurement-profiles': 'project',
   'PUT /api/bid-items/:bidItemId/measurement-profile': 'project',
+  'PUT /api/bid-items/:bidItemId/lump-sum-stages': 'project',
   'GET /api/projects/:projectId/trucks': 'project',
   'POST /api/projects/:projectId/trucks': 'project',
   'GET /api/projects/:projectId/truck-tickets': 'project',

@@ -272,6 +272,12 @@ const RULES: Record<string, Rule> = {
   // keeps the field records; the owner reads them.
   'GET /api/projects/:projectId/measurement-profiles': { may: ALL },
   'PUT /api/bid-items/:bidItemId/measurement-profile': { may: CONTRACT, body: () => ({ profile: 'truck_measure' }) },
+  'PUT /api/bid-items/:bidItemId/lump-sum-stages': {
+    may: CONTRACT,
+    body: () => ({ stages: [{ name: 'Whole item', percentOfItem: 100, completedOn: null }] }),
+    // The fixture's bid item is not a lump sum: 409 PROFILE_MISMATCH comes after the role check.
+    passes: [409],
+  },
   'GET /api/projects/:projectId/trucks': { may: ALL },
   'POST /api/projects/:projectId/trucks': {
     may: FIELD,

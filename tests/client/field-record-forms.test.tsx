@@ -123,6 +123,52 @@ describe('measurement profile selector', () => {
   });
 });
 
+describe('lump-sum stage editor', () => {
+  it('shows the running sum, names the row and field of each mistake, and sends nothing until it makes 100 %', async () => {
+    const calls = stubFetch((c) =>
+      c.method === 'PUT' ? { status: 200, body: { profile: ANSWERS['measurement-profiles'] } } : undefined,
+    );
+    renderScreen(['general_contractor']);
+    await userEvent.click(await screen.findByRole('button', { name: 'Edit stages' }));
+    const form = await screen.findByRole('form', { name: 'Stages of item 101' });
+    const f = within(form);
+    // The stored schedule: 40 % + 60 %; stage 1 was marked done without a day, so the editor asks for one.
+    expect(f.getByText('Shares add up to 100 %')).toBeTruthy();
+    expect(form.textContent).toContain('marked done without a day');
+    await userEvent.click(f.getByRole('button', { name: 'Add a stage' }));
+    await userEvent.type(f.getByLabelText('Stage 3 share of the lump sum, percent'), '15');
+    expect(f.getByText('Shares add up to 115 % (must be 100 %)')).toBeTruthy();
+    await userEvent.click(f.getByRole('button', { name: 'Save stages' }));
+    const summary = await f.findByRole('list', { name: 'What to correct' });
+    expect(summary.textContent).toContain('Stages, row 3, name: A stage name is required');
+    expect(summary.textContent).toContain('The stages add up to 115 %; they must add up to 100 %');
+    expect(calls.filter((c) => c.method === 'PUT')).toEqual([]);
+    // Fix it: name the stage, take 15 off the second, date the first.
+    await userEvent.type(f.getByLabelText('Stage 3 name'), 'Haul off the brush');
+    await userEvent.clear(f.getByLabelText('Stage 2 share of the lump sum, percent'));
+    await userEvent.type(f.getByLabelText('Stage 2 share of the lump sum, percent'), '45');
+    fireEvent.change(f.getByLabelText('Stage 1 day done'), { target: { value: '2026-10-12' } });
+    await userEvent.click(f.getByRole('button', { name: 'Save stages' }));
+    await waitFor(() => expect(calls.some((c) => c.method === 'PUT')).toBe(true));
+    const put = calls.find((c) => c.method === 'PUT')!;
+    expect(put.path).toBe('/api/bid-items/3f1a9a52-6c1e-4b0a-8f57-1d2e3c4b5a61/lump-sum-stages');
+    expect(put.body).toEqual({
+      stages: [
+        { name: 'Clearing', percentOfItem: 40, completedOn: '2026-10-12' },
+        { name: 'Grubbing', percentOfItem: 45, completedOn: null },
+        { name: 'Haul off the brush', percentOfItem: 15, completedOn: null },
+      ],
+    });
+  });
+
+  it('is not offered to the subcontractor', async () => {
+    stubFetch();
+    renderScreen(['subcontractor']);
+    expect(await screen.findByText('2 stages, 1 done.')).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Edit stages' })).toBeNull();
+  });
+});
+
 describe('field record forms', () => {
   it('names the row and the field of each mistake on a force account day, and sends nothing', async () => {
     const calls = stubFetch();

@@ -59,6 +59,69 @@ describe('force account lines of a pay application', () => {
     expect(result.currentDueCents).toBe(78_841);
   });
 
+  it('draws on the allowance item the change order added: $1,901.50 of $15,000.00 shows on its row, 12.67 %', () => {
+    const co = changeOrderSummary(
+      [{ id: 'fa', originalQuantity: 0, originalUnitPriceCents: 1_500_000 }],
+      [
+        {
+          number: 4,
+          title: 'Buried crib',
+          approvedAt: '2026-10-01T00:00:00Z',
+          changes: [{ changeOrderNumber: 4, kind: 'change_quantity', bidItemId: 'fa', quantityDelta: 1 }],
+        },
+      ],
+      null,
+      null,
+    );
+    const pkg = payAppPackage({
+      lines: [
+        {
+          itemNumber: 'FA-1',
+          description: 'Crib removal allowance',
+          contractQuantity: 1,
+          unitPriceCents: 1_500_000,
+          previousAmountCents: 0,
+          thisPeriodAmountCents: 0,
+          amountToDateCents: 0,
+          storedMaterialsCents: 0,
+          retainageCents: 0,
+        },
+      ],
+      forceAccount: [
+        {
+          changeOrderNumber: 4,
+          title: 'Buried crib',
+          days: 1,
+          previousAmountCents: 0,
+          thisPeriodAmountCents: 190_150,
+          amountToDateCents: 190_150,
+          retainageCents: 19_015,
+          allowanceItemNumber: 'FA-1',
+        },
+      ],
+      originalContractCents: 0,
+      changeOrders: co,
+      retainageBps: 1000,
+      adjustmentsCents: 0,
+      previousCertifiedCents: 0,
+    });
+    // 190,150 / 1,500,000 = 12.676... % rounded down to 12.67 %; $15,000.00 - $1,901.50 = $13,098.50 to finish.
+    expect(pkg.schedule).toEqual([
+      expect.objectContaining({
+        kind: 'force_account',
+        itemNumber: 'FA-1',
+        scheduledValueCents: 1_500_000,
+        thisPeriodCents: 190_150,
+        percentBps: 1267,
+        balanceToFinishCents: 1_309_850,
+        retainageCents: 19_015,
+      }),
+    ]);
+    // The allowance is the change order's amount already: the days are named, not added again.
+    expect(pkg.changeOrders.netChangeCents).toBe(1_500_000);
+    expect(pkg.changeOrders.lines[0]).toMatchObject({ amountCents: 1_500_000, forceAccountCents: 190_150 });
+  });
+
   it('adds force account to its change order, so the schedule total equals the contract sum to date (property)', () => {
     fc.assert(
       fc.property(

@@ -140,6 +140,15 @@ const SAMPLES: Record<string, { before?: unknown; after?: unknown; expect: RegEx
   },
   'dispute.withdrawn': { after: { status: 'resolved', note: 'Counted again' }, expect: /withdrew \{object\}/ },
   'measurement_profile.set': { after: { kind: 'weight' }, expect: /set how \{object\} is measured and paid/ },
+  'lump_sum_stages.set': {
+    after: {
+      stages: [
+        { name: 'Clearing', percentOfItem: 40, completedOn: '2026-03-02' },
+        { name: 'Final grading', percentOfItem: 60, completedOn: null },
+      ],
+    },
+    expect: /set the stage schedule of \{object\}: 2 stages, 1 done/,
+  },
   'truck.registered': { after: { name: 'T-12' }, expect: /registered \{object\} for truck tickets/ },
   'truck_ticket.added': { after: { quantity: 12 }, expect: /added \{object\}/ },
   'truck_tickets.imported': {

@@ -50,11 +50,10 @@ export async function seedProvisions(db: Db, projectId: string): Promise<boolean
     stage: 'interim',
     settings: {
       stages: [
-        { name: 'Building pad and roads', percentOfItem: 45 },
-        { name: 'Storm basin', percentOfItem: 35 },
-        { name: 'Borrow area', percentOfItem: 20 },
+        { name: 'Building pad and roads', percentOfItem: 45, completedOn: '2026-09-18' },
+        { name: 'Storm basin', percentOfItem: 35, completedOn: '2026-10-09' },
+        { name: 'Borrow area', percentOfItem: 20, completedOn: null },
       ],
-      completedStages: [0, 1],
     },
   });
   await setProfile(db, gc, await idOf('402'), {

@@ -1,6 +1,10 @@
 import { MEASUREMENT_PROFILE_LABELS, type PayUnit } from '../../../src/shared/constants';
 import { lineAmountCents } from '../../../src/shared/domain/money';
-import { lumpSumEarnedCents, lumpSumStagesEarnedCents } from '../../../src/shared/domain/provisions/lump-sum';
+import {
+  lumpSumEarnedCents,
+  lumpSumStagesEarnedCents,
+  stagesDone,
+} from '../../../src/shared/domain/provisions/lump-sum';
 import { planQuantityEarned } from '../../../src/shared/domain/provisions/plan-quantity';
 import { precisionFor } from '../../../src/shared/domain/provisions/precision';
 import type { MeasurementProfileView, ProfileSettings } from '../../../src/shared/schemas/provisions/profile';
@@ -23,7 +27,8 @@ function earnedCents(
   if (settings.mobilizationSteps && settings.mobilizationSteps.length > 0) return null;
   const value = lineAmountCents(item.contractQuantity, item.unitPriceCents);
   if (settings.stages && settings.stages.length > 0) {
-    return lumpSumStagesEarnedCents(value, settings.stages, new Set(settings.completedStages ?? [])).earnedCents;
+    return lumpSumStagesEarnedCents(value, settings.stages, stagesDone(settings.stages, settings.completedStages))
+      .earnedCents;
   }
   return lumpSumEarnedCents(value, settings.percentComplete ?? 0);
 }

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { setMeasurementProfileSchema } from '../../../src/shared/schemas/provisions/profile';
+import { setLumpSumStagesSchema, setMeasurementProfileSchema } from '../../../src/shared/schemas/provisions/profile';
 import type { AppContext } from '../../app-context';
 import { getActor } from '../../lib/actor';
 import * as service from './measurement-profiles.service';
@@ -12,6 +12,10 @@ export function measurementProfilesRouter({ db }: AppContext): Router {
   router.put('/bid-items/:bidItemId/measurement-profile', async (req, res) => {
     const input = setMeasurementProfileSchema.parse(req.body);
     res.json({ profile: await service.setProfile(db, getActor(res), req.params.bidItemId, input) });
+  });
+  router.put('/bid-items/:bidItemId/lump-sum-stages', async (req, res) => {
+    const input = setLumpSumStagesSchema.parse(req.body);
+    res.json({ profile: await service.setStages(db, getActor(res), req.params.bidItemId, input) });
   });
   return router;
 }

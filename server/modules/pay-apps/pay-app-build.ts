@@ -23,7 +23,7 @@ import { settingsQuantityToDate } from '../../../src/shared/domain/provisions/se
 import type { PayUnit } from '../../../src/shared/constants';
 import { forceAccountAsPayLine } from '../../../src/shared/domain/provisions/force-account-pay';
 import { forceAccountForPeriod, markPaid, ticketQuantities } from './pay-app-records';
-import { forceAccountLines } from './pay-app-records.repository';
+import { allowanceItems, forceAccountLines } from './pay-app-records.repository';
 
 export type CreatePayAppArgs = {
   project: ProjectRow;
@@ -79,6 +79,7 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
       p.settings,
       contract.byId.get(item.id)!.contractQuantity,
       decimals,
+      periodEnd,
     );
     if (quantity !== null) bySettings.set(item.id, quantity);
   }
@@ -95,6 +96,10 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   for (const [itemId, quantity] of tickets.byItem) thisPeriod.set(itemId, quantity);
   const prev = await previousOf(tx, project.id, number);
   const forceAccount = await forceAccountForPeriod(tx, project.id, periodEnd, prev.id);
+  const allowance = await allowanceItems(
+    tx,
+    forceAccount.map((l) => l.changeOrderId),
+  );
   // Each line takes the contract as it stands now (current quantity and price, shared contract function); the
   // previous amount is the one certified, so a price change applies only to quantities paid after it.
   const bases: PayAppLineInput[] = items.map((item) => {
@@ -117,7 +122,7 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   };
   // Force account lines come after the bid items, each priced from its signed days (never an item's quantity).
   const computed = compute(
-    [...bases, ...forceAccount.map(forceAccountAsPayLine)],
+    [...bases, ...forceAccount.map((l) => forceAccountAsPayLine(l, allowance.has(l.changeOrderId)))],
     project,
     prev.certified,
     adjustmentsCents,
@@ -327,8 +332,15 @@ export async function recomputeLines(
     originalContractCents: originalSum(contract),
   };
   const forceAccount = await forceAccountLines(tx, app.id);
+  const allowance = await allowanceItems(
+    tx,
+    forceAccount.map((l) => l.changeOrderId),
+  );
   const faBases = forceAccount.map((l) =>
-    forceAccountAsPayLine({ previousCents: l.previousAmountCents, thisPeriodCents: l.thisPeriodAmountCents }),
+    forceAccountAsPayLine(
+      { previousCents: l.previousAmountCents, thisPeriodCents: l.thisPeriodAmountCents },
+      allowance.has(l.changeOrderId),
+    ),
   );
   const computed = compute([...bases, ...faBases], project, prev.certified, app.adjustmentsCents, mobilization);
   for (const [j, l] of forceAccount.entries()) {

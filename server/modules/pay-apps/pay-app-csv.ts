@@ -66,8 +66,8 @@ export function payAppCsv(app: PayAppDetail): string {
     ]);
   });
   // Force account lines follow the items in the schedule, one per change order, in the same order.
-  app.forceAccount.forEach((f, j) => {
-    const s = pkg.schedule[app.lines.length + j]!;
+  // (Days drawing on an allowance item are in that item's schedule columns above.)
+  pkg.schedule.slice(app.lines.length).forEach((s) => {
     rows.push([
       neutralise(s.itemNumber),
       neutralise(s.description),
@@ -77,10 +77,10 @@ export function payAppCsv(app: PayAppDetail): string {
       '',
       '',
       '',
-      decimal(f.previousAmountCents),
-      decimal(f.thisPeriodAmountCents),
-      decimal(f.amountToDateCents),
-      decimal(f.retainageCents),
+      decimal(s.previousCents),
+      decimal(s.thisPeriodCents),
+      decimal(s.completedAndStoredCents),
+      decimal(s.retainageCents),
       'signed',
       decimal(s.scheduledValueCents),
       decimal(s.storedMaterialsCents),

@@ -1,6 +1,8 @@
 import { and, asc, eq, inArray, isNotNull, isNull, lte } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import {
+  bidItemProfiles,
+  changeOrderItems,
   changeOrders,
   forceAccountSheets,
   materialSources,
@@ -161,4 +163,24 @@ export async function ticketsPaidOn(tx: Executor, payAppId: string, bidItemId: s
       .orderBy(asc(scaleTickets.weighedOn), asc(scaleTickets.ticketNumber)),
   ]);
   return { loads, weighed };
+}
+
+/**
+ * For each change order among `changeOrderIds`, the bid item it added that is paid by force account (its
+ * allowance: the days draw on that item's value), by change order.
+ */
+export async function allowanceItems(tx: Executor, changeOrderIds: string[]): Promise<Map<string, string>> {
+  if (changeOrderIds.length === 0) return new Map();
+  const rows = await tx
+    .select({ changeOrderId: changeOrderItems.changeOrderId, bidItemId: changeOrderItems.bidItemId })
+    .from(changeOrderItems)
+    .innerJoin(bidItemProfiles, eq(bidItemProfiles.bidItemId, changeOrderItems.bidItemId))
+    .where(
+      and(
+        inArray(changeOrderItems.changeOrderId, changeOrderIds),
+        eq(changeOrderItems.kind, 'add_item'),
+        eq(bidItemProfiles.profile, 'force_account'),
+      ),
+    );
+  return new Map(rows.flatMap((r) => (r.bidItemId ? [[r.changeOrderId, r.bidItemId] as const] : [])));
 }

@@ -19,7 +19,8 @@ import {
   presentSummary,
   presentTally,
 } from './pay-apps.presenter';
-import { forceAccountLines } from './pay-app-records.repository';
+import { allowanceItems, forceAccountLines } from './pay-app-records.repository';
+import type { PackageForceAccountInput } from '../../../src/shared/domain/pay-app-package';
 import type { TicketHold } from '../../../src/shared/domain/provisions/ticket-pay';
 import * as repo from './pay-apps.repository';
 import { loadContract } from '../change-orders/contract-quantities.repository';
@@ -56,7 +57,20 @@ export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]
       return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
     }),
   );
-  const pkg = await packageOf(db, app, lines, forceAccount);
+  const allowance = await allowanceItems(
+    db,
+    forceAccount.map((f) => f.changeOrderId),
+  );
+  const numberOf = new Map(lines.map((l) => [l.bidItemId, l.itemNumber]));
+  const pkg = await packageOf(
+    db,
+    app,
+    lines,
+    forceAccount.map((f) => {
+      const item = allowance.get(f.changeOrderId);
+      return { ...f, allowanceItemNumber: item ? (numberOf.get(item) ?? null) : null };
+    }),
+  );
   const itemNumber = new Map(lines.map((l) => [l.bidItemId, l.itemNumber]));
   return {
     ...presentSummary(app, app.certifiedBy?.name ?? null),
@@ -82,7 +96,7 @@ async function packageOf(
   db: Db,
   app: NonNullable<Awaited<ReturnType<typeof repo.findPayAppDetail>>>,
   lines: ReturnType<typeof presentLine>[],
-  forceAccount: PayAppDetail['forceAccount'],
+  forceAccount: PackageForceAccountInput[],
 ) {
   const [contract, previousCutOff, adjustments] = await Promise.all([
     loadContract(db, app.projectId),

@@ -24,6 +24,11 @@ export interface PackageForceAccountInput {
   thisPeriodAmountCents: Cents;
   amountToDateCents: Cents;
   retainageCents: Cents;
+  /**
+   * The bid item the change order added as the allowance the days draw on (an item paid by force account), or
+   * null: the days then stand on their own row, valued as done.
+   */
+  allowanceItemNumber?: string | null;
 }
 
 export interface PackageInput {
@@ -154,25 +159,34 @@ function row(
  * retainage + adjustments - previously certified, so it equals the compiled application's own figure.
  */
 export function payAppPackage(input: PackageInput): PayAppPackage {
-  const items: ScheduleLine[] = input.lines.map((l) => ({
-    kind: 'item' as const,
-    itemNumber: l.itemNumber,
-    description: l.description,
-    ...row(
-      lineAmountCents(l.contractQuantity, l.unitPriceCents),
-      l.previousAmountCents,
-      l.thisPeriodAmountCents,
-      l.storedMaterialsCents,
-      l.retainageCents,
-    ),
-  }));
   const forceAccount = input.forceAccount ?? [];
+  const drawn = new Set<PackageForceAccountInput>();
+  const items: ScheduleLine[] = input.lines.map((l) => {
+    // Days drawing on the item the change order added as their allowance: shown on its row, against its value.
+    const draws = forceAccount.filter((f) => f.allowanceItemNumber === l.itemNumber);
+    draws.forEach((f) => drawn.add(f));
+    const plus = (own: Cents, k: 'previousAmountCents' | 'thisPeriodAmountCents' | 'retainageCents') =>
+      sumCents([own, ...draws.map((f) => f[k])]);
+    return {
+      kind: draws.length > 0 ? ('force_account' as const) : ('item' as const),
+      itemNumber: l.itemNumber,
+      description: draws.length > 0 ? `${l.description} (force account, ${daysWords(draws)})` : l.description,
+      ...row(
+        lineAmountCents(l.contractQuantity, l.unitPriceCents),
+        plus(l.previousAmountCents, 'previousAmountCents'),
+        plus(l.thisPeriodAmountCents, 'thisPeriodAmountCents'),
+        l.storedMaterialsCents,
+        plus(l.retainageCents, 'retainageCents'),
+      ),
+    };
+  });
+  const own = forceAccount.filter((f) => !drawn.has(f));
   const schedule: ScheduleLine[] = [
     ...items,
-    ...forceAccount.map((f) => ({
+    ...own.map((f) => ({
       kind: 'force_account' as const,
       itemNumber: forceAccountNumber(f.changeOrderNumber),
-      description: `Force account: ${f.title} (${f.days === 1 ? '1 signed day' : `${f.days} signed days`} this period)`,
+      description: `Force account: ${f.title} (${daysWords([f])})`,
       ...row(f.amountToDateCents, f.previousAmountCents, f.thisPeriodAmountCents, 0, f.retainageCents),
     })),
   ];
@@ -184,7 +198,7 @@ export function payAppPackage(input: PackageInput): PayAppPackage {
     total('storedMaterialsCents'),
     total('retainageCents'),
   );
-  const co = withForceAccount(input.changeOrders, forceAccount);
+  const co = withForceAccount(input.changeOrders, own, [...drawn]);
   const contractToDate = sumCents([input.originalContractCents, co.netChangeCents]);
   const earnedLessRetainage = subtractCents(totals.completedAndStoredCents, totals.retainageCents);
   const amounts: Record<SummaryKey, Cents> = {
@@ -222,9 +236,15 @@ export const forceAccountNumber = (changeOrderNumber: number) => `CO ${changeOrd
 export function withForceAccount(
   summary: ChangeOrderSummary,
   forceAccount: readonly PackageForceAccountInput[],
+  drawnOnAllowance: readonly PackageForceAccountInput[] = [],
 ): ChangeOrderSummary {
-  if (forceAccount.length === 0) return summary;
+  if (forceAccount.length + drawnOnAllowance.length === 0) return summary;
   const lines = summary.lines.map((l) => ({ ...l }));
+  // Days drawing on an allowance item are already in the change order's amount (the item's value): named only.
+  for (const f of drawnOnAllowance) {
+    const line = lines.find((l) => l.number === f.changeOrderNumber);
+    if (line) line.forceAccountCents = sumCents([line.forceAccountCents ?? 0, f.amountToDateCents]);
+  }
   for (const f of forceAccount) {
     let line = lines.find((l) => l.number === f.changeOrderNumber);
     if (!line) {
@@ -241,3 +261,8 @@ export function withForceAccount(
     lines,
   };
 }
+
+const daysWords = (lines: readonly PackageForceAccountInput[]) => {
+  const days = lines.reduce((t, f) => t + f.days, 0);
+  return `${days === 1 ? '1 signed day' : `${days} signed days`} this period`;
+};

@@ -1,7 +1,11 @@
 import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { fetchAllPages } from '@/lib/paging';
-import type { MeasurementProfileView, SetMeasurementProfileInput } from '@/shared/schemas/provisions/profile';
+import type {
+  MeasurementProfileView,
+  SetLumpSumStagesInput,
+  SetMeasurementProfileInput,
+} from '@/shared/schemas/provisions/profile';
 import type { CreateTruckInput } from '@/shared/schemas/provisions/tickets';
 import type { ChangeOrderStatus } from '@/shared/constants';
 import type {
@@ -79,6 +83,15 @@ export function useSetProfile() {
           input,
         )
       ).profile,
+  });
+}
+
+/** Saves a lump-sum item's stage schedule (PUT /api/bid-items/:id/lump-sum-stages), answering its profile. */
+export function useSetStages(bidItemId: string) {
+  return useMutation({
+    mutationFn: async (input: SetLumpSumStagesInput) =>
+      (await api.put<{ profile: MeasurementProfileView }>(`/api/bid-items/${enc(bidItemId)}/lump-sum-stages`, input))
+        .profile,
   });
 }
 

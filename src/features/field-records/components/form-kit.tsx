@@ -72,14 +72,20 @@ export function errorLines(errors: FieldErrors, labels: Labels, prefix = ''): st
   return Object.entries(errors).flatMap(([key, value]) => {
     if (!value) return [];
     const name = labels[prefix ? `${prefix}.${key}` : key] ?? labels[key] ?? key;
-    if (Array.isArray(value)) {
-      return value.flatMap((row, i) =>
-        row
+    // A row list: an array, or (with a message about the whole list) an object of row indexes and `root`.
+    const entries = Object.entries(value as object);
+    if (Array.isArray(value) || entries.some(([k]) => /^\d+$/.test(k))) {
+      const rows = entries.flatMap(([k, row]) =>
+        /^\d+$/.test(k) && row
           ? errorLines(row as FieldErrors, labels, prefix ? `${prefix}.${key}` : key).map(
-              (m) => `${name}, row ${i + 1}, ${m}`,
+              (m) => `${name}, row ${Number(k) + 1}, ${m}`,
             )
           : [],
       );
+      const whole =
+        (value as { root?: { message?: unknown }; message?: unknown }).root?.message ??
+        (value as { message?: unknown }).message;
+      return typeof whole === 'string' && whole ? [...rows, `${name}: ${whole}`] : rows;
     }
     const message = (value as { message?: unknown }).message;
     if (typeof message === 'string' && message) return [`${name}: ${message}`];

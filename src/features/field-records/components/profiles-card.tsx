@@ -7,7 +7,9 @@ import { formatMoney } from '@/lib/format';
 import { MEASUREMENT_PROFILES, MEASUREMENT_PROFILE_LABELS, type MeasurementProfile } from '@/shared/constants';
 import { settingsFor, type MeasurementProfileView } from '@/shared/schemas/provisions/profile';
 import { useProfiles, useSetProfile } from '../api/field-records';
+import { RecordDialog } from './form-kit';
 import { RegisterCard } from './section';
+import { StageEditor } from './stage-editor';
 
 /** Each bid item's way of being measured and paid; the contract side changes it. */
 export function ProfilesCard({ projectId, canSet }: { projectId: string; canSet: boolean }) {
@@ -64,6 +66,7 @@ export function ProfilesCard({ projectId, canSet }: { projectId: string; canSet:
                   ) : (
                     p.profileLabel
                   )}
+                  {p.profile === 'lump_sum' ? <StagesLine profile={p} canSet={canSet} /> : null}
                 </TableCell>
                 <TableCell className="text-right tabular-nums">
                   {p.payDecimals === 0 ? '1' : `0.${'0'.repeat(p.payDecimals - 1)}1`} {p.payUnit}
@@ -80,5 +83,30 @@ export function ProfilesCard({ projectId, canSet }: { projectId: string; canSet:
         </Table>
       )}
     </RegisterCard>
+  );
+}
+
+/** A lump sum's stage schedule in a few words, and (for the contract side) the editor. */
+function StagesLine({ profile, canSet }: { profile: MeasurementProfileView; canSet: boolean }) {
+  const stages = profile.settings.stages ?? [];
+  const steps = profile.settings.mobilizationSteps ?? [];
+  const done = stages.filter((s, i) => s.completedOn || profile.settings.completedStages?.includes(i)).length;
+  const words =
+    stages.length === 0
+      ? 'No stage schedule: paid by percent complete.'
+      : `${stages.length} stage${stages.length === 1 ? '' : 's'}, ${done} done.`;
+  return (
+    <div className="mt-1 flex flex-wrap items-center gap-2 text-xs text-stone-600">
+      <span>{steps.length > 0 ? `Paid in ${steps.length} mobilization steps.` : words}</span>
+      {canSet && steps.length === 0 ? (
+        <RecordDialog
+          command={stages.length === 0 ? 'Set up stages' : 'Edit stages'}
+          title={`Stages of item ${profile.itemNumber}`}
+          description="Name each stage, its share of the lump sum and the day it was done; the shares add up to 100 %."
+        >
+          {(close) => <StageEditor profile={profile} onDone={close} />}
+        </RecordDialog>
+      ) : null}
+    </div>
   );
 }

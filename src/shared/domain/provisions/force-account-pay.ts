@@ -68,15 +68,17 @@ export function forceAccountPayLines(
  * A force account line in the pay application arithmetic (payApplication): priced at one cent a unit with
  * quantities in cents, so amounts are the cents themselves, exactly; its scheduled value is its amount to date
  * (time-and-materials work is valued as it is done, common practice), so it is 100 % done and leaves nothing to
- * finish. Retainage is held on it like any other line (common practice; the contract may say otherwise).
+ * finish (unless it draws on an allowance item, whose value it then counts against). Retainage is held on it like any other line (common practice; the contract may say otherwise).
  */
 export function forceAccountAsPayLine(
   line: Pick<ForceAccountPayLine, 'previousCents' | 'thisPeriodCents'>,
+  drawsOnAllowance = false,
 ): PayAppLineInput {
   const toDate = sumCents([line.previousCents, line.thisPeriodCents]);
   return {
     unitPriceCents: 1,
-    contractQuantity: toDate,
+    // Drawing on an allowance item, the contract value is already the item's: none of its own.
+    contractQuantity: drawsOnAllowance ? 0 : toDate,
     previousQuantity: line.previousCents,
     thisPeriodQuantity: line.thisPeriodCents,
     previousAmountCents: line.previousCents,

@@ -5,6 +5,24 @@ import { percentOfCents, sumCents, type Cents } from '../money';
 export interface LumpSumStage {
   name: string;
   percentOfItem: number;
+  /** The day the stage was done (YYYY-MM-DD); absent or null: not done. */
+  completedOn?: string | null | undefined;
+}
+
+/**
+ * The stages done as of `asOf` (YYYY-MM-DD, inclusive): those listed in `completedStages` (the older form) and those
+ * whose completed date has come. Without `asOf` every dated stage counts.
+ */
+export function stagesDone(
+  stages: readonly LumpSumStage[],
+  completedStages: readonly number[] | undefined,
+  asOf?: string,
+): Set<number> {
+  const done = new Set(completedStages ?? []);
+  stages.forEach((s, i) => {
+    if (s.completedOn && (asOf === undefined || s.completedOn <= asOf)) done.add(i);
+  });
+  return done;
 }
 
 /** A stage schedule must add up to exactly 100 % (to 0.01 %), each stage named and above 0. */

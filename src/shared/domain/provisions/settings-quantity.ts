@@ -1,7 +1,7 @@
 import type { MeasurementProfile } from '../../constants';
 import { DomainError } from '../domain-error';
 import { roundTo } from '../rounding';
-import { lumpSumStagesEarnedCents, type LumpSumStage } from './lump-sum';
+import { lumpSumStagesEarnedCents, stagesDone, type LumpSumStage } from './lump-sum';
 import { planQuantityEarned } from './plan-quantity';
 
 export interface QuantitySettings {
@@ -22,6 +22,8 @@ export function settingsQuantityToDate(
   settings: QuantitySettings,
   contractQuantity: number,
   measuredDecimals: number,
+  /** The period's end: a stage counts once its completed date is on or before it. */
+  asOf?: string,
 ): number | null {
   const percent = settings.percentComplete;
   if (percent !== undefined && (percent < 0 || percent > 100)) {
@@ -32,7 +34,7 @@ export function settingsQuantityToDate(
   }
   if (profile !== 'lump_sum') return null;
   if (settings.stages && settings.stages.length > 0) {
-    const done = new Set(settings.completedStages ?? []);
+    const done = stagesDone(settings.stages, settings.completedStages, asOf);
     const { percent: staged } = lumpSumStagesEarnedCents(0, settings.stages, done);
     return staged === 100 ? contractQuantity : roundTo((contractQuantity * staged) / 100, 4);
   }

@@ -6,9 +6,17 @@ import {
   type MeasurementProfile,
   type MeasurementStage,
 } from '../../constants';
+import { isoDateSchema } from '../tally';
 import { centsField, percentField, textField } from './fields';
 
-const stageSchema = z.object({ name: textField(120, 'A stage name'), percentOfItem: percentField }).strict();
+const stageSchema = z
+  .object({
+    name: textField(120, 'A stage name'),
+    percentOfItem: percentField,
+    /** The day the stage was done (YYYY-MM-DD); absent or null: not done yet. */
+    completedOn: isoDateSchema.nullable().optional(),
+  })
+  .strict();
 const stepSchema = z.object({ contractEarnedPercent: percentField, mobilizationPercent: percentField }).strict();
 
 /** Settings a profile reads; each is optional and checked against the profile by the server. */
@@ -71,3 +79,23 @@ export interface MeasurementProfileView {
   /** What the profile earns to date where it is computed from settings (plan quantity, lump sum), in cents. */
   earnedCents: number | null;
 }
+
+/**
+ * The stage schedule of a lump-sum item, as its editor saves it: each stage's name, share of the lump sum and the
+ * day it was done. The shares add up to exactly 100 % (to 0.01 %); the message names the sum so the editor can
+ * show it beside the rows.
+ */
+export const setLumpSumStagesSchema = z
+  .object({ stages: z.array(stageSchema).min(1, 'Add at least one stage').max(50, 'At most 50 stages') })
+  .strict()
+  .superRefine((v, ctx) => {
+    const message = stageSumProblem(v.stages);
+    if (message) ctx.addIssue({ code: 'custom', path: ['stages'], message });
+  });
+
+/** Why the shares of a stage schedule do not make 100 % (to 0.01 %), or null when they do; form and server alike. */
+export function stageSumProblem(stages: readonly { percentOfItem: number }[]): string | null {
+  const hundredths = stages.reduce((t, s) => t + Math.round(s.percentOfItem * 100), 0);
+  return hundredths === 10_000 ? null : `The stages add up to ${hundredths / 100} %; they must add up to 100 %`;
+}
+export type SetLumpSumStagesInput = z.infer<typeof setLumpSumStagesSchema>;
