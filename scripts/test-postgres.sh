@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Runs the API tests a second time on a throwaway PostgreSQL cluster on 127.0.0.1 (Debian's postgresql package),
 # so both drivers pass the same tests, plus the PostgreSQL backup and restore round trip (pg_dump and pg_restore
-# come with the same package). Installs postgresql when missing and running as root.
+# come with the same package) and servers migrating at once. Installs postgresql when missing and running as root.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 if ! ls -d /usr/lib/postgresql/*/bin >/dev/null 2>&1; then
@@ -24,5 +24,5 @@ cleanup() { run_pg "$PGBIN/pg_ctl -D $PGDATA -m immediate stop >/dev/null" || tr
 trap cleanup EXIT
 echo "== API tests and backup round trip on PostgreSQL ($("$PGBIN/postgres" --version))"
 # Test files given as arguments run alone (a quicker check of one area); without any, the whole set.
-if [ $# -gt 0 ]; then set -- "$@"; else set -- tests/api tests/server/backup-restore-postgres.test.ts; fi
+if [ $# -gt 0 ]; then set -- "$@"; else set -- tests/api tests/server/backup-restore-postgres.test.ts tests/server/migrate-concurrent.test.ts; fi
 TEST_DATABASE_URL="postgresql://postgres@127.0.0.1:$PORT/postgres" npx vitest run "$@"

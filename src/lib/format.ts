@@ -2,6 +2,7 @@ import { PAY_UNIT_LABELS, type PayUnit } from '@/shared/constants';
 
 /** Numbers, quantities, money and percents: one formatter module shared with the server (src/shared/format.ts). */
 export {
+  formatCount,
   formatMoney,
   formatNumber,
   formatPercent,

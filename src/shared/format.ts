@@ -57,6 +57,11 @@ export function formatQuantityPlain(quantity: number): string {
   return String(roundTo(quantity, 4));
 }
 
+/** "1 file", "2 files", "1,200 loads": a count with its noun, singular or plural. */
+export function formatCount(count: number, singular: string, plural = `${singular}s`): string {
+  return `${formatNumber(count, 0)} ${count === 1 ? singular : plural}`;
+}
+
 /** "$1,234.50" from integer cents; the decimal string comes from dinero.js, only separators are added. */
 export function formatMoney(cents: Cents): string {
   return toDecimal(usd(cents), ({ value }) => {

@@ -4,6 +4,8 @@ import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router';
 import { afterEach, describe, expect, it } from 'vitest';
+import { worksheetKeys } from '@/features/worksheets/api/keys';
+import type { WorksheetTally } from '@/features/worksheets/api/get-tally';
 import { WorksheetsScreen } from '@/features/worksheets/components/worksheets-screen';
 import { parseNumberTable, readNumber } from '@/features/worksheets/lib/csv';
 import { readSectionLandXml } from '@/features/worksheets/end-area/section-file';
@@ -137,7 +139,9 @@ describe('Worksheets screen', () => {
     createdAt: '2026-10-01T00:00:00Z',
     updatedAt: '2026-10-01T00:00:00Z',
   };
-  function renderScreen(canSave: boolean) {
+  function renderScreen(canSave: boolean, opts: { tally?: WorksheetTally } = {}) {
+    const client = new QueryClient();
+    if (opts.tally) client.setQueryData(worksheetKeys.tally(opts.tally.tally.id), opts.tally);
     const screenElement = (
       <WorksheetsScreen
         projectId="p1"
@@ -147,9 +151,11 @@ describe('Worksheets screen', () => {
         defaults={{ swellPercent: 25, shrinkagePercent: 10 }}
       />
     );
-    const router = createMemoryRouter([{ path: '/', element: screenElement }], { initialEntries: ['/?method=trench'] });
+    const router = createMemoryRouter([{ path: '/', element: screenElement }], {
+      initialEntries: [opts.tally ? `/?tally=${opts.tally.tally.id}` : '/?method=trench'],
+    });
     render(
-      <QueryClientProvider client={new QueryClient()}>
+      <QueryClientProvider client={client}>
         <RouterProvider router={router} />
       </QueryClientProvider>,
     );
@@ -168,5 +174,65 @@ describe('Worksheets screen', () => {
     await screen.findByRole('region', { name: 'Result' });
     expect(screen.queryByRole('button', { name: 'Save as tally' })).toBeNull();
     expect(screen.getByText(/Calculator only/)).toBeTruthy();
+  });
+
+  it('opens a billed tally read-only: its evidence files listed, no upload, no save, no calculator note', async () => {
+    const tally = {
+      id: '7d4e2b0a-0000-4000-8000-0000000000aa',
+      projectId: 'p1',
+      bidItem: {
+        id: trenchItem.id,
+        itemNumber: '3.10',
+        description: 'Trench excavation',
+        payUnit: 'CY',
+        basis: 'bank',
+      },
+      measuredOn: '2026-11-10',
+      title: 'Road B cut',
+      method: 'end-area',
+      inputs: {
+        unit: 'ft',
+        formula: 'average-end-area',
+        zeroAreaEnds: 'average',
+        stations: [
+          { station: 1000, cutArea: 160, fillArea: 0 },
+          { station: 1100, cutArea: 160, fillArea: 0 },
+        ],
+      },
+      result: null,
+      quantity: 244.4444,
+      manualBasis: null,
+      sanityReason: null,
+      status: 'billed',
+      payAppId: null,
+      author: { id: 'u1', name: 'Rosa Delgado' },
+      evidenceCount: 1,
+      createdAt: '2026-11-10T12:00:00Z',
+      updatedAt: '2026-11-10T12:00:00Z',
+      can: { edit: false, delete: false, markReady: false, addEvidence: false, removeEvidence: false },
+    } satisfies WorksheetTally['tally'];
+    const evidence = {
+      id: 'e1',
+      tallyId: tally.id,
+      fileName: 'road-b-sections.csv',
+      contentType: 'text/csv',
+      kind: 'csv',
+      sizeBytes: 40,
+      sha256: 'a'.repeat(64),
+      uploadedBy: 'Rosa Delgado',
+      createdAt: '2026-11-10T12:00:00Z',
+      downloadUrl: '/api/evidence/e1/download',
+    } satisfies WorksheetTally['evidence'][number];
+    renderScreen(false, { tally: { tally, evidence: [evidence] } });
+    await screen.findByText(/Read-only: the tally/);
+    expect(screen.getByRole('link', { name: 'Download road-b-sections.csv' }).getAttribute('href')).toBe(
+      '/api/evidence/e1/download',
+    );
+    expect(screen.queryByText(/Calculator only/)).toBeNull();
+    expect(screen.queryByRole('button', { name: /Save/ })).toBeNull();
+    // The worksheet's file box is there (read-only), its upload button is not.
+    const box = await screen.findByLabelText('Cross sections (CSV or LandXML)');
+    expect(box.hasAttribute('readonly')).toBe(true);
+    expect(screen.queryByText('Upload file')).toBeNull();
   });
 });

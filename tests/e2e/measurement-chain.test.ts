@@ -53,7 +53,7 @@ const SECTIONS_CSV = [
 ].join('\n');
 /** A 4 x 4 node grid at 25 ft, every node 1 ft deep: 75 x 75 x 1 / 27 = 208.33 CY (borrow-pit method, same text). */
 const GRID_DEPTHS = ['1,1,1,1', '1,1,1,1', '1,1,1,1', '1,1,1,1'].join('\n');
-/** Truck tickets: 10 loads of 14 LCY and 5 of 18 LCY = 230 loose CY (item 303 is paid loose, no swell applied). */
+/** Truck tickets: 10 loads of 14 LCY and 5 of 18 LCY = 230 loose CY (swell 25 %: 184 bank CY, Nichols and Day). */
 const TICKETS_CSV = ['capacity,loads', '14,10', '18,5'].join('\n');
 
 beforeAll(async () => {
@@ -244,17 +244,26 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
       day: '10',
     });
 
+    // Item 303 is paid from its truck tickets (field records, its measurement profile): the worksheet says a tally
+    // bills it nothing. The same tickets billed to the borrow item: 230 loose CY / 1.25 = 184.0 bank CY.
     await openWorksheet(sub, '303', 'load-count');
     await sub.getByLabel('Upload a file for Tickets from a spreadsheet').setInputFiles({
       name: 'tickets-nov-12.csv',
       mimeType: 'text/csv',
       buffer: Buffer.from(TICKETS_CSV),
     });
+    const billLine = sub.getByRole('region', { name: 'Billing' }).getByTestId('bill-line');
+    await expect
+      .poll(() => billLine.textContent())
+      .toMatch(/^Item 303 is paid as “Counted loads \(truck register\)”, not from tallies/);
+    await snap(sub, 'load-count-ticket-item');
+    const billsItem = sub.getByRole('region', { name: 'Billing' }).getByLabel('Bills item');
+    await billsItem.selectOption((await billsItem.locator('option', { hasText: /^205 · / }).getAttribute('value'))!);
     await saveWorksheet(sub, {
-      itemNumber: '303',
+      itemNumber: '205',
       method: 'load-count',
-      bills: '230.00 CY loose',
-      title: 'Unsuitable hauled off, 12 Nov tickets',
+      bills: '184.00 CY bank',
+      title: 'Borrow hauled to the east fill, 12 Nov tickets',
       day: '12',
       files: ['tickets-nov-12.csv'],
     });
@@ -360,7 +369,7 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
       '202': 208.3333,
       '207': 40,
       '301': 260,
-      '303': 230,
+      '205': 184,
       '206': 1666.6667,
       '503': 1240,
     };
@@ -399,6 +408,7 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
       '2 files',
     ]);
     await snap(gc, 'gc-line-backup');
+    await backup.screenshot({ path: `${SHOTS}/${String(++shot).padStart(2, '0')}-gc-line-backup-close.png` });
     await backup.getByRole('link', { name: 'Lot 7 basin, as dug' }).click();
     await gc.waitForURL(/\/tallies\/[\w-]+$/);
     await gc.getByTestId('cut-fill-map').waitFor();
@@ -410,11 +420,18 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
     expect(file.suggestedFilename()).toBe('lot-7-basin-dug.xml');
     const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
     expect(sha(readFileSync((await file.path())!))).toBe(sha(BASIN_DUG));
+    expect(await gc.getByRole('link', { name: 'Open the pay application' }).getAttribute('href')).toBe(
+      `/projects/${projectId}/pay-apps/${payAppId}`,
+    );
     await gc.getByRole('link', { name: 'Open in its worksheet' }).click();
     await gc.waitForURL(/\/worksheets\?tally=/);
     await gc.getByText(/Read-only: the tally/).waitFor();
     await gc.getByTestId('cut-fill-map').waitFor();
     expect(await gc.getByRole('button', { name: /Save/ }).count()).toBe(0);
+    // Read-only: the tally's files are listed to download, and nothing offers to load another one.
+    await gc.getByRole('link', { name: 'Download lot-7-basin-ground.xml' }).waitFor();
+    expect(await gc.getByText('Upload file').count()).toBe(0);
+    expect(await gc.getByText(/Calculator only/).count()).toBe(0);
     await snap(gc, 'gc-worksheet-read-only');
   }, 240_000);
 });

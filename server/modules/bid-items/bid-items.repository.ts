@@ -1,11 +1,23 @@
 import { and, count, eq, inArray, isNotNull, min } from 'drizzle-orm';
 import type { BidItemInput, UpdateBidItemInput } from '../../../src/shared/schemas/bid-item';
 import type { Executor } from '../../db/client';
-import { bidItems, changeOrderItems, payAppLines, payApps, tallies } from '../../db/schema';
+import { bidItemProfiles, bidItems, changeOrderItems, payAppLines, payApps, tallies } from '../../db/schema';
 import type { BidItemRow } from './bid-items.presenter';
 
 export async function listBidItems(db: Executor, projectId: string): Promise<BidItemRow[]> {
   return db.select().from(bidItems).where(eq(bidItems.projectId, projectId)).orderBy(bidItems.itemNumber);
+}
+
+/** The measurement profile of each item that has one (the others are measured by worksheet). */
+export async function profilesOf(db: Executor, projectId: string) {
+  return db
+    .select({
+      bidItemId: bidItemProfiles.bidItemId,
+      profile: bidItemProfiles.profile,
+      settings: bidItemProfiles.settings,
+    })
+    .from(bidItemProfiles)
+    .where(eq(bidItemProfiles.projectId, projectId));
 }
 
 export async function findBidItem(db: Executor, bidItemId: string): Promise<BidItemRow | undefined> {

@@ -18,19 +18,28 @@ import { isUuid, loadProjectAccess } from '../projects/project-access';
 import { canManageContract } from '../../../src/shared/policies/projects';
 import { presentBidItem } from './bid-items.presenter';
 import * as repo from './bid-items.repository';
+import { talliesNotBilledReason } from '../../../src/shared/domain/provisions/tally-pay';
+import type { ProfileSettings } from '../../../src/shared/schemas/provisions/profile';
 
 /** The bid schedule: each item's original beside its current figures, the contract sums and the lock. */
 export async function listBidItems(db: Db, actor: Actor, projectId: string) {
   await loadProjectAccess(db, actor, projectId);
-  const [rows, contract, since] = await Promise.all([
+  const [rows, contract, since, profiles] = await Promise.all([
     repo.listBidItems(db, projectId),
     loadContract(db, projectId),
     repo.contractLockedSince(db, projectId),
+    repo.profilesOf(db, projectId),
   ]);
+  const notBilled = new Map(
+    profiles.map((p) => [p.bidItemId, talliesNotBilledReason(p.profile, (p.settings ?? {}) as ProfileSettings)]),
+  );
   const lock: ContractLockView = { locked: since !== null, sincePayAppNumber: since };
   const { originalContractSumCents, approvedChangesCents, contractSumCents } = contract;
   return {
-    bidItems: rows.map((r) => presentBidItem(r, contract.byId.get(r.id))),
+    bidItems: rows.map((r) => ({
+      ...presentBidItem(r, contract.byId.get(r.id)),
+      talliesNotBilled: notBilled.get(r.id) ?? null,
+    })),
     totals: { originalContractSumCents, approvedChangesCents, contractSumCents },
     lock,
   };

@@ -12,8 +12,9 @@ export function Table({ className, ...props }: React.ComponentProps<'table'>) {
       <table
         className={cn(
           'w-full border-collapse text-sm',
-          '[&_td:first-child]:sticky [&_td:first-child]:left-0 [&_td:first-child]:z-[1] [&_td:first-child]:bg-white',
-          '[&_th:first-child]:sticky [&_th:first-child]:left-0 [&_th:first-child]:z-[1] [&_th:first-child]:bg-stone-100',
+          // Its own rows only (table > section > tr): a table nested in a cell (a line's backup) keeps its own look.
+          '[&>*>tr>td:first-child]:sticky [&>*>tr>td:first-child]:left-0 [&>*>tr>td:first-child]:z-[1] [&>*>tr>td:first-child]:bg-white',
+          '[&>*>tr>th:first-child]:sticky [&>*>tr>th:first-child]:left-0 [&>*>tr>th:first-child]:z-[1] [&>*>tr>th:first-child]:bg-stone-100',
           className,
         )}
         {...props}

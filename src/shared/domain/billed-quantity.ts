@@ -203,7 +203,7 @@ export function billedQuantity(
     const runs = (result.runs as { length: number }[] | undefined) ?? [];
     const total = runs.reduce((s, run) => s + num(run.length), 0);
     const from = result.unit === 'm' ? 'm' : 'LF';
-    trail.push(`Length = sum of ${runs.length} run length(s) = ${fmt(total, 2)} ${from}`);
+    trail.push(`Length = sum of ${runs.length} run length${runs.length === 1 ? '' : 's'} = ${fmt(total, 2)} ${from}`);
     measured = { quantity: total, unit: from, basis: null, component: null };
     quantity = total;
     if (from !== item.payUnit) {

@@ -1,5 +1,13 @@
+import { PAY_UNITS, type PayUnit } from '../constants';
+import { formatCount, formatMoney, formatNumber, formatPercent, formatQuantity } from '../format';
 import { lineAmountCents, type Cents } from './money';
 import { roundTo } from './rounding';
+
+/** A quantity in its pay unit with the one display precision ("8,600.00 SY"); an unknown unit keeps 4 decimals. */
+const qty = (q: number, unit: string) =>
+  (PAY_UNITS as readonly string[]).includes(unit)
+    ? formatQuantity(q, unit as PayUnit)
+    : `${formatNumber(q, 4)} ${unit}`;
 
 export type PayAppFlagKind = 'beyond_band' | 'no_evidence';
 
@@ -49,7 +57,7 @@ export function payAppFlags(
         kind: 'beyond_band',
         lineId: l.id,
         itemNumber: l.itemNumber,
-        message: `Item ${l.itemNumber}: ${l.toDateQuantity} ${l.payUnit} to date is ${pct / 100} % of the contract quantity ${l.contractQuantity} ${l.payUnit}; ${beyond} ${l.payUnit} past the +${bandOverBps / 100} % band ($${(amount / 100).toFixed(2)} at the unit price).`,
+        message: `Item ${l.itemNumber}: ${qty(l.toDateQuantity, l.payUnit)} to date is ${formatPercent(pct / 100)} of the contract quantity ${qty(l.contractQuantity, l.payUnit)}; ${qty(beyond, l.payUnit)} past the +${formatPercent(bandOverBps / 100)} band (${formatMoney(amount)} at the unit price).`,
         percentOfContractBps: pct,
         quantityBeyondBand: beyond,
         amountBeyondBandCents: amount,
@@ -64,8 +72,10 @@ export function payAppFlags(
         itemNumber: l.itemNumber,
         message:
           e.tallies === 0
-            ? `Item ${l.itemNumber}: ${l.thisPeriodQuantity} ${l.payUnit} billed this period with no tally behind it.`
-            : `Item ${l.itemNumber}: ${e.withoutEvidence} of ${e.tallies} tallies billed this period have no evidence file.`,
+            ? `Item ${l.itemNumber}: ${qty(l.thisPeriodQuantity, l.payUnit)} billed this period with no tally behind it.`
+            : e.tallies === 1
+              ? `Item ${l.itemNumber}: the tally billed this period has no evidence file.`
+              : `Item ${l.itemNumber}: ${e.withoutEvidence} of the ${formatCount(e.tallies, 'tally', 'tallies')} billed this period ${e.withoutEvidence === 1 ? 'has' : 'have'} no evidence file.`,
         percentOfContractBps: null,
         quantityBeyondBand: null,
         amountBeyondBandCents: null,

@@ -31,7 +31,11 @@ const bidItemFields = z
   .strict();
 /** A bid item: its fields, and a line amount (quantity x unit price) within MAX_LINE_AMOUNT_CENTS. */
 export const bidItemInputSchema = bidItemFields.superRefine(
-  lineAmountWithinLimit<z.infer<typeof bidItemFields>>((v) => v.contractQuantity, (v) => v.unitPriceCents, 'contractQuantity'),
+  lineAmountWithinLimit<z.infer<typeof bidItemFields>>(
+    (v) => v.contractQuantity,
+    (v) => v.unitPriceCents,
+    'contractQuantity',
+  ),
 );
 export type BidItemInput = z.infer<typeof bidItemInputSchema>;
 
@@ -62,6 +66,11 @@ export type BidItemView = BidItemInput & {
   originalAmountCents: number;
   /** Current contract quantity x current unit price, rounded to the cent once. */
   contractAmountCents: number;
+  /**
+   * In the bid schedule list: why a pay application does not bill this item's tallies (its measurement profile
+   * pays it another way), or null when it does (src/shared/domain/provisions/tally-pay.ts).
+   */
+  talliesNotBilled?: string | null;
   createdAt: string;
   updatedAt: string;
 };

@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { UploadError, UploadProgress } from '@/components/ui/upload-status';
 import { errorMessage } from '@/lib/api-client';
-import { formatDate } from '@/lib/format';
+import { formatCount, formatDate } from '@/lib/format';
 import type { EvidenceView } from '@/shared/schemas/tally';
 import { useDeleteEvidence } from '../api/save-tally';
 import { useUploadEvidence } from '../api/upload-evidence';
@@ -55,7 +55,9 @@ export function EvidencePanel({
                 const files = [...(e.target.files ?? [])];
                 e.target.value = '';
                 if (files.length)
-                  upload.mutate(files, { onSuccess: (added) => toast.success(`Added ${added.length} file(s)`) });
+                  upload.mutate(files, {
+                    onSuccess: (added) => toast.success(`Added ${formatCount(added.length, 'file')}`),
+                  });
               }}
             />
             <Button variant="secondary" size="sm" disabled={upload.isPending} onClick={() => input.current?.click()}>

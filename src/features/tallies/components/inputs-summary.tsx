@@ -1,3 +1,5 @@
+import type { LengthUnit } from '@/shared/constants';
+import { formatStation } from '@/shared/domain/earthwork/units';
 import { formatNumber } from '@/shared/format';
 
 /** Names for the worksheet input fields; anything else is spelled out from its camelCase key. */
@@ -7,7 +9,7 @@ const LABELS: Record<string, string> = {
   spacingY: 'Grid spacing, north-south',
   depths: 'Depths at grid nodes',
   cornerDepths: 'Corner depths',
-  sideSlope: 'Side slope (H:1V)',
+  sideSlope: 'Side slope',
   swellPercent: 'Swell (%)',
   shrinkagePercent: 'Shrinkage (%)',
   cutArea: 'Cut area',
@@ -18,12 +20,75 @@ const LABELS: Record<string, string> = {
   stations: 'Stations',
   runs: 'Trench runs',
   loads: 'Truck loads',
-  capacity: 'Capacity',
-  count: 'Count',
+  capacity: 'Truck capacity',
+  count: 'Loads',
+  station: 'Station',
+  length: 'Length',
+  width: 'Width',
+  depth: 'Depth',
+  formula: 'Formula',
+  zeroAreaEnds: 'Where one end area is zero',
+  protection: 'Protection',
+  soilClass: 'Soil class',
   component: 'Bills the',
   measuredBasis: 'Measured as',
   density: 'Density',
 };
+
+/** Words for the closed values the worksheets save (the worksheet's own choices), never the stored code. */
+const VALUE_WORDS: Record<string, Record<string, string>> = {
+  unit: { ft: 'feet', m: 'metres' },
+  formula: { 'average-end-area': 'Average end area', prismoidal: 'Prismoidal' },
+  zeroAreaEnds: { average: 'Average the ends', pyramid: 'Pyramid rule (A L / 3)' },
+  protection: { box: 'Trench box (vertical sides)', slope: 'Sloped sides', bench: 'Benched sides' },
+  soilClass: {
+    'stable-rock': 'Stable rock',
+    A: 'Type A',
+    'A-short-term': 'Type A, short term',
+    B: 'Type B',
+    C: 'Type C',
+  },
+  component: { cut: 'Cut', fill: 'Fill' },
+};
+
+/** Inputs first in the order a person reads them off the worksheet; anything else after, as saved. */
+const ORDER = [
+  'unit',
+  'formula',
+  'zeroAreaEnds',
+  'protection',
+  'soilClass',
+  'length',
+  'width',
+  'sideSlope',
+  'spacingX',
+  'spacingY',
+  'swellPercent',
+  'shrinkagePercent',
+  'station',
+  'depth',
+  'bottomWidth',
+  'cutArea',
+  'fillArea',
+  'capacity',
+  'count',
+  'existing',
+  'design',
+];
+const rank = (key: string) => (ORDER.includes(key) ? ORDER.indexOf(key) : ORDER.length);
+const byOrder = (a: string, b: string) => rank(a) - rank(b);
+
+const LENGTHS = new Set(['spacingX', 'spacingY', 'length', 'width', 'depth', 'bottomWidth', 'station']);
+const AREAS = new Set(['cutArea', 'fillArea']);
+
+/** The unit a field is in, from the worksheet's length unit ("ft", "sq ft", "loose CY"); null when none. */
+function unitOf(key: string, unit: LengthUnit): string | null {
+  if (LENGTHS.has(key) || key === 'cornerDepths' || key === 'depths') return unit;
+  if (AREAS.has(key)) return unit === 'ft' ? 'sq ft' : 'm²';
+  if (key === 'capacity') return unit === 'ft' ? 'loose CY' : 'loose m³';
+  if (key === 'sideSlope') return 'H per V';
+  return null;
+}
 
 export const labelOf = (key: string) =>
   LABELS[key] ??
@@ -40,15 +105,28 @@ function trimmed(v: number): string {
 }
 const cell = (v: unknown) => (typeof v === 'number' ? trimmed(v) : v === null || v === undefined ? '–' : String(v));
 
-function RowsTable({ name, rows }: { name: string; rows: Record<string, unknown>[] }) {
-  const columns = [...new Set(rows.flatMap((r) => Object.keys(r)))];
+/** A value as read: stations in station notation, closed values in words, numbers trimmed. */
+function valueText(key: string, v: unknown, unit: LengthUnit): string {
+  if (key === 'station' && typeof v === 'number') return formatStation(v, unit);
+  if (typeof v === 'string' && VALUE_WORDS[key]?.[v]) return VALUE_WORDS[key][v];
+  return cell(v);
+}
+
+/** "Length (ft)": the label with its unit when it has one. */
+function heading(key: string, unit: LengthUnit): string {
+  const u = key === 'station' || key === 'swellPercent' || key === 'shrinkagePercent' ? null : unitOf(key, unit);
+  return u ? `${labelOf(key)} (${u})` : labelOf(key);
+}
+
+function RowsTable({ name, rows, unit }: { name: string; rows: Record<string, unknown>[]; unit: LengthUnit }) {
+  const columns = [...new Set(rows.flatMap((r) => Object.keys(r)))].sort(byOrder);
   return (
     <table className="w-full text-sm tabular-nums" aria-label={labelOf(name)}>
       <thead>
         <tr className="border-b border-stone-200 text-left text-xs text-stone-600">
           {columns.map((c) => (
             <th key={c} className="py-1 pr-3 font-medium">
-              {labelOf(c)}
+              {heading(c, unit)}
             </th>
           ))}
         </tr>
@@ -58,7 +136,7 @@ function RowsTable({ name, rows }: { name: string; rows: Record<string, unknown>
           <tr key={i} className="border-b border-stone-100">
             {columns.map((c) => (
               <td key={c} className="py-0.5 pr-3">
-                {cell(r[c])}
+                {valueText(c, r[c], unit)}
               </td>
             ))}
           </tr>
@@ -101,7 +179,8 @@ function MatrixTable({ name, rows }: { name: string; rows: unknown[][] }) {
 
 /** The worksheet inputs as a person reads them: plain values as labelled fields, lists and grids as tables. */
 export function InputsSummary({ inputs }: { inputs: Record<string, unknown> }) {
-  const entries = Object.entries(inputs);
+  const unit: LengthUnit = inputs.unit === 'm' ? 'm' : 'ft';
+  const entries = Object.entries(inputs).sort(([a], [b]) => byOrder(a, b));
   const plain = entries.filter(([, v]) => !Array.isArray(v) && (v === null || typeof v !== 'object'));
   const lists = entries.filter(([, v]) => Array.isArray(v) && v.length > 0) as [string, unknown[]][];
   return (
@@ -112,7 +191,10 @@ export function InputsSummary({ inputs }: { inputs: Record<string, unknown> }) {
           {plain.map(([key, value]) => (
             <div key={key} className="contents">
               <dt className="text-stone-600">{labelOf(key)}</dt>
-              <dd className="tabular-nums">{cell(value)}</dd>
+              <dd className="tabular-nums">
+                {valueText(key, value, unit)}
+                {typeof value === 'number' && unitOf(key, unit) ? ` ${unitOf(key, unit)}` : ''}
+              </dd>
             </div>
           ))}
         </dl>
@@ -120,12 +202,12 @@ export function InputsSummary({ inputs }: { inputs: Record<string, unknown> }) {
       {lists.map(([key, value]) => (
         <div key={key} className="max-h-72 overflow-auto">
           <p className="mb-1 text-xs font-medium text-stone-700">
-            {labelOf(key)} ({value.length})
+            {labelOf(key)} ({value.length}){unitOf(key, unit) ? `, ${unitOf(key, unit)}` : ''}
           </p>
           {Array.isArray(value[0]) ? (
             <MatrixTable name={key} rows={value as unknown[][]} />
           ) : value[0] && typeof value[0] === 'object' ? (
-            <RowsTable name={key} rows={value as Record<string, unknown>[]} />
+            <RowsTable name={key} rows={value as Record<string, unknown>[]} unit={unit} />
           ) : (
             <p className="text-sm tabular-nums">{value.map(cell).join(', ')}</p>
           )}

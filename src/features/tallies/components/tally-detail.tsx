@@ -58,6 +58,17 @@ export function TallyDetail({ tallyId, unitPriceCents }: { tallyId: string; unit
           </p>
           <p className="mt-1 text-sm font-medium text-spruce-900" data-testid="next-step">
             {tallyNextStep(tally)}
+            {tally.payAppId ? (
+              <>
+                {' '}
+                <Link
+                  className="text-spruce-700 underline"
+                  to={`/projects/${encodeURIComponent(tally.projectId)}/pay-apps/${encodeURIComponent(tally.payAppId)}`}
+                >
+                  Open the pay application
+                </Link>
+              </>
+            ) : null}
           </p>
         </div>
         <div className="flex items-center gap-2">

@@ -1,10 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { TallyView } from '@/shared/schemas/tally';
+import type { EvidenceView, TallyView } from '@/shared/schemas/tally';
 import { worksheetKeys } from './keys';
 
-export function getTally(tallyId: string): Promise<{ tally: TallyView }> {
-  return api.get<{ tally: TallyView }>(`/api/tallies/${encodeURIComponent(tallyId)}`);
+/** The tally and its evidence files (the worksheet lists them; the inputs hold what was read from them). */
+export type WorksheetTally = { tally: TallyView; evidence: EvidenceView[] };
+
+export function getTally(tallyId: string): Promise<WorksheetTally> {
+  return api.get<WorksheetTally>(`/api/tallies/${encodeURIComponent(tallyId)}`);
 }
 
 export const tallyQueryOptions = (tallyId: string) =>

@@ -22,6 +22,13 @@ const itemLabel = (b: BidItemView) => `${b.itemNumber} · ${b.description} (${b.
 /** The one line that says what saving would bill. */
 export function BillLine({ preview, item }: { preview: BillPreview | null; item: BidItemView | undefined }) {
   if (!item) return <p className="text-sm text-stone-600">Choose the bid item this measurement bills.</p>;
+  // The item's measurement profile pays it another way (tickets, steps, settings): the tally would bill nothing.
+  if (item.talliesNotBilled)
+    return (
+      <p className="text-sm text-clay-800" role="status" data-testid="bill-line">
+        Item {item.itemNumber} is {item.talliesNotBilled}.
+      </p>
+    );
   if (!preview) return <p className="text-sm text-stone-600">No quantity yet: the inputs need attention.</p>;
   if (preview.problem)
     return (
@@ -58,7 +65,7 @@ export function BillingBar({ method, bidItems, choice, onChoice, preview, disabl
       <label className="flex flex-col text-xs text-stone-700">
         Bills item
         <Select
-          className="mt-0.5 w-72"
+          className="mt-0.5 w-80"
           value={choice.bidItemId}
           disabled={disabled}
           onChange={(e) => onChoice({ ...choice, bidItemId: e.target.value })}
@@ -88,7 +95,7 @@ export function BillingBar({ method, bidItems, choice, onChoice, preview, disabl
         <label className="flex flex-col text-xs text-stone-700">
           Part billed
           <Select
-            className="mt-0.5 w-36"
+            className="mt-0.5 w-48"
             value={choice.component}
             disabled={disabled}
             onChange={(e) => onChoice({ ...choice, component: e.target.value as TallyComponent | '' })}

@@ -42,27 +42,29 @@ export function FileSource({
         <label htmlFor={id} className="text-xs font-medium text-stone-700">
           {label}
         </label>
-        <label className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }), 'cursor-pointer')}>
-          <Upload aria-hidden /> Upload file
-          <input
-            ref={input}
-            type="file"
-            aria-label={`Upload a file for ${label}`}
-            accept={accept}
-            className="sr-only"
-            onChange={async (event) => {
-              const file = event.target.files?.[0];
-              if (input.current) input.current.value = '';
-              if (!file) return;
-              const why = await notTextReason(file);
-              setRefused(why);
-              if (why) return;
-              files?.attach(label, file);
-              if (onFile?.(file)) return;
-              onChange(await file.text(), file.name);
-            }}
-          />
-        </label>
+        {files?.readOnly ? null : (
+          <label className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }), 'cursor-pointer')}>
+            <Upload aria-hidden /> Upload file
+            <input
+              ref={input}
+              type="file"
+              aria-label={`Upload a file for ${label}`}
+              accept={accept}
+              className="sr-only"
+              onChange={async (event) => {
+                const file = event.target.files?.[0];
+                if (input.current) input.current.value = '';
+                if (!file) return;
+                const why = await notTextReason(file);
+                setRefused(why);
+                if (why) return;
+                files?.attach(label, file);
+                if (onFile?.(file)) return;
+                onChange(await file.text(), file.name);
+              }}
+            />
+          </label>
+        )}
       </div>
       <textarea
         id={id}
@@ -75,7 +77,7 @@ export function FileSource({
             ? `${value.slice(0, 2000)}\n… (${value.length.toLocaleString('en-US')} characters; upload again to replace)`
             : value
         }
-        readOnly={big}
+        readOnly={big || files?.readOnly}
         onChange={(event) => {
           files?.detach(label);
           onChange(event.target.value, null);

@@ -7,10 +7,10 @@ import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { cn } from '@/lib/cn';
-import { formatQuantity } from '@/lib/format';
+import { formatCount, formatQuantity } from '@/lib/format';
 import { MEASUREMENT_METHOD_LABELS, METHOD_BILLING, type TallyStatus, type UnitSystem } from '@/shared/constants';
 import type { BidItemView } from '@/shared/schemas/bid-item';
-import type { TallyView } from '@/shared/schemas/tally';
+import type { EvidenceView, TallyView } from '@/shared/schemas/tally';
 import { useTally } from '../api/get-tally';
 import { useSaveWorksheetTally } from '../api/save-tally';
 import { previewBill } from '../lib/bill-preview';
@@ -58,7 +58,14 @@ export function WorksheetsScreen(props: WorksheetsScreenProps) {
   if (tallyId && tally.isPending) return <LoadingState label="Opening the tally…" />;
   if (tally.isError) return <ErrorState title="The tally could not be opened" error={tally.error} />;
   // Keyed by the tally: opening another one starts its worksheet afresh.
-  return <Worksheets key={tallyId ?? ''} {...props} tally={tally.data?.tally ?? null} />;
+  return (
+    <Worksheets
+      key={tallyId ?? ''}
+      {...props}
+      tally={tally.data?.tally ?? null}
+      evidence={tally.data?.evidence ?? []}
+    />
+  );
 }
 
 function Worksheets({
@@ -68,7 +75,8 @@ function Worksheets({
   bidItems,
   defaults,
   tally,
-}: WorksheetsScreenProps & { tally: TallyView | null }) {
+  evidence,
+}: WorksheetsScreenProps & { tally: TallyView | null; evidence: readonly EvidenceView[] }) {
   const [params] = useSearchParams();
   const asked = params.get('method');
   const method: WorksheetMethod = tally && isMethod(tally.method) ? tally.method : isMethod(asked) ? asked : 'end-area';
@@ -107,8 +115,9 @@ function Worksheets({
       attached: files,
       attach: (slot: string, file: File) => setFiles((m) => new Map(m).set(slot, file)),
       detach: (slot: string) => setFiles((m) => (m.has(slot) ? new Map([...m].filter(([k]) => k !== slot)) : m)),
+      readOnly: !editable || !canSave,
     }),
-    [files],
+    [files, editable, canSave],
   );
   const Screen = WORKSHEET_SCREENS[method];
   const tallyUrl = (id: string) => `/projects/${projectId}/tallies/${id}`;
@@ -134,7 +143,7 @@ function Worksheets({
     setSaving(false);
     setFiles(new Map());
     toast.success(
-      `Saved: ${formatQuantity(result.quantity, result.bidItem.payUnit, result.result?.basis)} to item ${result.bidItem.itemNumber}${evidence.length ? `, with ${evidence.length} file(s) as evidence` : ''}`,
+      `Saved: ${formatQuantity(result.quantity, result.bidItem.payUnit, result.result?.basis)} to item ${result.bidItem.itemNumber}${evidence.length ? `, with ${formatCount(evidence.length, 'file')} as evidence` : ''}`,
     );
   };
 
@@ -176,6 +185,7 @@ function Worksheets({
                   : ` is ${TALLY_STATE_PHRASES[tally.status]}; changes here are not saved.`}
               </p>
             ) : null}
+            {tally ? <TallyFiles evidence={evidence} /> : null}
           </div>
           {canSave && billing.bills && editable ? (
             <Button
@@ -185,7 +195,7 @@ function Worksheets({
             >
               <Save aria-hidden /> {tally ? 'Save changes' : 'Save as tally'}
             </Button>
-          ) : !canSave ? (
+          ) : !canSave && !tally ? (
             <p className="max-w-xs text-xs text-stone-500">
               Calculator only: the subcontractor saves worksheets as tallies.
             </p>
@@ -241,5 +251,24 @@ function Worksheets({
         </Dialog>
       </div>
     </WorksheetFilesContext.Provider>
+  );
+}
+
+/** The files saved with the tally (its evidence), each downloadable; the boxes below hold what was read from them. */
+function TallyFiles({ evidence }: { evidence: readonly EvidenceView[] }) {
+  if (evidence.length === 0)
+    return <p className="text-xs text-stone-600">No evidence file is saved with this tally.</p>;
+  return (
+    <p className="text-xs text-stone-600">
+      Evidence saved with the tally:{' '}
+      {evidence.map((e, i) => (
+        <span key={e.id}>
+          {i > 0 ? ', ' : ''}
+          <a className="text-spruce-700 underline" href={e.downloadUrl} download aria-label={`Download ${e.fileName}`}>
+            {e.fileName}
+          </a>
+        </span>
+      ))}
+    </p>
   );
 }

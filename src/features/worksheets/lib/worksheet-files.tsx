@@ -5,6 +5,8 @@ export type WorksheetFiles = {
   attach: (slot: string, file: File) => void;
   detach: (slot: string) => void;
   attached: ReadonlyMap<string, File>;
+  /** A tally opened read-only: no file can be loaded (the upload buttons are not offered). */
+  readOnly?: boolean;
 };
 
 export const WorksheetFilesContext = createContext<WorksheetFiles | null>(null);

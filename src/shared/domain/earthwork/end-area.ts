@@ -146,7 +146,7 @@ export function endAreaVolumes(input: EndAreaInput): EndAreaResult {
     formula === 'prismoidal'
       ? 'Prismoidal formula V = L (A1 + 4 Am + A2) / 6, Am measured at the mid section (surveying texts)'
       : 'Average end area V = L (A1 + A2) / 2 (FHWA FP Section 109; US Army FM 5-233 ch. 4)',
-    `${fmt(stations.length, 0)} stations from ${formatStation(first, unit)} to ${formatStation(last, unit)} (${fmt(last - first)} ${unit}), ${fmt(segments.length, 0)} segments`,
+    `${fmt(stations.length, 0)} stations from ${formatStation(first, unit)} to ${formatStation(last, unit)} (${fmt(last - first)} ${unit}), ${fmt(segments.length, 0)} segment${segments.length === 1 ? '' : 's'}`,
   ];
   if (formula === 'average-end-area' && rule === 'pyramid') {
     trail.push(`Pyramid rule V = A L / 3 where one end area is zero (Wikibooks, Fundamentals of Transportation / Earthwork): ${fmt(pyramids, 0)} segments`);

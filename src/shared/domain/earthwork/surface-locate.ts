@@ -130,6 +130,13 @@ export class TinLocator {
     return this.scan(x, y);
   }
 
+  /** Triangle holding (x, y) by a walk from triangle `start` (a neighbour's answer), or -1 outside. */
+  locateFrom(start: number, x: number, y: number): number {
+    if (this.buckets) return this.buckets.locate(x, y);
+    this.last = start;
+    return this.locate(x, y, false);
+  }
+
   /** Fallback for a walk that did not settle (degenerate input): test every triangle. */
   private scan(x: number, y: number): number {
     const tri = this.triangles;

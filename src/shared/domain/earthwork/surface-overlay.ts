@@ -113,6 +113,10 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   let overlapArea = 0;
   let pieces = 0;
 
+  // Triangles of `a` in their (plan-ordered, surface-tin.ts) numbering: each is located in `b` by a walk from
+  // where an earlier neighbour was found (a step or two), else from the grid seed.
+  const hint = new Int32Array(ta.length / 3).fill(-1);
+  const ha = a.mesh.halfedges;
   for (let k = 0; k < ta.length; k += 3) {
     const tIndex = k / 3;
     const ia = ta[k]!,
@@ -142,9 +146,19 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
     let seed = -1;
     if (buckets) buckets.candidates(tx0, ty0, tx1, ty1, seeds);
     else {
-      seed = b.locator.locate(ax + (ex + fx) / 3, ay + (ey + fy) / 3, true);
+      const h = hint[tIndex]!;
+      const cx = ax + (ex + fx) / 3,
+        cy = ay + (ey + fy) / 3;
+      seed = h >= 0 ? b.locator.locateFrom(h, cx, cy) : b.locator.locate(cx, cy, true);
       if (seed < 0) seed = seedFromHull(tri, hull!, b, r1, r2);
       if (seed < 0) continue;
+      for (let e = k; e < k + 3; e++) {
+        const o = ha[e]!;
+        if (o >= 0) {
+          const nb = (o / 3) | 0;
+          if (hint[nb]! < 0) hint[nb] = seed;
+        }
+      }
     }
     const mark = tIndex + 1;
     // A convex mesh: one walk from the seed reaches every overlapping triangle. Faces as given (maybe with

@@ -103,10 +103,59 @@ export function buildTin(p: SurfacePoints, ox: number, oy: number, name: SurveyN
   if (extra > 0) {
     tin.breaklineEdges = constrain(mesh, lines, n, twin, name);
     tin.source = 'constrained';
-    // The walk starts again from the first triangle: the flips changed the mesh under the old seeds.
-    tin.locator = new TinLocator(mesh, coords);
   }
+  // Triangles renumbered in plan order (delaunator numbers them as its sweep met them, scattered in memory), so
+  // the overlay's walks read neighbouring memory; the locator is built on the renumbered mesh.
+  tin.mesh = spatialOrder(mesh.triangles, mesh.halfedges, mesh.hull, coords);
+  tin.locator = new TinLocator(tin.mesh, coords);
   return tin;
+}
+
+/**
+ * The mesh's triangles renumbered row by row of a plan grid (about 4 triangles a cell; a counting sort of their
+ * centroids' cells), half-edges renumbered to match. Same triangles, same neighbours: only their numbers change.
+ */
+function spatialOrder(tri: Uint32Array, he: Int32Array, hull: Uint32Array, c: Float64Array): MeshLike {
+  const n = tri.length / 3;
+  let x0 = Infinity,
+    y0 = Infinity,
+    x1 = -Infinity,
+    y1 = -Infinity;
+  for (let i = 0; i < c.length; i += 2) {
+    if (c[i]! < x0) x0 = c[i]!;
+    if (c[i]! > x1) x1 = c[i]!;
+    if (c[i + 1]! < y0) y0 = c[i + 1]!;
+    if (c[i + 1]! > y1) y1 = c[i + 1]!;
+  }
+  const w = Math.max(x1 - x0, 1e-12),
+    h = Math.max(y1 - y0, 1e-12);
+  const across = Math.max(1, Math.ceil(Math.sqrt(((n / 4) * w) / h)));
+  const down = Math.max(1, Math.ceil(n / 4 / across));
+  const cellOf = new Int32Array(n);
+  const start = new Int32Array(across * down + 1);
+  for (let t = 0; t < n; t++) {
+    const a = 2 * tri[3 * t]!,
+      b = 2 * tri[3 * t + 1]!,
+      d = 2 * tri[3 * t + 2]!;
+    const i = Math.min(across - 1, Math.floor((((c[a]! + c[b]! + c[d]!) / 3 - x0) / w) * across));
+    const j = Math.min(down - 1, Math.floor((((c[a + 1]! + c[b + 1]! + c[d + 1]!) / 3 - y0) / h) * down));
+    cellOf[t] = j * across + i;
+    start[cellOf[t]! + 1]!++;
+  }
+  for (let k = 0; k < across * down; k++) start[k + 1]! += start[k]!;
+  const place = new Int32Array(n);
+  for (let t = 0; t < n; t++) place[t] = start[cellOf[t]!]!++;
+  const triangles = new Uint32Array(tri.length);
+  const halfedges = new Int32Array(tri.length);
+  for (let t = 0; t < n; t++) {
+    const p = 3 * place[t]!;
+    for (let k = 0; k < 3; k++) {
+      triangles[p + k] = tri[3 * t + k]!;
+      const o = he[3 * t + k]!;
+      halfedges[p + k] = o < 0 ? -1 : 3 * place[(o / 3) | 0]! + (o % 3);
+    }
+  }
+  return { triangles, halfedges, hull };
 }
 
 /**

@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { talliesNotBilledReason } from '../../src/shared/domain/provisions/tally-pay';
+
+// The rule of pay application compilation (server/modules/pay-apps/pay-app-build.ts), said for the screens:
+// which items are paid from something other than their tallies. Truck measure and weight from tickets (a state
+// DOT construction manual, sections 109.11-109.12); the rest as the project's settings say (common practice).
+describe('when an item’s tallies are not what it is paid from', () => {
+  it('tickets pay truck-measure and weight items', () => {
+    expect(talliesNotBilledReason('truck_measure', {})).toMatch(/Counted loads \(truck register\)/);
+    expect(talliesNotBilledReason('weight', {})).toMatch(/Weighed \(scale tickets\)/);
+  });
+
+  it('settings pay a plan quantity or a lump sum only once they give a quantity', () => {
+    expect(talliesNotBilledReason('plan_quantity', {})).toBeNull();
+    expect(talliesNotBilledReason('plan_quantity', { percentComplete: 40 })).not.toBeNull();
+    expect(talliesNotBilledReason('lump_sum', {})).toBeNull();
+    expect(talliesNotBilledReason('lump_sum', { percentComplete: 0 })).not.toBeNull();
+    expect(talliesNotBilledReason('lump_sum', { mobilizationSteps: [{ percentOfItem: 50 }] })).not.toBeNull();
+  });
+
+  it('tallies pay an item measured by worksheet, with no profile, or on force account', () => {
+    expect(talliesNotBilledReason(null, {})).toBeNull();
+    expect(talliesNotBilledReason('worksheet', {})).toBeNull();
+    expect(talliesNotBilledReason('force_account', {})).toBeNull();
+  });
+});
