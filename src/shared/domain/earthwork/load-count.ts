@@ -72,7 +72,7 @@ export function loadCount(input: LoadCountInput): LoadCountResult {
   const trail: Trail = [
     `Loose volume = sum of capacity x loads = ${fmt(loose, 2)} loose ${label} over ${fmt(loads, 0)} loads`,
     `Bank = loose / (1 + swell) = ${fmt(loose, 2)} / ${fmt(1 + swell, 4)} = ${fmt(bankVolume, 2)} (computed to 0.01)`,
-    `Pay quantity ${fmt(pay, 1)} bank ${label} (paid to 0.1: truck measure, state DOT construction manual section 109.11)`,
+    `Paid in bank measure: ${fmt(pay, 1)} bank ${label} (to 0.1: truck measure, state DOT construction manual section 109.11); an item paid loose takes the loose volume`,
   ];
   return {
     looseVolume: toNumber({ digits: divRoundHalfAway(L, pow10(LS - 2)), scale: 2 }),

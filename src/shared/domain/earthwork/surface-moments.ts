@@ -81,11 +81,12 @@ export function clipPositive(src: Ring, f: Linear, dst: Ring): void {
 
 /**
  * Adds the cut (f > 0) and fill (f < 0) of f over the ring to acc [cut, fill, area], as positive volumes and
- * area whatever the ring's orientation. `scratch` holds the clipped ring.
+ * area whatever the ring's orientation. `scratch` holds the clipped ring. Answers the ring's signed area.
  */
-export function addRing(r: Ring, f: Linear, acc: Float64Array, scratch: Ring, tmp: Float64Array, sign = 1): void {
-  if (r.n < 3) return;
+export function addRing(r: Ring, f: Linear, acc: Float64Array, scratch: Ring, tmp: Float64Array, sign = 1): number {
+  if (r.n < 3) return 0;
   integrateRing(r, f, tmp);
+  const signed = tmp[1]!;
   const orient = tmp[1]! < 0 ? -sign : sign;
   const net = tmp[0]! * orient;
   acc[2]! += tmp[1]! * orient;
@@ -98,15 +99,16 @@ export function addRing(r: Ring, f: Linear, acc: Float64Array, scratch: Ring, tm
   }
   if (neg === 0) {
     acc[0]! += net;
-    return;
+    return signed;
   }
   if (pos === 0) {
     acc[1]! -= net;
-    return;
+    return signed;
   }
   clipPositive(r, f, scratch);
   integrateRing(scratch, f, tmp);
   const cut = tmp[0]! * orient;
   acc[0]! += cut;
   acc[1]! += cut - net;
+  return signed;
 }

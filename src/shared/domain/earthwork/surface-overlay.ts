@@ -107,6 +107,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const tmp = new Float64Array(2);
   const f: Linear = { d0: 0, dx: 0, dy: 0, x0: 0, y0: 0 };
   const hull = b.convex ? hullRing(b) : null;
+  const planeB = planes(b);
   const buckets = b.convex ? null : b.buckets;
   const seeds: number[] = [];
   const status = pay ? pay.classify(a) : null;
@@ -228,28 +229,22 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
           piece = r2;
         }
         if (piece.n < 3) continue;
-        const area = ringArea(piece);
+        // Depth = (a's plane) - (b's plane), both written about t's first corner; b's plane from its table.
+        const pB = planeB[3 * s]!,
+          qB = planeB[3 * s + 1]!;
+        f.x0 = ax;
+        f.y0 = ay;
+        f.d0 = zA - (planeB[3 * s + 2]! + pB * ax + qB * ay);
+        f.dx = pA - pB;
+        f.dy = qA - qB;
+        // The piece's signed area comes with its integral (one pass over its corners).
+        const area =
+          !status || status[tIndex] === 1
+            ? addRing(piece, f, acc, scratch, tmp)
+            : (status[tIndex] === 3 && pay!.addClipped(piece, f, acc, scratch, tmp), ringArea(piece));
         if (!(area !== 0)) continue;
         pieces++;
         overlapArea += Math.abs(area);
-        // Depth = (a's plane) - (b's plane), both written about t's first corner.
-        const gx = x1 - x0,
-          gy = y1 - y0,
-          hx = x2 - x0,
-          hy = y2 - y0;
-        const detB = gx * hy - gy * hx;
-        const zB = zb[j0]!,
-          dz1 = zb[j1]! - zB,
-          dz2 = zb[j2]! - zB;
-        const pB = (dz1 * hy - dz2 * gy) / detB;
-        const qB = (dz2 * gx - dz1 * hx) / detB;
-        f.x0 = ax;
-        f.y0 = ay;
-        f.d0 = zA - (zB + pB * (ax - x0) + qB * (ay - y0));
-        f.dx = pA - pB;
-        f.dy = qA - qB;
-        if (!status || status[tIndex] === 1) addRing(piece, f, acc, scratch, tmp);
-        else if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
         for (let e = e0; e < e0 + 3; e++) {
           if (!(e === e0 ? out0 : e === e0 + 1 ? out1 : out2)) continue;
           const opp = hb[e]!;
@@ -268,6 +263,35 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
     }
   }
   return { cut: acc[0]!, fill: acc[1]!, area: acc[2]!, overlapArea, pieces };
+}
+
+/** Each triangle's plane z = p x + q y + c (shifted plan coordinates), as [p, q, c] triples. */
+function planes(t: Tin): Float64Array {
+  const tri = t.mesh.triangles;
+  const c = t.coords;
+  const z = t.z;
+  const out = new Float64Array(tri.length);
+  for (let k = 0; k < tri.length; k += 3) {
+    const j0 = tri[k]!,
+      j1 = tri[k + 1]!,
+      j2 = tri[k + 2]!;
+    const x0 = c[2 * j0]!,
+      y0 = c[2 * j0 + 1]!;
+    const gx = c[2 * j1]! - x0,
+      gy = c[2 * j1 + 1]! - y0,
+      hx = c[2 * j2]! - x0,
+      hy = c[2 * j2 + 1]! - y0;
+    const det = gx * hy - gy * hx;
+    const z0 = z[j0]!,
+      dz1 = z[j1]! - z0,
+      dz2 = z[j2]! - z0;
+    const p = (dz1 * hy - dz2 * gy) / det;
+    const q = (dz2 * gx - dz1 * hx) / det;
+    out[k] = p;
+    out[k + 1] = q;
+    out[k + 2] = z0 - p * x0 - q * y0;
+  }
+  return out;
 }
 
 interface HullRing {
