@@ -95,7 +95,6 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const ca = a.coords;
   const cb = b.coords;
   const za = a.z;
-  const zb = b.z;
   const ob = orientationOf(b);
   const stamp = new Int32Array(tb.length / 3);
   let stack = new Int32Array(64);
@@ -238,10 +237,12 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
         f.dx = pA - pB;
         f.dy = qA - qB;
         // The piece's signed area comes with its integral (one pass over its corners).
-        const area =
-          !status || status[tIndex] === 1
-            ? addRing(piece, f, acc, scratch, tmp)
-            : (status[tIndex] === 3 && pay!.addClipped(piece, f, acc, scratch, tmp), ringArea(piece));
+        let area: number;
+        if (!status || status[tIndex] === 1) area = addRing(piece, f, acc, scratch, tmp);
+        else {
+          if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
+          area = ringArea(piece);
+        }
         if (!(area !== 0)) continue;
         pieces++;
         overlapArea += Math.abs(area);
