@@ -192,7 +192,7 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
     fromStatus: null,
     toStatus: 'draft',
     revision: 0,
-    note: `Compiled from ${billed.length} ${billed.length === 1 ? 'tally' : 'tallies'}`,
+    note: compiledNote(billed.length, tickets.truckIds.length + tickets.scaleIds.length, sheetIds.length),
     actorUserId: userId,
     createdAt: new Date(),
   });
@@ -356,4 +356,13 @@ export async function recomputeLines(
       .where(eq(payAppLines.id, l.id));
   }
   return totalsOf(computed);
+}
+
+/** "Compiled from 3 tallies, 17 tickets and 1 force account day" (the parts that are there). */
+function compiledNote(tallyCount: number, ticketCount: number, dayCount: number): string {
+  const n = (c: number, one: string, many: string) => `${c} ${c === 1 ? one : many}`;
+  const parts = [n(tallyCount, 'tally', 'tallies')];
+  if (ticketCount > 0) parts.push(n(ticketCount, 'ticket', 'tickets'));
+  if (dayCount > 0) parts.push(n(dayCount, 'force account day', 'force account days'));
+  return `Compiled from ${parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}` : parts[0]}`;
 }

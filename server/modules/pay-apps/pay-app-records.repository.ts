@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNotNull, isNull, lte } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNotNull, isNull, lte } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import {
   bidItemProfiles,
@@ -183,4 +183,23 @@ export async function allowanceItems(tx: Executor, changeOrderIds: string[]): Pr
       ),
     );
   return new Map(rows.flatMap((r) => (r.bidItemId ? [[r.changeOrderId, r.bidItemId] as const] : [])));
+}
+
+/** How many tickets (loads and weighings) the application paid on each bid item: those lines' backup. */
+export async function ticketCountsByItem(tx: Executor, payAppId: string): Promise<Map<string, number>> {
+  const [loads, weighed] = await Promise.all([
+    tx
+      .select({ bidItemId: truckTickets.bidItemId, n: count() })
+      .from(truckTickets)
+      .where(eq(truckTickets.payAppId, payAppId))
+      .groupBy(truckTickets.bidItemId),
+    tx
+      .select({ bidItemId: scaleTickets.bidItemId, n: count() })
+      .from(scaleTickets)
+      .where(eq(scaleTickets.payAppId, payAppId))
+      .groupBy(scaleTickets.bidItemId),
+  ]);
+  const counts = new Map<string, number>();
+  for (const r of [...loads, ...weighed]) counts.set(r.bidItemId, (counts.get(r.bidItemId) ?? 0) + Number(r.n));
+  return counts;
 }

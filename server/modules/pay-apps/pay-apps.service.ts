@@ -19,7 +19,7 @@ import {
   presentSummary,
   presentTally,
 } from './pay-apps.presenter';
-import { allowanceItems, forceAccountLines } from './pay-app-records.repository';
+import { allowanceItems, forceAccountLines, ticketCountsByItem } from './pay-app-records.repository';
 import type { PackageForceAccountInput } from '../../../src/shared/domain/pay-app-package';
 import type { TicketHold } from '../../../src/shared/domain/provisions/ticket-pay';
 import * as repo from './pay-apps.repository';
@@ -51,10 +51,16 @@ export async function payAppDetail(db: Db, payAppId: string, roles: AccessRole[]
       app.tallies.map((t) => t.id),
     ),
   ]);
+  // A line paid from tickets has them as its backup (each ticket is the record of its load), not tallies.
+  const tickets = await ticketCountsByItem(db, payAppId);
   const evidence = new Map(
     lines.map((l) => {
       const mine = app.tallies.filter((t) => t.bidItemId === l.bidItemId);
-      return [l.id, { tallies: mine.length, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length }];
+      const loads = tickets.get(l.bidItemId) ?? 0;
+      return [
+        l.id,
+        { tallies: mine.length + loads, withoutEvidence: mine.filter((t) => !withEvidence.has(t.id)).length },
+      ];
     }),
   );
   const allowance = await allowanceItems(

@@ -74,7 +74,7 @@ export function errorLines(errors: FieldErrors, labels: Labels, prefix = ''): st
     const name = labels[prefix ? `${prefix}.${key}` : key] ?? labels[key] ?? key;
     // A row list: an array, or (with a message about the whole list) an object of row indexes and `root`.
     const entries = Object.entries(value as object);
-    if (Array.isArray(value) || entries.some(([k]) => /^\d+$/.test(k))) {
+    if (Array.isArray(value) || entries.some(([k]) => /^\d+$/.test(k) || k === 'root')) {
       const rows = entries.flatMap(([k, row]) =>
         /^\d+$/.test(k) && row
           ? errorLines(row as FieldErrors, labels, prefix ? `${prefix}.${key}` : key).map(

@@ -106,7 +106,7 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
                     ) : (
                       <ChevronRight aria-hidden className="size-3.5" />
                     )}
-                    Tallies
+                    Records
                   </button>
                 </TableCell>
               </TableRow>
