@@ -219,13 +219,23 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
         const out1 = c0 < 0 || c1 < 0 || c2 < 0;
         const out2 = d0 < 0 || d1 < 0 || d2 < 0;
         let piece = tri;
-        if (out0 || out1 || out2) {
-          clipEdge(tri, x0, y0, x1, y1, ob, r2);
-          if (r2.n === 0) continue;
-          clipEdge(r2, x1, y1, x2, y2, ob, r1);
-          if (r1.n === 0) continue;
-          clipEdge(r1, x2, y2, x0, y0, ob, r2);
-          piece = r2;
+        // Clipped only by the edges some corner of t lies outside: t is convex, so it (and any part of it) lies
+        // wholly inside the others' half-planes.
+        if (out0) {
+          clipEdge(piece, x0, y0, x1, y1, ob, r1);
+          piece = r1;
+          if (piece.n === 0) continue;
+        }
+        if (out1) {
+          const dst = piece === r1 ? r2 : r1;
+          clipEdge(piece, x1, y1, x2, y2, ob, dst);
+          piece = dst;
+          if (piece.n === 0) continue;
+        }
+        if (out2) {
+          const dst = piece === r1 ? r2 : r1;
+          clipEdge(piece, x2, y2, x0, y0, ob, dst);
+          piece = dst;
         }
         if (piece.n < 3) continue;
         // Depth = (a's plane) - (b's plane), both written about t's first corner; b's plane from its table.
