@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { InputsSummary } from '@/features/tallies/components/inputs-summary';
+import { inputChanges, InputsSummary } from '@/features/tallies/components/inputs-summary';
 
 afterEach(cleanup);
 
@@ -51,5 +51,24 @@ describe('the inputs of a tally as a person reads them', () => {
     const terms = texts(screen.getAllByRole('term'));
     expect(terms).toEqual(['Length unit', 'Length', 'Width']);
     expect(texts(screen.getAllByRole('definition'))).toEqual(['feet', '16 ft', '12 ft']);
+  });
+
+  it('says what a later save changed: a pit 16 ft long made 18 ft; stations added; nothing when equal', () => {
+    const pit = { unit: 'ft', length: 16, width: 12, cornerDepths: [5, 5, 5, 5] };
+    expect(inputChanges(pit, { ...pit, length: 18 })).toEqual(['Length 16 ft → 18 ft']);
+    expect(inputChanges(pit, pit)).toEqual([]);
+    const s = (n: number) =>
+      Array.from({ length: n }, (_, i) => ({ station: 1000 + 100 * i, cutArea: 160, fillArea: 0 }));
+    expect(inputChanges({ unit: 'ft', stations: s(2) }, { unit: 'ft', stations: s(3) })).toEqual([
+      'Stations: 2 rows → 3 rows',
+    ]);
+    expect(inputChanges({ unit: 'ft', formula: 'average-end-area' }, { unit: 'ft', formula: 'prismoidal' })).toEqual([
+      'Formula Average end area → Prismoidal',
+    ]);
+    expect(inputChanges({ a: 1, b: 1, c: 1, d: 1 }, { a: 2, b: 2, c: 2, d: 2 }, 2)).toEqual([
+      'A 1 → 2',
+      'B 1 → 2',
+      'and 2 more',
+    ]);
   });
 });

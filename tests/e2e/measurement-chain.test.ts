@@ -339,6 +339,7 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
     await history.waitFor();
     expect(await history.locator('tbody tr').count()).toBe(1);
     expect(await history.textContent()).toContain('35.56');
+    expect(await history.textContent()).toContain('Length 16 ft → 18 ft');
     await snap(sub, 'pit-history');
     pit.quantity = '40.00 CY bank';
 

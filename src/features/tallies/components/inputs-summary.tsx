@@ -106,7 +106,7 @@ function trimmed(v: number): string {
 const cell = (v: unknown) => (typeof v === 'number' ? trimmed(v) : v === null || v === undefined ? '–' : String(v));
 
 /** A value as read: stations in station notation, closed values in words, numbers trimmed. */
-function valueText(key: string, v: unknown, unit: LengthUnit): string {
+export function valueText(key: string, v: unknown, unit: LengthUnit): string {
   if (key === 'station' && typeof v === 'number') return formatStation(v, unit);
   if (typeof v === 'string' && VALUE_WORDS[key]?.[v]) return VALUE_WORDS[key][v];
   return cell(v);
@@ -215,4 +215,36 @@ export function InputsSummary({ inputs }: { inputs: Record<string, unknown> }) {
       ))}
     </div>
   );
+}
+
+/**
+ * What changed from one save's inputs to the next, in words: "Length 16 ft → 18 ft", "Stations: 2 rows → 3 rows".
+ * At most `limit` changes, then "and N more".
+ */
+export function inputChanges(
+  before: Record<string, unknown> | null,
+  after: Record<string, unknown> | null,
+  limit = 3,
+): string[] {
+  if (!before || !after) return [];
+  const unit: LengthUnit = after.unit === 'm' ? 'm' : 'ft';
+  const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort(byOrder);
+  const changes: string[] = [];
+  for (const key of keys) {
+    const [a, b] = [before[key], after[key]];
+    if (JSON.stringify(a) === JSON.stringify(b)) continue;
+    if (Array.isArray(a) || Array.isArray(b)) {
+      const rows = (v: unknown) => (Array.isArray(v) ? v.length : 0);
+      changes.push(
+        rows(a) === rows(b) ? `${labelOf(key)} edited` : `${labelOf(key)}: ${rows(a)} rows → ${rows(b)} rows`,
+      );
+      continue;
+    }
+    const text = (v: unknown) =>
+      v === undefined
+        ? '–'
+        : `${valueText(key, v, unit)}${typeof v === 'number' && unitOf(key, unit) ? ` ${unitOf(key, unit)}` : ''}`;
+    changes.push(`${labelOf(key)} ${text(a)} → ${text(b)}`);
+  }
+  return changes.length > limit ? [...changes.slice(0, limit), `and ${changes.length - limit} more`] : changes;
 }

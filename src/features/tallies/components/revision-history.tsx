@@ -2,9 +2,21 @@ import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { formatDate, formatQuantity } from '@/lib/format';
 import type { PayUnit } from '@/shared/constants';
 import type { TallyRevisionView } from '@/shared/schemas/tally';
+import { inputChanges } from './inputs-summary';
 
-/** Earlier saves of a draft: each kept when the tally was saved again, newest first, with its quantity. */
-export function RevisionHistory({ revisions, unit }: { revisions: TallyRevisionView[]; unit: PayUnit }) {
+/**
+ * Earlier saves of a draft: each kept when the tally was saved again, newest first, with its quantity and what the
+ * next save changed in its inputs (`current`: the tally's inputs now).
+ */
+export function RevisionHistory({
+  revisions,
+  unit,
+  current,
+}: {
+  revisions: TallyRevisionView[];
+  unit: PayUnit;
+  current: Record<string, unknown> | null;
+}) {
   if (revisions.length === 0) return null;
   return (
     <Card>
@@ -20,16 +32,20 @@ export function RevisionHistory({ revisions, unit }: { revisions: TallyRevisionV
               <th className="py-1 pr-3 font-medium">Measured on</th>
               <th className="py-1 pr-3 text-right font-medium">Quantity</th>
               <th className="py-1 pr-3 font-medium">Replaced</th>
+              <th className="py-1 pr-3 font-medium">Changed by that save</th>
             </tr>
           </thead>
           <tbody>
-            {revisions.map((r) => (
+            {revisions.map((r, i) => (
               <tr key={r.revision} className="border-b border-stone-100">
                 <td className="py-1 pr-3">{r.revision}</td>
                 <td className="py-1 pr-3">{formatDate(`${r.measuredOn}T12:00:00`)}</td>
                 <td className="py-1 pr-3 text-right">{formatQuantity(r.quantity, unit)}</td>
                 <td className="py-1 pr-3 text-stone-600">
                   {formatDate(r.replacedAt)} by {r.replacedBy}
+                </td>
+                <td className="py-1 pr-3">
+                  {inputChanges(r.inputs, i === 0 ? current : (revisions[i - 1]?.inputs ?? null)).join('; ') || '–'}
                 </td>
               </tr>
             ))}

@@ -150,7 +150,7 @@ export function TallyDetail({ tallyId, unitPriceCents }: { tallyId: string; unit
         canRemove={can.removeEvidence}
       />
       <EvidencePreviews evidence={evidence} />
-      <RevisionHistory revisions={revisions} unit={unit} />
+      <RevisionHistory revisions={revisions} unit={unit} current={tally.inputs} />
       <Dialog
         open={editing}
         onClose={() => setEditing(false)}
