@@ -128,4 +128,30 @@ describe('original ground, as-built surface, tally and map', () => {
     await expect.poll(() => sub.getByText(/locked original ground "basin-original-ground.xml"/).count()).toBe(1);
     await snap(sub, 'tally-map');
   }, 240_000);
+
+  it('streams a LandXML upload over 4 MiB in the worker, naming the file instead of holding its text', async () => {
+    // 400 x 400 shots 1 ft apart (160,000 points, about 5.5 MB): a plane 1 ft below the basin's original ground.
+    const rows: string[] = [];
+    let id = 1;
+    for (let y = 0; y < 400; y++)
+      for (let x = 0; x < 400; x++) rows.push(`<P id="${id++}">${y} ${x} ${(groundFt(x, y) - 1).toFixed(4)}</P>`);
+    const big = Buffer.from(`<?xml version="1.0" encoding="UTF-8"?>
+<LandXML xmlns="http://www.landxml.org/schema/LandXML-1.2" version="1.2"><Units><Imperial linearUnit="foot" elevationUnit="foot"/></Units>
+<Surfaces><Surface name="Dense as-built"><Definition surfType="TIN"><Pnts>${rows.join('\n')}</Pnts></Definition></Surface></Surfaces></LandXML>`);
+    expect(big.length).toBeGreaterThan(4 * 1024 * 1024);
+    const sub = await signedIn('sub@tallyard.test');
+    await openTab(sub, 'Worksheets');
+    await sub.getByRole('link', { name: 'Surface to surface', exact: true }).click();
+    await sub.getByLabel('Upload a file for Design survey (ft)').setInputFiles({
+      name: 'dense-as-built.xml',
+      mimeType: 'application/xml',
+      buffer: big,
+    });
+    await expect.poll(() => sub.getByText(/dense-as-built\.xml \(\d+(\.\d)? MB\) is read in pieces/).count()).toBe(1);
+    await expect
+      .poll(() => sub.getByText(/LandXML surface "Dense as-built": 160,000 points/).count(), { timeout: 120_000 })
+      .toBe(1);
+    expect(await sub.getByLabel('Design survey (ft)', { exact: true }).inputValue()).toBe('');
+    await snap(sub, 'worksheet-streamed');
+  }, 240_000);
 });
