@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { PDFParse } from 'pdf-parse';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -178,6 +178,7 @@ describe('one item of each way of paying through a new pay application, read bac
       for (const b of bytes) text += String.fromCharCode(b);
       return btoa(text);
     }, app.id);
+    if (SHOTS) writeFileSync(`${SHOTS}/pay-kinds-application.pdf`, Buffer.from(b64, 'base64'));
     const parser = new PDFParse({ data: new Uint8Array(Buffer.from(b64, 'base64')) });
     const text = (await parser.getText()).text.replace(/\s+/g, ' ');
     await parser.destroy();
