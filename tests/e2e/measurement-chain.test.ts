@@ -39,8 +39,8 @@ const BASIN_DUG = landXml('Lot 7 basin dug', (x, y) => ground(x, y) - 2);
 
 /**
  * Two cross sections 100 ft apart, each a flat cut 40 ft wide and 4 ft deep: 160 sq ft, so the average end area
- * gives 100 x 160 / 27 = 592.59 CY (average end area method, any surveying text, e.g. Ghilani and Wolf,
- * Elementary Surveying, chapter on volumes).
+ * gives 100 x 160 / 27 = 592.59 CY (average end area method, FHWA FP Section 109 as the worksheet trail cites;
+ * the arithmetic is hand-worked).
  */
 const SECTIONS_CSV = [
   'station,surface,offset,elevation',
@@ -51,7 +51,7 @@ const SECTIONS_CSV = [
     `${s},design,20,96`,
   ]),
 ].join('\n');
-/** A 4 x 4 node grid at 25 ft, every node 1 ft deep: 75 x 75 x 1 / 27 = 208.33 CY (borrow-pit method, same text). */
+/** A 4 x 4 node grid at 25 ft, every node 1 ft deep: 75 x 75 x 1 / 27 = 208.33 CY (borrow-pit method, common practice; hand-worked). */
 const GRID_DEPTHS = ['1,1,1,1', '1,1,1,1', '1,1,1,1', '1,1,1,1'].join('\n');
 /** Truck tickets: 10 loads of 14 LCY and 5 of 18 LCY = 230 loose CY (swell 25 %: 184 bank CY, Nichols and Day). */
 const TICKETS_CSV = ['capacity,loads', '14,10', '18,5'].join('\n');

@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { PDFParse } from 'pdf-parse';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -118,6 +118,11 @@ describe('one item of each way of paying through a new pay application, read bac
       .poll(() => form.getByRole('list', { name: 'What to correct' }).textContent())
       .toContain('The stages add up to 105 %; they must add up to 100 %');
     await snap(gc, 'stage-editor-refused');
+    // On a phone each row stacks its boxes with their labels.
+    await gc.setViewportSize({ width: 390, height: 844 });
+    await form.getByLabel('Stage 3 day done').waitFor();
+    await snap(gc, 'stage-editor-phone');
+    await gc.setViewportSize({ width: 1366, height: 900 });
     await form.getByLabel('Stage 3 share of the lump sum, percent').fill('20');
     await form.getByLabel('Stage 3 day done').fill('2026-11-20');
     await form.getByRole('button', { name: 'Save stages' }).click();
@@ -178,6 +183,7 @@ describe('one item of each way of paying through a new pay application, read bac
       for (const b of bytes) text += String.fromCharCode(b);
       return btoa(text);
     }, app.id);
+    if (SHOTS) writeFileSync(`${SHOTS}/pay-kinds-application.pdf`, Buffer.from(b64, 'base64'));
     const parser = new PDFParse({ data: new Uint8Array(Buffer.from(b64, 'base64')) });
     const text = (await parser.getText()).text.replace(/\s+/g, ' ');
     await parser.destroy();

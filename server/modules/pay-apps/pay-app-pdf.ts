@@ -260,7 +260,7 @@ function schedule(doc: PdfDoc, app: PayAppDetail) {
   sectionTitle(
     doc,
     'Schedule of values',
-    'Amounts to date on each bid item, with materials stored and not yet built in; force account after the items, one line per change order, valued at its signed days.',
+    'Amounts to date on each bid item, with materials stored and not yet built in. Force account is paid on its signed days: on the allowance item its change order added, or on a line of its own after the items.',
   );
   drawTable(doc, cols, app.package.schedule, [
     'Total',
@@ -296,7 +296,7 @@ function quantities(doc: PdfDoc, app: PayAppDetail) {
   sectionTitle(
     doc,
     'Quantities',
-    "In each item's pay unit; amount to date = quantity to date at the unit price, rounded once to the cent.",
+    "In each item's pay unit; amount to date = quantity to date at the unit price, rounded once to the cent. Force account days are not quantities: they are in the schedule of values.",
   );
   drawTable(doc, cols, app.lines);
   heldTickets(doc, app);

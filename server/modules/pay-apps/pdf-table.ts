@@ -37,7 +37,8 @@ export function drawTable<R>(doc: PdfDoc, cols: readonly PdfColumn<R>[], rows: r
       height,
       draw: (y: number) => {
         let x = left;
-        doc.fillColor(color);
+        // The font again: a page break in between drew the header in bold and left it set.
+        doc.font(font).fontSize(size).fillColor(color);
         cells.forEach((c, i) => {
           const col = cols[i]!;
           doc.text(c, x, y, { width: col.w - pad(col.align), align: col.align ?? 'left', lineBreak: true });

@@ -90,40 +90,43 @@ export function StageEditor({ profile, onDone }: { profile: MeasurementProfileVi
           save.
         </p>
       ) : null}
-      <div className="grid grid-cols-12 gap-2 text-xs font-semibold text-stone-700" aria-hidden>
+      <div className="hidden grid-cols-12 gap-2 text-xs font-semibold text-stone-700 sm:grid" aria-hidden>
         <span className="col-span-1">Row</span>
         <span className="col-span-5">Stage</span>
         <span className="col-span-2 text-right">Share, %</span>
         <span className="col-span-3">Day done (blank: not yet)</span>
       </div>
       {rows.fields.map((field, i) => (
-        <div key={field.id} className="grid grid-cols-12 items-start gap-2">
-          <span className="col-span-1 pt-2 text-xs text-stone-600">{i + 1}</span>
+        <div
+          key={field.id}
+          className="grid grid-cols-6 items-start gap-2 border-b border-stone-100 pb-2 sm:grid-cols-12 sm:border-0 sm:pb-0"
+        >
+          <span className="hidden pt-2 text-xs text-stone-600 sm:col-span-1 sm:block">{i + 1}</span>
           <TextBox
             form={f}
             name={`stages.${i}.name`}
             label={`Stage ${i + 1} name`}
-            className="col-span-5 [&_label]:sr-only"
+            className="col-span-6 sm:col-span-5 sm:[&_label]:sr-only"
           />
           <TextBox
             form={f}
             name={`stages.${i}.percentOfItem`}
             label={`Stage ${i + 1} share of the lump sum, percent`}
             numeric
-            className="col-span-2 [&_label]:sr-only"
+            className="col-span-2 sm:[&_label]:sr-only"
           />
           <TextBox
             form={f}
             name={`stages.${i}.completedOn`}
             label={`Stage ${i + 1} day done`}
             type="date"
-            className="col-span-3 [&_label]:sr-only"
+            className="col-span-3 sm:[&_label]:sr-only"
           />
           <Button
             type="button"
             variant="ghost"
             size="sm"
-            className="col-span-1"
+            className="col-span-1 self-end sm:self-start"
             aria-label={`Remove stage ${i + 1}`}
             onClick={() => rows.remove(i)}
             disabled={rows.fields.length === 1}
