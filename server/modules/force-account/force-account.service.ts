@@ -4,7 +4,7 @@ import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { conflict, notFound, validationFailed } from '../../lib/app-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canKeepFieldRecords, canSignDailySheet, signingSides } from '../field-records/field-records.policy';
+import { canKeepFieldRecords, canSignDailySheet, signingSides } from '../../../src/shared/policies/field-records';
 import { asAppError, isUniqueViolation, recordChange } from '../field-records/record-change';
 import { presentSheet, type DailySheetView } from './force-account.presenter';
 import * as repo from './force-account.repository';

@@ -10,7 +10,7 @@ import type { Actor } from '../../lib/actor';
 import { conflict, validationFailed } from '../../lib/app-error';
 import { pageOf } from '../../lib/paging';
 import { loadProjectAccess } from '../projects/project-access';
-import { canKeepFieldRecords } from '../field-records/field-records.policy';
+import { canKeepFieldRecords } from '../../../src/shared/policies/field-records';
 import { isUniqueViolation, itemMeasuredBy, recordChange } from '../field-records/record-change';
 import { presentTicket, presentTotals, presentTruck, registerOf, type TruckTicketView } from './haul-tickets.presenter';
 import * as repo from './haul-tickets.repository';

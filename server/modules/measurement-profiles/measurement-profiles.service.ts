@@ -14,7 +14,7 @@ import type { Actor } from '../../lib/actor';
 import { conflict, notFound, validationFailed } from '../../lib/app-error';
 import { findBidItem } from '../bid-items/bid-items.repository';
 import { loadProjectAccess, isUuid } from '../projects/project-access';
-import { canSetMeasurementProfile } from '../field-records/field-records.policy';
+import { canSetMeasurementProfile } from '../../../src/shared/policies/field-records';
 import { asAppError, recordChange } from '../field-records/record-change';
 import { presentProfile } from './measurement-profiles.presenter';
 import * as repo from './measurement-profiles.repository';

@@ -4,7 +4,7 @@ import type { PayAdjustmentView } from '../../../src/shared/schemas/provisions/v
 import type { Db } from '../../db/client';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
-import { canRecordAdjustment } from '../field-records/field-records.policy';
+import { canRecordAdjustment } from '../../../src/shared/policies/field-records';
 import { asAppError, recordChange } from '../field-records/record-change';
 import * as repo from './pay-adjustments.repository';
 

@@ -6,7 +6,7 @@ import type { Actor } from '../../lib/actor';
 import { conflict, validationFailed } from '../../lib/app-error';
 import { pageOf } from '../../lib/paging';
 import { loadProjectAccess } from '../projects/project-access';
-import { canKeepFieldRecords } from '../field-records/field-records.policy';
+import { canKeepFieldRecords } from '../../../src/shared/policies/field-records';
 import { asAppError, isUniqueViolation, itemMeasuredBy, recordChange } from '../field-records/record-change';
 import { presentScaleTicket, presentSource } from './scale-tickets.presenter';
 import * as repo from './scale-tickets.repository';

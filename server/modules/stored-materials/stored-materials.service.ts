@@ -8,7 +8,7 @@ import type { Actor } from '../../lib/actor';
 import { AppError, notFound } from '../../lib/app-error';
 import { isDomainError } from '../../../src/shared/domain/domain-error';
 import { isUuid, loadProjectAccess } from '../projects/project-access';
-import { canKeepFieldRecords } from '../field-records/field-records.policy';
+import { canKeepFieldRecords } from '../../../src/shared/policies/field-records';
 import { projectBidItem, recordChange } from '../field-records/record-change';
 import { presentMaterial } from './stored-materials.presenter';
 import * as repo from './stored-materials.repository';
