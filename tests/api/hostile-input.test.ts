@@ -24,7 +24,7 @@ import { createPaymentSchema, issueLienWaiverSchema } from '../../src/shared/sch
 import { createProjectSchema, updateProjectSchema } from '../../src/shared/schemas/project';
 import { createTallySchema, updateTallySchema } from '../../src/shared/schemas/tally';
 import { forecastInputSchema } from '../../src/shared/schemas/variance';
-import { setMeasurementProfileSchema } from '../../src/shared/schemas/provisions/profile';
+import { setLumpSumStagesSchema, setMeasurementProfileSchema } from '../../src/shared/schemas/provisions/profile';
 import {
   createMaterialSourceSchema,
   createScaleTicketSchema,
@@ -263,6 +263,12 @@ const ROUTES: Record<string, Spec> = {
     payDecimals: 1,
     stage: 'interim',
     settings: { percentComplete: 40, substantialErrorPercent: 5, substantialErrorCents: 500_000 },
+  })),
+  'PUT /api/bid-items/:bidItemId/lump-sum-stages': json('general_contractor', setLumpSumStagesSchema, () => ({
+    stages: [
+      { name: 'Clear west of Sta 12+00', percentOfItem: 60, completedOn: '2026-09-14' },
+      { name: 'Clear east of Sta 12+00', percentOfItem: 40, completedOn: null },
+    ],
   })),
   'POST /api/projects/:projectId/trucks': json('subcontractor', createTruckSchema, () => ({
     label: 'T-12',
