@@ -47,11 +47,22 @@ function checkStations(stations: readonly StationInput[]): void {
   for (let i = 0; i < stations.length; i++) {
     const s = stations[i]!;
     // One cheap test per station; the helpers only run to name the failing field.
-    if (!(s.station > previous && s.cutArea >= 0 && s.fillArea >= 0 && s.cutArea < Infinity && s.fillArea < Infinity && s.station < Infinity)) {
+    if (!(
+      s.station > previous &&
+      s.cutArea >= 0 &&
+      s.fillArea >= 0 &&
+      s.cutArea < Infinity &&
+      s.fillArea < Infinity &&
+      s.station < Infinity
+    )) {
       assertFinite(s.station, ['stations', i, 'station']);
       assertNonNegative(s.cutArea, ['stations', i, 'cutArea']);
       assertNonNegative(s.fillArea, ['stations', i, 'fillArea']);
-      throw new DomainError('STATIONS_NOT_INCREASING', `Station ${i} must be beyond station ${i - 1}`, ['stations', i, 'station']);
+      throw new DomainError('STATIONS_NOT_INCREASING', `Station ${i} must be beyond station ${i - 1}`, [
+        'stations',
+        i,
+        'station',
+      ]);
     }
     previous = s.station;
   }
@@ -149,7 +160,9 @@ export function endAreaVolumes(input: EndAreaInput): EndAreaResult {
     `${fmt(stations.length, 0)} stations from ${formatStation(first, unit)} to ${formatStation(last, unit)} (${fmt(last - first)} ${unit}), ${fmt(segments.length, 0)} segment${segments.length === 1 ? '' : 's'}`,
   ];
   if (formula === 'average-end-area' && rule === 'pyramid') {
-    trail.push(`Pyramid rule V = A L / 3 where one end area is zero (Wikibooks, Fundamentals of Transportation / Earthwork): ${fmt(pyramids, 0)} segments`);
+    trail.push(
+      `Pyramid rule V = A L / 3 where one end area is zero (Wikibooks, Fundamentals of Transportation / Earthwork): ${fmt(pyramids, 0)} segments`,
+    );
   }
   if (unit === 'ft') trail.push('Areas in sq ft times lengths in ft give cu ft; divided by 27 for CY');
   trail.push(
