@@ -1,4 +1,4 @@
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import { drizzle } from 'drizzle-orm/pglite';
@@ -8,6 +8,8 @@ import { MIGRATIONS_FOLDER, runMigrations } from '../../server/db/migrate';
 import { databaseUrl, PG_TEMPLATE, recreateTemplate } from './postgres';
 
 export const SNAPSHOT_FILE = path.resolve('.data-test/migrated.tar.gz');
+/** The seeded demo of tests/setup/demo-snapshot.ts, made by the first browser test of a run from this snapshot. */
+export const DEMO_SNAPSHOT_DIR = path.resolve('.data-test/demo');
 
 /**
  * Migrates once per run: a PGlite dumped to a snapshot that every test database starts from (~0.5 s), or, with
@@ -22,6 +24,7 @@ export default async function setup(): Promise<void> {
     await template.close();
     return;
   }
+  rmSync(DEMO_SNAPSHOT_DIR, { recursive: true, force: true });
   const client = await PGlite.create();
   await migrate(drizzle(client), { migrationsFolder: MIGRATIONS_FOLDER });
   const dump = await client.dumpDataDir('gzip');

@@ -50,9 +50,8 @@ export function localStorage(root: string): Storage {
   };
 }
 
-/** In memory, for tests. */
-export function memoryStorage(): Storage {
-  const files = new Map<string, Buffer>();
+/** In memory, for tests; `files` starts it with files already stored (a seeded snapshot's), by key. */
+export function memoryStorage(files = new Map<string, Buffer>()): Storage {
   return {
     async put(bytes, hint) {
       const key = `${hint.toLowerCase().replace(/[^a-z0-9-]/g, '-') || 'file'}/${randomUUID()}`;
