@@ -1,5 +1,5 @@
 /**
- * Which tables bump `read_version` (migration 0021_read_version_triggers) and which do not, and why. Every table of
+ * Which tables bump `read_version` (migration 0023_read_version_triggers) and which do not, and why. Every table of
  * the schema is in exactly one list (tests/server/read-version.test.ts), so a new table has to choose: a table a
  * cached read may show (or that decides who sees what) is bumped; the rest are listed with the reason.
  */

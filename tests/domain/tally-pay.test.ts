@@ -18,10 +18,14 @@ describe('when an item’s tallies are not what it is paid from', () => {
     expect(talliesNotBilledReason('lump_sum', { mobilizationSteps: [{ percentOfItem: 50 }] })).not.toBeNull();
   });
 
-  it('tallies pay an item measured by worksheet, with no profile, or on force account', () => {
+  it('tallies pay an item measured by worksheet or with no profile', () => {
     expect(talliesNotBilledReason(null, {})).toBeNull();
     expect(talliesNotBilledReason('worksheet', {})).toBeNull();
-    expect(talliesNotBilledReason('force_account', {})).toBeNull();
+  });
+
+  it('signed daily sheets, not tallies, pay an item on force account (MoDOT EPG 109.5)', () => {
+    // A tally for it would bill the same work a second time beside the days drawn on it.
+    expect(talliesNotBilledReason('force_account', {})).toMatch(/Time and materials \(force account\)/);
   });
 });
 
@@ -30,7 +34,7 @@ describe('what a pay line is paid from', () => {
     const cases = [
       [null, {}, 'tallies'],
       ['worksheet', {}, 'tallies'],
-      ['force_account', {}, 'tallies'],
+      ['force_account', {}, 'days'],
       ['plan_quantity', {}, 'tallies'],
       ['plan_quantity', { percentComplete: 40 }, 'settings'],
       ['lump_sum', { percentComplete: 0 }, 'settings'],

@@ -33,7 +33,7 @@ export interface FlagLine {
   contractQuantity: number;
   thisPeriodQuantity: number;
   toDateQuantity: number;
-  /** What the quantity was taken from (`paySourceOf`); steps and settings lines have no tally to look for. */
+  /** What the quantity was taken from (`paySourceOf`); steps, settings and days lines have no tally to look for. */
   paidFrom: PayLineSource;
 }
 
@@ -42,7 +42,8 @@ export interface FlagLine {
  * (1 + band)), with how far past it and what that quantity costs at the line's price; and lines billing a
  * quantity this period from tallies or tickets with none behind it, or with a tally that has no evidence file. A
  * line paid by mobilization steps or by the item's percent complete or stages is backed by those settings and
- * their audit events, not by tallies, so it raises no evidence flag. Pure.
+ * their audit events, and force account by its daily sheets signed by both sides, not by tallies, so it raises no
+ * evidence flag. Pure.
  */
 export function payAppFlags(
   lines: readonly FlagLine[],

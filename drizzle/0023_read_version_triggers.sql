@@ -1,4 +1,4 @@
--- read_version (0020) grows by one in each committed transaction that writes a table a cached read depends on
+-- read_version (0022) grows by one in each committed transaction that writes a table a cached read depends on
 -- (list and exemptions: server/db/read-version-tables.ts). The row triggers are constraint triggers deferred to
 -- commit, so a writer takes the counter's row lock only for its commit, after all its other locks: no new deadlock,
 -- and writers wait on each other only for that moment. The first one in a transaction bumps and marks the
