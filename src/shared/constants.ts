@@ -314,6 +314,22 @@ export const MEASUREMENT_PROFILE_LABELS: Record<MeasurementProfile, string> = {
   force_account: 'Time and materials (force account)',
 };
 
+/**
+ * What a pay line's quantity was taken from when its application was compiled: the item's tallies, its truck or
+ * scale tickets, its lump-sum mobilization steps, its own settings (percent complete, dated stages), or, for an
+ * item paid by force account, the signed daily sheets (paid on the change order's own line, never as a quantity).
+ */
+export const PAY_LINE_SOURCES = ['tallies', 'tickets', 'steps', 'settings', 'days'] as const;
+export type PayLineSource = (typeof PAY_LINE_SOURCES)[number];
+
+export const PAY_LINE_SOURCE_LABELS: Record<PayLineSource, string> = {
+  tallies: 'Tallies',
+  tickets: 'Load and scale tickets',
+  steps: 'Mobilization steps',
+  settings: 'Percent complete or stages',
+  days: 'Signed force account days',
+};
+
 /** A measurement is interim until the final measurement of the item (WFL supplement to FP-14 section 109.01). */
 export const MEASUREMENT_STAGES = ['interim', 'final'] as const;
 export type MeasurementStage = (typeof MEASUREMENT_STAGES)[number];

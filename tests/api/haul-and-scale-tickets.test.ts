@@ -59,6 +59,21 @@ describe('truck register and truck tickets', () => {
     expect((await (await as('outsider')).get(`/api/projects/${w.home.id}/trucks`)).status).toBe(404);
   });
 
+  it('registers one of two trucks with the same number sent at once, whatever their case (409 for the other)', async () => {
+    // On PostgreSQL the two requests run in parallel transactions: a check before the insert would let both in.
+    const sub = await as('subcontractor');
+    const gc = await as('general_contractor');
+    const body = { label: 'K-31', bedVolumeCy: 12.1, measuredBy: 'R. Baines', measuredOn: '2026-04-28' };
+    const results = await Promise.all([
+      sub.post(`/api/projects/${w.home.id}/trucks`).send(body),
+      gc.post(`/api/projects/${w.home.id}/trucks`).send({ ...body, label: 'k-31' }),
+    ]);
+    expect(results.map((r) => r.status).sort()).toEqual([201, 409]);
+    expect(results.find((r) => r.status === 409)!.body.error.code).toBe('TRUCK_ALREADY_REGISTERED');
+    const list = await sub.get(`/api/projects/${w.home.id}/trucks`);
+    expect(list.body.trucks.filter((x: { label: string }) => x.label.toUpperCase() === 'K-31')).toHaveLength(1);
+  });
+
   it('refuses a bed volume with more than 2 decimals, naming the field', async () => {
     const res = await (
       await as('subcontractor')

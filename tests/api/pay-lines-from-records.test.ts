@@ -3,12 +3,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   auditEvents,
   bidItemProfiles,
+  tallies,
   forceAccountSheets,
   payApps,
   scaleTickets,
   truckTickets,
 } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
+import { makeTally } from '../setup/pay-cycle-factories';
 import { makeChangeOrder, makeProfiledItem, makeSource } from '../setup/provisions-factories';
 import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
 
@@ -19,6 +21,8 @@ let w: Awaited<ReturnType<typeof makeWorld>>;
 let truckItem: { id: string };
 let weightItem: { id: string };
 let changeOrder: { id: string; number: number };
+let forceItem: { id: string };
+let strayTally: { id: string };
 let sheetIds: string[];
 
 type Who = keyof typeof w.people;
@@ -45,6 +49,21 @@ beforeAll(async () => {
   // Tons are paid to 0.01 (the unit's default), measured to 0.001.
   await db.update(bidItemProfiles).set({ payDecimals: 2 }).where(eq(bidItemProfiles.bidItemId, weightItem.id));
   changeOrder = await makeChangeOrder(db, w.home.id, w.people.general_contractor.id);
+  // An item paid by force account, with a tally saved for it by mistake in March: the days pay it, never the tally.
+  forceItem = await makeProfiledItem(db, w.home.id, 'force_account', {
+    itemNumber: 'FA-3',
+    description: 'Extra work on time and materials',
+    payUnit: 'LS',
+    unitPriceCents: 500_000,
+    contractQuantity: 1,
+  });
+  strayTally = await makeTally(db, {
+    projectId: w.home.id,
+    bidItemId: forceItem.id,
+    authorUserId: w.people.subcontractor.id,
+    measuredOn: '2026-03-12',
+    quantity: 0.5,
+  });
 });
 afterAll(() => t.close());
 
@@ -97,7 +116,13 @@ async function certify(app: { id: string; revision: number; lines: { id: string 
   expect(res.status).toBe(200);
 }
 
-type Line = { bidItemId: string; thisPeriodQuantity: number; previousQuantity: number; thisPeriodAmountCents: number };
+type Line = {
+  bidItemId: string;
+  thisPeriodQuantity: number;
+  previousQuantity: number;
+  thisPeriodAmountCents: number;
+  paidFrom: string;
+};
 const lineOf = (app: { lines: Line[] }, itemId: string) => app.lines.find((l) => l.bidItemId === itemId)!;
 
 let first: {
@@ -188,6 +213,19 @@ describe('tickets and signed days become pay lines at compilation (issue 15, ite
     ]);
     // ($193.80 + $446.56 + $576.00) = $1,216.36 less 10 % retainage per line ($19.38 + $44.66 + $57.60 = $121.64).
     expect(first.currentDueCents).toBe(109_472);
+  });
+
+  it('pays an item on force account from its signed days only: a tally for it bills nothing and stays ready', async () => {
+    // MoDOT EPG 109.5: force account work is paid on the signed daily records; the tally's 0.5 LS x $5,000.00 would
+    // pay the same work a second time. The due above already leaves it out.
+    expect(lineOf(first, forceItem.id)).toMatchObject({
+      thisPeriodQuantity: 0,
+      thisPeriodAmountCents: 0,
+      paidFrom: 'days',
+    });
+    expect(lineOf(first, truckItem.id)).toMatchObject({ paidFrom: 'tickets' });
+    const [tally] = await t.database.db.select().from(tallies).where(eq(tallies.id, strayTally.id));
+    expect(tally).toMatchObject({ status: 'ready', payAppId: null });
   });
 
   it('links what it paid to the application and writes one audit event naming them', async () => {

@@ -73,5 +73,12 @@ describe('items paid from their settings when a pay application is compiled', ()
     expect(app).toMatchObject({ earnedToDateCents: 1_787_500, retainageCents: 178_750, currentDueCents: 1_608_750 });
     const [tally] = await t.database.db.select().from(tallies).where(eq(tallies.id, stray.id));
     expect(tally).toMatchObject({ status: 'ready', payAppId: null });
+    // Each line says what it was paid from, and the settings lines look for no tally behind them: their percent
+    // complete and stages (with their audit events) are their record.
+    expect(line(clearing.id).paidFrom).toBe('settings');
+    expect(line(topsoil.id).paidFrom).toBe('settings');
+    const noEvidence = app.flags.filter((f: { kind: string }) => f.kind === 'no_evidence');
+    expect(noEvidence.map((f: { itemNumber: string }) => f.itemNumber)).not.toContain('L-1');
+    expect(noEvidence.map((f: { itemNumber: string }) => f.itemNumber)).not.toContain('P-1');
   });
 });

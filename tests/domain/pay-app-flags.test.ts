@@ -12,6 +12,7 @@ const line = (over: Partial<FlagLine>): FlagLine => ({
   contractQuantity: 21_500,
   thisPeriodQuantity: 8_600,
   toDateQuantity: 8_600,
+  paidFrom: 'tallies',
   ...over,
 });
 
@@ -19,6 +20,18 @@ describe('pay application flags in words', () => {
   it('formats a line with no tally behind it with separators and the display precision of its unit', () => {
     const [flag] = payAppFlags([line({})], 1500, new Map());
     expect(flag!.message).toBe('Item 402: 8,600.00 SY billed this period with no tally behind it.');
+  });
+
+  it('looks for no tally behind a line paid by mobilization steps or by the item’s percent complete or stages', () => {
+    // The settings and their audit events are the record of such a line (FDOT 9-3.2.1 pays a plan quantity as the
+    // work is completed, with no measurement); tickets are the record of a line paid from loads (common practice).
+    expect(payAppFlags([line({ paidFrom: 'settings' })], 1500, new Map())).toEqual([]);
+    expect(payAppFlags([line({ paidFrom: 'steps' })], 1500, new Map())).toEqual([]);
+    const [loads] = payAppFlags([line({ paidFrom: 'tickets' })], 1500, new Map());
+    expect(loads!.message).toBe('Item 402: 8,600.00 SY billed this period with no ticket behind it.');
+    // An over-run is still flagged, whatever the line was paid from.
+    const over = payAppFlags([line({ paidFrom: 'settings', toDateQuantity: 25_000 })], 1500, new Map());
+    expect(over.map((f) => f.kind)).toEqual(['beyond_band']);
   });
 
   it('says "the tally ... has" for one tally and counts several', () => {

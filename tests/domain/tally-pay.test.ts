@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { talliesNotBilledReason } from '../../src/shared/domain/provisions/tally-pay';
+import { paySourceOf, talliesNotBilledReason } from '../../src/shared/domain/provisions/tally-pay';
 
 // The rule of pay application compilation (server/modules/pay-apps/pay-app-build.ts), said for the screens:
 // which items are paid from something other than their tallies. Truck measure and weight from tickets (a state
@@ -18,9 +18,36 @@ describe('when an item’s tallies are not what it is paid from', () => {
     expect(talliesNotBilledReason('lump_sum', { mobilizationSteps: [{ percentOfItem: 50 }] })).not.toBeNull();
   });
 
-  it('tallies pay an item measured by worksheet, with no profile, or on force account', () => {
+  it('tallies pay an item measured by worksheet or with no profile', () => {
     expect(talliesNotBilledReason(null, {})).toBeNull();
     expect(talliesNotBilledReason('worksheet', {})).toBeNull();
-    expect(talliesNotBilledReason('force_account', {})).toBeNull();
+  });
+
+  it('signed daily sheets, not tallies, pay an item on force account (MoDOT EPG 109.5)', () => {
+    // A tally for it would bill the same work a second time beside the days drawn on it.
+    expect(talliesNotBilledReason('force_account', {})).toMatch(/Time and materials \(force account\)/);
+  });
+});
+
+describe('what a pay line is paid from', () => {
+  it('names the record each profile is paid from, and the reason agrees with it', () => {
+    const cases = [
+      [null, {}, 'tallies'],
+      ['worksheet', {}, 'tallies'],
+      ['force_account', {}, 'days'],
+      ['plan_quantity', {}, 'tallies'],
+      ['plan_quantity', { percentComplete: 40 }, 'settings'],
+      ['lump_sum', { percentComplete: 0 }, 'settings'],
+      ['lump_sum', { stages: [{ name: 'Pad', percentOfItem: 100 }] }, 'settings'],
+      ['lump_sum', { mobilizationSteps: [{ percentOfItem: 50 }], percentComplete: 10 }, 'steps'],
+      ['truck_measure', {}, 'tickets'],
+      ['weight', { percentComplete: 10 }, 'tickets'],
+      // A percent out of range cannot give a quantity; the item still leaves its tallies (compilation refuses it).
+      ['plan_quantity', { percentComplete: 140 }, 'settings'],
+    ] as const;
+    for (const [profile, settings, source] of cases) {
+      expect(paySourceOf(profile, settings)).toBe(source);
+      expect(talliesNotBilledReason(profile, settings) === null).toBe(source === 'tallies');
+    }
   });
 });

@@ -18,6 +18,7 @@ import {
   DISPUTE_STATUSES,
   LINE_REVIEW_STATUSES,
   PAY_APP_STATUSES,
+  PAY_LINE_SOURCES,
 } from '../../../src/shared/constants';
 import { user } from './auth';
 import { bidItems, payUnit } from './bid-items';
@@ -28,6 +29,7 @@ export const payAppStatus = pgEnum('pay_app_status', PAY_APP_STATUSES);
 export const lineReviewStatus = pgEnum('line_review_status', LINE_REVIEW_STATUSES);
 export const disputeStatus = pgEnum('dispute_status', DISPUTE_STATUSES);
 export const disputeResolution = pgEnum('dispute_resolution', DISPUTE_RESOLUTIONS);
+export const payLineSource = pgEnum('pay_line_source', PAY_LINE_SOURCES);
 
 const quantity = (name: string) => numeric(name, { precision: 16, scale: 4, mode: 'number' });
 const cents = (name: string) => bigint(name, { mode: 'number' });
@@ -95,6 +97,8 @@ export const payAppLines = pgTable(
     retainageCents: cents('retainage_cents').notNull(),
     /** Materials stored and not yet built in for the item at the period's end (payable value), at compilation. */
     storedMaterialsCents: cents('stored_materials_cents').notNull().default(0),
+    /** What the quantity was taken from at compilation (`paySourceOf`); lines compiled before it say tallies. */
+    paidFrom: payLineSource('paid_from').notNull().default('tallies'),
     reviewStatus: lineReviewStatus('review_status').notNull().default('pending'),
     ...timestamps,
   },

@@ -1,4 +1,17 @@
-import { date, index, integer, jsonb, numeric, pgEnum, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import {
+  date,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  unique,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { MEASUREMENT_PROFILES, MEASUREMENT_STAGES } from '../../../src/shared/constants';
 import { user } from './auth';
 import { bidItems } from './bid-items';
@@ -47,7 +60,9 @@ export const trucks = pgTable(
       .references(() => user.id),
     ...timestamps,
   },
-  (t) => [unique('trucks_project_label').on(t.projectId, t.label)],
+  // One truck per number and project, whatever the case ("r-4" is R-4): the index, not a read before the insert,
+  // decides between two registrations that arrive at once.
+  (t) => [uniqueIndex('trucks_project_label_ci').on(t.projectId, sql`upper(${t.label})`)],
 );
 
 /** One load counted by truck measure. The truck is matched on its label; a label not on the register is flagged. */

@@ -20,7 +20,8 @@ import {
 } from './pay-app-provisions.repository';
 import { precisionFor } from '../../../src/shared/domain/provisions/precision';
 import { settingsQuantityToDate } from '../../../src/shared/domain/provisions/settings-quantity';
-import type { PayUnit } from '../../../src/shared/constants';
+import { paySourceOf, type PaySourceSettings } from '../../../src/shared/domain/provisions/tally-pay';
+import type { MeasurementProfile, PayLineSource, PayUnit } from '../../../src/shared/constants';
 import { forceAccountAsPayLine } from '../../../src/shared/domain/provisions/force-account-pay';
 import { forceAccountForPeriod, markPaid, ticketQuantities } from './pay-app-records';
 import { allowanceItems, forceAccountLines } from './pay-app-records.repository';
@@ -85,9 +86,11 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
   }
   // Truck-measure and weight items are paid from their tickets (held ones left out, with their reason).
   const tickets = await ticketQuantities(tx, project.id, periodEnd, items, profiles);
-  // Those items' tallies stay ready, unbilled: the settings, the steps or the tickets decide what they are paid.
+  // Those items' tallies stay ready, unbilled: the settings, the steps or the tickets decide what they are paid
+  // (one rule, `paySourceOf`, which the bid schedule and the tally screens also show).
+  const paidFrom = new Map(items.map((item) => [item.id, sourceOf(profiles.get(item.id))]));
   const billed = (await repo.readyTallies(tx, project.id, periodStart, periodEnd)).filter(
-    (t) => !steps.has(t.bidItemId) && !bySettings.has(t.bidItemId) && !tickets.byItem.has(t.bidItemId),
+    (t) => paidFrom.get(t.bidItemId) === 'tallies',
   );
   const stored = await storedMaterialsByItem(tx, project.id, periodEnd);
   const adjustmentsCents = sumCents((await adjustmentsThrough(tx, project.id, periodEnd)).map((a) => a.amountCents));
@@ -154,6 +157,7 @@ export async function createPayAppFromTallies(tx: Executor, args: CreatePayAppAr
         contractQuantity: bases[i]!.contractQuantity,
         previousQuantity: bases[i]!.previousQuantity,
         thisPeriodQuantity: bases[i]!.thisPeriodQuantity,
+        paidFrom: paidFrom.get(item.id)!,
         ...lineColumns(computed.lines[i]!),
       })),
     );
@@ -365,4 +369,9 @@ function compiledNote(tallyCount: number, ticketCount: number, dayCount: number)
   if (ticketCount > 0) parts.push(n(ticketCount, 'ticket', 'tickets'));
   if (dayCount > 0) parts.push(n(dayCount, 'force account day', 'force account days'));
   return `Compiled from ${parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}` : parts[0]}`;
+}
+
+/** What an item's line is paid from, by its measurement profile (none: its tallies). */
+function sourceOf(profile: { profile: MeasurementProfile; settings: PaySourceSettings } | undefined): PayLineSource {
+  return profile ? paySourceOf(profile.profile, profile.settings) : 'tallies';
 }

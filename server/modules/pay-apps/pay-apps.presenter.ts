@@ -46,6 +46,7 @@ export function presentLine(l: PayAppDetailRow['lines'][number]): PayAppLineView
     amountToDateCents: l.amountToDateCents,
     retainageCents: l.retainageCents,
     storedMaterialsCents: l.storedMaterialsCents,
+    paidFrom: l.paidFrom,
     reviewStatus: l.reviewStatus,
   };
 }

@@ -1,4 +1,4 @@
-import { PAY_UNITS, type PayUnit } from '../constants';
+import { PAY_UNITS, type PayLineSource, type PayUnit } from '../constants';
 import { formatCount, formatMoney, formatNumber, formatPercent, formatQuantity } from '../format';
 import { lineAmountCents, type Cents } from './money';
 import { roundTo } from './rounding';
@@ -33,12 +33,17 @@ export interface FlagLine {
   contractQuantity: number;
   thisPeriodQuantity: number;
   toDateQuantity: number;
+  /** What the quantity was taken from (`paySourceOf`); steps, settings and days lines have no tally to look for. */
+  paidFrom: PayLineSource;
 }
 
 /**
  * Flags of a pay application: lines whose quantity to date passes the over-run band (contract quantity x
  * (1 + band)), with how far past it and what that quantity costs at the line's price; and lines billing a
- * quantity this period with no tally, or with a tally that has no evidence file. Pure.
+ * quantity this period from tallies or tickets with none behind it, or with a tally that has no evidence file. A
+ * line paid by mobilization steps or by the item's percent complete or stages is backed by those settings and
+ * their audit events, and force account by its daily sheets signed by both sides, not by tallies, so it raises no
+ * evidence flag. Pure.
  */
 export function payAppFlags(
   lines: readonly FlagLine[],
@@ -64,7 +69,8 @@ export function payAppFlags(
       });
     }
     const e = evidence.get(l.id) ?? { tallies: 0, withoutEvidence: 0 };
-    if (l.thisPeriodQuantity > 0 && (e.tallies === 0 || e.withoutEvidence > 0)) {
+    const measured = l.paidFrom === 'tallies' || l.paidFrom === 'tickets';
+    if (measured && l.thisPeriodQuantity > 0 && (e.tallies === 0 || e.withoutEvidence > 0)) {
       flags.push({
         key: `no_evidence:${l.id}`,
         kind: 'no_evidence',
@@ -72,7 +78,7 @@ export function payAppFlags(
         itemNumber: l.itemNumber,
         message:
           e.tallies === 0
-            ? `Item ${l.itemNumber}: ${qty(l.thisPeriodQuantity, l.payUnit)} billed this period with no tally behind it.`
+            ? `Item ${l.itemNumber}: ${qty(l.thisPeriodQuantity, l.payUnit)} billed this period with no ${l.paidFrom === 'tickets' ? 'ticket' : 'tally'} behind it.`
             : e.tallies === 1
               ? `Item ${l.itemNumber}: the tally billed this period has no evidence file.`
               : `Item ${l.itemNumber}: ${e.withoutEvidence} of the ${formatCount(e.tallies, 'tally', 'tallies')} billed this period ${e.withoutEvidence === 1 ? 'has' : 'have'} no evidence file.`,

@@ -6,6 +6,7 @@ import type {
   DisputeStatus,
   LineReviewStatus,
   PayAppStatus,
+  PayLineSource,
   PayUnit,
 } from '../constants';
 import type { PayAppPackage } from '../domain/pay-app-package';
@@ -148,6 +149,8 @@ export type PayAppLineView = {
   retainageCents: number;
   /** Materials stored and not yet built in at the period's end (payable value). */
   storedMaterialsCents: number;
+  /** What the quantity was taken from at compilation: tallies, tickets, mobilization steps or the item's settings. */
+  paidFrom: PayLineSource;
   reviewStatus: LineReviewStatus;
 };
 

@@ -4,6 +4,7 @@ import { Input } from '@/components/ui/input';
 import { Select } from '@/components/ui/select';
 import { Table, TableBody, TableCell, TableFoot, TableHead, TableHeaderCell, TableRow } from '@/components/ui/table';
 import { formatMoney, formatQuantityNumber } from '@/lib/format';
+import { PAY_LINE_SOURCE_LABELS } from '@/shared/constants';
 import type { PayAppDetail } from '@/shared/schemas/pay-app';
 import { LineBackupList } from './line-backup';
 import { LineReviewBadge } from './pay-app-labels';
@@ -56,7 +57,14 @@ export function PayAppLinesTable({ app, reviewing, draft, onDecide }: Props) {
             <Fragment key={l.id}>
               <TableRow className={l.reviewStatus === 'disputed' ? 'bg-brick-50/40' : undefined}>
                 <TableCell className="font-medium whitespace-nowrap">{l.itemNumber}</TableCell>
-                <TableCell className="min-w-48">{l.description}</TableCell>
+                <TableCell className="min-w-48">
+                  {l.description}
+                  {l.paidFrom !== 'tallies' && PAY_LINE_SOURCE_LABELS[l.paidFrom] ? (
+                    <span className="block text-xs text-stone-500">
+                      Paid from: {PAY_LINE_SOURCE_LABELS[l.paidFrom].toLowerCase()}
+                    </span>
+                  ) : null}
+                </TableCell>
                 <TableCell className={num}>{formatMoney(l.unitPriceCents)}</TableCell>
                 <TableCell className={num}>{q(l.contractQuantity)}</TableCell>
                 <TableCell className={num}>{q(l.previousQuantity)}</TableCell>

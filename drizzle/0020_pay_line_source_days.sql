@@ -1,0 +1,1 @@
+ALTER TYPE "public"."pay_line_source" ADD VALUE 'days';
