@@ -6,6 +6,7 @@ import type { SmtpSink } from './integrations/mailer/smtp-sink';
 import type { Storage } from './integrations/storage/storage';
 import type { ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
+import type { ReadCache } from './lib/read-cache';
 import type { ConfirmRecentAuth } from './middleware/require-recent-auth';
 import type { Outbox } from './modules/notifications/outbox';
 import type { MailboxKind } from './modules/dev/mailbox.routes';
@@ -27,6 +28,8 @@ export type AppContext = {
   feeRates: FeeRates;
   /** Re-authentication before certifying, and before paying more than `paymentAboveCents`. */
   recentAuth: RecentAuth;
+  /** Serialized pay application answers per viewer, valid at one read version (server/lib/read-cache.ts). */
+  payAppReads: ReadCache;
   /** Worker threads for heavy calculations (large worksheets); without it (the demo seed) they run inline. */
   compute?: ComputePool;
 };

@@ -14,6 +14,7 @@ import type { Payments } from './integrations/payments/payments';
 import type { Storage } from './integrations/storage/storage';
 import { sharedComputePool, type ComputePool } from './lib/compute/compute-pool';
 import type { Logger } from './lib/logger';
+import { readCache } from './lib/read-cache';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
@@ -119,6 +120,7 @@ export function createApp(deps: AppDeps): Express {
       paymentAboveCents: deps.reauth?.paymentAboveCents ?? DEFAULT_REAUTH_PAYMENT_ABOVE_CENTS,
       paymentWindowHours: deps.reauth?.paymentWindowHours ?? DEFAULT_REAUTH_PAYMENT_WINDOW_HOURS,
     },
+    payAppReads: readCache(),
     compute,
   };
   const app = express();

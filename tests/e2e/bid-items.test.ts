@@ -1,30 +1,8 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser } from './browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { browserTest } from './browser';
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/`);
-  await page.waitForURL('**/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('tallyard-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/inbox');
-}
+const e2e = browserTest();
 
 /** A new project set up by the signed-in general contractor (its contract is not locked yet); returns its id. */
 async function newProject(page: Page): Promise<string> {
@@ -48,10 +26,9 @@ async function newProject(page: Page): Promise<string> {
 
 describe('bid schedule in the browser', () => {
   it('offers a change order instead of editing once the contract is locked (the demo job)', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'gc@tallyard.test');
+    const page = await e2e.signedIn('gc@tallyard.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
-  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
+    await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
     await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Bid schedule' }).click();
     await page.getByRole('table', { name: 'Bid schedule' }).waitFor();
     await page.getByRole('note').filter({ hasText: 'Contract locked' }).waitFor();
@@ -63,10 +40,9 @@ describe('bid schedule in the browser', () => {
   });
 
   it('lets the general contractor add a bid item through the form and shows it in the table', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'gc@tallyard.test');
+    const page = await e2e.signedIn('gc@tallyard.test');
     const projectId = await newProject(page);
-    await page.goto(`${server.url}/projects/${projectId}/bid-items`);
+    await page.goto(`${e2e.server.url}/projects/${projectId}/bid-items`);
     const table = page.getByRole('table', { name: 'Bid schedule' });
     await page.getByText('No bid items yet').waitFor();
 

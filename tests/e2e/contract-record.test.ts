@@ -1,10 +1,7 @@
-import { mkdirSync, rmSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CaughtMail } from '../../server/integrations/mailer/smtp-sink';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import type { PayAppDetail, PayAppSummary } from '../../src/shared/schemas/pay-app';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser } from './browser';
+import { browserTest } from './browser';
 
 // The contract of record in headless Chromium (issue 11): on the demo job, where the owner is set to approve change
 // orders too, the general contractor proposes a change order from the locked bid schedule and approves its side,
@@ -13,63 +10,16 @@ import { ensureClientBuilt, launchBrowser } from './browser';
 // each flag acknowledged. Then the owner's pay form (with its fee), the processing fees card and a waiver with its
 // exceptions are photographed. Setup only (the project setting) goes through the API; the journey through screens.
 
-const SHOTS = '/tmp/shots-record';
 const EMAIL = { sub: 'sub@tallyard.test', gc: 'gc@tallyard.test', owner: 'owner@tallyard.test' } as const;
 const ITEM = '205';
 const ADDED = 400;
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  const page = await context.newPage();
-  await page.goto(`${server.url}/`);
-  await page.waitForURL('**/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('tallyard-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/inbox');
-  return page;
-}
-
-async function api<T>(page: Page, method: 'GET' | 'POST' | 'PATCH', path: string, data?: unknown): Promise<T> {
-  const res = await page.request.fetch(`${server.url}/api${path}`, { method, data, headers: { origin: server.url } });
-  if (!res.ok()) throw new Error(`${method} ${path} answered ${res.status()}: ${await res.text()}`);
-  return (await res.json()) as T;
-}
-
-let shot = 0;
-async function snap(page: Page, name: string) {
-  shot += 1;
-  await page.screenshot({ path: `${SHOTS}/${String(shot).padStart(2, '0')}-${name}.png`, fullPage: true });
-}
-
-async function mailTo(since: number, to: string, subject: RegExp): Promise<CaughtMail> {
-  const find = () =>
-    server.mailbox
-      .messages()
-      .slice(since)
-      .find((m) => m.to.includes(to) && subject.test(m.subject));
-  await expect.poll(() => find()?.subject, { timeout: 15_000 }).toMatch(subject);
-  return find()!;
-}
+const e2e = browserTest({ shots: '/tmp/shots-record', context: { viewport: { width: 1440, height: 1000 } } });
+const { signedIn, api, snap } = e2e;
+const mailTo = (since: number, to: string, subject: RegExp) => e2e.mailTo(since, to, subject, 15_000);
 
 const tab = async (page: Page, projectId: string, path: string) => {
-  await page.goto(`${server.url}/projects/${projectId}${path ? `/${path}` : ''}`);
+  await page.goto(`${e2e.server.url}/projects/${projectId}${path ? `/${path}` : ''}`);
 };
 const statusIs = (page: Page, number: number, label: string) =>
   page.getByRole('heading', { name: new RegExp(`^Pay application ${number}\\s+${label}$`) }).waitFor();
@@ -101,11 +51,11 @@ describe('the contract of record in the browser', () => {
       .fill('Unsuitable material found below the east pad; the survey of 2 Dec shows the extra volume.');
     await form.getByLabel(/^Change \(CY, minus to reduce\)/).fill(String(ADDED));
     await snap(gc, 'gc-proposes-change-order');
-    let mails = server.mailbox.messages().length;
+    let mails = e2e.server.mailbox.messages().length;
     await form.getByRole('button', { name: 'Propose change order' }).click();
     const proposed = await mailTo(mails, EMAIL.owner, /^Change order \d+ proposed: Borrow area east extension/);
     const link = proposed.text.match(/https?:\/\/\S+\/change-orders\/[\w-]+/)![0];
-    expect(link.startsWith(`${server.url}/projects/${projectId}/change-orders/`)).toBe(true);
+    expect(link.startsWith(`${e2e.server.url}/projects/${projectId}/change-orders/`)).toBe(true);
     const number = Number(proposed.subject.match(/^Change order (\d+)/)![1]);
 
     // The general contractor approves its side on the change order's page.
@@ -121,7 +71,7 @@ describe('the contract of record in the browser', () => {
     await expect.poll(() => decided('gcApproval'), { timeout: 15_000 }).toBe(true);
 
     // 2. The owner follows the e-mail's link and gives the last approval; the subcontractor is told.
-    mails = server.mailbox.messages().length;
+    mails = e2e.server.mailbox.messages().length;
     await owner.goto(link);
     await snap(owner, 'owner-change-order');
     await owner.getByRole('heading', { name: 'Your decision (owner)' }).waitFor();
@@ -161,7 +111,7 @@ describe('the contract of record in the browser', () => {
     const dispute = app.disputes.find((d) => d.status === 'open')!;
     const line = app.lines.find((l) => l.id === dispute.lineId)!;
     const third = Math.round(((line.thisPeriodQuantity + dispute.counterQuantity) / 2) * 10) / 10;
-    await sub.goto(`${server.url}/projects/${projectId}/pay-apps/${app.id}`);
+    await sub.goto(`${e2e.server.url}/projects/${projectId}/pay-apps/${app.id}`);
     await statusIs(sub, app.number, 'Returned');
     const answer = sub.getByRole('group', { name: new RegExp(`^Item ${line.itemNumber}: `) });
     await answer.getByRole('radio', { name: 'Propose another quantity' }).check();
@@ -182,7 +132,7 @@ describe('the contract of record in the browser', () => {
     await statusIs(sub, app.number, 'Submitted');
 
     // 5. The general contractor approves every line and certifies, acknowledging each flag.
-    await gc.goto(`${server.url}/projects/${projectId}/pay-apps/${app.id}`);
+    await gc.goto(`${e2e.server.url}/projects/${projectId}/pay-apps/${app.id}`);
     await statusIs(gc, app.number, 'Submitted');
     const bulk = gc.getByRole('button', { name: /^Approve \d+ undecided lines?$/ });
     const undecided = Number((await bulk.textContent())!.match(/\d+/)![0]);
@@ -200,7 +150,7 @@ describe('the contract of record in the browser', () => {
     await flags.first().check();
     await snap(gc, 'gc-certify-flags');
     for (let i = 1; i < (await flags.count()); i++) await flags.nth(i).check();
-    mails = server.mailbox.messages().length;
+    mails = e2e.server.mailbox.messages().length;
     await confirm.getByRole('button', { name: 'Certify', exact: true }).click();
     await statusIs(gc, app.number, 'Certified');
     await snap(gc, 'gc-certified');

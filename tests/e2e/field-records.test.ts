@@ -1,47 +1,20 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { browserTest } from './browser';
 
 // The demo job, driven as its people would: field records typed into the Pay basis forms, then the pay
 // application's package (schedule of values, summary lines, change orders) read on screen against the API.
 // E2E_SCREENSHOTS=<dir> keeps a screenshot of each step.
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const SHOTS = process.env.E2E_SCREENSHOTS;
+const e2e = browserTest({ prefix: 'field-records-', context: { viewport: { width: 1366, height: 900 } } });
+const { signedIn: as, snap, projectPath } = e2e;
 
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function as(email: string): Promise<Page> {
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await signInDemo(page, server.url, email);
-  return page;
-}
-const snap = async (page: Page, name: string) => {
-  if (SHOTS) await page.screenshot({ path: `${SHOTS}/field-records-${name}.png`, fullPage: true });
-};
-async function projectPath(page: Page): Promise<string> {
-  await page.goto(`${server.url}/jobs`);
-  const link = page.getByRole('main').getByRole('link').first();
-  await link.waitFor();
-  return /\/projects\/[^/]+/.exec((await link.getAttribute('href'))!)![0];
-}
 const card = (page: Page, title: string) =>
   page.locator('section', { has: page.getByRole('heading', { name: title }) });
 
 describe('field records through the forms, and the pay application package on screen', () => {
   it('the general contractor records liquidated damages; the form names a bad field first', async () => {
     const page = await as('gc@tallyard.test');
-    await page.goto(`${server.url}${await projectPath(page)}/pay-basis`);
+    await page.goto(`${e2e.server.url}${await projectPath(page)}/pay-basis`);
     await page.getByRole('button', { name: 'Record a deduction or adjustment' }).click();
     const form = page.getByRole('form', { name: 'Record a deduction or adjustment' });
     await form.getByLabel('Applies on').fill('2026-11-20');
@@ -63,7 +36,7 @@ describe('field records through the forms, and the pay application package on sc
 
   it('the subcontractor records a load and a delivery of stored material', async () => {
     const page = await as('sub@tallyard.test');
-    await page.goto(`${server.url}${await projectPath(page)}/pay-basis`);
+    await page.goto(`${e2e.server.url}${await projectPath(page)}/pay-basis`);
     await page.getByRole('button', { name: 'Record a load' }).click();
     const form = page.getByRole('form', { name: 'Record a load ticket' });
     await form.getByLabel('Delivered on').fill('2026-11-03');
@@ -114,7 +87,7 @@ describe('field records through the forms, and the pay application package on sc
     const list = (apps.payApps ?? apps.items) as { id: string; number: number }[];
     const latest = list.reduce((a, b) => (a.number > b.number ? a : b));
     const detail = (await page.evaluate(async (id) => (await fetch(`/api/pay-apps/${id}`)).json(), latest.id)).payApp;
-    await page.goto(`${server.url}${path}/pay-apps/${latest.id}`);
+    await page.goto(`${e2e.server.url}${path}/pay-apps/${latest.id}`);
     const sov = page.getByRole('table', { name: `Schedule of values of pay application ${latest.number}` });
     await sov.waitFor();
     expect(await sov.locator('tbody tr').count()).toBe(detail.lines.length);

@@ -1,30 +1,15 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { browserTest } from './browser';
 
 // Each role starts at the inbox (the first screen after sign-in), opens one entry and finishes that step; the
 // entry is then gone from the inbox. The demo (server/db/demo) leaves one step for each: the subcontractor's
 // conditional waiver on pay application 2, the general contractor's drafted change order, the owner's payment of
 // pay application 2. Card number: Stripe's testing documentation (reference.md section 8).
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const SHOTS = process.env.E2E_SCREENSHOTS;
-
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = browserTest({ prefix: 'inbox-', context: { viewport: { width: 1366, height: 900 } } });
 
 async function atInbox(email: string): Promise<Page> {
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await signInDemo(page, server.url, email);
+  const page = await e2e.signedIn(email);
   await page.getByRole('heading', { name: 'Inbox' }).waitFor();
   return page;
 }
@@ -59,7 +44,7 @@ describe('starting from the inbox', () => {
     await card.getByText('Rosa Delgado').first().waitFor();
     await backToInbox(page);
     await expect.poll(() => entry(page, title).count()).toBe(0);
-    if (SHOTS) await page.screenshot({ path: `${SHOTS}/inbox-sub-after.png`, fullPage: true });
+    await e2e.snap(page, 'sub-after');
   });
 
   it('the general contractor decides the drafted change order', async () => {
@@ -92,10 +77,10 @@ describe('starting from the inbox', () => {
     const card = page.getByRole('region', { name: 'Pay application 2', exact: true });
     await card.getByRole('radio', { name: /^Card/ }).check();
     await card.getByRole('button', { name: 'Continue to payment' }).click();
-    await page.waitForURL(`${server.standinUrl}/pay/**`);
+    await page.waitForURL(`${e2e.server.standinUrl}/pay/**`);
     await page.getByLabel(/4242 4242 4242 4242/).check();
     await page.getByRole('button', { name: 'Confirm test payment' }).click();
-    await page.waitForURL(`${server.url}/projects/**/payments?**`);
+    await page.waitForURL(`${e2e.server.url}/projects/**/payments?**`);
     await card.getByText('Succeeded').waitFor();
     await backToInbox(page);
     await expect.poll(() => entry(page, title).count()).toBe(0);

@@ -1,11 +1,10 @@
 import { createHash } from 'node:crypto';
-import { mkdirSync, readFileSync, rmSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { MEASUREMENT_METHODS, METHOD_BILLING, type MeasurementMethod } from '../../src/shared/constants';
 import type { PayAppDetail, PayAppSummary } from '../../src/shared/schemas/pay-app';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { browserTest, openTab } from './browser';
 
 // Issue 12, the end-to-end proof of the measurement chain, in headless Chromium on the demo job: the subcontractor
 // makes a tally from "New tally" through each worksheet whose method bills (METHOD_BILLING), surface to surface
@@ -16,10 +15,13 @@ import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
 // The measurements are invented for this test; the expected quantities are worked by hand beside each one.
 // Setup that is not the journey (clearing the demo's open application) goes through the API.
 
-const SHOTS = '/tmp/shots-e2echain';
 const PERIOD = { start: '2026-11-01', end: '2026-11-30' } as const;
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
+const e2e = browserTest({
+  shots: '/tmp/shots-e2echain',
+  context: { viewport: { width: 1440, height: 1000 }, acceptDownloads: true },
+  timeout: 300_000,
+});
+const { signedIn, api, snap } = e2e;
 let projectId = '';
 
 /** A LandXML 1.2 TIN surface (points written northing easting elevation, LandXML 1.2 schema, element P), in feet. */
@@ -55,45 +57,6 @@ const SECTIONS_CSV = [
 const GRID_DEPTHS = ['1,1,1,1', '1,1,1,1', '1,1,1,1', '1,1,1,1'].join('\n');
 /** Truck tickets: 10 loads of 14 LCY and 5 of 18 LCY = 230 loose CY (swell 25 %: 184 bank CY, Nichols and Day). */
 const TICKETS_CSV = ['capacity,loads', '14,10', '18,5'].join('\n');
-
-beforeAll(async () => {
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 300_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
-  const page = await context.newPage();
-  await signInDemo(page, server.url, email);
-  return page;
-}
-
-/** The API with the page's own session (setup and read-back only). The CSRF guard wants the origin. */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, data?: unknown): Promise<T> {
-  const res = await page.request.fetch(`${server.url}/api${path}`, { method, data, headers: { origin: server.url } });
-  if (!res.ok()) throw new Error(`${method} ${path} answered ${res.status()}: ${await res.text()}`);
-  return (await res.json()) as T;
-}
-
-let shot = 0;
-async function snap(page: Page, name: string) {
-  shot += 1;
-  await page.screenshot({ path: `${SHOTS}/${String(shot).padStart(2, '0')}-${name}.png`, fullPage: true });
-}
-
-async function openTab(page: Page, tab: string) {
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
-  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: tab }).click();
-}
 
 /** "New tally" on the Tallies tab with the bid item chosen; answers the dialog. */
 async function newTallyFor(page: Page, itemNumber: string) {
@@ -409,7 +372,7 @@ describe('the measurement chain from worksheet to the backup of a pay applicatio
       '2 files',
     ]);
     await snap(gc, 'gc-line-backup');
-    await backup.screenshot({ path: `${SHOTS}/${String(++shot).padStart(2, '0')}-gc-line-backup-close.png` });
+    await snap(backup, 'gc-line-backup-close');
     await backup.getByRole('link', { name: 'Lot 7 basin, as dug' }).click();
     await gc.waitForURL(/\/tallies\/[\w-]+$/);
     await gc.getByTestId('cut-fill-map').waitFor();

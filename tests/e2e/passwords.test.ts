@@ -1,28 +1,13 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { waitForMail } from '../setup/payment-flow';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { browserTest } from './browser';
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const shots = process.env.E2E_SCREENSHOTS;
-const shot = (page: Page, name: string) =>
-  shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined;
-
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = browserTest();
+const { snap: shot } = e2e;
 
 async function signInWith(page: Page, email: string, password: string) {
-  await page.goto(`${server.url}/sign-in`);
+  await page.goto(`${e2e.server.url}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
@@ -30,8 +15,8 @@ async function signInWith(page: Page, email: string, password: string) {
 
 describe('passwords in the browser', () => {
   it('a forgotten password: the link from the e-mail sets a new one, and the new one signs in', async () => {
-    const page = await browser.newPage();
-    await page.goto(`${server.url}/sign-in`);
+    const page = await e2e.browser.newPage();
+    await page.goto(`${e2e.server.url}/sign-in`);
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
     await page.waitForURL('**/forgot-password');
     await page.getByLabel('E-mail').fill('sub@tallyard.test');
@@ -41,7 +26,7 @@ describe('passwords in the browser', () => {
     await shot(page, 'forgot-password-sent');
 
     const mail = await waitForMail(
-      server.mailbox,
+      e2e.server.mailbox,
       (m) => m.to.includes('sub@tallyard.test') && m.subject.includes('password'),
     );
     const link = /http:\/\/\S+\/reset-password\?token=[A-Za-z0-9_-]+/.exec(mail.text)![0];
@@ -65,12 +50,8 @@ describe('passwords in the browser', () => {
   }, 120_000);
 
   it('changing the password signs out the other browser', async () => {
-    const other = await browser.newContext();
-    const elsewhere = await other.newPage();
-    await signInDemo(elsewhere, server.url, 'owner@tallyard.test');
-
-    const page = await browser.newPage();
-    await signInDemo(page, server.url, 'owner@tallyard.test');
+    const elsewhere = await e2e.signedIn('owner@tallyard.test');
+    const page = await e2e.signedIn('owner@tallyard.test');
     await page.getByRole('link', { name: 'Password' }).click();
     await page.waitForURL('**/account/password');
     await page.getByLabel('Current password').fill('tallyard-demo');
@@ -83,14 +64,14 @@ describe('passwords in the browser', () => {
     await page.getByText('Password changed.').waitFor();
     await shot(page, 'change-password-done');
 
-    await page.goto(`${server.url}/jobs`);
+    await page.goto(`${e2e.server.url}/jobs`);
     await page.waitForURL('**/jobs');
-    await elsewhere.goto(`${server.url}/jobs`);
+    await elsewhere.goto(`${e2e.server.url}/jobs`);
     await elsewhere.waitForURL('**/sign-in?next=%2Fjobs');
     await elsewhere.getByRole('heading', { name: 'Sign in' }).waitFor();
     // One navigation only: the lapsed session goes to Sign in inside the app, keeping where it was.
-    expect(elsewhere.url()).toBe(`${server.url}/sign-in?next=%2Fjobs`);
-    await other.close();
+    expect(elsewhere.url()).toBe(`${e2e.server.url}/sign-in?next=%2Fjobs`);
+    await elsewhere.context().close();
     await page.close();
   }, 120_000);
 });

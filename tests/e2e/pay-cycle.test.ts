@@ -1,11 +1,9 @@
-import { mkdirSync, rmSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import type { CaughtMail } from '../../server/integrations/mailer/smtp-sink';
 import type { PayAppStatus } from '../../src/shared/constants';
 import type { PayAppDetail, PayAppSummary } from '../../src/shared/schemas/pay-app';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser } from './browser';
+import { browserTest, openTab } from './browser';
 
 // The monthly loop in headless Chromium, three people in three browser contexts: the subcontractor submits, the
 // general contractor disputes a line, the subcontractor proposes a third quantity and submits the revision, the
@@ -13,71 +11,20 @@ import { ensureClientBuilt, launchBrowser } from './browser';
 // is only setup (a ready tally) goes through the API with the person's own session; every step of the journey
 // goes through the screens. Screenshots land in /tmp, never in the repository.
 
-const SHOTS = '/tmp/tallyard-e2e/pay-cycle';
 const EMAIL = { sub: 'sub@tallyard.test', gc: 'gc@tallyard.test', owner: 'owner@tallyard.test' } as const;
 const REASON = 'Survey pickup shows less than the tally; see the cross sections of 28 Oct';
 const OPEN: readonly PayAppStatus[] = ['draft', 'submitted', 'in_review', 'returned'];
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-/** A fresh browser context (its own cookies) signed in as one of the demo people. */
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  const page = await context.newPage();
-  await page.goto(`${server.url}/`);
-  await page.waitForURL('**/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('tallyard-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/inbox');
-  return page;
-}
-
-/** The API with the page's own session cookie (setup and read-back only). The CSRF guard wants the origin. */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, data?: unknown): Promise<T> {
-  const res = await page.request.fetch(`${server.url}/api${path}`, { method, data, headers: { origin: server.url } });
-  if (!res.ok()) throw new Error(`${method} ${path} answered ${res.status()}: ${await res.text()}`);
-  return (await res.json()) as T;
-}
+const e2e = browserTest({ shots: '/tmp/tallyard-e2e/pay-cycle', context: { viewport: { width: 1440, height: 1000 } } });
+const { signedIn, api, snap, mailTo } = e2e;
 
 const detailOf = async (page: Page, id: string) =>
   (await api<{ payApp: PayAppDetail }>(page, 'GET', `/pay-apps/${id}`)).payApp;
 
-let shot = 0;
-async function snap(page: Page, name: string) {
-  shot += 1;
-  await page.screenshot({ path: `${SHOTS}/${String(shot).padStart(2, '0')}-${name}.png`, fullPage: true });
-}
-
-/** Waits for a new message (after the first `since`) to `to` whose subject matches, and returns it. */
-async function mailTo(since: number, to: string, subject: RegExp): Promise<CaughtMail> {
-  const find = () =>
-    server.mailbox
-      .messages()
-      .slice(since)
-      .find((m) => m.to.includes(to) && subject.test(m.subject));
-  await expect.poll(() => find()?.subject, { timeout: 10_000 }).toMatch(subject);
-  return find()!;
-}
-
 /** The link to the pay application in a hand-off e-mail; the person follows it. */
 function linkIn(mail: CaughtMail, payAppId: string): string {
   const link = mail.text.match(/https?:\/\/\S+\/pay-apps\/[\w-]+/)?.[0];
-  expect(link).toBe(`${server.url}/projects/${projectId}/pay-apps/${payAppId}`);
+  expect(link).toBe(`${e2e.server.url}/projects/${projectId}/pay-apps/${payAppId}`);
   return link!;
 }
 
@@ -88,9 +35,7 @@ async function statusIs(page: Page, number: number, label: string) {
 
 /** From the Jobs list, through the job and its Pay apps tab, to the list of applications. */
 async function openPayAppsTab(page: Page) {
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
-  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Pay apps' }).click();
+  await openTab(page, 'Pay apps');
   await page.waitForURL(/\/projects\/[\w-]+\/pay-apps$/);
 }
 
@@ -206,8 +151,8 @@ describe('pay cycle in the browser', () => {
 
     // 1. The subcontractor submits; the general contractor is told by e-mail.
     // (A demo application seeded as submitted or in review skips this step: it sent no e-mail here.)
-    let mails = server.mailbox.messages().length;
-    let reviewLink = `${server.url}/projects/${projectId}/pay-apps/${app.id}`;
+    let mails = e2e.server.mailbox.messages().length;
+    let reviewLink = `${e2e.server.url}/projects/${projectId}/pay-apps/${app.id}`;
     if (app.status === 'draft') {
       await snap(sub, 'sub-draft');
       await submitThroughScreen(sub, app);
@@ -234,7 +179,7 @@ describe('pay cycle in the browser', () => {
     await gc.getByLabel(`Reason for the dispute of item ${line.itemNumber}`).fill(REASON);
     await gc.getByLabel(`Counter quantity this period (${line.payUnit})`).fill(String(counter));
     await snap(gc, 'gc-disputes-line');
-    mails = server.mailbox.messages().length;
+    mails = e2e.server.mailbox.messages().length;
     await gc.getByRole('button', { name: 'Save review of 1 line', exact: true }).click();
     // Returning asks first and lists the disputed line.
     const ask = gc.getByRole('dialog', { name: `Return pay application ${number} with 1 disputed line?` });
@@ -281,7 +226,7 @@ describe('pay cycle in the browser', () => {
       'quantity_proposed',
     );
     await thread(sub).getByText('Another quantity proposed').waitFor();
-    mails = server.mailbox.messages().length;
+    mails = e2e.server.mailbox.messages().length;
     await submitThroughScreen(sub, revised);
     await snap(sub, 'sub-resubmitted');
     const resubmitted = await mailTo(
@@ -306,7 +251,7 @@ describe('pay cycle in the browser', () => {
     await statusIs(gc, number, 'In review');
     await linesTable(gc).getByText(`${revised.lines.length} of ${revised.lines.length} approved`).waitFor();
     await snap(gc, 'gc-all-approved');
-    mails = server.mailbox.messages().length;
+    mails = e2e.server.mailbox.messages().length;
     await certifyButton.click();
     const confirm = gc.getByRole('dialog', { name: `Certify pay application ${number}?` });
     await confirm.waitFor();

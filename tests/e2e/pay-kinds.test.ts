@@ -1,9 +1,8 @@
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { PDFParse } from 'pdf-parse';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { browserTest } from './browser';
 
 // The demo job (invented data) has one item of each way of paying, with its records dated before November and
 // not yet on any application: plan quantity (402), measured on a worksheet (203), truck measure (303, one load on a
@@ -11,30 +10,10 @@ import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
 // allowance item of their change order (FA-1), stored riprap (501) and a fuel adjustment and a credit. The October
 // application is settled first through the API, then November is compiled on screen and its PDF read back.
 // E2E_SCREENSHOTS=<dir> keeps a screenshot of each step.
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
+const e2e = browserTest({ prefix: 'pay-kinds-', context: { viewport: { width: 1366, height: 900 } } });
+const { signedIn: as, snap, projectPath } = e2e;
 const SHOTS = process.env.E2E_SCREENSHOTS;
 
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-  if (SHOTS) mkdirSync(SHOTS, { recursive: true });
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function as(email: string): Promise<Page> {
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await signInDemo(page, server.url, email);
-  return page;
-}
-const snap = async (page: Page, name: string) => {
-  if (SHOTS) await page.screenshot({ path: `${SHOTS}/pay-kinds-${name}.png`, fullPage: true });
-};
 /** One API call from the page's own session (writes carry an idempotency key, as the client sends). */
 async function call(page: Page, method: string, path: string, body?: unknown) {
   return page.evaluate(
@@ -52,12 +31,6 @@ async function call(page: Page, method: string, path: string, body?: unknown) {
     },
     { method, path, body },
   );
-}
-async function projectPath(page: Page): Promise<string> {
-  await page.goto(`${server.url}/jobs`);
-  const link = page.getByRole('main').getByRole('link').first();
-  await link.waitFor();
-  return /\/projects\/[^/]+/.exec((await link.getAttribute('href'))!)![0];
 }
 const money = (cents: number) =>
   `${cents < 0 ? '-' : ''}$${(Math.abs(cents) / 100).toLocaleString('en-US', { minimumFractionDigits: 2 })}`;
@@ -109,7 +82,7 @@ describe('one item of each way of paying through a new pay application, read bac
   });
 
   it('the contractor dates the last stage of item 201 in the stage editor; a wrong share is named first', async () => {
-    await gc.goto(`${server.url}${path}/pay-basis`);
+    await gc.goto(`${e2e.server.url}${path}/pay-basis`);
     await gc.getByRole('button', { name: 'Edit stages' }).click();
     const form = gc.getByRole('form', { name: 'Stages of item 201' });
     await form.getByLabel('Stage 3 share of the lump sum, percent').fill('25');
@@ -131,7 +104,7 @@ describe('one item of each way of paying through a new pay application, read bac
   });
 
   it('the subcontractor compiles November on screen: every kind has its line', async () => {
-    await sub.goto(`${server.url}${path}/pay-apps`);
+    await sub.goto(`${e2e.server.url}${path}/pay-apps`);
     await sub.getByRole('button', { name: 'New pay application' }).click();
     await sub.getByLabel('Period starts').fill('2026-11-01');
     await sub.getByLabel('Period ends').fill('2026-11-30');

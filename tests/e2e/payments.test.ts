@@ -1,43 +1,28 @@
 import { eq } from 'drizzle-orm';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { projects, user } from '../../server/db/schema';
 import { makeCertifiedPayApp } from '../setup/payment-factories';
 import { waitForMail } from '../setup/payment-flow';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { browserTest } from './browser';
 
 // Test values: Stripe's testing documentation (reference.md section 8). The demo has no certified application
 // yet, so this test writes two into the test server's database (numbers far from the demo's own).
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
+const e2e = browserTest({ server: { achSettleMs: 4000 } });
+const { snap: shot } = e2e;
 let projectId: string;
-const shots = process.env.E2E_SCREENSHOTS;
 
 beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer({ achSettleMs: 4000 });
-  browser = await launchBrowser();
-  const { db } = server.database;
+  const { db } = e2e.server.database;
   const [project] = await db.select().from(projects).limit(1);
   const [sub] = await db.select().from(user).where(eq(user.email, 'sub@tallyard.test'));
   projectId = project!.id;
   await makeCertifiedPayApp(db, projectId, sub!.id, { number: 901 });
   await makeCertifiedPayApp(db, projectId, sub!.id, { number: 902 });
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
 });
 
-const signIn = (page: Page, email: string) => signInDemo(page, server.url, email);
-
-const shot = (page: Page, name: string) =>
-  shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined;
-
 async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
-  await page.goto(`${server.url}/projects/${projectId}/payments`);
+  await page.goto(`${e2e.server.url}/projects/${projectId}/payments`);
   const card = page.getByRole('region', { name: `Pay application ${number}`, exact: true });
   await card.getByRole('button', { name: 'Continue to payment' }).waitFor();
   // The payer chooses the method first and sees its processing fee and the total (issue 11, item 7).
@@ -48,7 +33,7 @@ async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
     .waitFor();
   await shot(page, `before-${number}`);
   await card.getByRole('button', { name: 'Continue to payment' }).click();
-  await page.waitForURL(`${server.standinUrl}/pay/**`);
+  await page.waitForURL(`${e2e.server.standinUrl}/pay/**`);
   expect(await page.textContent('body')).toContain('Local test checkout — no real money moves');
   // The demo's payer bears the processing fee: the checkout charges $13,621.90 plus the quoted fee (card
   // 2.9 % + $0.30 grossed up; ACH 0.8 % capped at $5; src/shared/domain/payment-fees.ts).
@@ -56,20 +41,19 @@ async function payThroughCheckout(page: Page, number: number, choice: RegExp) {
   await page.getByLabel(choice).check();
   await shot(page, `checkout-${number}`);
   await page.getByRole('button', { name: 'Confirm test payment' }).click();
-  await page.waitForURL(`${server.url}/projects/${projectId}/payments?**`);
+  await page.waitForURL(`${e2e.server.url}/projects/${projectId}/payments?**`);
   return card;
 }
 
 describe('paying a certified application in the browser', () => {
   it('the owner pays by card (4242 4242 4242 4242) and sees it succeed', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'owner@tallyard.test');
+    const page = await e2e.signedIn('owner@tallyard.test');
     const card = await payThroughCheckout(page, 901, /4242 4242 4242 4242/);
     await card.getByText('Succeeded').waitFor();
     await expect.poll(() => card.getByTestId('pay-app-status').textContent()).toBe('Paid');
     await page.getByText('Payment received.').waitFor();
     await shot(page, 'after-card');
-    const receipt = await waitForMail(server.mailbox, (m) => m.subject.startsWith('Receipt: pay application 901'));
+    const receipt = await waitForMail(e2e.server.mailbox, (m) => m.subject.startsWith('Receipt: pay application 901'));
     expect(receipt.to).toEqual(
       expect.arrayContaining(['owner@tallyard.test', 'gc@tallyard.test', 'sub@tallyard.test']),
     );
@@ -77,8 +61,7 @@ describe('paying a certified application in the browser', () => {
   });
 
   it('the owner pays by ACH (000123456789) and sees processing, then succeeded', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'owner@tallyard.test');
+    const page = await e2e.signedIn('owner@tallyard.test');
     const card = await payThroughCheckout(page, 902, /000123456789/);
     await card.getByText('Processing', { exact: true }).first().waitFor();
     expect(await card.getByTestId('pay-app-status').textContent()).toBe('Payment processing');
@@ -91,9 +74,8 @@ describe('paying a certified application in the browser', () => {
   });
 
   it('the subcontractor sees the payments and issues a conditional waiver on the Waivers tab', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'sub@tallyard.test');
-    await page.goto(`${server.url}/projects/${projectId}/payments`);
+    const page = await e2e.signedIn('sub@tallyard.test');
+    await page.goto(`${e2e.server.url}/projects/${projectId}/payments`);
     await page.getByRole('table', { name: 'Payment history' }).getByText('Succeeded').first().waitFor();
     expect(await page.getByRole('button', { name: 'Continue to payment' }).count()).toBe(0);
     await shot(page, 'sub-payments');

@@ -1,35 +1,21 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { projects } from '../../server/db/schema';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { browserTest } from './browser';
 
 // The People screen as each side sees it (issue 10): a company's admin invites to and removes from its own
 // company's seat only; a person of a seat manages nobody.
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
+const e2e = browserTest();
+const { snap: shot } = e2e;
 let projectId: string;
-const shots = process.env.E2E_SCREENSHOTS;
 
 beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-  const [project] = await server.database.db.select().from(projects).limit(1);
+  const [project] = await e2e.server.database.db.select().from(projects).limit(1);
   projectId = project!.id;
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
 });
 
-const shot = (page: Page, name: string) => (shots ? page.screenshot({ path: `${shots}/${name}.png`, fullPage: true }) : undefined);
-
 async function people(email: string) {
-  const page = await browser.newPage();
-  await signInDemo(page, server.url, email);
-  await page.goto(`${server.url}/projects/${projectId}/people`);
+  const page = await e2e.signedIn(email);
+  await page.goto(`${e2e.server.url}/projects/${projectId}/people`);
   await page.getByRole('table', { name: 'People on this job' }).waitFor();
   return page;
 }
@@ -40,7 +26,12 @@ describe('People screen', () => {
     const table = page.getByRole('table', { name: 'People on this job' });
     const owen = table.getByRole('row', { name: /Owen Halvorsen/ });
     await owen.getByRole('button', { name: 'Remove from job' }).waitFor();
-    expect(await table.getByRole('row', { name: /Rosa Delgado/ }).getByRole('button').count()).toBe(0);
+    expect(
+      await table
+        .getByRole('row', { name: /Rosa Delgado/ })
+        .getByRole('button')
+        .count(),
+    ).toBe(0);
     const invite = page.getByRole('form', { name: 'Invite someone' });
     expect(await invite.getByLabel('Role on this job').inputValue()).toBe('General contractor');
     await shot(page, 'people-gc-admin');

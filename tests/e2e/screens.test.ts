@@ -1,33 +1,19 @@
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { PROJECT_TABS } from '../../src/app/project-tabs';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { browserTest, signInDemo } from './browser';
 
 // Every main screen of the demo job, for each role, at a phone width (390 px) and a laptop width (1366 px): the page
 // is never wider than the window (wide tables scroll inside their own box or turn into cards), and no page logs a
 // console error or throws; on the laptop every project tab is in sight. E2E_SCREENSHOTS=<dir> keeps a screenshot of each screen at each width.
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const SHOTS = process.env.E2E_SCREENSHOTS;
+const e2e = browserTest();
 const WIDTHS = [390, 1366] as const;
-
-beforeAll(async () => {
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
 
 type Problem = string;
 
 /** Opens a screen and waits until it has settled: its heading is drawn and nothing is loading. */
 async function openScreen(page: Page, path: string): Promise<void> {
-  await page.goto(`${server.url}${path}`);
+  await page.goto(`${e2e.server.url}${path}`);
   await page.waitForLoadState('networkidle');
   await page.locator('main h1, main h2').first().waitFor();
   await page.waitForFunction(() => !document.querySelector('[aria-busy="true"]'), undefined, { timeout: 10_000 });
@@ -52,7 +38,7 @@ async function hiddenTabs(page: Page): Promise<string[]> {
 
 /** The screens a person of the demo job can open: the tabs, and one of each detail screen they can see. */
 async function screensOf(page: Page): Promise<string[]> {
-  await page.goto(`${server.url}/jobs`);
+  await page.goto(`${e2e.server.url}/jobs`);
   const jobLink = page.getByRole('main').getByRole('link').first();
   await jobLink.waitFor();
   const href = (await jobLink.getAttribute('href'))!;
@@ -91,7 +77,7 @@ async function walk(
     if (m.type() === 'error') problems.push(`${email} ${where}: console error: ${m.text()}`);
   });
   page.on('pageerror', (e) => problems.push(`${email} ${where}: uncaught ${e.message}`));
-  await signInDemo(page, server.url, email);
+  await signInDemo(page, e2e.server.url, email);
   const paths = await pathsOf(page);
   for (const width of WIDTHS) {
     await page.setViewportSize({ width, height: 900 });
@@ -104,10 +90,8 @@ async function walk(
         const hidden = await hiddenTabs(page);
         if (hidden.length > 0) problems.push(`${email} ${where}: tabs out of sight: ${hidden.join(', ')}`);
       }
-      if (SHOTS) {
-        const name = `${email.split('@')[0]}-${width}-${path.replace(/^\/projects\/[^/]+/, 'job').replace(/[^a-z0-9]+/gi, '-')}`;
-        await page.screenshot({ path: `${SHOTS}/${name}.png`, fullPage: true });
-      }
+      const name = `${email.split('@')[0]}-${width}-${path.replace(/^\/projects\/[^/]+/, 'job').replace(/[^a-z0-9]+/gi, '-')}`;
+      await e2e.snap(page, name);
     }
   }
   await page.close();
@@ -117,7 +101,7 @@ async function walk(
 describe('every main screen at 390 px and 1366 px', () => {
   for (const email of ['sub@tallyard.test', 'gc@tallyard.test', 'owner@tallyard.test']) {
     it(`fits the window and logs no console error, for ${email}`, async () => {
-      const context = await browser.newContext();
+      const context = await e2e.browser.newContext();
       const { problems, seen } = await walk(context, email);
       await context.close();
       expect(seen).toBeGreaterThan(PROJECT_TABS.length);
@@ -126,7 +110,7 @@ describe('every main screen at 390 px and 1366 px', () => {
   }
 
   it('fits the window and logs no console error, for the company admin (admin@tallyard.test), company page included', async () => {
-    const context = await browser.newContext();
+    const context = await e2e.browser.newContext();
     const { problems, seen } = await walk(context, 'admin@tallyard.test', async (page) => {
       await openScreen(page, '/company');
       // The demo company's people, with their seats, and the admin link in the header.

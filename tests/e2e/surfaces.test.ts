@@ -1,17 +1,17 @@
-import { mkdirSync, rmSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { ensureClientBuilt, launchBrowser, signInDemo } from './browser';
+import { describe, expect, it } from 'vitest';
+import { browserTest, openTab } from './browser';
 
 // Issue 13, items 3 and 5 in headless Chromium with the demo job: the subcontractor records the original ground
 // (LandXML), both sides accept it, the subcontractor measures an as-built surface against it in the surface
 // worksheet, saves a tally, and the cut and fill map shows on the worksheet and on the tally. Screenshots land in
 // /tmp, never in the repository. The surfaces are invented for this test.
 
-const SHOTS = '/tmp/shots-surfaces';
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
+const e2e = browserTest({
+  shots: '/tmp/shots-surfaces',
+  context: { viewport: { width: 1440, height: 1000 } },
+  timeout: 300_000,
+});
+const { signedIn, snap } = e2e;
 
 /** A 300 x 300 ft grid every 30 ft; LandXML writes northing easting elevation (LandXML 1.2 schema, P). */
 function landXml(name: string, units: string, z: (x: number, y: number) => number, extra = ''): Buffer {
@@ -38,38 +38,6 @@ const AS_BUILT = landXml(
   `<SourceData><Boundaries><Boundary name="pay" bndType="outer"><PntList2D>15 15 15 285 285 285 285 15</PntList2D></Boundary>
    <Boundary name="inlet" bndType="void"><PntList2D>130 130 130 170 170 170 170 130</PntList2D></Boundary></Boundaries></SourceData>`,
 );
-
-beforeAll(async () => {
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 300_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  const page = await context.newPage();
-  await signInDemo(page, server.url, email);
-  return page;
-}
-
-let shot = 0;
-async function snap(page: Page, name: string) {
-  shot += 1;
-  await page.screenshot({ path: `${SHOTS}/${String(shot).padStart(2, '0')}-${name}.png`, fullPage: true });
-}
-
-async function openTab(page: Page, tab: string) {
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
-  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: tab }).click();
-}
 
 describe('original ground, as-built surface, tally and map', () => {
   it('records and locks the original ground, measures the as-built against it, and shows the map', async () => {

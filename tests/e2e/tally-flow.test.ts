@@ -1,54 +1,23 @@
-import { mkdirSync, rmSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestServer } from '../setup/test-server';
-import { launchBrowser, ensureClientBuilt, signInDemo } from './browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { browserTest, openTab } from './browser';
 
 // Issue 12, items 1, 4 and 5 in headless Chromium with the demo job: the subcontractor makes tallies from "New
 // tally" (a volume worksheet and the direct-quantity form), reopens the worksheet tally and edits it (the earlier
 // save stays in its history); the general contractor opens a pay application line's backup and reaches the tally,
 // its evidence and its worksheet drawing. Screenshots land in /tmp, never in the repository.
 
-const SHOTS = '/tmp/tallyard-e2e/tally-flow';
 /** A real 1 x 1 PNG (one spruce-green pixel), so the photo preview has a picture to show. */
 const PHOTO = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAIAAACQd1PeAAAADElEQVR4nGPQj/UCAAGVANc/ZvXWAAAAAElFTkSuQmCC',
   'base64',
 );
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  rmSync(SHOTS, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  await ensureClientBuilt();
-  server = await startTestServer();
-  browser = await launchBrowser();
-}, 240_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+const e2e = browserTest({
+  shots: '/tmp/tallyard-e2e/tally-flow',
+  context: { viewport: { width: 1440, height: 1000 } },
+  timeout: 240_000,
 });
-
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  const page = await context.newPage();
-  await signInDemo(page, server.url, email);
-  return page;
-}
-
-let shot = 0;
-async function snap(page: Page, name: string) {
-  shot += 1;
-  await page.screenshot({ path: `${SHOTS}/${String(shot).padStart(2, '0')}-${name}.png`, fullPage: true });
-}
-
-async function openTab(page: Page, tab: string) {
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Jobs' }).click();
-  await page.getByRole('table', { name: 'Jobs' }).getByRole('link').first().click();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: tab }).click();
-}
+const { signedIn, snap } = e2e;
 
 async function newTallyFor(page: Page, itemLabel: RegExp) {
   await openTab(page, 'Tallies');

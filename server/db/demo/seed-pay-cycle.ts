@@ -1,6 +1,7 @@
 import { DEFAULT_FEE_RATES } from '../../../src/shared/domain/payment-fees';
 import { eq, inArray } from 'drizzle-orm';
 import type { AppContext } from '../../app-context';
+import { readCache } from '../../lib/read-cache';
 import type { Storage } from '../../integrations/storage/storage';
 import type { Actor } from '../../lib/actor';
 import { createLogger } from '../../lib/logger';
@@ -101,6 +102,7 @@ export async function seedPayCycle(db: Db, storage: Storage, projectId: string):
     appUrl: '',
     feeRates: DEFAULT_FEE_RATES,
     recentAuth: noReauth,
+    payAppReads: readCache(),
   };
 
   // Each step is dated in the scenario, in the days after its period ends (demo-clock.ts).

@@ -14,3 +14,4 @@ export * from './provisions-accounts';
 export * from './idempotency';
 export * from './sign-in-limits';
 export * from './surface-baselines';
+export * from './read-version';

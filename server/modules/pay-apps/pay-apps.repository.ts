@@ -13,6 +13,7 @@ import {
   payAppStatusHistory,
   projectMembers,
   projects,
+  readVersion,
   tallies,
 } from '../../db/schema';
 
@@ -128,11 +129,17 @@ export async function submitterIds(db: Executor, payAppId: string): Promise<stri
 const nameOnly = { columns: { name: true } } as const;
 
 const reads = preparedFor((db: Db) => ({
-  /** A pay application, its project and the person's roles on that project. */
+  /**
+   * A pay application, its project, the person's roles on that project, and the read version (read_version) in the
+   * same snapshot: what is read after it is at least as new as that version.
+   */
   withAccess: db
     .select({
       app: payApps,
       project: projects,
+      readVersion: sql<
+        string | null
+      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1)`,
       roles: sql<
         ProjectRole[]
       >`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`,

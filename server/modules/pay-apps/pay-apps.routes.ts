@@ -28,9 +28,10 @@ export function payAppsRouter(ctx: AppContext): Router {
     res.status(201).json({ payApp: await service.createPayApp(db, getActor(res), req.params.projectId, input) });
   });
   router.get('/pay-apps/:payAppId', async (req, res) => {
-    // Express tags the body (ETag) and answers 304 to a matching If-None-Match; browsers revalidate each time.
-    res.set('Cache-Control', 'private, no-cache');
-    res.json({ payApp: await service.getPayApp(db, getActor(res), req.params.payAppId) });
+    // Sent as serialized (and tagged) once per read version; Express answers 304 to a matching If-None-Match, and
+    // browsers revalidate each time.
+    const answer = await service.getPayAppAnswer(ctx, getActor(res), req.params.payAppId);
+    res.set('Cache-Control', 'private, no-cache').set('ETag', answer.etag).type('json').send(answer.bytes);
   });
   router.post('/pay-apps/:payAppId/submit', async (req, res) => {
     res.json({

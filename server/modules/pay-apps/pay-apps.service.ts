@@ -4,7 +4,9 @@ import { changeOrderSummary } from '../../../src/shared/domain/change-order-summ
 import { payAppFlags } from '../../../src/shared/domain/pay-app-flags';
 import { payAppPackage } from '../../../src/shared/domain/pay-app-package';
 import type { CreatePayAppInput, PayAppDetail } from '../../../src/shared/schemas/pay-app';
+import type { AppContext } from '../../app-context';
 import type { Db } from '../../db/client';
+import { serializeJson } from '../../lib/read-cache';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
@@ -130,9 +132,19 @@ async function packageOf(
   };
 }
 
-export async function getPayApp(db: Db, actor: Actor, payAppId: string) {
-  const { roles } = await loadPayAppAccess(db, actor, payAppId);
-  return payAppDetail(db, payAppId, roles);
+/**
+ * The answer to GET of one application, serialized once per read version and viewer: access is checked on every
+ * request (the same statement reads the version), and only the detail's reads and pricing are skipped while no
+ * write has committed since (read_version). The viewer's roles are part of the key: the answer carries `can`.
+ */
+export async function getPayAppAnswer(ctx: Pick<AppContext, 'db' | 'payAppReads'>, actor: Actor, payAppId: string) {
+  const { roles, readVersion } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const rolesKey = [...roles].sort().join(',');
+  const cached = ctx.payAppReads.get(payAppId, actor.userId, readVersion, rolesKey);
+  if (cached) return cached;
+  const answer = serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) });
+  ctx.payAppReads.set(payAppId, actor.userId, readVersion, rolesKey, answer);
+  return answer;
 }
 
 export async function createPayApp(db: Db, actor: Actor, projectId: string, input: CreatePayAppInput) {
