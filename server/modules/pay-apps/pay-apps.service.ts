@@ -140,11 +140,9 @@ async function packageOf(
 export async function getPayAppAnswer(ctx: Pick<AppContext, 'db' | 'payAppReads'>, actor: Actor, payAppId: string) {
   const { roles, readVersion } = await loadPayAppReadAccess(ctx.db, actor, payAppId);
   const rolesKey = [...roles].sort().join(',');
-  const cached = ctx.payAppReads.get(payAppId, actor.userId, readVersion, rolesKey);
-  if (cached) return cached;
-  const answer = serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) });
-  ctx.payAppReads.set(payAppId, actor.userId, readVersion, rolesKey, answer);
-  return answer;
+  return ctx.payAppReads.answer(payAppId, actor.userId, readVersion, rolesKey, async () =>
+    serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) }),
+  );
 }
 
 export async function createPayApp(db: Db, actor: Actor, projectId: string, input: CreatePayAppInput) {
