@@ -84,6 +84,11 @@ describe('an allowance drawn by force account days on the quantity watch', () =>
       acknowledgedFlags: flags.map((f) => f.key),
     });
     expect(certified.status).toBe(200);
-    expect(await watchRowOf()).toMatchObject({ approvedToDate: 0.384, pending: 0, status: 'within' });
+    expect(await watchRowOf()).toMatchObject({
+      approvedToDate: 0.384,
+      pending: 0,
+      status: 'within',
+      drawnByForceAccount: true,
+    });
   });
 });

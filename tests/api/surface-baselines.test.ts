@@ -308,6 +308,21 @@ describe('point files and faces as original ground', () => {
     expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
   });
 
+  it('refuses a LandXML surface whose faces overlap in plan without sharing an edge, naming the faces and the surface', async () => {
+    // Faces 1-2-3 and 1-3-4 cover the square; a third face over points 2, 4 and the centre lies across both.
+    const folded = ground(30.48)
+      .toString()
+      .replace('</Pnts>', '<P id="5">40 70 30.48</P></Pnts>')
+      .replace('<F>1 3 4</F>', '<F>1 3 4</F><F>2 4 5</F>');
+    const before = (await t.database.db.select().from(auditEvents)).length;
+    const res = await recordFile(folded, 'folded.xml', { area: 'Folded' });
+    expect([res.status, res.body.error.code]).toEqual([400, 'BASELINE_FILE_INVALID']);
+    expect(res.body.error.message).toBe(
+      'folded.xml, surface "Original ground": Faces 1 and 3 overlap in plan without sharing an edge: the surface would have two heights there',
+    );
+    expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
+  });
+
   it("a locked LandXML baseline with faces is measured on its faces as given (one face: half the square's cut)", async () => {
     const item = await makeBidItem(t.database.db, w.home.id, { payUnit: 'CY', basis: 'bank', method: 'surface' });
     // One face over the square's corners 1, 2, 3: a right triangle of 5,000 sq ft at 100 ft, design at 99 ft:

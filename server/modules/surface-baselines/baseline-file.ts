@@ -9,6 +9,8 @@ import {
   type LandXmlLengthUnit,
   type PointOrder,
 } from '../../../src/shared/landxml';
+import { DomainError } from '../../../src/shared/domain/domain-error';
+import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
 import { AppError } from '../../lib/app-error';
 import { streamedUpload, type UploadedFile } from '../../lib/upload';
 import { safeFileName } from '../tallies/evidence-files';
@@ -133,6 +135,7 @@ export async function readBaselineFile(
   if (doc.issues.length > 0) throw refuseIssues(fileName, 'LandXML', doc.issues);
   const surface = doc.surfaces.find((s) => s.x.length >= 3);
   if (!surface) throw invalid(`${fileName} holds no <Surface> with at least 3 points`);
+  if (surface.faces.length > 0) checkFaces(fileName, surface);
   let { linearUnit, elevationUnit } = doc.units;
   let unitsFrom: 'file' | 'recorder' = 'file';
   if (doc.units.system === null) {
@@ -159,6 +162,22 @@ export async function readBaselineFile(
     contentType: 'application/xml',
     pointOrder: null,
   };
+}
+
+/**
+ * The surface's faces make one surface (the engine's own checks, surface-tin.ts: each face names points of the
+ * surface, no two overlap in plan), so a baseline is never accepted that no tally could measure against.
+ */
+function checkFaces(
+  fileName: string,
+  s: { name: string; x: Float64Array; y: Float64Array; z: Float64Array; faces: Uint32Array },
+) {
+  try {
+    buildTin({ x: s.x, y: s.y, z: s.z, faces: s.faces }, s.x[0]!, s.y[0]!, 'existing');
+  } catch (e) {
+    if (!(e instanceof DomainError)) throw e;
+    throw invalid(`${fileName}, surface "${s.name}": ${e.message.replace(' of the existing surface', '')}`);
+  }
 }
 
 /** A stored baseline's faces as row triples, or undefined without faces. */

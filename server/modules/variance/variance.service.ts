@@ -49,7 +49,7 @@ export async function watchRows(
     // by the force account days under its change order, counted at that price (its own lines bill no quantity).
     const unitPriceCents = contract.byId.get(item.id)!.unitPriceCents;
     const drawn = (by: ReadonlyMap<string, number>) => allowanceDrawnQuantity(by.get(item.id) ?? 0, unitPriceCents);
-    return watchRow(clause, {
+    const row = watchRow(clause, {
       item: { ...item, unitPriceCents },
       quantity: quantities.get(item.id)!,
       isMajor:
@@ -67,6 +67,7 @@ export async function watchRows(
         : null,
       openChangeOrder: open.get(item.id) ?? null,
     });
+    return drawnApproved.has(item.id) || drawnPending.has(item.id) ? { ...row, drawnByForceAccount: true } : row;
   });
   return { rows, originalContractAmountCents };
 }
