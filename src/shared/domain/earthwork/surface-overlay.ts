@@ -29,6 +29,8 @@ export interface OverlayOptions {
    * `sums[of[s]]`, s the triangle of `b` under it (group 0 is not summed). Pay limits are not applied.
    */
   groups?: { of: Uint8Array; sums: Float64Array } | null;
+  /** Shown each convex piece and its depth (a's height less b's, linear over it), for a picture (surface-map.ts). */
+  sink?: ((piece: Ring, depth: Linear) => void) | null;
 }
 
 /** Plan area of a mesh (sum of its triangles). */
@@ -108,6 +110,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null, options: OverlayO
   const skip = options.skip ?? null;
   const z0 = options.z0 ?? 0;
   const groups = options.groups ?? null;
+  const sink = options.sink ?? null;
   const ta = a.mesh.triangles;
   const tb = b.mesh.triangles;
   const hb = b.mesh.halfedges;
@@ -285,6 +288,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null, options: OverlayO
           f.d0 = zA - (planeB[3 * s + 2]! + pB * ax + qB * ay);
           f.dx = pA - pB;
           f.dy = qA - qB;
+          if (sink) sink(piece, f);
           // The piece's signed area comes with its integral (one pass over its corners).
           if (!status || status[tIndex] === 1) area = addRing(piece, f, acc, scratch, tmp, 1, g);
           else {
