@@ -4,7 +4,7 @@ import { LRUCache } from 'lru-cache';
 /** A JSON answer ready to send: its bytes and the entity tag of those bytes (RFC 9110 section 8.8.3). */
 export type SerializedBody = { bytes: Buffer; etag: string };
 
-type Entry = SerializedBody & { version: string; rolesKey: string };
+type Entry = SerializedBody & { version: string; rolesKey: string; started: number };
 
 /** 64 MiB of answers per app server: about three hundred 200-line pay applications. */
 export const READ_CACHE_MAX_BYTES = 64 * 1024 * 1024;
@@ -26,6 +26,8 @@ export function serializeJson(value: unknown): SerializedBody {
 export function readCache(maxBytes = READ_CACHE_MAX_BYTES) {
   const entries = new LRUCache<string, Entry>({ maxSize: maxBytes, sizeCalculation: (e) => e.bytes.length + 200 });
   const building = new Map<string, Promise<SerializedBody>>();
+  // Builds in the order they started: one that started later read its version later, so it is at least as new.
+  let builds = 0;
   const keyOf = (objectId: string, userId: string) => `${objectId}\u0000${userId}`;
   return {
     async answer(
@@ -42,9 +44,10 @@ export function readCache(maxBytes = READ_CACHE_MAX_BYTES) {
       const buildKey = `${key}\u0000${version}\u0000${rolesKey}`;
       const pending = building.get(buildKey);
       if (pending) return pending;
+      const started = ++builds;
       const made = build().then((body) => {
         const now = entries.peek(key);
-        if (!now || BigInt(now.version) <= BigInt(version)) entries.set(key, { ...body, version, rolesKey });
+        if (!now || now.started < started) entries.set(key, { ...body, version, rolesKey, started });
         return body;
       });
       building.set(buildKey, made);

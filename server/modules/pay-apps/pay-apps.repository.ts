@@ -13,6 +13,7 @@ import {
   payAppStatusHistory,
   projectMembers,
   projects,
+  projectReadVersions,
   readVersion,
   tallies,
 } from '../../db/schema';
@@ -148,8 +149,9 @@ const reads = preparedFor((db: Db) => ({
     .prepare('pay_app_with_access'),
   /**
    * What a cached read checks on every request, and only that (PGlite pays for every column it hands back): the
-   * application's status, its project's parties, the person's roles there, and the read version (read_version) in
-   * the same snapshot, so whatever is read after it is at least that new.
+   * application's status, its project's parties, the person's roles there, and the read versions (read_version and
+   * the project's row of project_read_versions) in the same snapshot, so whatever is read after it is at least that
+   * new.
    */
   readAccess: db
     .select({
@@ -162,7 +164,7 @@ const reads = preparedFor((db: Db) => ({
       roles: rolesOf,
       readVersion: sql<
         string | null
-      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1)`,
+      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1) || '.' || coalesce((select ${projectReadVersions.version} from ${projectReadVersions} where ${projectReadVersions.projectId} = ${projects.id}), 0)::text`,
     })
     .from(payApps)
     .innerJoin(projects, eq(projects.id, payApps.projectId))
