@@ -1,92 +1,94 @@
-import { useMemo } from 'react';
-import type { DepthGrid } from '@/shared/domain/earthwork/surface-depth-grid';
+import { useEffect, useRef } from 'react';
 import type { PayLimits } from '@/shared/domain/earthwork/surface';
+import { MAP_STEPS, type DepthMap } from '@/shared/domain/earthwork/surface-map';
 
-/** Depth classes each side of zero: the map's colours step, so equal colours mean equal depth bands. */
-const STEPS = 6;
 /** The product palette (src/index.css): clay for cut, spruce for fill, 100 to 700. */
 const CUT = ['#f5e4d0', '#eac6a0', '#dca26d', '#cf8347', '#bb6a31', '#9e5427'];
 const FILL = ['#d5e9df', '#aed3c1', '#7fb79e', '#52977b', '#357b61', '#27634e'];
+const INK = '#24221f';
+/** Drawing width in CSS pixels (the canvas scales to its box). */
 const W = 560;
 
 const fmt = (v: number) => v.toLocaleString('en-US', { maximumFractionDigits: v < 10 ? 2 : 1 });
 
-type Run = { x: number; y: number; w: number; fill: string };
-
-/** Horizontal runs of cells in the same depth class (a few hundred rectangles instead of thousands of cells). */
-function runsOf(g: DepthGrid, top: number, level: number): Run[] {
-  const runs: Run[] = [];
-  for (let r = 0; r < g.rows; r++) {
-    let start = -1;
-    let colour = '';
-    const flush = (end: number) => {
-      if (start >= 0 && colour) runs.push({ x: start, y: g.rows - 1 - r, w: end - start, fill: colour });
-    };
-    for (let c = 0; c <= g.columns; c++) {
-      const v = c < g.columns ? g.depth[r * g.columns + c]! : NaN;
-      let next = '';
-      if (v === v && top > 0 && Math.abs(v) >= level) {
-        const k = Math.min(STEPS - 1, Math.floor((Math.abs(v) / top) * STEPS));
-        next = v > 0 ? CUT[k]! : FILL[k]!;
-      }
-      if (next !== colour) {
-        flush(c);
-        start = c;
-        colour = next;
-      }
+/** Paints the map's polygons, one path a band (no seams between neighbours), then the pay limits over them. */
+function paint(canvas: HTMLCanvasElement, map: DepthMap, payLimits: PayLimits | null | undefined, h: number) {
+  const ctx = canvas.getContext('2d');
+  if (!ctx) return;
+  const ratio = window.devicePixelRatio || 1;
+  canvas.width = Math.round(W * ratio);
+  canvas.height = Math.round(h * ratio);
+  const k = (W / Math.max(map.width, map.height * (W / h))) * ratio;
+  ctx.setTransform(k, 0, 0, -k, 0, h * ratio);
+  const paths = Array.from({ length: 2 * MAP_STEPS + 1 }, () => new Path2D());
+  let at = 0;
+  for (let p = 0; p < map.counts.length; p++) {
+    const n = map.counts[p]!;
+    const band = map.band[p]!;
+    if (band !== 0) {
+      const path = paths[band + MAP_STEPS]!;
+      path.moveTo(map.xy[at]!, map.xy[at + 1]!);
+      for (let i = 1; i < n; i++) path.lineTo(map.xy[at + 2 * i]!, map.xy[at + 2 * i + 1]!);
+      path.closePath();
     }
+    at += 2 * n;
   }
-  return runs;
+  for (let b = 1; b <= MAP_STEPS; b++) {
+    ctx.fillStyle = CUT[b - 1]!;
+    ctx.fill(paths[b + MAP_STEPS]!);
+    ctx.fillStyle = FILL[b - 1]!;
+    ctx.fill(paths[MAP_STEPS - b]!);
+  }
+  const ring = (r: readonly (readonly [number, number])[]) => {
+    const path = new Path2D();
+    r.forEach(([x, y], i) => (i === 0 ? path.moveTo : path.lineTo).call(path, x - map.x0, y - map.y0));
+    path.closePath();
+    return path;
+  };
+  ctx.strokeStyle = INK;
+  for (const v of payLimits?.voids ?? []) {
+    const path = ring(v);
+    ctx.fillStyle = 'rgba(247, 246, 243, 0.7)';
+    ctx.fill(path);
+    ctx.lineWidth = (1.5 * ratio) / k;
+    ctx.setLineDash([(3 * ratio) / k, (3 * ratio) / k]);
+    ctx.stroke(path);
+  }
+  if (payLimits?.outer) {
+    ctx.lineWidth = (2 * ratio) / k;
+    ctx.setLineDash([(8 * ratio) / k, (4 * ratio) / k]);
+    ctx.stroke(ring(payLimits.outer));
+  }
 }
 
 /**
- * The surface result in plan: each cell coloured by the depth between the surveys, cut (existing above design) in
- * clay and fill in spruce, in equal depth bands up to the deepest either way; the pay limits drawn over it; a
- * legend with the unit. North is up.
+ * The surface result in plan, drawn from the overlay's own pieces (surface-map.ts): cut (existing above design)
+ * in clay and fill in spruce, in equal bands of depth up to the deepest either way, cut exactly where the depth
+ * crosses a band's limit; the pay limits drawn over it; a legend with the unit. Drawn on a canvas, so a surface
+ * of a million points keeps the page responsive. North is up.
  */
-export function CutFillMap({ grid, payLimits, unit }: { grid: DepthGrid; payLimits?: PayLimits | null; unit: string }) {
-  const top = Math.max(grid.maxCut, grid.maxFill);
-  // Depths within survey precision (0.01 ft, 0.003 m; common practice) are left uncoloured: rounding in a file's
-  // elevations must not paint the whole site.
-  const level = unit === 'm' ? 0.003 : 0.01;
-  const runs = useMemo(() => runsOf(grid, top, level), [grid, top, level]);
-  const h = (W * grid.rows) / grid.columns;
-  const k = W / (grid.columns * grid.cell);
-  const px = (x: number) => (x - grid.x0) * k;
-  const py = (y: number) => h - (y - grid.y0) * k;
-  const ring = (r: readonly (readonly [number, number])[]) => r.map(([x, y]) => `${px(x)},${py(y)}`).join(' ');
-  const band = (i: number) => `${fmt((top * i) / STEPS)}–${fmt((top * (i + 1)) / STEPS)}`;
+export function CutFillMap({ map, payLimits, unit }: { map: DepthMap; payLimits?: PayLimits | null; unit: string }) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  const h = Math.max(120, Math.min(W * 1.25, (W * map.height) / Math.max(map.width, 1e-9)));
+  useEffect(() => {
+    if (ref.current) paint(ref.current, map, payLimits, h);
+  }, [map, payLimits, h]);
+  const top = map.step * MAP_STEPS;
+  const band = (i: number) => `${fmt(i === 0 ? map.level : map.step * i)}–${fmt(map.step * (i + 1))}`;
   return (
     <figure className="flex flex-col gap-2" data-testid="cut-fill-map">
-      <svg
-        viewBox={`0 0 ${W} ${h}`}
-        role="img"
-        aria-label={`Cut and fill map: deepest cut ${fmt(grid.maxCut)} ${unit}, deepest fill ${fmt(grid.maxFill)} ${unit}`}
-        className="w-full rounded-md border border-stone-200 bg-stone-50"
-      >
-        <g transform={`scale(${W / grid.columns})`} shapeRendering="crispEdges">
-          {runs.map((r, i) => (
-            <rect key={i} x={r.x} y={r.y} width={r.w} height={1.02} fill={r.fill} />
-          ))}
-        </g>
-        {payLimits?.outer ? (
-          <polygon points={ring(payLimits.outer)} fill="none" stroke="#24221f" strokeWidth={2} strokeDasharray="8 4" />
-        ) : null}
-        {(payLimits?.voids ?? []).map((v, i) => (
-          <polygon
-            key={i}
-            points={ring(v)}
-            fill="#f7f6f3"
-            fillOpacity={0.7}
-            stroke="#24221f"
-            strokeWidth={1.5}
-            strokeDasharray="3 3"
-          />
-        ))}
-        <text x={W - 8} y={16} textAnchor="end" fontSize={12} fill="#4a4540">
+      <div className="relative">
+        <canvas
+          ref={ref}
+          role="img"
+          aria-label={`Cut and fill map: deepest cut ${fmt(map.maxCut)} ${unit}, deepest fill ${fmt(map.maxFill)} ${unit}`}
+          className="block w-full rounded-md border border-stone-200 bg-stone-50"
+          style={{ aspectRatio: `${W} / ${h}` }}
+        />
+        <span className="pointer-events-none absolute top-1.5 right-1.5 rounded bg-white/85 px-1 text-xs text-stone-800">
           N ↑
-        </text>
-      </svg>
+        </span>
+      </div>
       <figcaption className="flex flex-col gap-1 text-xs text-stone-700">
         <div className="flex flex-wrap items-center gap-x-4 gap-y-1">
           <span className="font-medium">Depth, {unit}</span>
@@ -115,17 +117,21 @@ export function CutFillMap({ grid, payLimits, unit }: { grid: DepthGrid; payLimi
           {payLimits?.outer || payLimits?.voids?.length ? (
             <span className="flex items-center gap-1">
               <svg width="24" height="8" aria-hidden>
-                <line x1="0" y1="4" x2="24" y2="4" stroke="#24221f" strokeWidth="2" strokeDasharray="6 3" />
+                <line x1="0" y1="4" x2="24" y2="4" stroke={INK} strokeWidth="2" strokeDasharray="6 3" />
               </svg>
               Pay limits (voids shaded)
             </span>
           ) : null}
         </div>
         <p>
-          Bands of {fmt(top / STEPS)} {unit} up to the deepest: cut {fmt(grid.maxCut)} {unit}, fill {fmt(grid.maxFill)}{' '}
-          {unit}. Cut where the existing surface is above the design, fill where below; blank where the two surveys do
-          not both reach, and where the depth is within ±{level} {unit}. The picture samples each {fmt(grid.cell)}{' '}
-          {unit} cell at its centre; the volumes come from the exact overlay.
+          Bands of {fmt(map.step)} {unit} up to {fmt(top)} {unit}: deepest cut {fmt(map.maxCut)} {unit}, fill{' '}
+          {fmt(map.maxFill)} {unit}. Cut where the existing surface is above the design, fill where below; blank where
+          the two surveys do not both reach, and where the depth is within ±{map.level} {unit}. Drawn from the{' '}
+          {map.pieces.toLocaleString('en-US')} pieces of the overlay of both triangulations
+          {map.thinnedCell > 0
+            ? `, each survey thinned for the picture to one point per ${fmt(map.thinnedCell)} ${unit} cell`
+            : ''}
+          ; the volumes come from the exact overlay of every point.
         </p>
       </figcaption>
     </figure>

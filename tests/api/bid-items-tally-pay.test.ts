@@ -34,5 +34,9 @@ describe('bid items say when their tallies are not billed', () => {
     expect(of(plan.id)).toMatch(/^paid as “Contract quantity”/);
     expect(of(planBare.id)).toBeNull();
     expect(of(measured.id)).toBeNull();
+    // The list also names each item's profile, for the schedule's "Measured by" (none: measured by worksheet).
+    const paidAs = (id: string) =>
+      (res.body.bidItems as { id: string; paidAs: string | null }[]).find((b) => b.id === id)!.paidAs;
+    expect([paidAs(trucks.id), paidAs(plan.id), paidAs(measured.id)]).toEqual(['truck_measure', 'plan_quantity', null]);
   });
 });

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
 import { openDatabase, type Database } from '../../server/db/client';
-import { payAppLines, projectMembers } from '../../server/db/schema';
+import { payAppLines, projectMembers, user } from '../../server/db/schema';
 import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { createLogger } from '../../server/lib/logger';
 import { makeBidItem, makeWorld } from '../setup/factories';
@@ -169,6 +169,23 @@ describe('the pay application answer cache: every write path invalidates it, on 
     });
     expect(paid.payApp).toMatchObject({ status: 'paid' });
     expect(paid.payApp.paidCents).toBeGreaterThan(0);
+  });
+
+  it('a write on another project keeps the cached answer; renaming a person (shown by name) does not', async () => {
+    const reader = await on(b, 'subcontractor');
+    const before = await reader.get(`/api/pay-apps/${payAppId}`);
+    const line = (before.body as Body).payApp.lines[0]!;
+    const marker = await markBehindTheTriggers(line.id);
+    await makeBidItem(t.database.db, w.foreign.id);
+    const kept = await reader.get(`/api/pay-apps/${payAppId}`);
+    expect((kept.body as Body).payApp.lines[0]!.description).toBe(line.description);
+    expect(kept.headers.etag).toBe(before.headers.etag);
+    await t.database.db
+      .update(user)
+      .set({ name: 'Renamed reviewer' })
+      .where(eq(user.id, w.people.general_contractor.id));
+    const after = await reader.get(`/api/pay-apps/${payAppId}`);
+    expect((after.body as Body).payApp.lines[0]!.description).toBe(marker);
   });
 
   it('never serves one viewer the answer cached for another: `can` is each reader’s own, 404 to the owner and outsider', async () => {

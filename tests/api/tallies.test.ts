@@ -77,6 +77,15 @@ describe('tallies: the server computes the quantity in the bid item unit and bas
     expect(res.body.tally.result.trail.at(-1)).toContain('222.2222 CY bank');
   });
 
+  it('refuses a tally measured on a day still to come, naming measuredOn, with nothing saved', async () => {
+    const nextYear = `${new Date().getUTCFullYear() + 1}-01-04`;
+    const res = await (await as('subcontractor')).post(url()).send(endArea(items.cut.id, { measuredOn: nextYear }));
+    expect(res.status).toBe(400);
+    expect(res.body.error.details).toEqual([
+      expect.objectContaining({ path: 'measuredOn', message: 'Cannot be a day still to come' }),
+    ]);
+  });
+
   it('ignores a quantity sent with a worksheet and keeps the server result', async () => {
     const res = await (await as('subcontractor')).post(url()).send(endArea(items.cut.id, { quantity: 99999 }));
     expect(res.status).toBe(201);

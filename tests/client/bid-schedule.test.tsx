@@ -147,4 +147,28 @@ describe('bid schedule table', () => {
     );
     expect(screen.getAllByRole('button', { name: /^Edit / })).toHaveLength(3);
   });
+
+  it('says an item paid from tickets is measured by them, its worksheet tallies kept as backup', () => {
+    const haul = item({
+      id: 'd',
+      itemNumber: '12',
+      description: 'Haul off unsuitable',
+      method: 'load-count',
+      paidAs: 'truck_measure',
+      talliesNotBilled: 'paid as “Counted loads (truck register)”, not from tallies',
+    });
+    const ditch = item({
+      id: 'e',
+      itemNumber: '13',
+      description: 'Ditch',
+      paidAs: 'worksheet',
+      talliesNotBilled: null,
+    });
+    render(<BidScheduleTable items={[haul, ditch]} contractSumCents={200_000} filter="" />);
+    const [, haulRow, ditchRow] = within(screen.getByRole('table')).getAllByRole('row');
+    expect(within(haulRow!).getAllByRole('cell')[2]?.textContent).toBe(
+      'Counted loads (truck register)Tallies (truck tickets) kept as backup',
+    );
+    expect(within(ditchRow!).getAllByRole('cell')[2]?.textContent).toBe('Cross sections (end areas)');
+  });
 });

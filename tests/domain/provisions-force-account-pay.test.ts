@@ -3,7 +3,11 @@ import { describe, expect, it } from 'vitest';
 import { changeOrderSummary } from '../../src/shared/domain/change-order-summary';
 import { payApplication } from '../../src/shared/domain/pay-app';
 import { payAppPackage } from '../../src/shared/domain/pay-app-package';
-import { forceAccountAsPayLine, forceAccountPayLines } from '../../src/shared/domain/provisions/force-account-pay';
+import {
+  allowanceDrawnQuantity,
+  forceAccountAsPayLine,
+  forceAccountPayLines,
+} from '../../src/shared/domain/provisions/force-account-pay';
 
 // MoDOT EPG 109.5: force account work is paid on the daily records signed by both sides, under the change order
 // that authorised it. Figures invented, worked by hand.
@@ -170,5 +174,22 @@ describe('force account lines of a pay application', () => {
         },
       ),
     );
+  });
+});
+
+describe('an allowance drawn by force account days, in its pay unit', () => {
+  it('is the amount over the unit price to the stored 4 decimals (invented figures, worked by hand)', () => {
+    // $576.00 on a 1 LS allowance at $1,500.00 = 0.384 LS; $6,010.50 at $15,000.00 = 0.4007 LS.
+    expect(allowanceDrawnQuantity(57_600, 150_000)).toBe(0.384);
+    expect(allowanceDrawnQuantity(601_050, 1_500_000)).toBe(0.4007);
+    // An allowance priced per dollar (unit price $1.00) draws its dollars: $576.00 is 576.
+    expect(allowanceDrawnQuantity(57_600, 100)).toBe(576);
+    expect(allowanceDrawnQuantity(0, 150_000)).toBe(0);
+    expect(allowanceDrawnQuantity(57_600, 0)).toBe(0);
+  });
+
+  it('refuses a drawn amount that is not whole cents', () => {
+    expect(() => allowanceDrawnQuantity(0.5, 100)).toThrow(/whole cents/);
+    expect(() => allowanceDrawnQuantity(-1, 100)).toThrow(/whole cents/);
   });
 });

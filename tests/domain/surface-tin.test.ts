@@ -147,6 +147,109 @@ describe('faces used as given', () => {
     expect(mixed.cut * 27).toBeCloseTo(20, 10);
   });
 
+  it('refuses faces that overlap in plan without sharing an edge, naming both faces and the surface', () => {
+    // Two right triangles of legs 10 ft, the second shifted 2 ft each way: they share no point and no edge, yet
+    // overlap over 6 x 6 / 2 = 18 sq ft (geometry).
+    const pts: P3[] = [
+      [0, 0, 5],
+      [10, 0, 5],
+      [0, 10, 5],
+      [2, 2, 6],
+      [12, 2, 6],
+      [2, 12, 6],
+    ];
+    const crossing = codeOf(() =>
+      surfaceVolume({
+        unit: 'ft',
+        existing: flat0,
+        design: pts,
+        designFaces: [
+          [0, 1, 2],
+          [3, 4, 5],
+        ],
+      }),
+    );
+    expect(crossing.code).toBe('INVALID_FACE');
+    expect(crossing.message).toBe(
+      'Faces 1 and 2 of the design surface overlap in plan without sharing an edge: the surface would have two heights there',
+    );
+    expect(crossing.issues[0]!.path).toBe('designFaces.1');
+    // A face wholly inside another (no edge of one crosses the other), listed among faces that fit together.
+    const nested: P3[] = [...pts.slice(0, 3), [1, 1, 7], [3, 1, 7], [1, 3, 7], [10, 10, 5]];
+    const inside = codeOf(() =>
+      surfaceVolume({
+        unit: 'ft',
+        existing: nested,
+        design: flat0,
+        existingFaces: [
+          [1, 6, 2],
+          [0, 1, 2],
+          [3, 4, 5],
+        ],
+      }),
+    );
+    expect(inside.message).toBe(
+      'Faces 2 and 3 of the existing surface overlap in plan without sharing an edge: the surface would have two heights there',
+    );
+  });
+
+  it('finds one overlapping face among thousands that fit together, and passes them without it', () => {
+    // A 60 x 60 grid of jittered points, two faces a square (6,962 faces), flat 1 ft over a design at 0 ft:
+    // 1 ft x the grid's area (geometry). One extra face over three points of the middle rows overlaps its
+    // neighbours without sharing an edge with any of them.
+    const n = 60;
+    const pts = grid(n, n, 0, 0, 590, 590, () => 1, 0.3, 21);
+    const faces: [number, number, number][] = [];
+    for (let i = 0; i + 1 < n; i++)
+      for (let j = 0; j + 1 < n; j++) {
+        const a = i * n + j;
+        faces.push([a, a + 1, a + n + 1], [a, a + n + 1, a + n]);
+      }
+    const design: P3[] = [
+      [-1, -1, 0],
+      [600, -1, 0],
+      [600, 600, 0],
+      [-1, 600, 0],
+    ];
+    const ok = surfaceVolume({ unit: 'ft', existing: pts, design, existingFaces: faces });
+    expect(rel(ok.cut * 27, 590 * 590)).toBeLessThan(1e-9);
+    const mid = 30 * n + 30;
+    const extra: [number, number, number] = [mid, mid + 2, mid + 2 * n + 1];
+    const e = codeOf(() => surfaceVolume({ unit: 'ft', existing: pts, design, existingFaces: [...faces, extra] }));
+    expect(e.message).toMatch(
+      new RegExp(`^Faces \\d+ and ${faces.length + 1} of the existing surface overlap in plan without sharing an edge`),
+    );
+    expect(e.issues[0]!.path).toBe(`existingFaces.${faces.length}`);
+  });
+
+  it("keeps faces that meet at a point lying on another face's edge (a T-junction is no overlap)", () => {
+    // Square 10 x 3 ft split along its diagonal; the upper half split again at a point on that diagonal (10/3, 1)
+    // that binary floating point cannot hold exactly. Flat at 1 ft over a design at 0: 30 cu ft (geometry).
+    const pts: P3[] = [
+      [0, 0, 1],
+      [10, 0, 1],
+      [10, 3, 1],
+      [0, 3, 1],
+      [10 / 3, 1, 1],
+    ];
+    const r = surfaceVolume({
+      unit: 'ft',
+      existing: pts,
+      design: [
+        [0, 0, 0],
+        [10, 0, 0],
+        [10, 3, 0],
+        [0, 3, 0],
+      ],
+      existingFaces: [
+        [0, 1, 2],
+        [0, 4, 3],
+        [4, 2, 3],
+      ],
+    });
+    expect(r.cut * 27).toBeCloseTo(30, 9);
+  });
+
   it('non-convex face sets with a hole, on both sides, agree with the independent reference to 1e-9', () => {
     // A 9 x 7 grid of points; faces on alternating diagonals (not the Delaunay choice everywhere), with a notch
     // and a hole cut out of it. The design survey: the same kind of face set shifted, or Delaunay of a cloud.

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { browserTest, openTab } from './browser';
 
 // Issue 13, items 3 and 5 in headless Chromium with the demo job: the subcontractor records the original ground
@@ -24,6 +25,18 @@ function landXml(name: string, units: string, z: (x: number, y: number) => numbe
 <Surfaces><Surface name="${name}">${extra}<Definition surfType="TIN"><Pnts>${pts.join('')}</Pnts></Definition></Surface></Surfaces></LandXML>`);
 }
 const groundFt = (x: number, y: number) => 100 + 0.01 * x + 0.004 * y;
+
+/** Pixels of the cut and fill map's canvas that were painted (not left transparent). */
+const paintedPixels = (page: Page) =>
+  page
+    .getByTestId('cut-fill-map')
+    .locator('canvas')
+    .evaluate((c: HTMLCanvasElement) => {
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      let n = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) n++;
+      return n;
+    });
 /** Original ground: Imperial without elevationUnit, so the elevations are written in metres (the schema default). */
 const ORIGINAL = landXml(
   'Basin original ground',
@@ -81,6 +94,9 @@ describe('original ground, as-built surface, tally and map', () => {
     });
     await expect.poll(() => sub.getByText(/pay limits from its boundaries/).count()).toBe(1);
     await sub.getByTestId('cut-fill-map').waitFor();
+    // Drawn from the overlay's pieces on a canvas: painted, and the caption says from how many pieces.
+    await expect.poll(() => paintedPixels(sub)).toBeGreaterThan(10_000);
+    await expect.poll(() => sub.getByText(/Drawn from the [\d,]+ pieces of the overlay/).count()).toBe(1);
     await sub.getByLabel('Part billed').selectOption('cut');
     await snap(sub, 'worksheet-map');
 
@@ -93,6 +109,7 @@ describe('original ground, as-built surface, tally and map', () => {
       .getByRole('link')
       .click();
     await sub.getByTestId('cut-fill-map').waitFor();
+    await expect.poll(() => paintedPixels(sub)).toBeGreaterThan(10_000);
     await expect.poll(() => sub.getByText(/locked original ground "basin-original-ground.xml"/).count()).toBe(1);
     await snap(sub, 'tally-map');
   }, 240_000);

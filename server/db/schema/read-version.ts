@@ -1,4 +1,4 @@
-import { bigint, check, integer, pgTable } from 'drizzle-orm/pg-core';
+import { bigint, check, integer, pgTable, uuid } from 'drizzle-orm/pg-core';
 import { sql } from 'drizzle-orm';
 
 /**
@@ -16,3 +16,13 @@ export const readVersion = pgTable(
   },
   (t) => [check('read_version_one_row', sql`${t.id} = 1`)],
 );
+
+/**
+ * The same counter per project (migration `project_read_versions`): a write whose rows belong to one project moves
+ * only that project's row; people, companies and rows whose project cannot be found move `read_version`. A project
+ * gets its row on its first write (absent reads as 0); rows are never deleted.
+ */
+export const projectReadVersions = pgTable('project_read_versions', {
+  projectId: uuid('project_id').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull(),
+});

@@ -33,12 +33,14 @@ export async function listBidItems(db: Db, actor: Actor, projectId: string) {
   const notBilled = new Map(
     profiles.map((p) => [p.bidItemId, talliesNotBilledReason(p.profile, (p.settings ?? {}) as ProfileSettings)]),
   );
+  const paidAs = new Map(profiles.map((p) => [p.bidItemId, p.profile]));
   const lock: ContractLockView = { locked: since !== null, sincePayAppNumber: since };
   const { originalContractSumCents, approvedChangesCents, contractSumCents } = contract;
   return {
     bidItems: rows.map((r) => ({
       ...presentBidItem(r, contract.byId.get(r.id)),
       talliesNotBilled: notBilled.get(r.id) ?? null,
+      paidAs: paidAs.get(r.id) ?? null,
     })),
     totals: { originalContractSumCents, approvedChangesCents, contractSumCents },
     lock,

@@ -13,6 +13,7 @@ import {
   payAppStatusHistory,
   projectMembers,
   projects,
+  projectReadVersions,
   readVersion,
   tallies,
 } from '../../db/schema';
@@ -128,27 +129,48 @@ export async function submitterIds(db: Executor, payAppId: string): Promise<stri
 
 const nameOnly = { columns: { name: true } } as const;
 
+/** The roles `userId` holds on the joined project, as a JSON array (empty when none). */
+const rolesOf = sql<
+  ProjectRole[]
+>`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`;
+
 const reads = preparedFor((db: Db) => ({
-  /**
-   * A pay application, its project, the person's roles on that project, and the read version (read_version) in the
-   * same snapshot: what is read after it is at least as new as that version.
-   */
+  /** A pay application, its project and the person's roles on that project. */
   withAccess: db
     .select({
       app: payApps,
       project: projects,
-      readVersion: sql<
-        string | null
-      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1)`,
-      roles: sql<
-        ProjectRole[]
-      >`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`,
+      roles: rolesOf,
     })
     .from(payApps)
     .innerJoin(projects, eq(projects.id, payApps.projectId))
     .where(eq(payApps.id, sql.placeholder('payAppId')))
     .limit(1)
     .prepare('pay_app_with_access'),
+  /**
+   * What a cached read checks on every request, and only that (PGlite pays for every column it hands back): the
+   * application's status, its project's parties, the person's roles there, and the read versions (read_version and
+   * the project's row of project_read_versions) in the same snapshot, so whatever is read after it is at least that
+   * new.
+   */
+  readAccess: db
+    .select({
+      status: payApps.status,
+      project: {
+        subcontractorCompanyId: projects.subcontractorCompanyId,
+        generalContractorCompanyId: projects.generalContractorCompanyId,
+        ownerCompanyId: projects.ownerCompanyId,
+      },
+      roles: rolesOf,
+      readVersion: sql<
+        string | null
+      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1) || '.' || coalesce((select ${projectReadVersions.version} from ${projectReadVersions} where ${projectReadVersions.projectId} = ${projects.id}), 0)::text`,
+    })
+    .from(payApps)
+    .innerJoin(projects, eq(projects.id, payApps.projectId))
+    .where(eq(payApps.id, sql.placeholder('payAppId')))
+    .limit(1)
+    .prepare('pay_app_read_access'),
   /**
    * Everything the detail view shows, as one statement (Drizzle's relational query: each relation is a JSON
    * aggregate, so 200 lines come back as one value instead of 200 rows to decode).
@@ -186,6 +208,12 @@ const reads = preparedFor((db: Db) => ({
 /** A pay application with its project and the roles `userId` holds there (an empty list when none), in one read. */
 export async function findPayAppWithAccess(db: Db, payAppId: string, userId: string) {
   const [row] = await reads(db).withAccess.execute({ payAppId, userId });
+  return row;
+}
+
+/** An application's status, its project's parties, the roles `userId` holds there and the read version, in one read. */
+export async function findPayAppReadAccess(db: Db, payAppId: string, userId: string) {
+  const [row] = await reads(db).readAccess.execute({ payAppId, userId });
   return row;
 }
 

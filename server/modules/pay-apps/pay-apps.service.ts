@@ -10,7 +10,7 @@ import { serializeJson } from '../../lib/read-cache';
 import type { Actor } from '../../lib/actor';
 import { loadProjectAccess } from '../projects/project-access';
 import { createPayAppFromTallies } from './pay-app-build';
-import { loadPayAppAccess } from './pay-app-access';
+import { loadPayAppReadAccess } from './pay-app-access';
 import { canCreatePayApp, canSeePayApp, payAppCan } from '../../../src/shared/policies/pay-apps';
 import {
   presentDispute,
@@ -138,13 +138,11 @@ async function packageOf(
  * write has committed since (read_version). The viewer's roles are part of the key: the answer carries `can`.
  */
 export async function getPayAppAnswer(ctx: Pick<AppContext, 'db' | 'payAppReads'>, actor: Actor, payAppId: string) {
-  const { roles, readVersion } = await loadPayAppAccess(ctx.db, actor, payAppId);
+  const { roles, readVersion } = await loadPayAppReadAccess(ctx.db, actor, payAppId);
   const rolesKey = [...roles].sort().join(',');
-  const cached = ctx.payAppReads.get(payAppId, actor.userId, readVersion, rolesKey);
-  if (cached) return cached;
-  const answer = serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) });
-  ctx.payAppReads.set(payAppId, actor.userId, readVersion, rolesKey, answer);
-  return answer;
+  return ctx.payAppReads.answer(payAppId, actor.userId, readVersion, rolesKey, async () =>
+    serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) }),
+  );
 }
 
 export async function createPayApp(db: Db, actor: Actor, projectId: string, input: CreatePayAppInput) {

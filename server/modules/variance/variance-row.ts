@@ -29,8 +29,17 @@ export function watchRow(clause: WatchClause, inputs: WatchInputs): VarianceRowV
   let result: ReturnType<typeof quantityVariance> | null = null;
   let projected = true;
   if (band && contract > 0) {
-    result = quantityVariance({ contractQuantity: contract, forecastQuantity: forecastAtCompletion, unitPriceCents: item.unitPriceCents, band, preset: clause.preset });
-    status = result.status === 'within' && isEarlyWarning(contract, forecastAtCompletion, band) ? 'early_warning' : result.status;
+    result = quantityVariance({
+      contractQuantity: contract,
+      forecastQuantity: forecastAtCompletion,
+      unitPriceCents: item.unitPriceCents,
+      band,
+      preset: clause.preset,
+    });
+    status =
+      result.status === 'within' && isEarlyWarning(contract, forecastAtCompletion, band)
+        ? 'early_warning'
+        : result.status;
     // Without a forecast the quantity to date stands in for it: it can already run over, but an item still
     // being worked is not short of its band, so the under side waits for a forecast.
     if (!forecast && forecastAtCompletion < contract) {
@@ -53,12 +62,15 @@ export function watchRow(clause: WatchClause, inputs: WatchInputs): VarianceRowV
     pending,
     forecast,
     forecastAtCompletion,
-    variancePercent: contract > 0 && projected ? roundTo(((forecastAtCompletion - contract) / contract) * 100, 2) : null,
-    band: band && result ? { ...band, lower: roundTo(result.band.lower, 4), upper: roundTo(result.band.upper, 4) } : null,
+    variancePercent:
+      contract > 0 && projected ? roundTo(((forecastAtCompletion - contract) / contract) * 100, 2) : null,
+    band:
+      band && result ? { ...band, lower: roundTo(result.band.lower, 4), upper: roundTo(result.band.upper, 4) } : null,
     status,
     quantityBeyondBand: beyond,
     amountBeyondBandCents: result ? lineAmountCents(beyond, item.unitPriceCents) : 0,
-    draftChangeOrderPath: status === 'over' || status === 'under' ? `/api/bid-items/${item.id}/variance-change-order` : null,
+    draftChangeOrderPath:
+      status === 'over' || status === 'under' ? `/api/bid-items/${item.id}/variance-change-order` : null,
     openChangeOrder: inputs.openChangeOrder,
   };
 }

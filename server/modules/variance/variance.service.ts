@@ -1,4 +1,6 @@
 import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
+import { allowanceDrawnQuantity } from '../../../src/shared/domain/provisions/force-account-pay';
+import { addDecimals } from '../../../src/shared/domain/rounding';
 import { VARIANCE_BANDS, EARLY_WARNING_SHARE, isMajorItem } from '../../../src/shared/domain/variance';
 import type { VarianceRowView, VarianceView } from '../../../src/shared/schemas/variance';
 import type { Db, Executor } from '../../db/client';
@@ -24,13 +26,15 @@ export async function watchRows(
   db: Executor,
   project: ProjectRow,
 ): Promise<{ rows: VarianceRowView[]; originalContractAmountCents: number }> {
-  const [items, contract, approved, pending, forecasts, open] = await Promise.all([
+  const [items, contract, approved, pending, forecasts, open, drawnApproved, drawnPending] = await Promise.all([
     listBidItems(db, project.id),
     loadContract(db, project.id),
     repo.quantitiesByStatus(db, project.id, FROZEN_STATUSES),
     repo.quantitiesByStatus(db, project.id, PENDING_STATUSES),
     repo.listForecasts(db, project.id),
     repo.openQuantityChangeOrders(db, project.id),
+    repo.allowanceDrawsByStatus(db, project.id, FROZEN_STATUSES),
+    repo.allowanceDrawsByStatus(db, project.id, PENDING_STATUSES),
   ]);
   const quantities = quantitiesOf(contract);
   const originalAmount = (id: string) => contract.byId.get(id)?.originalAmountCents ?? 0;
@@ -41,15 +45,18 @@ export async function watchRows(
   };
   const rows = items.map((item) => {
     const forecast = forecasts.find((f) => f.bidItemId === item.id);
-    // Priced at the current unit price (original, or the last approved price change).
-    return watchRow(clause, {
-      item: { ...item, unitPriceCents: contract.byId.get(item.id)!.unitPriceCents },
+    // Priced at the current unit price (original, or the last approved price change). An allowance item is drawn
+    // by the force account days under its change order, counted at that price (its own lines bill no quantity).
+    const unitPriceCents = contract.byId.get(item.id)!.unitPriceCents;
+    const drawn = (by: ReadonlyMap<string, number>) => allowanceDrawnQuantity(by.get(item.id) ?? 0, unitPriceCents);
+    const row = watchRow(clause, {
+      item: { ...item, unitPriceCents },
       quantity: quantities.get(item.id)!,
       isMajor:
         item.isMajor ||
         isMajorItem(originalAmount(item.id), originalContractAmountCents, project.majorItemThresholdBps / 100),
-      approvedToDate: approved.get(item.id) ?? 0,
-      pending: pending.get(item.id) ?? 0,
+      approvedToDate: addDecimals(approved.get(item.id) ?? 0, drawn(drawnApproved)),
+      pending: addDecimals(pending.get(item.id) ?? 0, drawn(drawnPending)),
       forecast: forecast
         ? {
             quantity: forecast.quantity,
@@ -60,6 +67,7 @@ export async function watchRows(
         : null,
       openChangeOrder: open.get(item.id) ?? null,
     });
+    return drawnApproved.has(item.id) || drawnPending.has(item.id) ? { ...row, drawnByForceAccount: true } : row;
   });
   return { rows, originalContractAmountCents };
 }

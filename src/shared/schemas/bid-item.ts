@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { MEASUREMENT_BASES, MEASUREMENT_METHODS, PAY_UNITS } from '../constants';
+import { MEASUREMENT_BASES, MEASUREMENT_METHODS, PAY_UNITS, type MeasurementProfile } from '../constants';
 import { lineAmountWithinLimit } from './money-limits';
 
 /** Largest unit price accepted: $10,000,000.00 per unit, in cents. */
@@ -71,6 +71,8 @@ export type BidItemView = BidItemInput & {
    * pays it another way), or null when it does (src/shared/domain/provisions/tally-pay.ts).
    */
   talliesNotBilled?: string | null;
+  /** In the bid schedule list: the item's measurement profile, or null when it has none (measured by worksheet). */
+  paidAs?: MeasurementProfile | null;
   createdAt: string;
   updatedAt: string;
 };

@@ -14,16 +14,30 @@ import {
 } from '../constants';
 
 /** A calendar day, `YYYY-MM-DD`, that exists: from 0001-01-01 (PostgreSQL's date has no year 0, JavaScript's does). */
+const isRealDate = (s: string) =>
+  /^\d{4}-\d{2}-\d{2}$/.test(s) &&
+  !s.startsWith('0000') &&
+  !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) &&
+  new Date(`${s}T00:00:00Z`).toISOString().startsWith(s);
+
 export const isoDateSchema = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-10-31')
-  .refine(
-    (s) =>
-      !s.startsWith('0000') &&
-      !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) &&
-      new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
-    'Not a real date',
-  );
+  .refine(isRealDate, 'Not a real date');
+
+/**
+ * The latest day a field record may carry: today where the calendar is furthest ahead (UTC+14), so nobody's own
+ * today is refused wherever they work, while a slip of the year ("2027" in December 2026) is.
+ */
+export function latestFieldDay(now: Date = new Date()): string {
+  return new Date(now.getTime() + 14 * 3_600_000).toISOString().slice(0, 10);
+}
+
+/** A day work was done, measured, delivered or weighed: a real date, and not one still to come. */
+export const fieldDateSchema = isoDateSchema.refine(
+  (s) => !isRealDate(s) || s <= latestFieldDay(),
+  'Cannot be a day still to come',
+);
 
 /** Which part of a cut-and-fill worksheet a tally bills (declared with the method table in constants.ts). */
 export { TALLY_COMPONENTS, type TallyComponent };
@@ -32,7 +46,7 @@ export const MAX_TALLY_QUANTITY = 1e9;
 
 const tallyFields = {
   bidItemId: z.uuid('Choose a bid item'),
-  measuredOn: isoDateSchema,
+  measuredOn: fieldDateSchema,
   title: z.string().trim().max(200).default(''),
   method: z.enum(MEASUREMENT_METHODS),
   /** The worksheet inputs: the calc API's request body for the method. */

@@ -40,6 +40,8 @@ export type VarianceRowView = {
   draftChangeOrderPath: string | null;
   /** A change order still proposed that changes this item's quantity. */
   openChangeOrder: { id: string; number: number } | null;
+  /** An allowance item whose quantities are force account days drawn on it, at its unit price. */
+  drawnByForceAccount?: boolean;
 };
 
 export type EarnedPeriodView = {

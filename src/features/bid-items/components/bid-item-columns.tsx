@@ -5,7 +5,7 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { formatMoney, formatQuantityNumber, isVolumeUnit, unitLabel } from '@/lib/format';
 import { BASIS_LABELS } from '@/lib/labels';
-import { MEASUREMENT_METHOD_LABELS, type PayUnit } from '@/shared/constants';
+import { MEASUREMENT_METHOD_LABELS, MEASUREMENT_PROFILE_LABELS, type PayUnit } from '@/shared/constants';
 import type { BidItemView } from '@/shared/schemas/bid-item';
 
 const column = createColumnHelper<BidItemView>();
@@ -58,7 +58,31 @@ export function bidItemColumns(actions: RowActions | undefined) {
         </span>
       ),
     }),
-    column.accessor((item) => MEASUREMENT_METHOD_LABELS[item.method], { id: 'method', header: 'Measured by' }),
+    // An item paid another way than by its tallies (tickets, percent, stages, days) shows that way first: the
+    // worksheet method is then only how its backup tallies are worked.
+    column.accessor(
+      (item) =>
+        item.paidAs && item.talliesNotBilled
+          ? MEASUREMENT_PROFILE_LABELS[item.paidAs]
+          : MEASUREMENT_METHOD_LABELS[item.method],
+      {
+        id: 'method',
+        header: 'Measured by',
+        cell: ({ row, getValue }) => (
+          <>
+            {getValue()}
+            {row.original.paidAs && row.original.talliesNotBilled ? (
+              <span
+                className="block text-xs text-stone-500"
+                title={`Item ${row.original.itemNumber} is ${row.original.talliesNotBilled}.`}
+              >
+                Tallies ({MEASUREMENT_METHOD_LABELS[row.original.method].toLowerCase()}) kept as backup
+              </span>
+            ) : null}
+          </>
+        ),
+      },
+    ),
     column.accessor((item) => (isVolumeUnit(item.payUnit) ? BASIS_LABELS[item.basis] : ''), {
       id: 'basis',
       header: 'Basis',

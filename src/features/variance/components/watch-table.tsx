@@ -52,6 +52,9 @@ export function WatchTable({ rows, canForecast }: Props) {
             </TableCell>
             <TableCell className="max-w-48 truncate" title={r.description}>
               {r.description}
+              {r.drawnByForceAccount ? (
+                <span className="block text-xs text-stone-500">Force account days at the unit price</span>
+              ) : null}
             </TableCell>
             <TableCell className="num">{formatQuantity(r.currentContractQuantity, r.payUnit)}</TableCell>
             <TableCell className="num">{formatQuantity(r.approvedToDate, r.payUnit)}</TableCell>

@@ -9,7 +9,7 @@ import {
   type PayLimits,
   type SurfaceResult,
 } from '@/shared/domain/earthwork/surface';
-import { depthGrid, type DepthGrid } from '@/shared/domain/earthwork/surface-depth-grid';
+import { depthMap, type DepthMap } from '@/shared/domain/earthwork/surface-map';
 import type { PointOrder } from '@/shared/landxml';
 import type { FileIssue } from '../lib/csv';
 import { readSurvey, type SurveyRead } from './surface-file';
@@ -27,8 +27,8 @@ export type SurfaceWork = {
   kinds: Record<SurfaceSide, 'landxml' | 'points' | 'xyz'>;
   /** Pay limits measured within: from a LandXML file's boundaries (design first), else those kept. */
   payLimits: PayLimits | null;
-  /** Depth on a plan grid for the cut and fill map (with a result only). */
-  depth: DepthGrid | null;
+  /** The cut and fill map from the overlay's pieces (with a result only). */
+  depth: DepthMap | null;
   /** Up to 1,500 plan points of each survey, for the picture. */
   preview: Record<SurfaceSide, { x: number; y: number }[]>;
   /** The calc API body the result came from (what a tally stores), or null without a result. */
@@ -135,7 +135,7 @@ export function workSurveys(
     const result = big
       ? surfaceVolumeFromPoints(unit, points(existing), points(design), payLimits ?? undefined)
       : runCalc('surface', inputs);
-    const depth = depthGrid(points(existing), points(design));
+    const depth = depthMap(points(existing), points(design), unit);
     return { ...base, result, issues: [], inputs, depth };
   } catch (error) {
     const issues = isDomainError(error) ? error.issues : [{ path: '', message: String(error) }];

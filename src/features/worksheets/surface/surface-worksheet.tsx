@@ -223,7 +223,7 @@ export function SurfaceWorksheet({ unit, initial, onInputs }: WorksheetProps) {
           picture={
             result && work ? (
               <div className="flex flex-col gap-4">
-                {work.depth ? <CutFillMap grid={work.depth} payLimits={work.payLimits} unit={u.length} /> : null}
+                {work.depth ? <CutFillMap map={work.depth} payLimits={work.payLimits} unit={u.length} /> : null}
                 <PlanChart preview={work.preview} unit={u.length} />
               </div>
             ) : null

@@ -11,8 +11,9 @@ export class TriangleBuckets {
   private readonly minX: number;
   private readonly minY: number;
   private readonly cell: number;
-  private readonly start: Int32Array;
-  private readonly ids: Int32Array;
+  /** Cell k lists ids[start[k]] to ids[start[k + 1] - 1]. */
+  readonly start: Int32Array;
+  readonly ids: Int32Array;
 
   constructor(triangles: Uint32Array, coords: Float64Array) {
     this.triangles = triangles;
@@ -67,6 +68,11 @@ export class TriangleBuckets {
     out[1] = this.index(Math.min(c[a + 1]!, c[b + 1]!, c[d + 1]!), this.minY);
     out[2] = this.index(Math.max(c[a]!, c[b]!, c[d]!), this.minX);
     out[3] = this.index(Math.max(c[a + 1]!, c[b + 1]!, c[d + 1]!), this.minY);
+  }
+
+  /** The cell holding (x, y) (clamped to the grid). */
+  cellOf(x: number, y: number): number {
+    return this.index(y, this.minY) * this.size + this.index(x, this.minX);
   }
 
   /** Triangles whose cells meet the box (a triangle may be listed more than once; callers stamp what they saw). */

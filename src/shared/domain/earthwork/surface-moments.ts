@@ -38,24 +38,11 @@ export interface Linear {
   y0: number;
 }
 
-/** Signed integral of f over the ring (positive when counter-clockwise), with its signed area: [integral, area]. */
+/** Signed integral of f over the ring (positive when counter-clockwise), with its signed area: [integral, area] (`out` has room for 3). */
 export function integrateRing(r: Ring, f: Linear, out: Float64Array): void {
-  let a2 = 0;
-  let sx6 = 0;
-  let sy6 = 0;
-  const n = r.n;
-  for (let i = 0; i < n; i++) {
-    const j = i + 1 === n ? 0 : i + 1;
-    const xi = r.x[i]! - f.x0,
-      yi = r.y[i]! - f.y0,
-      xj = r.x[j]! - f.x0,
-      yj = r.y[j]! - f.y0;
-    const c = xi * yj - xj * yi;
-    a2 += c;
-    sx6 += (xi + xj) * c;
-    sy6 += (yi + yj) * c;
-  }
-  out[0] = (f.d0 * a2) / 2 + (f.dx * sx6 + f.dy * sy6) / 6;
+  moments(r, f.x0, f.y0, out);
+  const a2 = out[0]!;
+  out[0] = (f.d0 * a2) / 2 + (f.dx * out[1]! + f.dy * out[2]!) / 6;
   out[1] = a2 / 2;
 }
 
@@ -81,15 +68,29 @@ export function clipPositive(src: Ring, f: Linear, dst: Ring): void {
 
 /**
  * Adds the cut (f > 0) and fill (f < 0) of f over the ring to acc [cut, fill, area], as positive volumes and
- * area whatever the ring's orientation. `scratch` holds the clipped ring. Answers the ring's signed area.
+ * area whatever the ring's orientation, and with `g` (a second linear function about the same point x0, y0)
+ * its integral to acc[3] with the same orientation. `scratch` holds the clipped ring; `tmp` has room for 3.
+ * Answers the ring's signed area.
  */
-export function addRing(r: Ring, f: Linear, acc: Float64Array, scratch: Ring, tmp: Float64Array, sign = 1): number {
+export function addRing(
+  r: Ring,
+  f: Linear,
+  acc: Float64Array,
+  scratch: Ring,
+  tmp: Float64Array,
+  sign = 1,
+  g: Linear | null = null,
+): number {
   if (r.n < 3) return 0;
-  integrateRing(r, f, tmp);
-  const signed = tmp[1]!;
-  const orient = tmp[1]! < 0 ? -sign : sign;
-  const net = tmp[0]! * orient;
-  acc[2]! += tmp[1]! * orient;
+  moments(r, f.x0, f.y0, tmp);
+  const a2 = tmp[0]!,
+    sx6 = tmp[1]!,
+    sy6 = tmp[2]!;
+  const signed = a2 / 2;
+  const orient = signed < 0 ? -sign : sign;
+  const net = ((f.d0 * a2) / 2 + (f.dx * sx6 + f.dy * sy6) / 6) * orient;
+  acc[2]! += signed * orient;
+  if (g) acc[3]! += ((g.d0 * a2) / 2 + (g.dx * sx6 + g.dy * sy6) / 6) * orient;
   let pos = 0;
   let neg = 0;
   for (let i = 0; i < r.n; i++) {
@@ -111,4 +112,26 @@ export function addRing(r: Ring, f: Linear, acc: Float64Array, scratch: Ring, tm
   acc[0]! += cut;
   acc[1]! += cut - net;
   return signed;
+}
+
+/** Twice the signed area and six times the first moments about (x0, y0) of the ring: [2A, 6Sx, 6Sy] in `out`. */
+function moments(r: Ring, x0: number, y0: number, out: Float64Array): void {
+  let a2 = 0;
+  let sx6 = 0;
+  let sy6 = 0;
+  const n = r.n;
+  for (let i = 0; i < n; i++) {
+    const j = i + 1 === n ? 0 : i + 1;
+    const xi = r.x[i]! - x0,
+      yi = r.y[i]! - y0,
+      xj = r.x[j]! - x0,
+      yj = r.y[j]! - y0;
+    const c = xi * yj - xj * yi;
+    a2 += c;
+    sx6 += (xi + xj) * c;
+    sy6 += (yi + yj) * c;
+  }
+  out[0] = a2;
+  out[1] = sx6;
+  out[2] = sy6;
 }

@@ -1,5 +1,5 @@
 import type { PayRegion } from './surface-pay';
-import { addRing, Ring, type Linear } from './surface-moments';
+import { addRing, integrateRing, Ring, type Linear } from './surface-moments';
 import type { Tin } from './surface-tin';
 
 export type { Tin } from './surface-tin';
@@ -13,6 +13,24 @@ export interface OverlayTotals {
   overlapArea: number;
   /** Convex pieces (triangle of one clipped by a triangle of the other) with positive area. */
   pieces: number;
+  /** Integral of a's height less `z0` over the pieces (inside the pay limits when given). */
+  own: number;
+}
+
+export interface OverlayOptions {
+  /** Triangles of `a` marked 1 are left out (the caller takes them whole). */
+  skip?: Uint8Array | null;
+  /** Height subtracted from a's surface in `own` (keeps digits when elevations are large). */
+  z0?: number;
+  /** `pay.classify(a)` when the caller already has it. */
+  status?: Uint8Array | null;
+  /**
+   * Integrals by group instead of cut and fill: each piece adds the integral of (a's height - z0) over it to
+   * `sums[of[s]]`, s the triangle of `b` under it (group 0 is not summed). Pay limits are not applied.
+   */
+  groups?: { of: Uint8Array; sums: Float64Array } | null;
+  /** Shown each convex piece and its depth (a's height less b's, linear over it), for a picture (surface-map.ts). */
+  sink?: ((piece: Ring, depth: Linear) => void) | null;
 }
 
 /** Plan area of a mesh (sum of its triangles). */
@@ -88,7 +106,11 @@ function ringArea(r: Ring): number {
  * a file's faces as given (its boundary need not be convex), the walks start from every triangle of `b` listed in
  * the bucket cells under t's box (surface-buckets.ts) that no earlier walk for t reached.
  */
-export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
+export function overlay(a: Tin, b: Tin, pay: PayRegion | null, options: OverlayOptions = {}): OverlayTotals {
+  const skip = options.skip ?? null;
+  const z0 = options.z0 ?? 0;
+  const groups = options.groups ?? null;
+  const sink = options.sink ?? null;
   const ta = a.mesh.triangles;
   const tb = b.mesh.triangles;
   const hb = b.mesh.halfedges;
@@ -102,14 +124,17 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const r1 = new Ring(8);
   const r2 = new Ring(8);
   const scratch = new Ring(16);
-  const acc = new Float64Array(3);
-  const tmp = new Float64Array(2);
+  const acc = new Float64Array(4);
+  const tmp = new Float64Array(3);
   const f: Linear = { d0: 0, dx: 0, dy: 0, x0: 0, y0: 0 };
+  const g: Linear = { d0: 0, dx: 0, dy: 0, x0: 0, y0: 0 };
   const hull = b.convex ? hullRing(b) : null;
-  const planeB = planes(b);
+  // b's planes, worked when a piece first needs one (most of b may lie under triangles left out).
+  const planeB = new Float64Array(tb.length);
+  const planeKnown = new Uint8Array(tb.length / 3);
   const buckets = b.convex ? null : b.buckets;
   const seeds: number[] = [];
-  const status = pay ? pay.classify(a) : null;
+  const status = pay && !groups ? (options.status ?? pay.classify(a)) : null;
   let overlapArea = 0;
   let pieces = 0;
 
@@ -119,6 +144,7 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
   const ha = a.mesh.halfedges;
   for (let k = 0; k < ta.length; k += 3) {
     const tIndex = k / 3;
+    if (skip && skip[tIndex] === 1) continue;
     const ia = ta[k]!,
       ib = ta[k + 1]!,
       ic = ta[k + 2]!;
@@ -135,6 +161,11 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
       dzc = za[ic]! - zA;
     const pA = (dzb * fy - dzc * ey) / det;
     const qA = (dzc * ex - dzb * fx) / det;
+    g.x0 = ax;
+    g.y0 = ay;
+    g.d0 = zA - z0;
+    g.dx = pA;
+    g.dy = qA;
     tri.n = 0;
     tri.push(ax, ay);
     tri.push(ax + ex, ay + ey);
@@ -238,20 +269,32 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
           piece = dst;
         }
         if (piece.n < 3) continue;
-        // Depth = (a's plane) - (b's plane), both written about t's first corner; b's plane from its table.
-        const pB = planeB[3 * s]!,
-          qB = planeB[3 * s + 1]!;
-        f.x0 = ax;
-        f.y0 = ay;
-        f.d0 = zA - (planeB[3 * s + 2]! + pB * ax + qB * ay);
-        f.dx = pA - pB;
-        f.dy = qA - qB;
-        // The piece's signed area comes with its integral (one pass over its corners).
         let area: number;
-        if (!status || status[tIndex] === 1) area = addRing(piece, f, acc, scratch, tmp);
-        else {
-          if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp);
-          area = ringArea(piece);
+        if (groups) {
+          integrateRing(piece, g, tmp);
+          area = tmp[1]!;
+          const group = groups.of[s]!;
+          if (group !== 0) groups.sums[group]! += area < 0 ? -tmp[0]! : tmp[0]!;
+        } else {
+          // Depth = (a's plane) - (b's plane), both written about t's first corner; b's plane from its table.
+          if (planeKnown[s] === 0) {
+            planeOf(b, s, planeB);
+            planeKnown[s] = 1;
+          }
+          const pB = planeB[3 * s]!,
+            qB = planeB[3 * s + 1]!;
+          f.x0 = ax;
+          f.y0 = ay;
+          f.d0 = zA - (planeB[3 * s + 2]! + pB * ax + qB * ay);
+          f.dx = pA - pB;
+          f.dy = qA - qB;
+          if (sink) sink(piece, f);
+          // The piece's signed area comes with its integral (one pass over its corners).
+          if (!status || status[tIndex] === 1) area = addRing(piece, f, acc, scratch, tmp, 1, g);
+          else {
+            if (status[tIndex] === 3) pay!.addClipped(piece, f, acc, scratch, tmp, g);
+            area = ringArea(piece);
+          }
         }
         if (!(area !== 0)) continue;
         pieces++;
@@ -273,36 +316,32 @@ export function overlay(a: Tin, b: Tin, pay: PayRegion | null): OverlayTotals {
       }
     }
   }
-  return { cut: acc[0]!, fill: acc[1]!, area: acc[2]!, overlapArea, pieces };
+  return { cut: acc[0]!, fill: acc[1]!, area: acc[2]!, overlapArea, pieces, own: acc[3]! };
 }
 
-/** Each triangle's plane z = p x + q y + c (shifted plan coordinates), as [p, q, c] triples. */
-function planes(t: Tin): Float64Array {
+/** Triangle k's plane z = p x + q y + c (shifted plan coordinates) into out[3k..3k+2] as [p, q, c]. */
+function planeOf(t: Tin, k: number, out: Float64Array): void {
   const tri = t.mesh.triangles;
   const c = t.coords;
   const z = t.z;
-  const out = new Float64Array(tri.length);
-  for (let k = 0; k < tri.length; k += 3) {
-    const j0 = tri[k]!,
-      j1 = tri[k + 1]!,
-      j2 = tri[k + 2]!;
-    const x0 = c[2 * j0]!,
-      y0 = c[2 * j0 + 1]!;
-    const gx = c[2 * j1]! - x0,
-      gy = c[2 * j1 + 1]! - y0,
-      hx = c[2 * j2]! - x0,
-      hy = c[2 * j2 + 1]! - y0;
-    const det = gx * hy - gy * hx;
-    const z0 = z[j0]!,
-      dz1 = z[j1]! - z0,
-      dz2 = z[j2]! - z0;
-    const p = (dz1 * hy - dz2 * gy) / det;
-    const q = (dz2 * gx - dz1 * hx) / det;
-    out[k] = p;
-    out[k + 1] = q;
-    out[k + 2] = z0 - p * x0 - q * y0;
-  }
-  return out;
+  const j0 = tri[3 * k]!,
+    j1 = tri[3 * k + 1]!,
+    j2 = tri[3 * k + 2]!;
+  const x0 = c[2 * j0]!,
+    y0 = c[2 * j0 + 1]!;
+  const gx = c[2 * j1]! - x0,
+    gy = c[2 * j1 + 1]! - y0,
+    hx = c[2 * j2]! - x0,
+    hy = c[2 * j2 + 1]! - y0;
+  const det = gx * hy - gy * hx;
+  const z0 = z[j0]!,
+    dz1 = z[j1]! - z0,
+    dz2 = z[j2]! - z0;
+  const p = (dz1 * hy - dz2 * gy) / det;
+  const q = (dz2 * gx - dz1 * hx) / det;
+  out[3 * k] = p;
+  out[3 * k + 1] = q;
+  out[3 * k + 2] = z0 - p * x0 - q * y0;
 }
 
 interface HullRing {

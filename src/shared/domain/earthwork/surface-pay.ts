@@ -166,8 +166,15 @@ export class PayRegion {
     return status;
   }
 
-  /** Cut and fill of f over the piece's part inside the region (polygon-clipping; holes subtract). */
-  addClipped(piece: Ring, f: Linear, acc: Float64Array, scratch: Ring, tmp: Float64Array): void {
+  /** Cut and fill of f (and the integral of g) over the piece's part inside the region (polygon-clipping; holes subtract). */
+  addClipped(
+    piece: Ring,
+    f: Linear,
+    acc: Float64Array,
+    scratch: Ring,
+    tmp: Float64Array,
+    g: Linear | null = null,
+  ): void {
     const ringIn: Pair[] = [];
     for (let i = 0; i < piece.n; i++) ringIn.push([piece.x[i]!, piece.y[i]!]);
     const parts = polygonClipping.intersection([ringIn], this.region);
@@ -176,7 +183,7 @@ export class PayRegion {
         const r = this.ring;
         r.n = 0;
         for (let i = 0; i + 1 < ring.length; i++) r.push(ring[i]![0], ring[i]![1]);
-        addRing(r, f, acc, scratch, tmp, h === 0 ? 1 : -1);
+        addRing(r, f, acc, scratch, tmp, h === 0 ? 1 : -1, g);
       });
     }
   }

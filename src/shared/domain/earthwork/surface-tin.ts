@@ -2,6 +2,7 @@ import Constrainautor from '@kninnug/constrainautor';
 import Delaunator from 'delaunator';
 import { DomainError, type DomainIssue } from '../domain-error';
 import { TriangleBuckets } from './surface-buckets';
+import { firstOverlap } from './surface-face-overlap';
 import { TinLocator, type MeshLike } from './surface-locate';
 import { fmt } from './trail';
 
@@ -246,8 +247,9 @@ function constrain(
 
 /**
  * A mesh of the faces as given: each face turned counter-clockwise in plan, faces of zero plan area left out,
- * neighbours matched through shared edges. Refused: a face naming a point that is not there, and two faces on the
- * same side of one edge (they overlap in plan, so the surface would have two heights there).
+ * neighbours matched through shared edges. Refused: a face naming a point that is not there, two faces on the
+ * same side of one edge, and two faces whose insides overlap in plan without sharing an edge (surface-face-overlap.ts):
+ * the surface would have two heights there.
  */
 function faceTin(p: SurfacePoints, ox: number, oy: number, name: SurveyName): Tin {
   const n = p.x.length;
@@ -304,6 +306,15 @@ function faceTin(p: SurfacePoints, ox: number, oy: number, name: SurveyName): Ti
   });
   const mesh: MeshLike = { triangles, halfedges, hull: new Uint32Array(0) };
   const buckets = new TriangleBuckets(triangles, coords);
+  const clash = firstOverlap(triangles, coords, buckets);
+  if (clash) {
+    const [f1, f2] = [origin[clash[0]]!, origin[clash[1]]!].sort((x, y) => x - y);
+    throw new DomainError(
+      'INVALID_FACE',
+      `Faces ${f1! + 1} and ${f2! + 1} of the ${name} surface overlap in plan without sharing an edge: the surface would have two heights there`,
+      [path, f2!],
+    );
+  }
   return {
     mesh,
     coords,

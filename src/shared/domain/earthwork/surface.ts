@@ -1,5 +1,6 @@
 import { DomainError } from '../domain-error';
-import { overlay, tinArea, type OverlayTotals } from './surface-overlay';
+import { measure, type MeasuredTotals } from './surface-measure';
+import { tinArea } from './surface-overlay';
 import { PayRegion, type PayLimits } from './surface-pay';
 import { fmt, fmtArea, fmtVolume, type Trail } from './trail';
 import { buildTin, type Breakline, type SurfacePoints, type Tin } from './surface-tin';
@@ -35,8 +36,10 @@ export interface SurfaceInput {
 export interface SurfaceOverlay {
   existingTriangles: number;
   designTriangles: number;
-  /** Convex pieces where a triangle of one survey overlaps a triangle of the other. */
+  /** Convex pieces where a clipped existing triangle overlaps a design triangle. */
   pieces: number;
+  /** Existing triangles taken whole: inside the design's footprint, the depth of one sign throughout. */
+  wholeTriangles: number;
 }
 
 export interface SurfaceResult {
@@ -140,7 +143,7 @@ export function surfaceVolumeFromPoints(
     payLimits && (payLimits.outer || (payLimits.voids && payLimits.voids.length > 0))
       ? new PayRegion(payLimits, ox, oy, [0, 0, box[2] - ox, box[3] - oy])
       : null;
-  const totals = overlay(e, d, pay);
+  const totals = measure(e, d, pay);
   const areaE = tinArea(e);
   const areaD = tinArea(d);
   return present(unit, totals, e, d, areaE, areaD, repeated, pay);
@@ -175,7 +178,7 @@ function howBuilt(t: Tin): string {
 
 function present(
   unit: LengthUnit,
-  t: OverlayTotals,
+  t: MeasuredTotals,
   e: Tin,
   d: Tin,
   areaE: number,
@@ -198,7 +201,9 @@ function present(
   const payAreaUncovered = pay ? Math.max(0, pay.area - t.area) : 0;
   const trail: Trail = [
     `Existing ${fmt(nE, 0)} points, ${fmt(triE, 0)} triangles (${howBuilt(e)}); design ${fmt(nD, 0)} points, ${fmt(triD, 0)} triangles (${howBuilt(d)})${repeated > 0 ? `; ${fmt(repeated, 0)} repeated points with the same height kept once` : ''}`,
-    `Both triangulations overlaid: each existing triangle clipped by the design triangles under it, found by walking the design mesh; ${fmt(t.pieces, 0)} pieces, over each of which both surfaces are planes`,
+    t.whole > 0
+      ? `Both triangulations overlaid: ${fmt(t.whole, 0)} existing triangles lie inside the design's footprint with the depth of one sign throughout (bounded from the design heights around them), so each is one prism taken whole and the design's volume under them comes from the design's own triangles; the other ${fmt(triE - t.whole, 0)} are clipped by the design triangles under them, found by walking the design mesh: ${fmt(t.pieces, 0)} pieces, over each of which both surfaces are planes`
+      : `Both triangulations overlaid: each existing triangle clipped by the design triangles under it, found by walking the design mesh; ${fmt(t.pieces, 0)} pieces, over each of which both surfaces are planes`,
     'Triangular-prism method (surveying texts): prism volume = plan area x mean depth, split exactly along the line where the surfaces cross; exact for the two piecewise-linear surfaces',
     `Area both surveys cover ${fmtArea(t.overlapArea, unit)}; existing outside the design ${fmtArea(existingOutsideArea, unit)}, design outside the existing ${fmtArea(designOutsideArea, unit)}`,
   ];
@@ -223,7 +228,7 @@ function present(
     existingPoints: nE,
     designPoints: nD,
     repeatedPoints: repeated,
-    overlay: { existingTriangles: triE, designTriangles: triD, pieces: t.pieces },
+    overlay: { existingTriangles: triE, designTriangles: triD, pieces: t.pieces, wholeTriangles: t.whole },
     trail,
   };
 }

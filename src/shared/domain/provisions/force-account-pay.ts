@@ -1,6 +1,7 @@
 import { DomainError } from '../domain-error';
 import { sumCents, type Cents } from '../money';
 import type { PayAppLineInput } from '../pay-app';
+import { roundTo } from '../rounding';
 
 /** A signed daily sheet not yet paid. */
 export interface SignedDay {
@@ -83,4 +84,17 @@ export function forceAccountAsPayLine(
     thisPeriodQuantity: line.thisPeriodCents,
     previousAmountCents: line.previousCents,
   };
+}
+
+/**
+ * How much of an allowance item the force account days drawn on it come to, in the item's pay unit: their amount
+ * over the item's unit price, to the stored 4 decimals ($576.00 drawn on a 1 LS allowance at $1,500.00 is 0.384 LS).
+ * The quantity watch shows it so an allowance runs against its band like any item. Pure.
+ */
+export function allowanceDrawnQuantity(drawnCents: Cents, unitPriceCents: Cents): number {
+  if (!Number.isSafeInteger(drawnCents) || drawnCents < 0) {
+    throw new DomainError('INVALID_NUMBER', 'An amount drawn is whole cents, 0 or more', ['drawnCents']);
+  }
+  if (!Number.isSafeInteger(unitPriceCents) || unitPriceCents <= 0) return 0;
+  return roundTo(drawnCents / unitPriceCents, 4);
 }

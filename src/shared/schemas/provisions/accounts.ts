@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FUEL_WORK_KINDS } from '../../constants';
-import { isoDateSchema } from '../tally';
+import { fieldDateSchema, isoDateSchema } from '../tally';
 import { centsField, decimalField, percentField, textField } from './fields';
 
 const hours = decimalField(2, 0, 24, 'Hours');
@@ -19,7 +19,7 @@ const materialSchema = z.object({ description: textField(200, 'The material'), i
 export const createForceAccountSheetSchema = z
   .object({
     changeOrderId: z.uuid('Choose the change order that authorised the work'),
-    workedOn: isoDateSchema,
+    workedOn: fieldDateSchema,
     description: textField(2000, 'The work done'),
     labor: z.array(laborSchema).max(100),
     equipment: z.array(equipmentSchema).max(100),
@@ -50,7 +50,7 @@ export type CreateStoredMaterialInput = z.infer<typeof createStoredMaterialSchem
 export const addStoredMovementSchema = z
   .object({
     kind: z.enum(['added', 'used']),
-    movedOn: isoDateSchema,
+    movedOn: fieldDateSchema,
     quantity: decimalField(4, 0.0001, 1e9, 'A quantity'),
     invoiceRef: z.string().trim().max(120).default(''),
   })

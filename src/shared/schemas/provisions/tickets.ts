@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateSchema } from '../tally';
+import { fieldDateSchema } from '../tally';
 import { decimalField, initialsField, percentField, textField } from './fields';
 
 export const createTruckSchema = z
@@ -8,13 +8,13 @@ export const createTruckSchema = z
     hauler: z.string().trim().max(200).default(''),
     bedVolumeCy: decimalField(2, 0.01, 100, 'A bed volume'),
     measuredBy: textField(120, 'Who measured the bed'),
-    measuredOn: isoDateSchema,
+    measuredOn: fieldDateSchema,
   })
   .strict();
 export type CreateTruckInput = z.infer<typeof createTruckSchema>;
 
 const truckTicketFields = {
-  deliveredOn: isoDateSchema,
+  deliveredOn: fieldDateSchema,
   truckLabel: textField(40, 'The truck number'),
   material: textField(120, 'The material'),
   source: textField(120, 'The source'),
@@ -65,7 +65,7 @@ export const createScaleTicketSchema = z
     bidItemId: z.uuid('Choose a bid item'),
     sourceId: z.uuid('Choose a material source'),
     ticketNumber: textField(40, 'The ticket number'),
-    weighedOn: isoDateSchema,
+    weighedOn: fieldDateSchema,
     grossTons: decimalField(2, 0.01, 200, 'Gross'),
     tareTons: decimalField(2, 0, 200, 'Tare'),
     material: textField(120, 'The material'),
