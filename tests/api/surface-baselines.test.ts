@@ -323,6 +323,30 @@ describe('point files and faces as original ground', () => {
     expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
   });
 
+  it('checks a large face set off the request thread (compute pool) and refuses one overlapping face by name', async () => {
+    // 110 x 110 points 1 ft apart, two faces a square (23,762 faces, above the inline limit of 20,000), and one
+    // more face over points two apart in the middle rows, sharing no edge with the rest.
+    const n = 110;
+    const pts: string[] = [];
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) pts.push(`<P id="${i * n + j + 1}">${i} ${j} 30</P>`);
+    const faces: string[] = [];
+    for (let i = 0; i + 1 < n; i++)
+      for (let j = 0; j + 1 < n; j++) {
+        const a = i * n + j + 1;
+        faces.push(`<F>${a} ${a + 1} ${a + n + 1}</F><F>${a} ${a + n + 1} ${a + n}</F>`);
+      }
+    const mid = 55 * n + 55 + 1;
+    const file = (extra: string) =>
+      `<?xml version="1.0"?><LandXML xmlns="http://www.landxml.org/schema/LandXML-1.2" version="1.2"><Units><Metric linearUnit="meter"/></Units><Surfaces><Surface name="Dense ground"><Definition surfType="TIN"><Pnts>${pts.join('')}</Pnts><Faces>${faces.join('')}${extra}</Faces></Definition></Surface></Surfaces></LandXML>`;
+    const res = await recordFile(file(`<F>${mid} ${mid + 2} ${mid + 2 * n + 1}</F>`), 'dense.xml', { area: 'Dense' });
+    expect([res.status, res.body.error.code]).toEqual([400, 'BASELINE_FILE_INVALID']);
+    expect(res.body.error.message).toMatch(
+      new RegExp(`^dense\\.xml, surface "Dense ground": Faces \\d+ and ${faces.length * 2 + 1} overlap in plan`),
+    );
+    const fine = await recordFile(file(''), 'dense.xml', { area: 'Dense' });
+    expect([fine.status, fine.body.baseline.pointCount]).toEqual([201, n * n]);
+  }, 60_000);
+
   it("a locked LandXML baseline with faces is measured on its faces as given (one face: half the square's cut)", async () => {
     const item = await makeBidItem(t.database.db, w.home.id, { payUnit: 'CY', basis: 'bank', method: 'surface' });
     // One face over the square's corners 1, 2, 3: a right triangle of 5,000 sq ft at 100 ft, design at 99 ft:

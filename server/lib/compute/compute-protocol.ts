@@ -11,7 +11,9 @@ export type ComputeTask =
   /** A calc method whose JSON body arrives through `port` in chunks (Uint8Array), then `{ end: true }`. */
   | { kind: 'calc-json'; method: string; port: MessagePort }
   /** Surface to surface from a multipart form (`unit`, files `existing` and `design`) streamed through `port`. */
-  | { kind: 'surface-files'; contentType: string; port: MessagePort };
+  | { kind: 'surface-files'; contentType: string; port: MessagePort }
+  /** A surface's faces checked as the volume engine builds them (points there, no overlap in plan): a baseline's. */
+  | { kind: 'surface-faces'; x: Float64Array; y: Float64Array; faces: Uint32Array };
 
 /** Limits of a survey upload: each file, and the form's parts. */
 export const SURVEY_LIMITS = { fileBytes: 64 * 1024 * 1024, files: 2, fields: 2, parts: 6, fieldBytes: 1024 } as const;

@@ -3,6 +3,7 @@ import { LENGTH_UNITS } from '../../../src/shared/constants';
 import { runCalc } from '../../../src/shared/domain/calc';
 import { isDomainError } from '../../../src/shared/domain/domain-error';
 import { surfaceVolumeFromPoints } from '../../../src/shared/domain/earthwork/surface';
+import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
 import { SURVEY_FIELDS, type BodyMessage, type ComputeOutcome, type ComputeTask } from './compute-protocol';
 import { readSurveyForm } from './survey-form';
 
@@ -82,9 +83,21 @@ async function surfaceFiles(contentType: string, port: MessagePort): Promise<Com
   }
 }
 
+/** Builds the surface of the faces as the engine does; its refusal (INVALID_FACE naming the faces) as a 400. */
+function surfaceFaces(x: Float64Array, y: Float64Array, faces: Uint32Array): ComputeOutcome {
+  try {
+    buildTin({ x, y, z: new Float64Array(x.length), faces }, x[0] ?? 0, y[0] ?? 0, 'existing');
+    return { ok: true, json: 'null' };
+  } catch (err) {
+    if (!isDomainError(err)) throw err;
+    return refuse(400, err.code, err.message, err.issues);
+  }
+}
+
 /** The compute pool's task (a worker thread): the quantity engine, off the server's request thread. */
 export default async function computeTask(task: ComputeTask): Promise<ComputeOutcome> {
   if (task.kind === 'calc') return calc(task.method, task.input);
   if (task.kind === 'calc-json') return calcJson(task.method, task.port);
+  if (task.kind === 'surface-faces') return surfaceFaces(task.x, task.y, task.faces);
   return surfaceFiles(task.contentType, task.port);
 }

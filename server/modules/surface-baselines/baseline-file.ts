@@ -12,6 +12,7 @@ import {
 import { DomainError } from '../../../src/shared/domain/domain-error';
 import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
 import { AppError } from '../../lib/app-error';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { streamedUpload, type UploadedFile } from '../../lib/upload';
 import { safeFileName } from '../tallies/evidence-files';
 
@@ -121,6 +122,7 @@ export async function readBaselineFile(
   file: Express.Multer.File | undefined,
   unit?: 'ft' | 'm',
   order?: PointOrder,
+  compute?: ComputePool,
 ): Promise<BaselineSurface> {
   const up = file as UploadedFile | undefined;
   if (!up)
@@ -135,7 +137,7 @@ export async function readBaselineFile(
   if (doc.issues.length > 0) throw refuseIssues(fileName, 'LandXML', doc.issues);
   const surface = doc.surfaces.find((s) => s.x.length >= 3);
   if (!surface) throw invalid(`${fileName} holds no <Surface> with at least 3 points`);
-  if (surface.faces.length > 0) checkFaces(fileName, surface);
+  if (surface.faces.length > 0) await checkFaces(fileName, surface, compute);
   let { linearUnit, elevationUnit } = doc.units;
   let unitsFrom: 'file' | 'recorder' = 'file';
   if (doc.units.system === null) {
@@ -164,20 +166,31 @@ export async function readBaselineFile(
   };
 }
 
+/** Face sets larger than this are checked in the compute pool, off the request thread (a million faces take seconds). */
+const INLINE_FACES = 20_000;
+
 /**
  * The surface's faces make one surface (the engine's own checks, surface-tin.ts: each face names points of the
  * surface, no two overlap in plan), so a baseline is never accepted that no tally could measure against.
  */
-function checkFaces(
+async function checkFaces(
   fileName: string,
-  s: { name: string; x: Float64Array; y: Float64Array; z: Float64Array; faces: Uint32Array },
-) {
-  try {
-    buildTin({ x: s.x, y: s.y, z: s.z, faces: s.faces }, s.x[0]!, s.y[0]!, 'existing');
-  } catch (e) {
-    if (!(e instanceof DomainError)) throw e;
-    throw invalid(`${fileName}, surface "${s.name}": ${e.message.replace(' of the existing surface', '')}`);
+  s: { name: string; x: Float64Array; y: Float64Array; faces: Uint32Array },
+  compute?: ComputePool,
+): Promise<void> {
+  let problem: string | null = null;
+  if (compute && s.faces.length / 3 > INLINE_FACES) {
+    const outcome = await compute.run({ kind: 'surface-faces', x: s.x, y: s.y, faces: s.faces });
+    if (!outcome.ok) problem = outcome.message;
+  } else {
+    try {
+      buildTin({ x: s.x, y: s.y, z: new Float64Array(s.x.length), faces: s.faces }, s.x[0]!, s.y[0]!, 'existing');
+    } catch (e) {
+      if (!(e instanceof DomainError)) throw e;
+      problem = e.message;
+    }
   }
+  if (problem) throw invalid(`${fileName}, surface "${s.name}": ${problem.replace(' of the existing surface', '')}`);
 }
 
 /** A stored baseline's faces as row triples, or undefined without faces. */

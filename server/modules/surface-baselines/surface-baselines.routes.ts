@@ -23,6 +23,7 @@ export function surfaceBaselinesRouter(ctx: AppContext): Router {
       input,
       req.file,
       limitsOf(req).projectQuotaBytes,
+      ctx.compute,
     );
     res.status(201).json({ baseline });
   });

@@ -4,6 +4,7 @@ import { baselineSideOf, canRecordBaseline } from '../../../src/shared/policies/
 import type { Db } from '../../db/client';
 import type { Storage } from '../../integrations/storage/storage';
 import type { Actor } from '../../lib/actor';
+import type { ComputePool } from '../../lib/compute/compute-pool';
 import { AppError, forbidden, notFound } from '../../lib/app-error';
 import { assertProjectQuota, DEFAULT_PROJECT_QUOTA_BYTES } from '../../lib/upload';
 import { recordAudit } from '../audit/audit.repository';
@@ -36,10 +37,11 @@ export async function recordBaseline(
   input: RecordBaselineInput,
   upload: Express.Multer.File | undefined,
   quotaBytes = DEFAULT_PROJECT_QUOTA_BYTES,
+  compute?: ComputePool,
 ): Promise<SurfaceBaselineView> {
   const { roles } = await loadProjectAccess(db, actor, projectId, canRecordBaseline);
   // Read only for someone who may record: nobody else makes the server parse a file.
-  const file = await readBaselineFile(upload, input.unit, input.order);
+  const file = await readBaselineFile(upload, input.unit, input.order, compute);
   const { key } = await storage.putFile(file.path, 'baseline');
   try {
     const id = await db.transaction(async (tx) => {
