@@ -20,7 +20,7 @@ import { clientIpForAuth } from './middleware/client-ip';
 import { csrfGuard } from './middleware/csrf-guard';
 import { jsonBodiesOnly } from './middleware/json-bodies-only';
 import { idempotentWrites } from './middleware/idempotency';
-import { requireActor } from './middleware/require-actor';
+import { requireActor, VerifiedCookies } from './middleware/require-actor';
 import { DEFAULT_REAUTH_MINUTES, recentAuthCheck } from './middleware/require-recent-auth';
 import { noStore, securityHeaders } from './middleware/security-headers';
 import { endAgedSessions } from './middleware/session-age';
@@ -38,6 +38,7 @@ import { createOutbox } from './modules/notifications/outbox';
 import { projectsRouter } from './modules/projects/projects.routes';
 import { varianceRouter } from './modules/variance/variance.routes';
 import { payAppsRouter } from './modules/pay-apps/pay-apps.routes';
+import { payAppFastRead } from './modules/pay-apps/pay-app-fast-read';
 import { paymentsRouter, stripeWebhookRouter } from './modules/payments/payments.routes';
 import { lienWaiversRouter } from './modules/lien-waivers/lien-waivers.routes';
 import { talliesRouter } from './modules/tallies/tallies.routes';
@@ -174,7 +175,8 @@ export function createApp(deps: AppDeps): Express {
     toNodeHandler(auth),
   );
 
-  const actorGuard = requireActor(auth, db);
+  const verifiedCookies = new VerifiedCookies();
+  const actorGuard = requireActor(auth, db, verifiedCookies);
   // Whether this browser is signed in, as a plain answer (never 401): the client asks it before anything else, so
   // a signed-out visit logs no failed request. Signed in, it carries the same view as GET /api/me.
   app.get('/api/session', async (req, res) => {
@@ -189,6 +191,8 @@ export function createApp(deps: AppDeps): Express {
     const body: SessionView = signedIn ? { signedIn: true, me: meView(getActor(res)) } : { signedIn: false };
     res.json(body);
   });
+  // The cached pay application read checks the session and the access in one statement, or steps aside.
+  app.get('/api/pay-apps/:payAppId', payAppFastRead(ctx, auth, verifiedCookies));
   app.use('/api', actorGuard);
   // The calculation API parses its own (larger) bodies, large ones in worker threads; everything else is limited
   // to JSON_BODY_LIMIT.

@@ -44,6 +44,41 @@ export class VerifiedCookies {
   }
 }
 
+/** The session cookie's name and better-auth's session timing (expiresIn, updateAge, in seconds). */
+export function sessionSettings(auth: Auth) {
+  return auth.$context.then((c) => ({ cookieName: c.authCookies.sessionToken.name, ...c.sessionConfig }));
+}
+
+/** The signed session cookie's value, as sent. */
+export function sessionCookieOf(req: Request, settings: { cookieName: string }): string | undefined {
+  const header = req.headers.cookie;
+  return header ? parseCookies(header).get(settings.cookieName) : undefined;
+}
+
+/**
+ * Whether a session row read by token serves the short path: not expired and not due for better-auth's refresh
+ * (its own rule: a session used `updateAge` after its last expiry was set is due for a new one). Otherwise the
+ * request goes through better-auth.
+ */
+export function sessionRowIsCurrent(
+  row: { expiresAt: Date },
+  { expiresIn, updateAge }: { expiresIn: number; updateAge: number },
+  now = Date.now(),
+): boolean {
+  const expiresAt = row.expiresAt.getTime();
+  return expiresAt > now && expiresAt - expiresIn * 1000 + updateAge * 1000 > now;
+}
+
+/** Absolute lifetime (OWASP ASVS 4.0.3 3.3.2): however active, a session ends 12 hours after sign-in. */
+export const isPastAbsoluteLifetime = (session: { createdAt: Date }, now = Date.now()) =>
+  now - session.createdAt.getTime() > SESSION_ABSOLUTE_SECONDS * 1000;
+
+type SessionRow = NonNullable<Awaited<ReturnType<ReturnType<typeof actorQueries>['bySessionToken']>>>;
+
+export const actorOfRow = (row: Pick<SessionRow, 'person' | 'membership' | 'session'>) => ({
+  actor: actorOf(row.person, row.membership),
+  session: { id: row.session.id, createdAt: row.session.createdAt } satisfies SessionInfo,
+});
 
 /**
  * Resolves the session cookie to an Actor (401 without one) before any route of the API runs.
@@ -56,10 +91,13 @@ export class VerifiedCookies {
  */
 export function requireActor(auth: Auth, db: Db, verified = new VerifiedCookies()): RequestHandler {
   const queries = actorQueries(db);
-  const settings = auth.$context.then((c) => ({ cookieName: c.authCookies.sessionToken.name, ...c.sessionConfig }));
+  const settings = sessionSettings(auth);
 
   async function throughBetterAuth(req: Request, res: Response, cookie: string | undefined) {
-    const { headers, response: found } = await auth.api.getSession({ headers: fromNodeHeaders(req.headers), returnHeaders: true });
+    const { headers, response: found } = await auth.api.getSession({
+      headers: fromNodeHeaders(req.headers),
+      returnHeaders: true,
+    });
     // A refresh sends the cookie again with a new Max-Age: pass it on, or the browser drops the session early.
     const setCookies = headers.getSetCookie();
     if (setCookies.length > 0) res.append('Set-Cookie', setCookies);
@@ -69,27 +107,23 @@ export function requireActor(auth: Auth, db: Db, verified = new VerifiedCookies(
     }
     if (cookie) verified.add(cookie, found.session.token);
     const membership = await queries.membership(found.user.id);
-    return { actor: actorOf(found.user, membership), session: { id: found.session.id, createdAt: new Date(found.session.createdAt) } };
+    return {
+      actor: actorOf(found.user, membership),
+      session: { id: found.session.id, createdAt: new Date(found.session.createdAt) },
+    };
   }
 
   async function fromRow(token: string) {
     const row = await queries.bySessionToken(token);
-    if (!row) return undefined;
-    const { expiresIn, updateAge } = await settings;
-    const expiresAt = row.session.expiresAt.getTime();
-    // better-auth's own rule: a session used `updateAge` after its last expiry was set is due for a new one.
-    if (expiresAt <= Date.now() || expiresAt - expiresIn * 1000 + updateAge * 1000 <= Date.now()) return undefined;
-    return { actor: actorOf(row.person, row.membership), session: { id: row.session.id, createdAt: row.session.createdAt } };
+    return row && sessionRowIsCurrent(row.session, await settings) ? actorOfRow(row) : undefined;
   }
 
   return async (req, res, next) => {
-    const header = req.headers.cookie;
-    const cookie = header ? parseCookies(header).get((await settings).cookieName) : undefined;
+    const cookie = sessionCookieOf(req, await settings);
     const token = cookie ? verified.get(cookie) : undefined;
     const found = (token ? await fromRow(token) : undefined) ?? (await throughBetterAuth(req, res, cookie));
     if (!found) throw unauthorized();
-    if (Date.now() - found.session.createdAt.getTime() > SESSION_ABSOLUTE_SECONDS * 1000) {
-      // Absolute lifetime (OWASP ASVS 4.0.3 3.3.2): however active, a session ends 12 hours after sign-in.
+    if (isPastAbsoluteLifetime(found.session)) {
       await db.delete(session).where(eq(session.id, found.session.id));
       if (cookie) verified.forget(cookie);
       throw new AppError(401, 'SESSION_EXPIRED', 'Your session has ended after 12 hours. Sign in again.');

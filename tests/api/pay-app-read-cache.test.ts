@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
 import { openDatabase, type Database } from '../../server/db/client';
-import { payAppLines, projectMembers, user } from '../../server/db/schema';
+import { companyMembers, payAppLines, projectMembers, session, user } from '../../server/db/schema';
 import { smtpMailer } from '../../server/integrations/mailer/mailer';
 import { createLogger } from '../../server/lib/logger';
 import { makeBidItem, makeWorld } from '../setup/factories';
@@ -197,6 +197,37 @@ describe('the pay application answer cache: every write path invalidates it, on 
     // Not certified yet: the owner sees nothing, however warm the cache is.
     expect((await (await on(b, 'owner')).get(`/api/pay-apps/${payAppId}`)).status).toBe(404);
     expect((await (await signedInAgent(b, w.outsider.email)).get(`/api/pay-apps/${payAppId}`)).status).toBe(404);
+  });
+
+  it('the one-statement read steps aside for a signed-out, aged or moved person: 401, 401 SESSION_EXPIRED, 404', async () => {
+    const reader = await on(b, 'owner_admin');
+    const owner = await on(b, 'owner');
+    // The owner's admin sees nothing before certification; the subcontractor's admin does.
+    expect((await reader.get(`/api/pay-apps/${payAppId}`)).status).toBe(404);
+    const subAdmin = await on(b, 'subcontractor_admin');
+    const warm = await subAdmin.get(`/api/pay-apps/${payAppId}`);
+    expect(warm.status).toBe(200);
+    expect((await subAdmin.post('/api/auth/sign-out').send({})).status).toBe(200);
+    expect((await subAdmin.get(`/api/pay-apps/${payAppId}`)).status).toBe(401);
+    // A session past its absolute lifetime (12 hours from sign-in) ends, cached answer or not.
+    const aged = await on(b, 'subcontractor_admin');
+    expect((await aged.get(`/api/pay-apps/${payAppId}`)).status).toBe(200);
+    await t.database.db
+      .update(session)
+      .set({ createdAt: new Date(Date.now() - 13 * 3600 * 1000) })
+      .where(eq(session.userId, w.people.subcontractor_admin.id));
+    const ended = await aged.get(`/api/pay-apps/${payAppId}`);
+    expect(ended.status).toBe(401);
+    expect(ended.body.error.code).toBe('SESSION_EXPIRED');
+    // Moved to another company: no longer the subcontractor's admin, so no seat here.
+    const moved = await on(b, 'subcontractor_admin');
+    expect((await moved.get(`/api/pay-apps/${payAppId}`)).status).toBe(200);
+    await t.database.db
+      .update(companyMembers)
+      .set({ companyId: w.companies.otherSub.id })
+      .where(eq(companyMembers.userId, w.people.subcontractor_admin.id));
+    expect((await moved.get(`/api/pay-apps/${payAppId}`)).status).toBe(404);
+    expect((await owner.get(`/api/pay-apps/${payAppId}`)).status).toBe(404);
   });
 
   it('a seat removed through A takes effect through B at once, though B cached the answer', async () => {

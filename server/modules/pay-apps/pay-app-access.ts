@@ -28,7 +28,13 @@ export async function loadPayAppReadAccess(db: Db, actor: Actor, payAppId: strin
   return { roles: rolesIfVisible(actor, found.project, found.roles, found.status), readVersion: found.readVersion };
 }
 
-function rolesIfVisible(actor: Actor, project: ProjectParties, memberRoles: ProjectRole[], status: PayAppStatus) {
+/** The actor's roles on the application's project, or 404 when they may not see it (off the project, or too early). */
+export function rolesIfVisible(
+  actor: Actor,
+  project: ProjectParties,
+  memberRoles: ProjectRole[],
+  status: PayAppStatus,
+) {
   const roles = accessRoles(actor, project, memberRoles);
   if (!canReadProject(roles) || !canSeePayApp(roles, status)) throw notFound('The pay application');
   return roles;

@@ -1,10 +1,14 @@
-import { and, asc, desc, eq, gte, inArray, lte, max, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, lte, max, sql, type SQLWrapper } from 'drizzle-orm';
 import { FROZEN_STATUSES } from '../../../src/shared/domain/pay-app-status';
 import type { ProjectRole } from '../../../src/shared/constants';
 import type { Db, Executor } from '../../db/client';
 import { preparedFor } from '../../db/prepared';
 import {
   bidItems,
+  companies,
+  companyMembers,
+  session,
+  user,
   disputeComments,
   tallyEvidence,
   disputes,
@@ -129,10 +133,22 @@ export async function submitterIds(db: Executor, payAppId: string): Promise<stri
 
 const nameOnly = { columns: { name: true } } as const;
 
-/** The roles `userId` holds on the joined project, as a JSON array (empty when none). */
-const rolesOf = sql<
-  ProjectRole[]
->`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${sql.placeholder('userId')}), '[]'::json)`;
+/** The roles a person (by default the `userId` placeholder) holds on the joined project, as a JSON array. */
+const rolesOf = (userId: SQLWrapper = sql.placeholder('userId')) =>
+  sql<
+    ProjectRole[]
+  >`coalesce((select json_agg(${projectMembers.role}) from ${projectMembers} where ${projectMembers.projectId} = ${projects.id} and ${projectMembers.userId} = ${userId}), '[]'::json)`;
+
+/** The read versions a cached answer of the joined project is valid at (server/db/schema/read-version.ts). */
+const readVersionsOf = sql<
+  string | null
+>`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1) || '.' || coalesce((select ${projectReadVersions.version} from ${projectReadVersions} where ${projectReadVersions.projectId} = ${projects.id}), 0)::text`;
+
+const partiesOf = {
+  subcontractorCompanyId: projects.subcontractorCompanyId,
+  generalContractorCompanyId: projects.generalContractorCompanyId,
+  ownerCompanyId: projects.ownerCompanyId,
+};
 
 const reads = preparedFor((db: Db) => ({
   /** A pay application, its project and the person's roles on that project. */
@@ -140,7 +156,7 @@ const reads = preparedFor((db: Db) => ({
     .select({
       app: payApps,
       project: projects,
-      roles: rolesOf,
+      roles: rolesOf(),
     })
     .from(payApps)
     .innerJoin(projects, eq(projects.id, payApps.projectId))
@@ -156,21 +172,44 @@ const reads = preparedFor((db: Db) => ({
   readAccess: db
     .select({
       status: payApps.status,
-      project: {
-        subcontractorCompanyId: projects.subcontractorCompanyId,
-        generalContractorCompanyId: projects.generalContractorCompanyId,
-        ownerCompanyId: projects.ownerCompanyId,
-      },
-      roles: rolesOf,
-      readVersion: sql<
-        string | null
-      >`(select ${readVersion.version}::text from ${readVersion} where ${readVersion.id} = 1) || '.' || coalesce((select ${projectReadVersions.version} from ${projectReadVersions} where ${projectReadVersions.projectId} = ${projects.id}), 0)::text`,
+      project: partiesOf,
+      roles: rolesOf(),
+      readVersion: readVersionsOf,
     })
     .from(payApps)
     .innerJoin(projects, eq(projects.id, payApps.projectId))
     .where(eq(payApps.id, sql.placeholder('payAppId')))
     .limit(1)
     .prepare('pay_app_read_access'),
+  /**
+   * The session behind a token (as requireActor reads it: session, person, company membership) and, for that
+   * person, the cached read's access facts of one application, in one statement: the cached GET's short path
+   * (pay-app-fast-read.ts). The application's columns are null when there is no such application.
+   */
+  sessionAndReadAccess: db
+    .select({
+      session: { id: session.id, expiresAt: session.expiresAt, createdAt: session.createdAt },
+      person: { id: user.id, name: user.name, email: user.email },
+      membership: {
+        companyId: companies.id,
+        kind: companies.kind,
+        name: companies.name,
+        isAdmin: companyMembers.isAdmin,
+      },
+      status: payApps.status,
+      project: partiesOf,
+      roles: rolesOf(user.id),
+      readVersion: readVersionsOf,
+    })
+    .from(session)
+    .innerJoin(user, eq(user.id, session.userId))
+    .leftJoin(companyMembers, eq(companyMembers.userId, user.id))
+    .leftJoin(companies, eq(companies.id, companyMembers.companyId))
+    .leftJoin(payApps, eq(payApps.id, sql.placeholder('payAppId')))
+    .leftJoin(projects, eq(projects.id, payApps.projectId))
+    .where(eq(session.token, sql.placeholder('token')))
+    .limit(1)
+    .prepare('session_and_pay_app_read_access'),
   /**
    * Everything the detail view shows, as one statement (Drizzle's relational query: each relation is a JSON
    * aggregate, so 200 lines come back as one value instead of 200 rows to decode).
@@ -208,6 +247,12 @@ const reads = preparedFor((db: Db) => ({
 /** A pay application with its project and the roles `userId` holds there (an empty list when none), in one read. */
 export async function findPayAppWithAccess(db: Db, payAppId: string, userId: string) {
   const [row] = await reads(db).withAccess.execute({ payAppId, userId });
+  return row;
+}
+
+/** The session behind `token` with its person and membership, and that person's access facts of one application. */
+export async function findSessionAndReadAccess(db: Db, token: string, payAppId: string) {
+  const [row] = await reads(db).sessionAndReadAccess.execute({ token, payAppId });
   return row;
 }
 

@@ -14,6 +14,7 @@ import * as actions from './pay-app-actions.service';
 import { exportRoutes } from './pay-app-exports.routes';
 import { commentOnDispute } from './dispute-comments.service';
 import { editDispute, withdrawDispute } from './disputes.service';
+import { sendPayAppAnswer } from './pay-app-fast-read';
 import * as service from './pay-apps.service';
 import { lineBackup } from '../tallies/line-backup.service';
 
@@ -28,10 +29,8 @@ export function payAppsRouter(ctx: AppContext): Router {
     res.status(201).json({ payApp: await service.createPayApp(db, getActor(res), req.params.projectId, input) });
   });
   router.get('/pay-apps/:payAppId', async (req, res) => {
-    // Sent as serialized (and tagged) once per read version; Express answers 304 to a matching If-None-Match, and
-    // browsers revalidate each time.
-    const answer = await service.getPayAppAnswer(ctx, getActor(res), req.params.payAppId);
-    res.set('Cache-Control', 'private, no-cache').set('ETag', answer.etag).type('json').send(answer.bytes);
+    // Usually answered before requireActor (pay-app-fast-read.ts); here when that short path stepped aside.
+    sendPayAppAnswer(res, await service.getPayAppAnswer(ctx, getActor(res), req.params.payAppId));
   });
   router.post('/pay-apps/:payAppId/submit', async (req, res) => {
     res.json({

@@ -139,6 +139,17 @@ async function packageOf(
  */
 export async function getPayAppAnswer(ctx: Pick<AppContext, 'db' | 'payAppReads'>, actor: Actor, payAppId: string) {
   const { roles, readVersion } = await loadPayAppReadAccess(ctx.db, actor, payAppId);
+  return payAppAnswer(ctx, actor, payAppId, roles, readVersion);
+}
+
+/** The answer for a reader whose access was checked just now, with the read version read in the same statement. */
+export function payAppAnswer(
+  ctx: Pick<AppContext, 'db' | 'payAppReads'>,
+  actor: Actor,
+  payAppId: string,
+  roles: AccessRole[],
+  readVersion: string | null,
+) {
   const rolesKey = [...roles].sort().join(',');
   return ctx.payAppReads.answer(payAppId, actor.userId, readVersion, rolesKey, async () =>
     serializeJson({ payApp: await payAppDetail(ctx.db, payAppId, roles) }),

@@ -76,6 +76,43 @@ export function thinSurvey(p: SurfacePoints, max: number): { points: SurfacePoin
   return { points: { x: pick(p.x), y: pick(p.y), z: pick(p.z) }, cell };
 }
 
+/** The overlay's pieces kept flat: corners, where each piece starts, and its depth (d0, dx, dy, x0, y0). */
+class Pieces {
+  xy = new Float64Array(4096);
+  start = new Int32Array(1025);
+  f = new Float64Array(5 * 1024);
+  n = 0;
+  add(r: Ring, f: Linear): void {
+    const at = this.start[this.n]!;
+    if (at + 2 * r.n > this.xy.length) this.xy = grown(this.xy, at + 2 * r.n);
+    if (this.n + 2 > this.start.length) {
+      this.start = grown(this.start, this.n + 2);
+      this.f = grown(this.f, 5 * this.start.length);
+    }
+    for (let i = 0; i < r.n; i++) {
+      this.xy[at + 2 * i] = r.x[i]!;
+      this.xy[at + 2 * i + 1] = r.y[i]!;
+    }
+    const g = 5 * this.n;
+    this.f[g] = f.d0;
+    this.f[g + 1] = f.dx;
+    this.f[g + 2] = f.dy;
+    this.f[g + 3] = f.x0;
+    this.f[g + 4] = f.y0;
+    this.start[++this.n] = at + 2 * r.n;
+  }
+  read(p: number, into: Ring, f: Linear): void {
+    into.n = 0;
+    for (let k = this.start[p]!; k < this.start[p + 1]!; k += 2) into.push(this.xy[k]!, this.xy[k + 1]!);
+    const g = 5 * p;
+    f.d0 = this.f[g]!;
+    f.dx = this.f[g + 1]!;
+    f.dy = this.f[g + 2]!;
+    f.x0 = this.f[g + 3]!;
+    f.y0 = this.f[g + 4]!;
+  }
+}
+
 /** Growable columns of band polygons. */
 class Polygons {
   xy = new Float32Array(1024);
@@ -99,7 +136,7 @@ class Polygons {
   }
 }
 
-function grown<T extends Float32Array | Uint8Array | Int8Array>(a: T, need: number): T {
+function grown<T extends Float64Array | Float32Array | Int32Array | Uint8Array | Int8Array>(a: T, need: number): T {
   const b = new (a.constructor as new (n: number) => T)(Math.max(need, 2 * a.length));
   b.set(a);
   return b;
@@ -144,23 +181,22 @@ export function depthMap(existing: SurfacePoints, design: SurfacePoints, unit: L
   } catch {
     return null;
   }
-  // First the pieces with their corner depths (the deepest sets the bands), then each cut into bands.
-  const pieces: { ring: Ring; f: Linear }[] = [];
+  // First the pieces with their corner depths (the deepest sets the bands), kept flat (no object a piece), then
+  // each cut into bands.
+  const kept = new Pieces();
   let maxCut = 0,
     maxFill = 0;
   overlay(e, d, null, {
     sink: (piece, f) => {
-      const ring = new Ring(piece.n);
       for (let i = 0; i < piece.n; i++) {
-        ring.push(piece.x[i]!, piece.y[i]!);
         const v = f.d0 + f.dx * (piece.x[i]! - f.x0) + f.dy * (piece.y[i]! - f.y0);
         if (v > maxCut) maxCut = v;
         if (-v > maxFill) maxFill = -v;
       }
-      pieces.push({ ring, f: { ...f } });
+      kept.add(piece, f);
     },
   });
-  if (pieces.length === 0) return null;
+  if (kept.n === 0) return null;
   const level = unit === 'm' ? 0.003 : 0.01;
   const step = Math.max(maxCut, maxFill, level) / MAP_STEPS;
   // Band limits in depth order: fill bands, the blank band about zero, cut bands.
@@ -176,17 +212,17 @@ export function depthMap(existing: SurfacePoints, design: SurfacePoints, unit: L
   const below = new Ring(16);
   let current = new Ring(16),
     other = new Ring(16);
-  for (const { ring, f } of pieces) {
+  const f: Linear = { d0: 0, dx: 0, dy: 0, x0: 0, y0: 0 };
+  for (let p = 0; p < kept.n; p++) {
+    kept.read(p, current, f);
     let lo = Infinity,
       hi = -Infinity;
-    current.n = 0;
-    for (let i = 0; i < ring.n; i++) {
-      const v = f.d0 + f.dx * (ring.x[i]! - f.x0) + f.dy * (ring.y[i]! - f.y0);
+    for (let i = 0; i < current.n; i++) {
+      const v = f.d0 + f.dx * (current.x[i]! - f.x0) + f.dy * (current.y[i]! - f.y0);
       lo = Math.min(lo, v);
       hi = Math.max(hi, v);
-      x1 = Math.max(x1, ring.x[i]!);
-      y1 = Math.max(y1, ring.y[i]!);
-      current.push(ring.x[i]!, ring.y[i]!);
+      x1 = Math.max(x1, current.x[i]!);
+      y1 = Math.max(y1, current.y[i]!);
     }
     let from = lo;
     for (const limit of limits) {
@@ -194,7 +230,9 @@ export function depthMap(existing: SurfacePoints, design: SurfacePoints, unit: L
       clipDepth(current, f, limit, false, below);
       out.add(below, bandOf((from + limit) / 2));
       clipDepth(current, f, limit, true, other);
-      [current, other] = [other, current];
+      const swap = current;
+      current = other;
+      other = swap;
       from = limit;
     }
     out.add(current, bandOf((from + hi) / 2));
@@ -211,7 +249,7 @@ export function depthMap(existing: SurfacePoints, design: SurfacePoints, unit: L
     maxCut,
     maxFill,
     level,
-    pieces: pieces.length,
+    pieces: kept.n,
     thinnedCell: Math.max(e0.cell, d0.cell),
   };
 }
