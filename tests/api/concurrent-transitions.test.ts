@@ -311,4 +311,37 @@ describe('two payments of the same balance at once', () => {
     expect(ended!.status).toBe('canceled');
     expect(await auditActions(t.database.db, recent!.id)).toEqual(['payment.canceled']);
   });
+
+  it('keeps an open checkout for its payer: a colleague is refused for fifteen minutes, the payer for one', async () => {
+    // The race seen under load: the colleague's start came after the owner's checkout had opened, ended it and
+    // opened a second one; the owner was filling in an expired checkout. Times are ours (common practice).
+    const app = await makeCertifiedPayApp(t.database.db, w.home.id, w.people.subcontractor.id, { number: 904 });
+    const owner = await as('owner');
+    const first = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
+    expect(first.status).toBe(201);
+    const other = await colleague(w.home.id, 'owner');
+    const refused = await other.post(`/api/pay-apps/${app.id}/payments`).send({});
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('PAYMENT_IN_PROGRESS');
+    expect(refused.body.error.message).toMatch(/^Another payment of pay application 904 is under way/);
+    // The owner's own second click a moment later is refused too, not a second checkout.
+    const again = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toMatch(/^Your payment of pay application 904 is under way/);
+    const firstId = first.body.paymentId as string;
+    const [kept] = await t.database.db.select().from(payments).where(eq(payments.id, firstId));
+    expect(kept!.status).toBe('created');
+    // Sixteen minutes on, the colleague may take over: the owner's checkout is ended and a new one opened.
+    await t.database.db
+      .update(payments)
+      .set({ createdAt: new Date(Date.now() - 16 * 60_000) })
+      .where(eq(payments.id, firstId));
+    const takeOver = await other.post(`/api/pay-apps/${app.id}/payments`).send({});
+    expect(takeOver.status, JSON.stringify(takeOver.body)).toBe(201);
+    const [ended] = await t.database.db.select().from(payments).where(eq(payments.id, firstId));
+    expect(ended!.status).toBe('canceled');
+    await confirm(t.standin, new URL(takeOver.body.url).pathname.split('/').pop()!, { card: CARD_OK });
+    const [row] = await t.database.db.select().from(payApps).where(eq(payApps.id, app.id));
+    expect(row).toMatchObject({ status: 'paid', paidCents: DUE });
+  });
 });

@@ -16,6 +16,9 @@ import {
   canPay,
   chargeAmount,
   chargedCents,
+  mayReplaceCheckout,
+  OTHERS_CHECKOUT_KEPT_MS,
+  OWN_CHECKOUT_KEPT_MS,
   PAYABLE_STATUSES,
 } from '../../../src/shared/policies/payments';
 import { feeQuote } from '../../../src/shared/domain/payment-fees';
@@ -87,6 +90,8 @@ const audit = (
 /** Ends earlier unpaid checkout attempts of this application, so two open sessions can never both be paid. */
 async function expireEarlierAttempts(ctx: AppContext, actor: Actor, payAppId: string) {
   for (const open of await repo.openPayments(ctx.db, payAppId)) {
+    // One still within its time is left open; the check under the row lock then refuses this start (409).
+    if (!mayReplaceCheckout(open, actor.userId)) continue;
     const expired = await ctx.payments!.expireSession(open.stripeCheckoutSessionId!).then(
       () => true,
       () => false,
@@ -126,10 +131,14 @@ async function refuseWhileAnotherAttemptIsOpen(tx: Executor, actor: Actor, app: 
       );
       continue;
     }
+    const own = other.createdByUserId === actor.userId;
+    const replaceable = new Date(
+      other.createdAt.getTime() + (own ? OWN_CHECKOUT_KEPT_MS : OTHERS_CHECKOUT_KEPT_MS),
+    ).toISOString();
     throw new AppError(
       409,
       'PAYMENT_IN_PROGRESS',
-      `Another payment of pay application ${app.number} is under way (started ${other.createdAt.toISOString()}). Finish or close that checkout, then reload; this request charged nothing.`,
+      `${own ? 'Your' : 'Another'} payment of pay application ${app.number} is under way (started ${other.createdAt.toISOString()}). Finish that checkout, or start again after ${replaceable} to replace it; this request charged nothing.`,
     );
   }
 }

@@ -60,3 +60,23 @@ export function chargedCents(p: {
 }): number {
   return p.feeBearer === 'payer' ? sumCents([p.amountCents, p.feeCents ?? 0]) : p.amountCents;
 }
+
+/** A checkout someone else opened is theirs to finish for this long; then anyone on the payer's seat may replace it. */
+export const OTHERS_CHECKOUT_KEPT_MS = 15 * 60_000;
+/** A payer's own checkout is replaced by their next start after this long; sooner, the two clicks were one. */
+export const OWN_CHECKOUT_KEPT_MS = 60_000;
+
+/**
+ * Whether a new start may end an open checkout (not yet paid) and open its own: the payer's own attempt after a
+ * minute (the tab was closed, they start again), another person's after fifteen minutes (they walked away). A
+ * checkout still within its time is refused with 409, so two people clicking Pay at once, or one double click,
+ * never hand out two checkouts and never end one that is being filled in. Common practice; the times are ours.
+ */
+export function mayReplaceCheckout(
+  open: { createdByUserId: string; createdAt: Date },
+  actorUserId: string,
+  now = Date.now(),
+): boolean {
+  const age = now - open.createdAt.getTime();
+  return open.createdByUserId === actorUserId ? age > OWN_CHECKOUT_KEPT_MS : age > OTHERS_CHECKOUT_KEPT_MS;
+}
