@@ -3,7 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bidItems, changeOrderItems } from '../../server/db/schema';
 import { makeWorld } from '../setup/factories';
 import { makeChangeOrder, makeProfiledItem } from '../setup/provisions-factories';
-import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+import { approveAndCertify } from '../setup/certify';
+import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 // An allowance item the change order added, paid by force account (MoDOT EPG 109.5: force account work is paid on
 // the signed daily records under the change order that authorised it). Invented figures, worked by hand: the
@@ -73,17 +74,7 @@ describe('an allowance drawn by force account days on the quantity watch', () =>
     );
     expect(await watchRowOf()).toMatchObject({ approvedToDate: 0, pending: 0.384, forecastAtCompletion: 0.384 });
 
-    const lines = app.lines.map((l: { id: string }) => ({ lineId: l.id, decision: 'approve' }));
-    expect(
-      (await gc.post(`/api/pay-apps/${app.id}/review`).send({ expectedRevision: app.revision, lines })).status,
-    ).toBe(200);
-    const flags = (await gc.get(`/api/pay-apps/${app.id}`)).body.payApp.flags as { key: string }[];
-    const certified = await gc.post(`/api/pay-apps/${app.id}/certify`).send({
-      expectedRevision: app.revision,
-      reauthPassword: TEST_PASSWORD,
-      acknowledgedFlags: flags.map((f) => f.key),
-    });
-    expect(certified.status).toBe(200);
+    await approveAndCertify(t.app, w.people.general_contractor.email, app);
     expect(await watchRowOf()).toMatchObject({
       approvedToDate: 0.384,
       pending: 0,

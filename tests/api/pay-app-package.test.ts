@@ -6,7 +6,8 @@ import { changeOrders } from '../../server/db/schema';
 import { makeBidItem, makeWorld } from '../setup/factories';
 import { makeBillableProject, makeTally } from '../setup/pay-cycle-factories';
 import { makeChangeOrder, makeProfiledItem, makeSource, makeStoredMaterial } from '../setup/provisions-factories';
-import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+import { submitAndCertify } from '../setup/certify';
+import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 // Invented figures (test data), every total worked by hand below. Items: A-1 1,000 CY at $7.25, B-2 500 LF at
 // $42.10, C-3 2,000 CY at $4.00 (truck measure), D-4 1,000 CY at $12.00 (weight): original contract $48,300.00.
@@ -81,23 +82,12 @@ type Pkg = {
 const amounts = (pkg: Pkg) => Object.fromEntries(pkg.summary.map((s) => [s.key, s.amountCents]));
 const row = (pkg: Pkg, item: string) => pkg.schedule.find((r) => r.itemNumber === item)!;
 
-async function certify(app: { id: string; revision: number; lines: { id: string }[] }) {
-  const sub = await as('subcontractor');
-  expect((await sub.post(`/api/pay-apps/${app.id}/submit`).send({ expectedRevision: app.revision })).status).toBe(200);
-  const gc = await as('general_contractor');
-  const lines = app.lines.map((l) => ({ lineId: l.id, decision: 'approve' }));
-  expect((await gc.post(`/api/pay-apps/${app.id}/review`).send({ expectedRevision: app.revision, lines })).status).toBe(
-    200,
+const certify = (app: { id: string; revision: number; lines: { id: string }[] }) =>
+  submitAndCertify(
+    t.app,
+    { subcontractor: w.people.subcontractor.email, generalContractor: w.people.general_contractor.email },
+    app,
   );
-  const flags = (await gc.get(`/api/pay-apps/${app.id}`)).body.payApp.flags as { key: string }[];
-  const res = await gc.post(`/api/pay-apps/${app.id}/certify`).send({
-    expectedRevision: app.revision,
-    reauthPassword: TEST_PASSWORD,
-    acknowledgedFlags: flags.map((f) => f.key),
-  });
-  expect(res.status).toBe(200);
-  return res.body.payApp;
-}
 
 let october: { id: string; revision: number; lines: { id: string }[]; currentDueCents: number; package: Pkg };
 

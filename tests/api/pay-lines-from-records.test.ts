@@ -12,7 +12,8 @@ import {
 import { makeWorld } from '../setup/factories';
 import { makeTally } from '../setup/pay-cycle-factories';
 import { makeChangeOrder, makeProfiledItem, makeSource } from '../setup/provisions-factories';
-import { createTestApp, signedInAgent, TEST_PASSWORD, type TestApp } from '../setup/test-app';
+import { submitAndCertify } from '../setup/certify';
+import { createTestApp, signedInAgent, type TestApp } from '../setup/test-app';
 
 // Invented figures (test data), worked by hand below. Items: L-1 borrow by truck measure, 5,000 CY at $6.00;
 // W-2 aggregate by weight, 800 TON at $21.50. Retainage 10 % (the project's rate), each line rounded once.
@@ -99,22 +100,12 @@ async function compile(periodStart: string, periodEnd: string) {
   return res.body.payApp;
 }
 
-async function certify(app: { id: string; revision: number; lines: { id: string }[] }) {
-  const sub = await as('subcontractor');
-  expect((await sub.post(`/api/pay-apps/${app.id}/submit`).send({ expectedRevision: app.revision })).status).toBe(200);
-  const gc = await as('general_contractor');
-  const lines = app.lines.map((l) => ({ lineId: l.id, decision: 'approve' }));
-  expect((await gc.post(`/api/pay-apps/${app.id}/review`).send({ expectedRevision: app.revision, lines })).status).toBe(
-    200,
+const certify = (app: { id: string; revision: number; lines: { id: string }[] }) =>
+  submitAndCertify(
+    t.app,
+    { subcontractor: w.people.subcontractor.email, generalContractor: w.people.general_contractor.email },
+    app,
   );
-  const flags = (await gc.get(`/api/pay-apps/${app.id}`)).body.payApp.flags as { key: string }[];
-  const res = await gc.post(`/api/pay-apps/${app.id}/certify`).send({
-    expectedRevision: app.revision,
-    reauthPassword: TEST_PASSWORD,
-    acknowledgedFlags: flags.map((f) => f.key),
-  });
-  expect(res.status).toBe(200);
-}
 
 type Line = {
   bidItemId: string;
