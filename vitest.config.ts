@@ -32,6 +32,7 @@ export default defineConfig({
         resolve,
         test: {
           ...shared,
+          setupFiles: ['tests/setup/dom-waits.ts'],
           name: 'tests',
           include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
           exclude: [...configDefaults.exclude, ...ALONE],
