@@ -167,7 +167,7 @@ describe('bid schedule table', () => {
     render(<BidScheduleTable items={[haul, ditch]} contractSumCents={200_000} filter="" />);
     const [, haulRow, ditchRow] = within(screen.getByRole('table')).getAllByRole('row');
     expect(within(haulRow!).getAllByRole('cell')[2]?.textContent).toBe(
-      'Counted loads (truck register)Tallies (truck tickets) kept as backup',
+      'Counted loads (truck register)Tallies kept as backup only',
     );
     expect(within(ditchRow!).getAllByRole('cell')[2]?.textContent).toBe('Cross sections (end areas)');
   });

@@ -76,7 +76,7 @@ export function bidItemColumns(actions: RowActions | undefined) {
                 className="block text-xs text-stone-500"
                 title={`Item ${row.original.itemNumber} is ${row.original.talliesNotBilled}.`}
               >
-                Tallies ({MEASUREMENT_METHOD_LABELS[row.original.method].toLowerCase()}) kept as backup
+                Tallies kept as backup only
               </span>
             ) : null}
           </>
