@@ -323,7 +323,9 @@ describe('two payments of the same balance at once', () => {
     const refused = await other.post(`/api/pay-apps/${app.id}/payments`).send({});
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('PAYMENT_IN_PROGRESS');
-    expect(refused.body.error.message).toMatch(/^Another payment of pay application 904 is under way/);
+    expect(refused.body.error.message).toMatch(
+      /^Another payment of pay application 904 is under way \(started at \d\d:\d\d UTC on \d{4}-\d\d-\d\d\)\. Finish that checkout, or start again after \d\d:\d\d UTC on /,
+    );
     // The owner's own second click a moment later is refused too, not a second checkout.
     const again = await owner.post(`/api/pay-apps/${app.id}/payments`).send({});
     expect(again.status).toBe(409);

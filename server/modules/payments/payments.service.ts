@@ -107,6 +107,9 @@ async function expireEarlierAttempts(ctx: AppContext, actor: Actor, payAppId: st
   }
 }
 
+/** "14:05 UTC on 2026-12-05": a moment in words a payer reads the same wherever they are. */
+const clock = (at: Date) => `${at.toISOString().slice(11, 16)} UTC on ${at.toISOString().slice(0, 10)}`;
+
 /** An attempt saved without a checkout session this long ago was cut off (the process ended mid-request). */
 const ABANDONED_AFTER_MS = 2 * 60_000;
 
@@ -132,13 +135,16 @@ async function refuseWhileAnotherAttemptIsOpen(tx: Executor, actor: Actor, app: 
       continue;
     }
     const own = other.createdByUserId === actor.userId;
-    const replaceable = new Date(
-      other.createdAt.getTime() + (own ? OWN_CHECKOUT_KEPT_MS : OTHERS_CHECKOUT_KEPT_MS),
-    ).toISOString();
+    // One cut off before its checkout opened is ended after two minutes (above); an open one by its payer's rule.
+    const kept = !other.stripeCheckoutSessionId
+      ? ABANDONED_AFTER_MS
+      : own
+        ? OWN_CHECKOUT_KEPT_MS
+        : OTHERS_CHECKOUT_KEPT_MS;
     throw new AppError(
       409,
       'PAYMENT_IN_PROGRESS',
-      `${own ? 'Your' : 'Another'} payment of pay application ${app.number} is under way (started ${other.createdAt.toISOString()}). Finish that checkout, or start again after ${replaceable} to replace it; this request charged nothing.`,
+      `${own ? 'Your' : 'Another'} payment of pay application ${app.number} is under way (started at ${clock(other.createdAt)}). Finish that checkout, or start again after ${clock(new Date(other.createdAt.getTime() + kept))} to replace it; this request charged nothing.`,
     );
   }
 }
