@@ -308,6 +308,34 @@ describe('point files and faces as original ground', () => {
     expect((await t.database.db.select().from(auditEvents)).length).toBe(before);
   });
 
+  it('reads a point file over 1 MB in the compute pool: the same refusals by line, and the points as sent', async () => {
+    // 220 x 220 points 5 ft apart (about 1.1 MB), PNEZD with a header: northing = row, easting = column.
+    const rows: string[] = ['P,N,E,Z,D'];
+    for (let i = 0; i < 220; i++)
+      for (let j = 0; j < 220; j++) rows.push(`${i * 220 + j + 1},${5 * i},${5 * j},${100 + i / 100},EG`);
+    const text = rows.join('\n');
+    expect(text.length).toBeGreaterThan(1024 * 1024);
+    const bad = `${text}\n48401,5,abc,100,EG`;
+    const refused = await recordFile(bad, 'dense-points.csv', { area: 'Dense points', unit: 'ft' });
+    expect([refused.status, refused.body.error.code]).toEqual([400, 'BASELINE_FILE_INVALID']);
+    expect(refused.body.error.details).toEqual([
+      { path: 'file', message: 'Line 48402, easting: "abc" is not a number' },
+    ]);
+    const res = await recordFile(text, 'dense-points.csv', { area: 'Dense points', unit: 'ft' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.baseline).toMatchObject({ pointCount: 48_400, pointOrder: 'PNEZD', linearUnit: 'foot' });
+    // The packed points were read back whole: the last point is easting 1,095, northing 1,095, elevation 102.19.
+    const [row] = await t.database.db
+      .select({ points: surfaceBaselines.points })
+      .from(surfaceBaselines)
+      .where(eq(surfaceBaselines.id, res.body.baseline.id));
+    const copy = new Uint8Array(row!.points.byteLength);
+    copy.set(row!.points);
+    const xyz = new Float64Array(copy.buffer);
+    expect(xyz.length).toBe(3 * 48_400);
+    expect(Array.from(xyz.slice(-3))).toEqual([1095, 1095, 102.19]);
+  }, 60_000);
+
   it('refuses a LandXML surface whose faces overlap in plan without sharing an edge, naming the faces and the surface', async () => {
     // Faces 1-2-3 and 1-3-4 cover the square; a third face over points 2, 4 and the centre lies across both.
     const folded = ground(30.48)

@@ -1,5 +1,6 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { ApiErrorDetail } from '../../../src/shared/schemas/api-error';
+import type { LandXmlIssue, PointOrder } from '../../../src/shared/landxml';
 
 /** The fields of a surface upload that carry survey files. */
 export const SURVEY_FIELDS = ['existing', 'design'] as const;
@@ -13,7 +14,21 @@ export type ComputeTask =
   /** Surface to surface from a multipart form (`unit`, files `existing` and `design`) streamed through `port`. */
   | { kind: 'surface-files'; contentType: string; port: MessagePort }
   /** A surface's faces checked as the volume engine builds them (points there, no overlap in plan): a baseline's. */
-  | { kind: 'surface-faces'; x: Float64Array; y: Float64Array; faces: Uint32Array };
+  | { kind: 'surface-faces'; x: Float64Array; y: Float64Array; faces: Uint32Array }
+  /**
+   * A point file (CSV) read from the uploaded temp file at `path`: the answer is `PointFileRead` as JSON, the
+   * points packed beside it at `${path}.xyz` (x, y, z float64 triples) when the file reads clean.
+   */
+  | { kind: 'point-file'; path: string; order: PointOrder | null };
+
+/** What the compute pool read from a point file; the points themselves are in `packedPath`, when there. */
+export type PointFileRead = {
+  order: PointOrder | null;
+  needsOrder: boolean;
+  issues: LandXmlIssue[];
+  count: number;
+  packedPath: string | null;
+};
 
 /** Limits of a survey upload: each file, and the form's parts. */
 export const SURVEY_LIMITS = { fileBytes: 64 * 1024 * 1024, files: 2, fields: 2, parts: 6, fieldBytes: 1024 } as const;

@@ -1,10 +1,18 @@
+import { readFile, writeFile } from 'node:fs/promises';
 import type { MessagePort } from 'node:worker_threads';
 import { LENGTH_UNITS } from '../../../src/shared/constants';
 import { runCalc } from '../../../src/shared/domain/calc';
 import { isDomainError } from '../../../src/shared/domain/domain-error';
 import { surfaceVolumeFromPoints } from '../../../src/shared/domain/earthwork/surface';
 import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
-import { SURVEY_FIELDS, type BodyMessage, type ComputeOutcome, type ComputeTask } from './compute-protocol';
+import { readPointCsv, type PointOrder } from '../../../src/shared/landxml';
+import {
+  SURVEY_FIELDS,
+  type BodyMessage,
+  type ComputeOutcome,
+  type ComputeTask,
+  type PointFileRead,
+} from './compute-protocol';
 import { readSurveyForm } from './survey-form';
 
 const refuse = (
@@ -94,10 +102,34 @@ function surfaceFaces(x: Float64Array, y: Float64Array, faces: Uint32Array): Com
   }
 }
 
+/** A point file parsed off the request thread; clean points are packed into a file beside the upload. */
+async function pointFile(path: string, order: PointOrder | null): Promise<ComputeOutcome> {
+  const f = readPointCsv(await readFile(path, 'utf8'), order ?? undefined);
+  const read: PointFileRead = {
+    order: f.order,
+    needsOrder: f.needsOrder,
+    issues: f.issues,
+    count: f.x.length,
+    packedPath: null,
+  };
+  if (!f.needsOrder && f.issues.length === 0) {
+    const xyz = new Float64Array(3 * f.x.length);
+    for (let i = 0; i < f.x.length; i++) {
+      xyz[3 * i] = f.x[i]!;
+      xyz[3 * i + 1] = f.y[i]!;
+      xyz[3 * i + 2] = f.z[i]!;
+    }
+    read.packedPath = `${path}.xyz`;
+    await writeFile(read.packedPath, Buffer.from(xyz.buffer));
+  }
+  return { ok: true, json: JSON.stringify(read) };
+}
+
 /** The compute pool's task (a worker thread): the quantity engine, off the server's request thread. */
 export default async function computeTask(task: ComputeTask): Promise<ComputeOutcome> {
   if (task.kind === 'calc') return calc(task.method, task.input);
   if (task.kind === 'calc-json') return calcJson(task.method, task.port);
   if (task.kind === 'surface-faces') return surfaceFaces(task.x, task.y, task.faces);
+  if (task.kind === 'point-file') return pointFile(task.path, task.order);
   return surfaceFiles(task.contentType, task.port);
 }

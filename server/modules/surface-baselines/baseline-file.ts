@@ -1,5 +1,5 @@
 import { createReadStream } from 'node:fs';
-import { readFile } from 'node:fs/promises';
+import { readFile, rm } from 'node:fs/promises';
 import { MAX_BASELINE_BYTES } from '../../../src/shared/constants';
 import {
   factorTo,
@@ -13,6 +13,7 @@ import { DomainError } from '../../../src/shared/domain/domain-error';
 import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
 import { AppError } from '../../lib/app-error';
 import type { ComputePool } from '../../lib/compute/compute-pool';
+import type { PointFileRead } from '../../lib/compute/compute-protocol';
 import { streamedUpload, type UploadedFile } from '../../lib/upload';
 import { safeFileName } from '../tallies/evidence-files';
 
@@ -83,33 +84,60 @@ async function readPointFileBaseline(
   fileName: string,
   unit: 'ft' | 'm' | undefined,
   order: PointOrder | undefined,
+  compute?: ComputePool,
 ): Promise<BaselineSurface> {
-  const text = await readFile(up.path, 'utf8');
-  const f = readPointCsv(text, order);
-  if (f.needsOrder) {
-    const message = `${fileName} has no header naming its columns: say whether it is PNEZD (northing first) or PENZD (easting first)`;
-    throw new AppError(400, 'BASELINE_ORDER_REQUIRED', message, [{ path: 'order', message }]);
+  const read = compute && up.size > INLINE_POINT_FILE_BYTES ? await pointFileInPool(up, order, compute) : undefined;
+  try {
+    const f: PointFileBasics = read ?? inlinePointFile(await readFile(up.path, 'utf8'), order);
+    if (f.needsOrder) {
+      const message = `${fileName} has no header naming its columns: say whether it is PNEZD (northing first) or PENZD (easting first)`;
+      throw new AppError(400, 'BASELINE_ORDER_REQUIRED', message, [{ path: 'order', message }]);
+    }
+    if (f.issues.length > 0) throw refuseIssues(fileName, 'a point file', f.issues);
+    if (f.count < 3) throw invalid(`${fileName} holds fewer than 3 points`);
+    if (!unit) throw unitsRequired(fileName, 'is a point file, which carries no units');
+    const u: LandXmlLengthUnit = unit === 'ft' ? 'foot' : 'meter';
+    return {
+      fileName,
+      sizeBytes: up.size,
+      sha256: up.sha256,
+      path: up.path,
+      surfaceName: `Points (${f.order})`,
+      pointCount: f.count,
+      linearUnit: u,
+      elevationUnit: u,
+      unitsFrom: 'recorder',
+      points: f.points ?? (await readFile(read!.packedPath!)),
+      faces: null,
+      breaklines: null,
+      contentType: 'text/csv',
+      pointOrder: f.order,
+    };
+  } finally {
+    if (read?.packedPath) await rm(read.packedPath, { force: true });
   }
-  if (f.issues.length > 0) throw refuseIssues(fileName, 'a point file', f.issues);
-  if (f.x.length < 3) throw invalid(`${fileName} holds fewer than 3 points`);
-  if (!unit) throw unitsRequired(fileName, 'is a point file, which carries no units');
-  const u: LandXmlLengthUnit = unit === 'ft' ? 'foot' : 'meter';
+}
+
+/** Point files above this size are read in the compute pool, so a large one never holds the request thread. */
+const INLINE_POINT_FILE_BYTES = 1024 * 1024;
+
+type PointFileBasics = Omit<PointFileRead, 'packedPath'> & { points?: Buffer };
+
+function inlinePointFile(text: string, order: PointOrder | undefined): PointFileBasics {
+  const f = readPointCsv(text, order);
   return {
-    fileName,
-    sizeBytes: up.size,
-    sha256: up.sha256,
-    path: up.path,
-    surfaceName: `Points (${f.order})`,
-    pointCount: f.x.length,
-    linearUnit: u,
-    elevationUnit: u,
-    unitsFrom: 'recorder',
+    order: f.order,
+    needsOrder: f.needsOrder,
+    issues: f.issues,
+    count: f.x.length,
     points: packed(f.x, f.y, f.z),
-    faces: null,
-    breaklines: null,
-    contentType: 'text/csv',
-    pointOrder: f.order,
   };
+}
+
+async function pointFileInPool(up: UploadedFile, order: PointOrder | undefined, compute: ComputePool) {
+  const outcome = await compute.run({ kind: 'point-file', path: up.path, order: order ?? null });
+  if (!outcome.ok) throw new AppError(outcome.status, outcome.code, outcome.message, outcome.details);
+  return JSON.parse(outcome.json) as PointFileRead;
 }
 
 /**
@@ -130,7 +158,7 @@ export async function readBaselineFile(
       { path: 'file', message: 'Required' },
     ]);
   const fileName = safeFileName(up.originalname);
-  if (/\.(csv|txt)$/i.test(fileName)) return readPointFileBaseline(up, fileName, unit, order);
+  if (/\.(csv|txt)$/i.test(fileName)) return readPointFileBaseline(up, fileName, unit, order, compute);
   if (!/\.(xml|landxml)$/i.test(fileName))
     throw invalid(`${fileName}: an original ground surface is a LandXML file (.xml) or a point file (.csv)`);
   const doc = await readLandXmlStream(createReadStream(up.path, { encoding: 'utf8', highWaterMark: 1 << 20 }));
