@@ -154,12 +154,10 @@ describe('truck register and truck tickets', () => {
     expect(missing.body.error.details.map((d: { column: string }) => d.column)).toContain('delivered_on');
     // A load dated a year ahead (the year mistyped) is refused on its line, and the whole file with it.
     const nextYear = new Date().getUTCFullYear() + 1;
-    const ahead = await gc
-      .post(`/api/projects/${w.home.id}/truck-tickets/import`)
-      .send({
-        bidItemId: item.id,
-        csv: `${header}\n${nextYear}-01-06,T-12,Select borrow,Hollis pit,Face 2,Sta 16+00,RB,MK,\n`,
-      });
+    const ahead = await gc.post(`/api/projects/${w.home.id}/truck-tickets/import`).send({
+      bidItemId: item.id,
+      csv: `${header}\n${nextYear}-01-06,T-12,Select borrow,Hollis pit,Face 2,Sta 16+00,RB,MK,\n`,
+    });
     expect(ahead.status).toBe(400);
     expect(ahead.body.error.details).toEqual([
       expect.objectContaining({ line: 2, column: 'delivered_on', message: 'Cannot be a day still to come' }),
