@@ -5,7 +5,7 @@ import { runCalc } from '../../../src/shared/domain/calc';
 import { isDomainError } from '../../../src/shared/domain/domain-error';
 import { surfaceVolumeFromPoints } from '../../../src/shared/domain/earthwork/surface';
 import { buildTin } from '../../../src/shared/domain/earthwork/surface-tin';
-import { readPointCsv, type PointOrder } from '../../../src/shared/landxml';
+import { packXyz, readPointCsv, type PointOrder } from '../../../src/shared/landxml';
 import {
   SURVEY_FIELDS,
   type BodyMessage,
@@ -113,14 +113,8 @@ async function pointFile(path: string, order: PointOrder | null): Promise<Comput
     packedPath: null,
   };
   if (!f.needsOrder && f.issues.length === 0) {
-    const xyz = new Float64Array(3 * f.x.length);
-    for (let i = 0; i < f.x.length; i++) {
-      xyz[3 * i] = f.x[i]!;
-      xyz[3 * i + 1] = f.y[i]!;
-      xyz[3 * i + 2] = f.z[i]!;
-    }
     read.packedPath = `${path}.xyz`;
-    await writeFile(read.packedPath, Buffer.from(xyz.buffer));
+    await writeFile(read.packedPath, Buffer.from(packXyz(f.x, f.y, f.z).buffer));
   }
   return { ok: true, json: JSON.stringify(read) };
 }

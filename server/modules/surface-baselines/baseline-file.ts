@@ -4,6 +4,7 @@ import { MAX_BASELINE_BYTES } from '../../../src/shared/constants';
 import {
   factorTo,
   readLandXmlStream,
+  packXyz,
   readPointCsv,
   type LandXmlIssue,
   type LandXmlLengthUnit,
@@ -57,16 +58,8 @@ const refuseIssues = (fileName: string, what: string, issues: LandXmlIssue[]) =>
     })),
   );
 
-const packed = (x: ArrayLike<number>, y: ArrayLike<number>, z: ArrayLike<number>) => {
-  const n = x.length;
-  const xyz = new Float64Array(3 * n);
-  for (let i = 0; i < n; i++) {
-    xyz[3 * i] = x[i]!;
-    xyz[3 * i + 1] = y[i]!;
-    xyz[3 * i + 2] = z[i]!;
-  }
-  return Buffer.from(xyz.buffer);
-};
+const packed = (x: ArrayLike<number>, y: ArrayLike<number>, z: ArrayLike<number>) =>
+  Buffer.from(packXyz(x, y, z).buffer);
 
 const unitsRequired = (fileName: string, why: string) => {
   const message = `${fileName} ${why}: say whether its coordinates and elevations are in feet or metres`;

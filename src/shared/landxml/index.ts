@@ -1,4 +1,5 @@
 export { boundariesIn, breaklinesIn, sectionsIn, surfacePointsIn, unitFactors } from './convert';
+export { packXyz } from './pack';
 export { POINT_ORDERS, orderFromHeader, readPointCsv, type PointFile, type PointOrder } from './point-csv';
 export {
   LandXmlReader,
